@@ -1,0 +1,245 @@
+/**
+ * `Results`: the one hand-off between computation and rendering, and the `results.json` contract
+ * (version 1). HTML, Markdown and JSON are three renderings of the same value. Numbers that do not
+ * exist (an interval with one seed, a p-value that cannot be computed) are `null`, never NaN.
+ * Keys never change meaning within version 1; new keys may be added.
+ */
+import type { Goal, IdentitySource, RunStatus } from '../ingest/types.js';
+import type { Problem } from '../problems.js';
+
+export type Verdict = 'better' | 'worse' | 'inconclusive';
+export type Correction = 'holm' | 'bh' | 'none';
+export type DivergedPolicy = 'exclude' | 'worst';
+export type FailOn = 'worse' | 'not-better';
+export type IntervalMethod = 'welch-t' | 't' | 'bca' | 'percentile' | 'expanded-percentile' | 'bootstrap-t' | 'none';
+
+/** A run summary: how one run's curve becomes one number (DESIGN.md `--summary`). */
+export type SummarySpec =
+  | { readonly kind: 'final' }
+  | { readonly kind: 'last'; readonly percent: number }
+  | { readonly kind: 'best' }
+  | { readonly kind: 'auc' }
+  | { readonly kind: 'reach'; readonly value: number }
+  | { readonly kind: 'step'; readonly step: number };
+
+export interface Settings {
+  readonly alpha: number;
+  readonly seed: number;
+  readonly correction: Correction;
+  /** The summary as typed, e.g. `last:10%`. */
+  readonly summary: string;
+  readonly baseline: string | null;
+  readonly taskKey: string | null;
+  readonly margin: number | null;
+  readonly paired: boolean;
+  readonly diverged: DivergedPolicy;
+  readonly failOn: FailOn | null;
+  /** Bootstrap resamples for intervals that decide something (10,000) and for bands (2,000). */
+  readonly resamples: number;
+  readonly bandResamples: number;
+  /** Runs per arm at which intervals switch from Welch/t to BCa bootstrap (20). */
+  readonly bootstrapFrom: number;
+  readonly level: number;
+}
+
+export interface RunRecord {
+  readonly id: string;
+  readonly config: string;
+  readonly seed: string;
+  readonly params: Readonly<Record<string, string>>;
+  readonly info: Readonly<Record<string, string>>;
+  readonly files: readonly string[];
+  readonly identity: IdentitySource;
+  readonly status: RunStatus;
+  readonly lastStep: number;
+  readonly divergedAt: number | null;
+  /** Messages of the problems that name this run. */
+  readonly problems: readonly string[];
+}
+
+export interface ConfigRecord {
+  readonly id: string;
+  readonly params: Readonly<Record<string, string>>;
+  readonly seeds: readonly string[];
+  readonly runs: number;
+  readonly diverged: number;
+  readonly short: number;
+}
+
+export interface MetricRecord {
+  readonly name: string;
+  readonly goal: Goal;
+  readonly goalSource: 'option' | 'inferred';
+  readonly kind: 'scalar' | 'tick';
+  readonly ticks: number;
+  /** Last step every compared run reached for this metric (null for score tables). */
+  readonly horizon: number | null;
+  readonly firstStep: number | null;
+  readonly lastStep: number | null;
+}
+
+/** One run's summary value for one metric. `value` null when the run has none (censored, diverged, missing). */
+export interface RunValue {
+  readonly metric: string;
+  readonly summary: string;
+  readonly run: string;
+  readonly config: string;
+  readonly seed: string;
+  readonly value: number | null;
+  /** Why there is no value, or how it was obtained (e.g. `diverged: counted as worst`). */
+  readonly note: string | null;
+  readonly usedInTests: boolean;
+}
+
+/** A difference with its interval: candidate - baseline, in the metric's units. */
+export interface Difference {
+  readonly estimate: number;
+  readonly low: number | null;
+  readonly high: number | null;
+  readonly level: number;
+  readonly method: IntervalMethod;
+}
+
+export interface Comparison {
+  readonly metric: string;
+  readonly goal: Goal;
+  readonly summary: string;
+  /** Task value when --task-key is used, else null. */
+  readonly task: string | null;
+  readonly baseline: string;
+  readonly candidate: string;
+  readonly n: { readonly baseline: number; readonly candidate: number };
+  readonly mean: { readonly baseline: number | null; readonly candidate: number | null };
+  readonly sd: { readonly baseline: number | null; readonly candidate: number | null };
+  /** Diverged runs in each arm (excluded, or counted as worst under --diverged worst). */
+  readonly diverged: { readonly baseline: number; readonly candidate: number };
+  readonly difference: Difference;
+  readonly tests: {
+    readonly welch: { readonly statistic: number | null; readonly df: number | null; readonly p: number | null };
+    readonly permutation: { readonly p: number | null; readonly exact: boolean };
+    readonly mannWhitney: { readonly u: number | null; readonly p: number | null; readonly exact: boolean };
+    /** Under --paired: paired t and Wilcoxon signed-rank on seeds present in both arms. */
+    readonly paired?: { readonly t: number | null; readonly df: number | null; readonly p: number | null; readonly wilcoxonP: number | null; readonly pairs: number };
+  };
+  /** The primary test's p (Welch, or paired t under --paired) and its adjusted value. */
+  readonly p: number | null;
+  readonly pAdjusted: number | null;
+  readonly verdict: Verdict;
+  /** Under --margin: one-sided Welch test that the candidate is not worse by more than the margin. */
+  readonly nonInferiority: { readonly margin: number; readonly p: number | null; readonly holds: boolean } | null;
+  readonly effect: {
+    readonly hedgesG: number | null;
+    readonly hedgesGLow: number | null;
+    readonly hedgesGHigh: number | null;
+    /** P(candidate better than baseline) + ties/2, in the goal's direction. */
+    readonly probabilityOfImprovement: number | null;
+    readonly cliffsDelta: number | null;
+    readonly cliffsDeltaLow: number | null;
+    readonly cliffsDeltaHigh: number | null;
+  };
+  readonly detectable: {
+    /** Pooled between-seed standard deviation used for power. */
+    readonly sd: number | null;
+    /** Smallest difference detectable with 80% power at the current seed counts (metric units). */
+    readonly minimumEffect: number | null;
+    /** Seeds per arm to detect the observed difference with 80% power (null when it is 0 or undefined). */
+    readonly seedsFor80: number | null;
+  };
+  /** Plain-language caution lines (few seeds, skew, tests disagree, unequal seeds, inferred goal, ...). */
+  readonly cautions: readonly string[];
+}
+
+/** A learning curve of one config for one metric on the shared step grid. */
+export interface Curve {
+  readonly metric: string;
+  readonly config: string;
+  /** Bin centres (steps). */
+  readonly steps: readonly number[];
+  readonly mean: readonly (number | null)[];
+  readonly low: readonly (number | null)[];
+  readonly high: readonly (number | null)[];
+  /** Runs contributing to each bin (no extrapolation past a run's last step). */
+  readonly n: readonly number[];
+  readonly band: IntervalMethod;
+  readonly level: number;
+  /** Per-run binned values (for thin per-seed lines): run id → values per bin. */
+  readonly runs: readonly { readonly run: string; readonly seed: string; readonly values: readonly (number | null)[] }[];
+}
+
+/** Aggregates across tasks (--task-key), Agarwal et al. 2021. */
+export interface TaskAggregate {
+  readonly metric: string;
+  readonly config: string;
+  readonly interquartileMean: number | null;
+  readonly low: number | null;
+  readonly high: number | null;
+  readonly tasks: number;
+  /** Average over tasks of P(config better than the baseline). Null for the baseline itself. */
+  readonly probabilityOfImprovement: number | null;
+  readonly baseline: string | null;
+  /** Performance profile: fraction of task x run scores above each threshold. */
+  readonly profile: { readonly thresholds: readonly number[]; readonly fraction: readonly number[] };
+}
+
+/** Accuracy (or any per-tick metric) by tick for one config. */
+export interface TickCurve {
+  readonly metric: string;
+  readonly config: string;
+  readonly step: number | null;
+  readonly ticks: readonly number[];
+  readonly mean: readonly (number | null)[];
+  readonly low: readonly (number | null)[];
+  readonly high: readonly (number | null)[];
+  readonly n: readonly number[];
+  readonly band: IntervalMethod;
+  /** Between-example half-width sqrt(p(1-p)/m) per tick when the number of evaluated examples m is known. */
+  readonly exampleHalfWidth: readonly (number | null)[] | null;
+  /** Earliest tick within the tolerance of the best tick, with its spread across seeds. */
+  readonly earliestGood: { readonly tick: number; readonly low: number | null; readonly high: number | null; readonly tolerance: number } | null;
+  /** Per-tick comparison against the baseline config (Holm across ticks), null for the baseline. */
+  readonly versusBaseline: readonly { readonly tick: number; readonly difference: number | null; readonly pAdjusted: number | null; readonly verdict: Verdict }[] | null;
+}
+
+export interface HaltingCurve {
+  readonly config: string;
+  readonly thresholds: readonly number[];
+  /** Per threshold: mean across seeds of accuracy at exit, and interval. */
+  readonly accuracy: readonly { readonly mean: number | null; readonly low: number | null; readonly high: number | null }[];
+  /** Per threshold: mean across seeds of the mean exit tick, and interval. */
+  readonly exitTick: readonly { readonly mean: number | null; readonly low: number | null; readonly high: number | null }[];
+  readonly seeds: number;
+  readonly samples: number;
+  readonly ticks: number;
+  /** Histogram of exit ticks at the reference threshold (counts summed over runs). */
+  readonly exitHistogram: { readonly threshold: number; readonly counts: readonly number[] };
+}
+
+export interface CalibrationCurve {
+  readonly config: string;
+  readonly bins: number;
+  /** Expected calibration error per tick: mean across seeds and interval. */
+  readonly ece: readonly { readonly tick: number; readonly mean: number | null; readonly low: number | null; readonly high: number | null }[];
+  /** Reliability diagram at the last tick: per bin, mean confidence, accuracy, count (summed over seeds). */
+  readonly reliability: readonly { readonly low: number; readonly high: number; readonly confidence: number | null; readonly accuracy: number | null; readonly count: number }[];
+}
+
+export interface Results {
+  readonly format: 'seedsift-results';
+  readonly version: 1;
+  readonly tool: { readonly name: 'seedsift'; readonly version: string };
+  /** ISO date of the report (from SOURCE_DATE_EPOCH when set). */
+  readonly generated: string;
+  readonly settings: Settings;
+  readonly inputs: { readonly paths: readonly string[]; readonly mode: 'logs' | 'scores'; readonly files: number; readonly filesRead: number };
+  readonly configs: readonly ConfigRecord[];
+  readonly metrics: readonly MetricRecord[];
+  readonly runs: readonly RunRecord[];
+  readonly values: readonly RunValue[];
+  readonly comparisons: readonly Comparison[];
+  readonly curves: readonly Curve[];
+  readonly tasks: readonly TaskAggregate[];
+  readonly ticks: readonly TickCurve[];
+  readonly halting: readonly HaltingCurve[];
+  readonly calibration: readonly CalibrationCurve[];
+  readonly problems: readonly Problem[];
+}
