@@ -1,0 +1,139 @@
+/**
+ * Writes the demo study in sample-runs/ (deterministic: same bytes every time).
+ *
+ * The scenario (invented for seedsift's demo): a lab trains a tick-based recurrent classifier on a
+ * synthetic "glyph counting" task (count the marks in a small procedurally drawn image; 10 classes).
+ * It varies the number of internal ticks (8, 16, 32) and the activation-memory length (4, 12),
+ * 5 seeds each: 30 runs. Layout: ticks=<k>/memory=<m>/seed=<s>/metrics.csv (Hive-style folders).
+ *
+ * Planted effects (what a correct analysis must find; tests rely on these):
+ * - val_acc at the end of training: 0.78 at 8 ticks, +0.03 at 16 ticks, +0.05 at 32 ticks;
+ *   memory length has NO effect. Seed-to-seed spread (sd of a run's level) 0.008.
+ *   So ticks=32 beats ticks=8 and ticks=16 beats ticks=8; memory=12 vs memory=4 is null.
+ * - val_loss mirrors val_acc (lower with more ticks), memory has no effect.
+ * - per-tick accuracy val_acc@k rises with k and plateaus; more ticks reach a higher plateau.
+ * - certainty@k rises with k.
+ *
+ * Messy cases planted on purpose (each must be reported, none silently lost):
+ * - ticks=32/memory=12/seed=4 diverges: train_loss and val_loss become nan from step 1400 on.
+ * - ticks=16/memory=4/seed=2 was resumed: steps 1000..1190 are logged twice (the later rows win).
+ * - ticks=8/memory=12/seed=3 stops early at step 1300 (the others reach 2000).
+ * - train rows (every 10 steps) and eval rows (every 100 steps) share one file, so eval columns
+ *   are empty on train rows.
+ *
+ * Per-sample tick dumps at the final checkpoint (columns sample, tick, correct, certainty,
+ * confidence, step; gzipped) for ticks=8/memory=4 and ticks=32/memory=4: later ticks are more often
+ * correct and more certain; confidence is over-confident at early ticks.
+ *
+ * Run: npm run sample-runs
+ */
+import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { gzipSync } from 'node:zlib';
+import { createRandom, type Random } from '../src/stats/random.js';
+
+const root = dirname(fileURLToPath(import.meta.url));
+const TICKS = [8, 16, 32] as const;
+const MEMORY = [4, 12] as const;
+const SEEDS = 5;
+const LAST_STEP = 2000;
+const TRAIN_EVERY = 10;
+const EVAL_EVERY = 100;
+const SAMPLES = 300;
+const TICK_GAIN: Record<number, number> = { 8: 0, 16: 0.03, 32: 0.05 };
+
+function gauss(random: Random): number {
+  // Box-Muller; 1 - next() keeps the argument of log in (0, 1].
+  const u = 1 - random.next();
+  const v = random.next();
+  return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * v);
+}
+
+const fmt = (x: number): string => (Number.isFinite(x) ? Number(x.toPrecision(6)).toString() : 'nan');
+
+interface RunPlan { ticks: number; memory: number; seed: number }
+
+function writeRun(plan: RunPlan, random: Random): void {
+  const { ticks, memory, seed } = plan;
+  const dir = join(root, `ticks=${ticks}`, `memory=${memory}`, `seed=${seed}`);
+  mkdirSync(dir, { recursive: true });
+  const level = 0.78 + (TICK_GAIN[ticks] ?? 0) + 0.008 * gauss(random);
+  const speed = 1 + 0.1 * gauss(random);
+  const diverges = ticks === 32 && memory === 12 && seed === 4;
+  const resumed = ticks === 16 && memory === 4 && seed === 2;
+  const stopsAt = ticks === 8 && memory === 12 && seed === 3 ? 1300 : LAST_STEP;
+  const tickCols = Array.from({ length: ticks }, (_, k) => `val_acc@${k}`);
+  const certCols = Array.from({ length: ticks }, (_, k) => `certainty@${k}`);
+  const header = ['step', 'train_loss', 'val_loss', 'val_acc', ...tickCols, ...certCols];
+  const lines = [header.join(',')];
+  const row = (step: number, jitter: number): string => {
+    const progress = 1 - Math.exp(-(step / LAST_STEP) * 4 * speed);
+    const acc = 0.1 + (level - 0.1) * progress;
+    const gone = diverges && step >= 1400;
+    const trainLoss = gone ? NaN : 2.3 * (1 - progress) + 0.25 - 0.5 * (level - 0.78) + 0.03 * Math.abs(gauss(random)) + jitter;
+    const cells = [String(step), fmt(trainLoss)];
+    if (step % EVAL_EVERY === 0) {
+      const valAcc = acc + 0.006 * gauss(random) + jitter;
+      const valLoss = gone ? NaN : 2.3 * (1 - progress) + 0.45 - 1.5 * (level - 0.78) + 0.02 * gauss(random);
+      cells.push(fmt(valLoss), fmt(valAcc));
+      for (let k = 0; k < ticks; k++) {
+        const reach = 1 - Math.exp(-(k + 1) / (ticks / 4));
+        cells.push(fmt(0.1 + (valAcc - 0.1) * reach + 0.004 * gauss(random)));
+      }
+      for (let k = 0; k < ticks; k++) {
+        const c = (0.2 + 0.75 * (1 - Math.exp(-(k + 1) / (ticks / 3)))) * (0.5 + 0.5 * progress);
+        cells.push(fmt(Math.min(1, Math.max(0, c + 0.01 * gauss(random)))));
+      }
+    } else {
+      cells.push(...new Array<string>(1 + 2 * ticks).fill(''));
+    }
+    return cells.join(',');
+  };
+  for (let step = TRAIN_EVERY; step <= stopsAt; step += TRAIN_EVERY) {
+    lines.push(row(step, 0));
+    if (resumed && step === 1190) {
+      // The job was killed after step 1190 and resumed from the checkpoint at step 990.
+      for (let again = 1000; again <= 1190; again += TRAIN_EVERY) lines.push(row(again, 0.001));
+    }
+  }
+  writeFileSync(join(dir, 'metrics.csv'), lines.join('\n') + '\n');
+  if (memory === 4 && (ticks === 8 || ticks === 32)) writeDump(dir, ticks, level, random);
+}
+
+/** A per-sample tick dump at the final checkpoint. */
+function writeDump(dir: string, ticks: number, level: number, random: Random): void {
+  const lines = ['sample,tick,correct,certainty,confidence,step'];
+  for (let s = 0; s < SAMPLES; s++) {
+    const ease = random.next();
+    // A sample is solvable with a probability near the run's accuracy level; it is solved from
+    // some tick on (easier samples earlier), with a few flips from tick to tick.
+    const solvable = random.next() < Math.min(0.99, level + 0.15 * (ease - 0.5));
+    const solvedFrom = Math.floor(ticks * 0.7 * (1 - ease) * random.next());
+    for (let t = 0; t < ticks; t++) {
+      const reach = 1 - Math.exp(-(t + 1) / (ticks / 4));
+      const solved = solvable && t >= solvedFrom;
+      const correct = random.next() < 0.03 ? !solved : solved;
+      const certainty = Math.min(1, Math.max(0, reach * (0.35 + 0.6 * ease) + (solved ? 0.1 : -0.05) + 0.05 * gauss(random)));
+      const pCorrect = 0.1 + (level - 0.1) * reach;
+      const confidence = Math.min(0.999, Math.max(0.1, pCorrect + 0.25 * (1 - reach) + 0.05 * gauss(random)));
+      lines.push(`${s},${t},${correct ? 1 : 0},${fmt(certainty)},${fmt(confidence)},${LAST_STEP}`);
+    }
+  }
+  writeFileSync(join(dir, 'ticks.csv.gz'), gzipSync(Buffer.from(lines.join('\n') + '\n'), { level: 9 }));
+}
+
+function main(): void {
+  for (const ticks of TICKS) rmSync(join(root, `ticks=${ticks}`), { recursive: true, force: true });
+  let index = 0;
+  for (const ticks of TICKS) {
+    for (const memory of MEMORY) {
+      for (let seed = 0; seed < SEEDS; seed++) {
+        writeRun({ ticks, memory, seed }, createRandom(1000 + index++));
+      }
+    }
+  }
+  process.stdout.write(`wrote ${TICKS.length * MEMORY.length * SEEDS} runs to sample-runs/\n`);
+}
+
+main();
