@@ -29,6 +29,7 @@ export const PROBLEM_CODES = {
   'column-duplicated': { severity: 'warning', means: 'A file has two columns with the same name; the later ones were renamed with a suffix.', action: 'Fix the logging code.' },
   'column-not-numeric': { severity: 'note', means: 'A column holds no numbers and was not used as a metric.', action: 'Nothing, if it is a label column.' },
   'aggregate-columns-ignored': { severity: 'note', means: 'In a wide file with one column per seed, columns that look like aggregates (mean, sd, std, min, max) were ignored.', action: 'Nothing; seedsift computes its own aggregates from the seeds.' },
+  'column-unused': { severity: 'note', means: 'In a wide file with one column per seed (--seed-columns), a column matches no pattern and does not look like an aggregate; it was not used.', action: 'Add a NAME:PATTERN for it to --seed-columns if it holds one seed per column.' },
   'metric-empty': { severity: 'warning', means: 'A metric has no finite value in a run.', action: 'Check the logging of that metric.' },
   'goal-inferred': { severity: 'note', means: 'Whether higher or lower is better was guessed from the metric name.', action: 'If the guess is wrong, say --metric NAME:max or NAME:min.' },
   'run-diverged': { severity: 'warning', means: 'A metric went non-finite and stayed so; the run is marked diverged at that step and, by default, excluded from value statistics (counted in every table).', action: 'Use --diverged worst to count diverged runs as the worst value instead.' },

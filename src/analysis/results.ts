@@ -160,7 +160,10 @@ export interface Curve {
   readonly high: readonly (number | null)[];
   /** Runs contributing to each bin (no extrapolation past a run's last step). */
   readonly n: readonly number[];
+  /** The band method of most bins (see `bandByBin`). */
   readonly band: IntervalMethod;
+  /** Band method per bin: 't' below `bootstrapFrom` runs, 'bca' at or above, 'none' for fewer than 2 runs. */
+  readonly bandByBin?: readonly IntervalMethod[];
   readonly level: number;
   /** Per-run binned values (for thin per-seed lines): run id → values per bin. */
   readonly runs: readonly { readonly run: string; readonly seed: string; readonly values: readonly (number | null)[] }[];
@@ -198,6 +201,8 @@ export interface TickCurve {
   readonly earliestGood: { readonly tick: number; readonly low: number | null; readonly high: number | null; readonly tolerance: number } | null;
   /** Per-tick comparison against the baseline config (Holm across ticks), null for the baseline. */
   readonly versusBaseline: readonly { readonly tick: number; readonly difference: number | null; readonly pAdjusted: number | null; readonly verdict: Verdict }[] | null;
+  /** Runs of this config left out because they diverged (status `diverged`); `n` counts the runs used. Always set by `tickCurves`. */
+  readonly diverged?: number;
 }
 
 export interface HaltingCurve {
@@ -217,6 +222,8 @@ export interface HaltingCurve {
 export interface CalibrationCurve {
   readonly config: string;
   readonly bins: number;
+  /** Runs (one dump each, with a confidence column) behind the curve. Always set by `calibrationCurves`. */
+  readonly seeds?: number;
   /** Expected calibration error per tick: mean across seeds and interval. */
   readonly ece: readonly { readonly tick: number; readonly mean: number | null; readonly low: number | null; readonly high: number | null }[];
   /** Reliability diagram at the last tick: per bin, mean confidence, accuracy, count (summed over seeds). */

@@ -1,0 +1,239 @@
+/**
+ * The report command's brain: from a `RunSet` and resolved options to `Results`, in steps.
+ *
+ *   1. inventory      configs, runs and metrics in a stable order (configs by parameter values in
+ *                     key order, numeric-aware; metrics in first-seen order)
+ *   2. pairing        which config is compared with which (`--baseline`, `--task-key`)
+ *   3. per metric     common horizon, per-run summary values, comparisons per task (one family per
+ *                     metric, summary and task), learning curves (logs only), task aggregates
+ *   4. ticks          accuracy by tick, halting and calibration (`ticks.ts`, `halting.ts`, `calibration.ts`)
+ *   5. assemble       settings, records, problems (ingest's, then analysis', deduplicated)
+ *
+ * Deterministic: the same run set, options and seed give identical `Results`; every random stream
+ * is derived from `options.seed` and a label naming what it is for.
+ */
+import type { MetricInfo, Run, RunSet } from '../ingest/types.js';
+import { problem, SeedsiftError, type Problem } from '../problems.js';
+import { calibrationCurves } from './calibration.js';
+import { compareFamily, type ArmRun, type ComparisonRequest, type PowerCache } from './compare.js';
+import { learningCurves } from './curves.js';
+import { haltingCurves } from './halting.js';
+import { commonHorizon } from './horizon.js';
+import { inventory, orderRuns } from './inventory.js';
+import type { ResolvedOptions } from './options.js';
+import { pairConfigs, type Pairing } from './pairing.js';
+import type { CalibrationCurve, Comparison, Curve, HaltingCurve, MetricRecord, Results, RunValue, Settings, TaskAggregate, TickCurve } from './results.js';
+import { metricValues } from './runValues.js';
+import { checkSelector, matchesSelector } from './selectors.js';
+import { summaryGoal } from './summarySpec.js';
+import { taskAggregates, type TaskScore } from './tasks.js';
+import { tickCurves } from './ticks.js';
+
+export interface AnalyzeMeta {
+  readonly paths: readonly string[];
+  /** ISO date of the report. */
+  readonly generated: string;
+  readonly version: string;
+}
+
+/**
+ * Analyse a run set. Throws SeedsiftError('usage') when the task key is not a config key or the
+ * baseline selector matches no config (listing what is available); data problems never throw,
+ * they become `Problem`s and null fields.
+ * Cost: dominated by the permutation tests (one per comparison) and, at 20+ runs, bootstraps.
+ * Example: `analyze(runSet, resolveOptions({ baseline: 'memory=4' }), meta).comparisons`.
+ */
+export function analyze(runSet: RunSet, options: ResolvedOptions, meta: AnalyzeMeta): Results {
+  // 1. inventory
+  const inv = inventory(runSet);
+  const runs = orderRuns(runSet);
+  if (options.taskKey !== null && !runSet.keys.includes(options.taskKey)) {
+    throw new SeedsiftError('usage', `--task-key: expected one of the config keys (${runSet.keys.join(', ') || 'none'}), got '${options.taskKey}'`);
+  }
+  if (options.baseline !== null) checkSelector(options.baseline, inv.configs, runSet.keys, options.taskKey);
+
+  // 2. pairing
+  const pairing = pairConfigs(inv.configs, runSet.keys, options.baseline, options.taskKey);
+  const problems: Problem[] = [];
+  for (const m of pairing.missing) {
+    const where = m.task === null ? '' : ` (task ${m.task})`;
+    problems.push(problem('counterpart-missing', `${m.config}${where} has no counterpart ${m.counterpart} for --baseline ${options.baseline?.text ?? ''}; it is not compared`));
+  }
+  const compared = new Set<string>();
+  for (const p of pairing.pairs) compared.add(p.baselineConfig).add(p.candidateConfig);
+  const horizonRuns = compared.size === 0 ? runs : runs.filter((r) => compared.has(r.config));
+
+  // 3. per metric
+  const metrics: MetricRecord[] = [];
+  const values: RunValue[] = [];
+  const comparisons: Comparison[] = [];
+  const curves: Curve[] = [];
+  const tasks: TaskAggregate[] = [];
+  const ticks: TickCurve[] = [];
+  const cache: PowerCache = new Map();
+  const runsByConfig = groupRuns(runs);
+  for (const [i, info] of runSet.metrics.entries()) {
+    const record = inv.metrics[i] as MetricRecord;
+    if (info.kind === 'tick') {
+      metrics.push(record);
+      ticks.push(...tickCurves(runs, info, { step: options.summary.kind === 'step' ? options.summary.step : null, level: options.level, alpha: options.alpha, baseline: tickBaseline(inv.configs, options) }));
+      continue;
+    }
+    const horizon = commonHorizon(horizonRuns, info.name, runSet.mode);
+    metrics.push({ ...record, horizon: horizon.step });
+    const mv = metricValues(runs, info.name, info.goal, options.summary, options.summaryText, { horizon: horizon.step, firstStep: horizon.firstStep }, options.diverged, compared, runSet.mode);
+    values.push(...mv.values);
+    problems.push(...mv.problems);
+    const armOf = (config: string): ArmRun[] =>
+      (runsByConfig.get(config) ?? []).map((run) => {
+        const v = mv.byRun.get(run.id);
+        return { run: run.id, seed: run.seed, value: v?.value ?? null, diverged: v?.diverged ?? false };
+      });
+    for (const family of families(pairing)) {
+      const requests: ComparisonRequest[] = family.map((p) => ({
+        metric: info.name,
+        goal: summaryGoal(options.summary, info.goal),
+        goalInferred: info.goalSource === 'inferred',
+        summary: options.summaryText,
+        reachValue: options.summary.kind === 'reach' ? options.summary.value : null,
+        task: p.task,
+        baseline: p.baseline,
+        candidate: p.candidate,
+        baselineRuns: armOf(p.baselineConfig),
+        candidateRuns: armOf(p.candidateConfig),
+      }));
+      const result = compareFamily(requests, options, cache);
+      comparisons.push(...result.comparisons);
+      problems.push(...result.problems);
+    }
+    if (runSet.mode === 'logs') {
+      curves.push(...learningCurves(runs, info.name, options));
+    }
+    if (options.taskKey !== null) tasks.push(...metricTasks(info, runs, mv.byRun, pairing, options));
+  }
+
+  // 4. ticks: per-sample dumps
+  const { halting, calibration } = dumpAnalyses(runSet, options, problems);
+
+  // 5. assemble
+  const allProblems = dedupe([...runSet.problems, ...withoutRepeatedGoals(problems, runSet)]);
+  const byRun = new Map<string, string[]>();
+  for (const p of allProblems) if (p.run !== undefined) byRun.set(p.run, [...(byRun.get(p.run) ?? []), p.message]);
+  return {
+    format: 'seedsift-results',
+    version: 1,
+    tool: { name: 'seedsift', version: meta.version },
+    generated: meta.generated,
+    settings: settingsOf(options),
+    inputs: { paths: meta.paths, mode: runSet.mode, files: runSet.files.length, filesRead: runSet.files.filter((f) => f.status === 'read').length },
+    configs: inv.configs,
+    metrics,
+    runs: inv.runs.map((r) => ({ ...r, problems: byRun.get(r.id) ?? [] })),
+    values,
+    comparisons,
+    curves,
+    tasks,
+    ticks,
+    halting,
+    calibration,
+    problems: allProblems,
+  };
+}
+
+/** The settings block of Results (what ran, as the user gave it). */
+export function settingsOf(o: ResolvedOptions): Settings {
+  return {
+    alpha: o.alpha,
+    seed: o.seed,
+    correction: o.correction,
+    summary: o.summaryText,
+    baseline: o.baseline?.text ?? null,
+    taskKey: o.taskKey,
+    margin: o.margin,
+    paired: o.paired,
+    diverged: o.diverged,
+    failOn: o.failOn,
+    resamples: o.resamples,
+    bandResamples: o.bandResamples,
+    bootstrapFrom: o.bootstrapFrom,
+    level: o.level,
+  };
+}
+
+function groupRuns(runs: readonly Run[]): Map<string, Run[]> {
+  const out = new Map<string, Run[]>();
+  for (const run of runs) out.set(run.config, [...(out.get(run.config) ?? []), run]);
+  return out;
+}
+
+/** Pairs grouped into families: one per task (the metric and summary are fixed by the caller). */
+function families(pairing: Pairing): Pairing['pairs'][] {
+  return pairing.tasks.map((task) => pairing.pairs.filter((p) => p.task === task)).filter((f) => f.length > 0);
+}
+
+/** The one config the selector picks, for the per-tick comparison (null when it picks several or none). */
+function tickBaseline(configs: readonly { readonly id: string; readonly params: Readonly<Record<string, string>> }[], options: ResolvedOptions): string | null {
+  const selector = options.baseline;
+  if (selector === null) return null;
+  const matching = configs.filter((c) => matchesSelector(c.params, selector));
+  return matching.length === 1 ? (matching[0] as (typeof matching)[number]).id : null;
+}
+
+function metricTasks(
+  info: MetricInfo,
+  runs: readonly Run[],
+  byRun: ReadonlyMap<string, { readonly value: number | null; readonly diverged: boolean }>,
+  pairing: Pairing,
+  options: ResolvedOptions,
+): TaskAggregate[] {
+  const taskKey = options.taskKey as string;
+  const groupOf = new Map<string, string>();
+  for (const p of pairing.pairs) groupOf.set(p.baselineConfig, p.baseline).set(p.candidateConfig, p.candidate);
+  const scores: TaskScore[] = [];
+  const groups: string[] = [];
+  for (const run of runs) {
+    const group = groupOf.get(run.config);
+    const v = byRun.get(run.id);
+    if (group === undefined || v === undefined || v.value === null || v.diverged) continue;
+    if (!groups.includes(group)) groups.push(group);
+    scores.push({ task: run.params[taskKey] ?? '', group, value: v.value });
+  }
+  const baselineOf = new Map<string, string>();
+  if (options.baseline !== null) for (const p of pairing.pairs) if (!baselineOf.has(p.candidate)) baselineOf.set(p.candidate, p.baseline);
+  return taskAggregates(info.name, summaryGoal(options.summary, info.goal), groups, scores, baselineOf, options);
+}
+
+function dumpAnalyses(runSet: RunSet, options: ResolvedOptions, problems: Problem[]): { halting: HaltingCurve[]; calibration: CalibrationCurve[] } {
+  if (runSet.tickDumps.length === 0) return { halting: [], calibration: [] };
+  try {
+    return {
+      halting: haltingCurves(runSet.tickDumps, { thresholds: options.haltingThresholds, level: options.level, referenceThreshold: options.haltingReference }),
+      calibration: calibrationCurves(runSet.tickDumps, { bins: options.calibrationBins, level: options.level }),
+    };
+  } catch (error) {
+    if (!(error instanceof RangeError)) throw error;
+    problems.push(problem('tick-dump-invalid', `halting and calibration were not computed: ${error.message}`));
+    return { halting: [], calibration: [] };
+  }
+}
+
+/** Analysis 'goal-inferred' problems for metrics that ingest already reported as guessed are dropped. */
+function withoutRepeatedGoals(problems: readonly Problem[], runSet: RunSet): Problem[] {
+  const told = runSet.problems.filter((p) => p.code === 'goal-inferred');
+  if (told.length === 0) return [...problems];
+  const metricOf = (p: Problem): string => p.message.slice(0, p.message.indexOf(':'));
+  return problems.filter((p) => p.code !== 'goal-inferred' || !told.some((t) => t.message.includes(metricOf(p))));
+}
+
+/** Problems without repeats (same code, message and place), in first-seen order. */
+function dedupe(problems: readonly Problem[]): Problem[] {
+  const seen = new Set<string>();
+  const out: Problem[] = [];
+  for (const p of problems) {
+    const key = JSON.stringify([p.code, p.message, p.file ?? null, p.line ?? null, p.run ?? null]);
+    if (seen.has(key)) continue;
+    seen.add(key);
+    out.push(p);
+  }
+  return out;
+}

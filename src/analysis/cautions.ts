@@ -1,0 +1,137 @@
+/**
+ * Plain-language cautions for one comparison, and the matching `Problem` records. Each line says
+ * what limits the reading of that comparison: few seeds (with the smallest p a rank or permutation
+ * test can reach, 2 / C(n1 + n2, n1) two-sided, METHODS.md), skewed values at small n, unequal
+ * seed counts, a goal guessed from the metric's name, tests that disagree at alpha, diverged or
+ * value-less runs, tests that could not run, and a `better` verdict resting on fewer than 5 seeds
+ * per arm. Pure; cost O(n).
+ */
+import type { Goal } from '../ingest/types.js';
+import { problem, type Problem } from '../problems.js';
+import type { DivergedPolicy, Verdict } from './results.js';
+
+export interface CautionFacts {
+  readonly metric: string;
+  readonly summary: string;
+  readonly task: string | null;
+  readonly baseline: string;
+  readonly candidate: string;
+  /** Direction of the compared values (the summary's goal). */
+  readonly goal: Goal;
+  readonly goalInferred: boolean;
+  /** Steps-to-reach summaries: fewer steps is better. */
+  readonly reachValue: number | null;
+  readonly baselineValues: ArrayLike<number>;
+  readonly candidateValues: ArrayLike<number>;
+  readonly diverged: { readonly baseline: number; readonly candidate: number };
+  readonly divergedPolicy: DivergedPolicy;
+  /** Runs with no value (censored, missing), not counting diverged ones. */
+  readonly noValue: { readonly baseline: number; readonly candidate: number };
+  readonly alpha: number;
+  readonly p: { readonly welch: number | null; readonly permutation: number | null; readonly mannWhitney: number | null };
+  readonly verdict: Verdict;
+  /** Why a test or interval could not run, already in plain words. */
+  readonly reasons: readonly string[];
+}
+
+/** Sample skewness g1 = m3 / m2^(3/2) with population moments (scipy.stats.skew, bias=True); null when n < 3 or all equal. */
+export function sampleSkewness(x: ArrayLike<number>): number | null {
+  const n = x.length;
+  if (n < 3) return null;
+  let m = 0;
+  for (let i = 0; i < n; i++) m += x[i] as number;
+  m /= n;
+  let m2 = 0;
+  let m3 = 0;
+  for (let i = 0; i < n; i++) {
+    const d = (x[i] as number) - m;
+    m2 += d * d;
+    m3 += d * d * d;
+  }
+  m2 /= n;
+  m3 /= n;
+  return m2 > 0 ? m3 / Math.pow(m2, 1.5) : null;
+}
+
+/**
+ * Smallest two-sided p-value an exact rank or permutation test can reach with n1 and n2 distinct
+ * values: 2 / C(n1 + n2, n1), capped at 1 (METHODS.md: 0.1 at 3 v 3, 0.0286 at 4 v 4, 0.0079 at 5 v 5).
+ * Example: `smallestTwoSidedP(3, 3)` is 0.1.
+ */
+export function smallestTwoSidedP(n1: number, n2: number): number {
+  let c = 1;
+  const k = Math.min(n1, n2);
+  for (let i = 1; i <= k; i++) c = (c * (n1 + n2 - k + i)) / i;
+  return Math.min(1, 2 / c);
+}
+
+/** Numbers in caution lines: three significant digits, no trailing zeros. */
+export function formatNumber(x: number): string {
+  return String(Number(x.toPrecision(3)));
+}
+
+/**
+ * The caution lines of one comparison and the problems to record (codes few-seeds, skewed-values,
+ * unequal-seeds, goal-inferred, tests-disagree).
+ * Example: 3 v 3 seeds at alpha 0.05 gives the line
+ * "with 3 v 3 seeds no rank or permutation test can reach p < 0.05 (smallest two-sided p = 0.1)".
+ */
+export function comparisonCautions(f: CautionFacts): { lines: string[]; problems: Problem[] } {
+  const lines: string[] = [];
+  const problems: Problem[] = [];
+  const where = `${f.metric} (${f.summary}${f.task === null ? '' : `, task ${f.task}`}), ${f.candidate} v ${f.baseline}`;
+  const add = (line: string, code?: Parameters<typeof problem>[0]): void => {
+    lines.push(line);
+    // A guessed goal concerns the metric, not the comparison: one problem per metric (after deduplication).
+    if (code !== undefined) problems.push(problem(code, `${code === 'goal-inferred' ? f.metric : where}: ${line}`));
+  };
+  const nb = f.baselineValues.length;
+  const nc = f.candidateValues.length;
+
+  if (f.reachValue !== null) add(`the summary is the step at which ${f.metric} first reaches ${f.reachValue}: fewer steps is better`);
+  if (f.goalInferred) {
+    const flip = f.goal === 'max' ? 'min' : 'max';
+    add(`${f.goal === 'max' ? 'higher' : 'lower'} is better was inferred from the name '${f.metric}'; say --metric ${f.metric}:${flip} if that is wrong`, 'goal-inferred');
+  }
+  if (nb >= 1 && nc >= 1) {
+    const smallest = smallestTwoSidedP(nc, nb);
+    if (smallest >= f.alpha) {
+      add(`with ${nc} v ${nb} seeds no rank or permutation test can reach p < ${f.alpha} (smallest two-sided p = ${formatNumber(smallest)})`, 'few-seeds');
+    } else if (Math.min(nb, nc) < 4) {
+      const arm = nb < nc ? 'baseline' : 'candidate';
+      add(`only ${Math.min(nb, nc)} seeds in the ${arm} arm: intervals are wide and one more seed can turn the verdict`, 'few-seeds');
+    }
+  }
+  for (const [arm, values] of [['baseline', f.baselineValues], ['candidate', f.candidateValues]] as const) {
+    const g1 = values.length < 10 ? sampleSkewness(values) : null;
+    if (g1 !== null && Math.abs(g1) > 1) {
+      add(`the ${arm}'s values are skewed (sample skewness ${formatNumber(g1)} at ${values.length} seeds): t-based intervals may under-cover; read the rank and permutation tests beside Welch`, 'skewed-values');
+    }
+  }
+  if (nb !== nc && nb > 0 && nc > 0) add(`unequal seed counts (${nc} candidate v ${nb} baseline)`, 'unequal-seeds');
+  const dv = f.diverged.baseline + f.diverged.candidate;
+  if (dv > 0) {
+    const what = f.divergedPolicy === 'exclude' ? 'left out of the tests' : 'counted as the worst value observed in this comparison';
+    add(`${dv} diverged run${dv === 1 ? '' : 's'} ${what} (baseline ${f.diverged.baseline}, candidate ${f.diverged.candidate})`);
+  }
+  const nv = f.noValue.baseline + f.noValue.candidate;
+  if (nv > 0) {
+    add(`${nv} run${nv === 1 ? ' has' : 's have'} no value for this summary and ${nv === 1 ? 'is' : 'are'} left out (baseline ${f.noValue.baseline}, candidate ${f.noValue.candidate})`);
+  }
+  for (const reason of f.reasons) add(reason);
+  const tests: [string, number | null][] = [
+    ['Welch', f.p.welch],
+    ['the permutation test', f.p.permutation],
+    ['Mann-Whitney', f.p.mannWhitney],
+  ];
+  const run = tests.filter((t): t is [string, number] => t[1] !== null);
+  const significant = run.filter((t) => t[1] < f.alpha);
+  if (significant.length > 0 && significant.length < run.length) {
+    const list = run.map(([name, p]) => `${name} p = ${formatNumber(p)}`).join(', ');
+    add(`the tests disagree at alpha ${f.alpha} (${list}); treat the verdict as fragile`, 'tests-disagree');
+  }
+  if (f.verdict === 'better' && Math.min(nb, nc) < 5) {
+    add(`the 'better' verdict rests on ${nc} v ${nb} seeds: fragile; confirm it with more seeds before claiming it`);
+  }
+  return { lines, problems };
+}

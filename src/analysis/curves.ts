@@ -1,0 +1,180 @@
+/**
+ * Learning curves across seeds on a shared step grid, without extrapolation.
+ *
+ * Grid: equal-width bins from the smallest first step to the largest last step of the metric over
+ * all runs; as many bins as the longest run has logged points, and at most `bins` (400). Per run,
+ * the mean of its logged values in each bin; a bin where the run logged nothing (before its first
+ * step, past its last step, or between sparse logs) is null: nothing is carried forward.
+ *
+ * Per config and bin, across the runs that logged there: the mean, and a band by METHODS.md's rule
+ * (the t-interval of the mean while fewer than `bootstrapFrom` (20) runs contribute; the BCa
+ * bootstrap of the mean with `bandResamples` (2,000) resamples at or above, falling back to the t
+ * interval if BCa fails, e.g. on identical values), n per bin, and the method per bin. Bands are
+ * for looking; tests decide.
+ *
+ * Diverged runs are kept as thin per-seed lines; under `--diverged exclude` they do not enter the
+ * mean, band or n, under `worst` their logged (finite) values do, up to where they stop.
+ *
+ * Cost O(points + runs x bins) per config, plus bootstrap work in bins with 20+ runs; work buffers
+ * (Float64Array) are allocated once per curve.
+ */
+import type { Run, Series } from '../ingest/types.js';
+import { bootstrapMean } from '../stats/bootstrap.js';
+import { createRandom, deriveSeed, type Random } from '../stats/random.js';
+import { tInterval } from '../stats/tInterval.js';
+import { isDiverged } from './horizon.js';
+import type { Curve, DivergedPolicy, IntervalMethod } from './results.js';
+
+export interface CurveSettings {
+  readonly bins: number;
+  readonly level: number;
+  readonly bootstrapFrom: number;
+  readonly bandResamples: number;
+  readonly seed: number;
+  readonly diverged: DivergedPolicy;
+}
+
+export interface StepGrid {
+  readonly first: number;
+  readonly width: number;
+  readonly bins: number;
+  /** Bin centres (steps). */
+  readonly centres: readonly number[];
+}
+
+/**
+ * The shared grid of a metric over some series (null when none has a point).
+ * Example: two series over steps 0..100 with 11 points each and maxBins 400 give 11 bins of width 100/11.
+ */
+export function stepGrid(series: readonly Series[], maxBins: number): StepGrid | null {
+  let first = Infinity;
+  let last = -Infinity;
+  let longest = 0;
+  for (const s of series) {
+    const n = s.steps.length;
+    if (n === 0) continue;
+    first = Math.min(first, s.steps[0] as number);
+    last = Math.max(last, s.steps[n - 1] as number);
+    longest = Math.max(longest, n);
+  }
+  if (longest === 0) return null;
+  const bins = last > first ? Math.max(1, Math.min(maxBins, longest)) : 1;
+  const width = (last - first) / bins;
+  const centres: number[] = [];
+  for (let b = 0; b < bins; b++) centres.push(bins === 1 && width === 0 ? first : first + (b + 0.5) * width);
+  return { first, width, bins, centres };
+}
+
+/** The bin of a step on a grid (the last bin includes the grid's end). */
+export function binOf(grid: StepGrid, step: number): number {
+  if (grid.width === 0) return 0;
+  return Math.min(grid.bins - 1, Math.max(0, Math.floor((step - grid.first) / grid.width)));
+}
+
+/**
+ * One curve per config (in the order the runs come, which should be `orderRuns` order) for a
+ * scalar metric. Runs without the metric are left out of its curves; a config with none has no curve.
+ * Throws only if the stats functions do on a programming error; data never makes it throw.
+ * Example: `learningCurves(runs, 'val_acc', settings)[0].n` counts the runs per bin of the first config.
+ */
+export function learningCurves(runs: readonly Run[], metric: string, settings: CurveSettings): Curve[] {
+  const withMetric = runs.filter((r) => (r.metrics[metric]?.steps.length ?? 0) > 0);
+  const grid = stepGrid(withMetric.map((r) => r.metrics[metric] as Series), settings.bins);
+  if (grid === null) return [];
+  const byConfig = new Map<string, Run[]>();
+  for (const run of withMetric) {
+    const list = byConfig.get(run.config) ?? [];
+    list.push(run);
+    byConfig.set(run.config, list);
+  }
+  const curves: Curve[] = [];
+  for (const [config, group] of byConfig) curves.push(configCurve(group, metric, config, grid, settings));
+  return curves;
+}
+
+function configCurve(runs: readonly Run[], metric: string, config: string, grid: StepGrid, settings: CurveSettings): Curve {
+  const k = grid.bins;
+  const r = runs.length;
+  // Work buffers, allocated once per curve: runs x bins matrix (NaN = no value), per-bin sums, a column.
+  const matrix = new Float64Array(r * k).fill(NaN);
+  const sums = new Float64Array(k);
+  const counts = new Float64Array(k);
+  const column = new Float64Array(r);
+  const perRun: Curve['runs'][number][] = [];
+  for (let j = 0; j < r; j++) {
+    const run = runs[j] as Run;
+    const s = run.metrics[metric] as Series;
+    sums.fill(0);
+    counts.fill(0);
+    for (let i = 0; i < s.steps.length; i++) {
+      const b = binOf(grid, s.steps[i] as number);
+      sums[b] = (sums[b] as number) + (s.values[i] as number);
+      counts[b] = (counts[b] as number) + 1;
+    }
+    const values: (number | null)[] = new Array<number | null>(k);
+    for (let b = 0; b < k; b++) {
+      const c = counts[b] as number;
+      const v = c > 0 ? (sums[b] as number) / c : NaN;
+      matrix[j * k + b] = v;
+      values[b] = c > 0 ? v : null;
+    }
+    perRun.push({ run: run.id, seed: run.seed, values });
+  }
+  const counted = runs.map((run) => settings.diverged === 'worst' || !isDiverged(run, metric));
+  const random = createRandom(deriveSeed(settings.seed, `curve|${metric}|${config}`));
+  const mean: (number | null)[] = [];
+  const low: (number | null)[] = [];
+  const high: (number | null)[] = [];
+  const n: number[] = [];
+  const bandByBin: IntervalMethod[] = [];
+  for (let b = 0; b < k; b++) {
+    let m = 0;
+    for (let j = 0; j < r; j++) {
+      const v = matrix[j * k + b] as number;
+      if (counted[j] === true && !Number.isNaN(v)) column[m++] = v;
+    }
+    const band = binBand(column.subarray(0, m), settings, random);
+    mean.push(band.mean);
+    low.push(band.low);
+    high.push(band.high);
+    n.push(m);
+    bandByBin.push(band.method);
+  }
+  return { metric, config, steps: grid.centres, mean, low, high, n, band: mainMethod(bandByBin), bandByBin, level: settings.level, runs: perRun };
+}
+
+interface Band {
+  readonly mean: number | null;
+  readonly low: number | null;
+  readonly high: number | null;
+  readonly method: IntervalMethod;
+}
+
+/** The band of one bin: t-interval below `bootstrapFrom` runs, BCa bootstrap at or above. */
+export function binBand(x: Float64Array, settings: Pick<CurveSettings, 'level' | 'bootstrapFrom' | 'bandResamples'>, random: Random): Band {
+  const m = x.length;
+  if (m === 0) return { mean: null, low: null, high: null, method: 'none' };
+  if (m === 1) return { mean: x[0] as number, low: null, high: null, method: 'none' };
+  const t = tInterval(x, settings.level);
+  if (m >= settings.bootstrapFrom) {
+    try {
+      const boot = bootstrapMean(x, random, { method: 'bca', resamples: settings.bandResamples, level: settings.level });
+      if (Number.isFinite(boot.low) && Number.isFinite(boot.high)) return { mean: t.estimate, low: boot.low, high: boot.high, method: 'bca' };
+    } catch (error) {
+      if (!(error instanceof RangeError)) throw error;
+    }
+  }
+  return { mean: t.estimate, low: t.low, high: t.high, method: 't' };
+}
+
+/** The method used in most bins that have a band (ties go to the t-interval). */
+function mainMethod(methods: readonly IntervalMethod[]): IntervalMethod {
+  let t = 0;
+  let bca = 0;
+  for (const m of methods) {
+    if (m === 't') t++;
+    else if (m === 'bca') bca++;
+  }
+  if (t === 0 && bca === 0) return 'none';
+  return bca > t ? 'bca' : 't';
+}

@@ -1,0 +1,86 @@
+import { describe, expect, it } from 'vitest';
+import { comparisonCautions, formatNumber, sampleSkewness, smallestTwoSidedP, type CautionFacts } from '../../src/analysis/cautions.js';
+
+const base: CautionFacts = {
+  metric: 'acc',
+  summary: 'final',
+  task: null,
+  baseline: 'b',
+  candidate: 'c',
+  goal: 'max',
+  goalInferred: false,
+  reachValue: null,
+  baselineValues: [1, 2, 3, 4, 5],
+  candidateValues: [2, 3, 4, 5, 6],
+  diverged: { baseline: 0, candidate: 0 },
+  divergedPolicy: 'exclude',
+  noValue: { baseline: 0, candidate: 0 },
+  alpha: 0.05,
+  p: { welch: 0.3, permutation: 0.3, mannWhitney: 0.3 },
+  verdict: 'inconclusive',
+  reasons: [],
+};
+
+describe('smallestTwoSidedP', () => {
+  it('is 2 / C(n1 + n2, n1): METHODS.md .1 at 3 v 3, .0286 at 4 v 4, .0079 at 5 v 5', () => {
+    expect(smallestTwoSidedP(3, 3)).toBeCloseTo(0.1, 14);
+    expect(smallestTwoSidedP(4, 4)).toBeCloseTo(2 / 70, 14);
+    expect(formatNumber(smallestTwoSidedP(4, 4))).toBe('0.0286');
+    expect(smallestTwoSidedP(5, 5)).toBeCloseTo(2 / 252, 14);
+    expect(smallestTwoSidedP(1, 1)).toBe(1);
+  });
+});
+
+describe('sampleSkewness', () => {
+  it('matches scipy.stats.skew (bias=True)', () => {
+    // scipy 1.10.1 (tests/reference/analysis_reference.py): skew([1, 1.1, 1.2, 1.3, 5]) = 1.48427744360567
+    expect(sampleSkewness([1, 1.1, 1.2, 1.3, 5])).toBeCloseTo(1.48427744360567, 12);
+    expect(sampleSkewness([1, 2])).toBeNull();
+    expect(sampleSkewness([3, 3, 3])).toBeNull();
+  });
+});
+
+describe('comparisonCautions', () => {
+  it('says nothing for a plain 5 v 5 comparison', () => {
+    expect(comparisonCautions(base)).toEqual({ lines: [], problems: [] });
+  });
+
+  it('few seeds, skew, unequal seeds, disagreeing tests, fragile better: lines and problems', () => {
+    const r = comparisonCautions({
+      ...base,
+      baselineValues: [1, 2, 3],
+      candidateValues: [1, 1.1, 1.2, 1.3, 5],
+      p: { welch: 0.04, permutation: 0.2, mannWhitney: null },
+      verdict: 'better',
+    });
+    expect(r.lines).toEqual([
+      'only 3 seeds in the baseline arm: intervals are wide and one more seed can turn the verdict',
+      "the candidate's values are skewed (sample skewness 1.48 at 5 seeds): t-based intervals may under-cover; read the rank and permutation tests beside Welch",
+      'unequal seed counts (5 candidate v 3 baseline)',
+      'the tests disagree at alpha 0.05 (Welch p = 0.04, the permutation test p = 0.2); treat the verdict as fragile',
+      "the 'better' verdict rests on 5 v 3 seeds: fragile; confirm it with more seeds before claiming it",
+    ]);
+    expect(r.problems.map((p) => p.code)).toEqual(['few-seeds', 'skewed-values', 'unequal-seeds', 'tests-disagree']);
+    expect(r.problems[0]?.message).toBe('acc (final), c v b: only 3 seeds in the baseline arm: intervals are wide and one more seed can turn the verdict');
+  });
+
+  it('reach summaries, inferred goals, diverged and value-less runs, reasons', () => {
+    const r = comparisonCautions({
+      ...base,
+      goal: 'min',
+      goalInferred: true,
+      reachValue: 0.9,
+      diverged: { baseline: 1, candidate: 1 },
+      noValue: { baseline: 0, candidate: 1 },
+      reasons: ["Welch's test could not run: because"],
+    });
+    expect(r.lines).toEqual([
+      'the summary is the step at which acc first reaches 0.9: fewer steps is better',
+      "lower is better was inferred from the name 'acc'; say --metric acc:max if that is wrong",
+      '2 diverged runs left out of the tests (baseline 1, candidate 1)',
+      '1 run has no value for this summary and is left out (baseline 0, candidate 1)',
+      "Welch's test could not run: because",
+    ]);
+    expect(r.problems.map((p) => [p.code, p.message])).toEqual([['goal-inferred', "acc: lower is better was inferred from the name 'acc'; say --metric acc:max if that is wrong"]]);
+  });
+});
