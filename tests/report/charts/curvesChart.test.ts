@@ -1,0 +1,88 @@
+/**
+ * curvesChart: what the SVG draws for the fixture (tests/report/fixtures.ts). External reference:
+ * Vega's own SVG serialisation (a path's move-to commands are its separate pieces).
+ */
+import type { TopLevelSpec } from 'vega-lite';
+import { describe, expect, it } from 'vitest';
+import type { Curve, Results } from '../../../src/analysis/results.js';
+import { curvesChart } from '../../../src/report/charts/curvesChart.js';
+import { CONFIG_COLOURS } from '../../../src/report/palette.js';
+import { compileVega, renderSvg, renderSvgWithWarnings } from '../../../src/report/renderSvg.js';
+import { DEFAULT_NAMES, makeResults } from '../fixtures.js';
+import { attr, drawn, markItems, subpaths, vegaMark } from './svgInspect.js';
+
+const results = makeResults();
+const [c0, , c2] = DEFAULT_NAMES.configs;
+
+function byConfig(items: string[], config: string): string[] {
+  return items.filter((el) => (attr(el, 'aria-label') ?? '').split('; ').includes(`config: ${config}`));
+}
+
+function withCurves(r: Results, map: (c: Curve) => Curve): Results {
+  return { ...r, curves: r.curves.map(map) };
+}
+
+describe('curvesChart', () => {
+  it('returns null for a metric without curves', () => {
+    expect(curvesChart(results, 'no_such_metric')).toBeNull();
+  });
+
+  it('names the band method and level in the subtitle', () => {
+    const spec = curvesChart(results, 'val_acc') as TopLevelSpec & { title: { subtitle: string[] } };
+    expect(spec.title.subtitle.join(' ')).toContain('95% t-interval of the mean across seeds');
+  });
+
+  it('names every band method used, bin by bin when Curve.bandByBin is given', () => {
+    const mixed = withCurves(results, (c) => (c.config !== c0 ? c : { ...c, bandByBin: c.steps.map((_, i) => (i < 3 ? 't' : 'bca')) }));
+    const spec = curvesChart(mixed, 'val_acc') as TopLevelSpec & { title: { subtitle: string[] }; layer: { name?: string; data?: { values: Record<string, unknown>[] } }[] };
+    expect(spec.title.subtitle.join(' ')).toContain('95% t-interval or 95% BCa bootstrap interval of the mean');
+    const hover = spec.layer.find((l) => l.name === 'hover')?.data?.values ?? [];
+    expect(hover.filter((r) => r['config'] === c0).map((r) => r['band'])).toEqual(['95% t-interval', '95% t-interval', '95% t-interval', '95% BCa bootstrap interval', '95% BCa bootstrap interval']);
+  });
+
+  it('draws a thin line per seed and a band and mean line per config, each config in its report colour', async () => {
+    const svg = await renderSvg(curvesChart(results, 'val_acc') as TopLevelSpec);
+    expect(markItems(svg, 'seeds')).toHaveLength(9);
+    expect(markItems(svg, 'band')).toHaveLength(3);
+    const mean = markItems(svg, 'mean');
+    expect(mean).toHaveLength(3);
+    DEFAULT_NAMES.configs.forEach((config, k) => {
+      const line = byConfig(mean, config);
+      expect(line).toHaveLength(1);
+      expect(attr(line[0] ?? '', 'stroke')).toBe(CONFIG_COLOURS[k]);
+      expect(Number(attr(line[0] ?? '', 'stroke-width'))).toBeGreaterThan(Number(attr(byConfig(markItems(svg, 'seeds'), config)[0] ?? '', 'stroke-width')));
+    });
+  });
+
+  it('breaks the mean line, the band and a seed line at nulls instead of joining across them', async () => {
+    const svg = await renderSvg(curvesChart(results, 'val_acc') as TopLevelSpec);
+    const mean = markItems(svg, 'mean');
+    expect(subpaths(byConfig(mean, c2)[0] ?? '')).toBe(2); // mean null at step 200
+    expect(subpaths(byConfig(mean, c0)[0] ?? '')).toBe(1);
+    expect(subpaths(byConfig(markItems(svg, 'band'), c2)[0] ?? '')).toBe(2);
+    const brokenSeed = markItems(svg, 'seeds').filter((el) => (attr(el, 'aria-label') ?? '').includes(`run: ${c2},seed=1`));
+    expect(subpaths(brokenSeed[0] ?? '')).toBe(2); // value null at step 300
+
+    // Control: the same chart with the hole filled draws one piece (the count above is the null's doing).
+    const filled = withCurves(results, (c) => (c.config !== c2 ? c : { ...c, mean: c.mean.map((v) => v ?? 0.64) }));
+    const svgFilled = await renderSvg(curvesChart(filled, 'val_acc') as TopLevelSpec);
+    expect(subpaths(byConfig(markItems(svgFilled, 'mean'), c2)[0] ?? '')).toBe(1);
+  });
+
+  it('says when there is no band and draws none', async () => {
+    const none = withCurves(results, (c) => ({ ...c, band: 'none', low: c.low.map(() => null), high: c.high.map(() => null) }));
+    const spec = curvesChart(none, 'val_acc') as TopLevelSpec & { title: { subtitle: string[] } };
+    expect(spec.title.subtitle.join(' ')).toContain('No band');
+    const { svg, warnings } = await renderSvgWithWarnings(spec);
+    expect(warnings).toEqual([]);
+    expect(markItems(svg, 'band').some(drawn)).toBe(false);
+    expect(markItems(svg, 'mean').every(drawn)).toBe(true);
+  });
+
+  it('puts tooltips on the hover points (not on the band) for the interactive runtime', () => {
+    const vega = compileVega(curvesChart(results, 'val_acc') as TopLevelSpec);
+    expect(JSON.stringify(vegaMark(vega, 'hover_marks')?.encode?.update?.tooltip)).toContain('interval low');
+    expect(vegaMark(vega, 'band_marks')?.encode?.update?.tooltip).toBeUndefined();
+    expect(vegaMark(vega, 'seeds_marks')?.encode?.update?.tooltip).toBeDefined();
+  });
+});
