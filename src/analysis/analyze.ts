@@ -15,6 +15,7 @@
 import type { MetricInfo, Run, RunSet } from '../ingest/types.js';
 import { problem, SeedsiftError, type Problem } from '../problems.js';
 import { calibrationCurves } from './calibration.js';
+import { configValues } from './configValues.js';
 import { compareFamily, type ArmRun, type ComparisonRequest, type PowerCache } from './compare.js';
 import { learningCurves } from './curves.js';
 import { haltingCurves } from './halting.js';
@@ -22,7 +23,7 @@ import { commonHorizon } from './horizon.js';
 import { inventory, orderRuns } from './inventory.js';
 import type { ResolvedOptions } from './options.js';
 import { pairConfigs, type Pairing } from './pairing.js';
-import type { CalibrationCurve, Comparison, Curve, HaltingCurve, MetricRecord, Results, RunValue, Settings, TaskAggregate, TickCurve } from './results.js';
+import type { CalibrationCurve, Comparison, ConfigValue, Curve, HaltingCurve, MetricRecord, Results, RunValue, Settings, TaskAggregate, TickCurve } from './results.js';
 import { metricValues } from './runValues.js';
 import { checkSelector, matchesSelector } from './selectors.js';
 import { summaryGoal } from './summarySpec.js';
@@ -66,6 +67,7 @@ export function analyze(runSet: RunSet, options: ResolvedOptions, meta: AnalyzeM
   // 3. per metric
   const metrics: MetricRecord[] = [];
   const values: RunValue[] = [];
+  const perConfig: ConfigValue[] = [];
   const comparisons: Comparison[] = [];
   const curves: Curve[] = [];
   const tasks: TaskAggregate[] = [];
@@ -83,6 +85,7 @@ export function analyze(runSet: RunSet, options: ResolvedOptions, meta: AnalyzeM
     metrics.push({ ...record, horizon: horizon.step });
     const mv = metricValues(runs, info.name, info.goal, options.summary, options.summaryText, { horizon: horizon.step, firstStep: horizon.firstStep }, options.diverged, compared, runSet.mode);
     values.push(...mv.values);
+    perConfig.push(...configValues(mv.values, options));
     problems.push(...mv.problems);
     const armOf = (config: string): ArmRun[] =>
       (runsByConfig.get(config) ?? []).map((run) => {
@@ -130,6 +133,7 @@ export function analyze(runSet: RunSet, options: ResolvedOptions, meta: AnalyzeM
     metrics,
     runs: inv.runs.map((r) => ({ ...r, problems: byRun.get(r.id) ?? [] })),
     values,
+    configValues: perConfig,
     comparisons,
     curves,
     tasks,

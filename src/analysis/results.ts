@@ -91,6 +91,22 @@ export interface RunValue {
   readonly usedInTests: boolean;
 }
 
+/** Mean across seeds of one config's per-run values, with its interval (t below 20 runs, BCa at 20 or more). */
+export interface ConfigValue {
+  readonly metric: string;
+  readonly summary: string;
+  readonly config: string;
+  /** Runs with a value. */
+  readonly n: number;
+  /** Runs without a value (diverged, censored, missing). */
+  readonly missing: number;
+  readonly mean: number | null;
+  readonly low: number | null;
+  readonly high: number | null;
+  readonly level: number;
+  readonly method: IntervalMethod;
+}
+
 /** A difference with its interval: candidate - baseline, in the metric's units. */
 export interface Difference {
   readonly estimate: number;
@@ -242,6 +258,8 @@ export interface Results {
   readonly metrics: readonly MetricRecord[];
   readonly runs: readonly RunRecord[];
   readonly values: readonly RunValue[];
+  /** Per config and metric: mean of the per-run values with its interval. */
+  readonly configValues: readonly ConfigValue[];
   readonly comparisons: readonly Comparison[];
   readonly curves: readonly Curve[];
   readonly tasks: readonly TaskAggregate[];

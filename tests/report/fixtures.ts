@@ -146,6 +146,11 @@ export function makeResults(names: FixtureNames = DEFAULT_NAMES): Results {
     metrics,
     runs,
     values,
+    // Mean across seeds and interval per config, as analysis/configValues.ts would give them.
+    configValues: names.configs.map((config, k) => ({
+      metric: names.metric, summary: names.summary, config, n: k === 1 ? 2 : 3, missing: k === 1 ? 1 : 0,
+      mean: 0.74 + 0.03 * k, low: 0.72 + 0.03 * k, high: 0.76 + 0.03 * k, level: 0.95, method: 't' as const,
+    })),
     comparisons: [
       comparison(names, names.configs[0], names.configs[1], 0.03, 'better', true),
       comparison(names, names.configs[0], names.configs[2], -0.04, 'worse', true),

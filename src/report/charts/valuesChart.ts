@@ -6,15 +6,15 @@ import type { TopLevelSpec } from 'vega-lite';
 import type { Results } from '../../analysis/results.js';
 import { CONFIG_LEGEND, configColourScale } from '../palette.js';
 import { chartFrame, NUMBER_FORMAT, type Layer } from './chartFrame.js';
+import { intervalLabel, intervalLabels } from './intervalLabel.js';
 
 /**
  * Vega-Lite spec of the per-run summary values of one metric and summary (`Results.values`):
  * a filled dot per run used in tests, a hollow diamond per run with a value that was not used
  * (its note in the tooltip), spread vertically within the config's row by seed order so that
- * equal values stay visible. The mean tick is the arm mean the comparisons report
- * (`Comparison.mean` of the first comparison naming the config); nothing is computed here, and
- * `Results` carries no per-config interval, so none is drawn. Runs without a value are counted in
- * the subtitle.
+ * equal values stay visible. The mean tick and its interval line come from `Results.configValues`
+ * (mean across seeds, t-interval below 20 runs, BCa at 20 or more); nothing is computed here.
+ * Runs without a value are counted in the subtitle.
  * Returns null when no run has a value. Cost O(values + comparisons). Never throws.
  * Example: `valuesChart(results, 'val_acc', 'last:10%')` → layers used, unused, mean.
  */
@@ -37,13 +37,12 @@ export function valuesChart(results: Results, metric: string, summary: string): 
     return { config: v.config, seed: v.seed, run: v.run, value: v.value, used: v.usedInTests, note: v.note ?? '', slot };
   });
 
-  const means = new Map<string, { mean: number; n: number }>();
-  for (const c of results.comparisons) {
-    if (c.metric !== metric || c.summary !== summary) continue;
-    if (c.mean.baseline !== null && !means.has(c.baseline)) means.set(c.baseline, { mean: c.mean.baseline, n: c.n.baseline });
-    if (c.mean.candidate !== null && !means.has(c.candidate)) means.set(c.candidate, { mean: c.mean.candidate, n: c.n.candidate });
-  }
-  const meanRows = configs.filter((c) => means.has(c)).map((config) => ({ config, ...means.get(config) }));
+  const summaries = new Map(results.configValues.filter((c) => c.metric === metric && c.summary === summary && c.mean !== null).map((c) => [c.config, c]));
+  const meanRows = configs.flatMap((config) => {
+    const c = summaries.get(config);
+    return c === undefined ? [] : [{ config, mean: c.mean, low: c.low, high: c.high, n: c.n, interval: intervalLabel(c.method, c.level) }];
+  });
+  const withInterval = meanRows.filter((r) => r.low !== null && r.high !== null);
 
   const scale = configColourScale(results, configs);
   const y = { field: 'config', type: 'nominal', title: null, scale: { domain: configs }, axis: { labelLimit: 200 } } as const;
@@ -55,6 +54,14 @@ export function valuesChart(results: Results, metric: string, summary: string): 
     { field: 'seed', type: 'nominal', title: 'seed' },
     { field: 'value', type: 'quantitative', title: 'value', format: NUMBER_FORMAT },
     { field: 'note', type: 'nominal', title: 'note' },
+  ] as const;
+  const meanTooltip = [
+    { field: 'config', type: 'nominal', title: 'config' },
+    { field: 'mean', type: 'quantitative', title: 'mean across seeds', format: NUMBER_FORMAT },
+    { field: 'low', type: 'quantitative', title: 'interval low', format: NUMBER_FORMAT },
+    { field: 'high', type: 'quantitative', title: 'interval high', format: NUMBER_FORMAT },
+    { field: 'interval', type: 'nominal', title: 'interval' },
+    { field: 'n', type: 'quantitative', title: 'runs' },
   ] as const;
   const missing = values.length - drawn.length;
   const unused = dots.filter((d) => !d.used).length;
@@ -78,6 +85,14 @@ export function valuesChart(results: Results, metric: string, summary: string): 
       encoding: { x, y, yOffset, color, tooltip: [...tooltip] },
     });
   }
+  if (withInterval.length > 0) {
+    layers.push({
+      name: 'interval',
+      data: { values: withInterval },
+      mark: { type: 'rule', strokeWidth: 2, opacity: 0.55 },
+      encoding: { x: { ...x, field: 'low' }, x2: { field: 'high' }, y, color, tooltip: [...meanTooltip] },
+    });
+  }
   if (meanRows.length > 0) {
     layers.push({
       name: 'mean',
@@ -87,26 +102,21 @@ export function valuesChart(results: Results, metric: string, summary: string): 
         x: { ...x, field: 'mean' },
         y,
         color,
-        tooltip: [
-          { field: 'config', type: 'nominal', title: 'config' },
-          { field: 'mean', type: 'quantitative', title: 'mean (used in tests)', format: NUMBER_FORMAT },
-          { field: 'n', type: 'quantitative', title: 'runs' },
-        ],
+        tooltip: [...meanTooltip],
       },
     });
   }
 
   const subtitle = [
-    `One dot per seed: filled, used in tests${unused > 0 ? `; hollow diamond, not used (${unused})` : ''}. Bar: mean of the values used in tests.`,
+    `One dot per seed: filled, used in tests${unused > 0 ? `; hollow diamond, not used (${unused})` : ''}. Bar: mean across seeds; line: ${intervalLabels(meanRows.length === 0 ? [] : [...summaries.values()].map((c) => ({ method: c.method, level: c.level })))} of the mean.`,
   ];
   if (missing > 0) subtitle.push(`${missing} run${missing === 1 ? ' has' : 's have'} no value (diverged, censored or missing) and ${missing === 1 ? 'is' : 'are'} not drawn.`);
-  if (meanRows.length < configs.length) subtitle.push('Configs in no comparison have no mean bar.');
 
   return {
     ...chartFrame({
       title: `${metric}: one value per seed (${summary})`,
       subtitle,
-      description: `Per-seed ${summary} values of ${metric} for ${configs.length} config${configs.length === 1 ? '' : 's'} (${drawn.length} runs drawn${missing > 0 ? `, ${missing} without a value` : ''}), with the mean of each config's values used in tests.`,
+      description: `Per-seed ${summary} values of ${metric} for ${configs.length} config${configs.length === 1 ? '' : 's'} (${drawn.length} runs drawn${missing > 0 ? `, ${missing} without a value` : ''}), with the mean across seeds of each config and its interval.`,
       height: { step: 40 },
     }),
     layer: layers,

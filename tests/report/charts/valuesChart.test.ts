@@ -33,25 +33,27 @@ describe('valuesChart', () => {
     expect(spec.title.subtitle.join(' ')).toContain('1 run has no value');
   });
 
-  it('takes the mean tick from Results (Comparison.mean), computing nothing', async () => {
+  it('takes the mean and its interval from Results.configValues, computing nothing', async () => {
     const spec = valuesChart(results, metric, summary) as Layered;
     const mean = spec.layer.find((l) => l.name === 'mean');
-    // configs[1]: the comparisons say 0.77; its two values (0.75, 0.76) would average 0.755.
-    expect(mean?.data?.values).toEqual([
-      { config: configs[0], mean: 0.74, n: 3 },
-      { config: configs[1], mean: 0.77, n: 3 },
-      { config: configs[2], mean: 0.7, n: 3 },
+    // configs[1]: configValues says 0.77; its two values (0.75, 0.76) would average 0.755.
+    expect(mean?.data?.values.map((r) => [r['config'], r['mean'], r['low'], r['high']])).toEqual([
+      [configs[0], 0.74, 0.72, 0.76],
+      [configs[1], 0.77, 0.75, 0.79],
+      [configs[2], 0.8, 0.78, 0.8200000000000001],
     ]);
     const svg = await renderSvg(spec);
-    const ticks = markItems(svg, 'mean');
-    expect(ticks).toHaveLength(3);
-    expect(ticks.every(drawn)).toBe(true);
+    expect(markItems(svg, 'mean')).toHaveLength(3);
+    expect(markItems(svg, 'mean').every(drawn)).toBe(true);
+    expect(markItems(svg, 'interval')).toHaveLength(3);
+    expect(spec.title.subtitle.join(' ')).toContain('t-interval');
   });
 
-  it('leaves out the mean of a config in no comparison and says so', () => {
-    const spec = valuesChart({ ...results, comparisons: results.comparisons.slice(0, 1) }, metric, summary) as Layered;
-    expect(spec.layer.find((l) => l.name === 'mean')?.data?.values.map((r) => r['config'])).toEqual([configs[0], configs[1]]);
-    expect(spec.title.subtitle.join(' ')).toContain('no mean bar');
+  it('draws no interval line for a config whose interval is null (one seed)', () => {
+    const one = { ...results, configValues: results.configValues.map((c, k) => (k === 0 ? { ...c, n: 1, low: null, high: null, method: 'none' as const } : c)) };
+    const spec = valuesChart(one, metric, summary) as Layered;
+    expect(spec.layer.find((l) => l.name === 'interval')?.data?.values.map((r) => r['config'])).toEqual([configs[1], configs[2]]);
+    expect(spec.layer.find((l) => l.name === 'mean')?.data?.values).toHaveLength(3);
   });
 
   it('spreads equal values of one config apart and keeps rows in Results.configs order', () => {

@@ -1,0 +1,39 @@
+/**
+ * `{{problems}}`: everything seedsift noticed about the input, errors first: severity, code,
+ * message, where (file:line, run), and what to do (from the table of problem codes).
+ */
+import { PROBLEM_CODES, type Problem, type Severity } from '../../problems.js';
+import { codeHtml, nameHtml, noteHtml, tableHtml, textHtml, type TableCell } from '../html.js';
+import { type Cell } from './cell.js';
+
+const ORDER: Readonly<Record<Severity, number>> = { error: 0, warning: 1, note: 2 };
+
+function where(p: Problem): TableCell {
+  const parts: string[] = [];
+  if (p.file !== undefined) parts.push(codeHtml(p.file + (p.line === undefined ? '' : `:${p.line}`)));
+  else if (p.line !== undefined) parts.push(textHtml(`line ${p.line}`));
+  if (p.run !== undefined) parts.push(`run ${nameHtml(p.run)}`);
+  return parts.length === 0 ? null : { html: parts.join('<br>') };
+}
+
+export const problems: Cell = {
+  name: 'problems',
+  usage: '{{problems}}',
+  arity: [0, 0],
+  options: [],
+  render(state, call) {
+    const list = state.results.problems
+      .map((p, i) => ({ p, i }))
+      .sort((a, b) => ORDER[a.p.severity] - ORDER[b.p.severity] || a.i - b.i)
+      .map(({ p }) => p);
+    if (list.length === 0) return noteHtml('No problems found in the input.');
+    const rows: TableCell[][] = list.map((p) => [
+      { html: `<span class="severity severity-${p.severity}">${textHtml(p.severity)}</span>` },
+      { html: `<code>${textHtml(p.code)}</code>` },
+      p.message,
+      where(p),
+      PROBLEM_CODES[p.code]?.action ?? null,
+    ]);
+    return tableHtml({ className: 'problems', head: ['Severity', 'Code', 'Message', 'Where', 'What to do'], rows, rowClasses: list.map((p) => `severity-${p.severity}`) });
+  },
+};

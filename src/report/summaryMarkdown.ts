@@ -1,0 +1,78 @@
+/**
+ * `summary.md`: the verdicts as GitHub-flavoured Markdown for a pull request. One table per metric
+ * (and summary, and task): baseline, candidate, difference with its interval, adjusted p, verdict,
+ * seeds; then the caution lines of those comparisons and the caution that a test is evidence, not
+ * proof. Every name from the data is escaped (`escapeMarkdown`: no emphasis, link, HTML, cell break
+ * or mention can form; newlines become spaces). Renders `Results`; computes nothing statistical.
+ */
+import type { Comparison, Results } from '../analysis/results.js';
+import { escapeMarkdown } from './escape.js';
+import { comparisonDecimals, formatDifference, formatIntervalKind, formatNumber, formatP, formatSeeds } from './format.js';
+import { comparisonGroups, GOAL_WORDS, sharedIntervalKind, standardCaution, VERDICT_LABELS, type ComparisonGroup } from './verdictWords.js';
+
+/** Longest name shown in a table cell (longer names are cut with their length noted). */
+const NAME_LIMIT = 200;
+
+const name = (text: string): string => escapeMarkdown(text, NAME_LIMIT);
+const CORRECTION_WORDS = { holm: 'Holm-adjusted', bh: 'Benjamini-Hochberg-adjusted', none: 'unadjusted' } as const;
+
+function row(cells: readonly string[]): string {
+  return `| ${cells.join(' | ')} |`;
+}
+
+function verdictCell(c: Comparison): string {
+  const words = [VERDICT_LABELS[c.verdict]];
+  if (c.nonInferiority !== null) {
+    words.push(c.nonInferiority.holds ? `(not worse by ${c.nonInferiority.margin}, p ${formatP(c.nonInferiority.p)})` : `(non-inferiority at margin ${c.nonInferiority.margin} not shown)`);
+  }
+  return words.join(' ');
+}
+
+function groupTable(results: Results, g: ComparisonGroup): string[] {
+  const shared = sharedIntervalKind(g.comparisons);
+  const withTask = g.task !== null;
+  const head = ['Baseline', 'Candidate', shared === null ? 'Difference [interval]' : `Difference [${shared}]`, `p (${CORRECTION_WORDS[results.settings.correction]})`, 'Verdict', 'Seeds'];
+  const lines = [row(head), row(head.map(() => '---'))];
+  for (const c of g.comparisons) {
+    const decimals = comparisonDecimals(c);
+    const difference = formatDifference(c.difference, decimals) + (shared === null ? ` (${formatIntervalKind(c.difference)})` : '');
+    lines.push(row([name(c.baseline), name(c.candidate), difference, formatP(c.pAdjusted), verdictCell(c), formatSeeds(c, results.settings.diverged)]));
+  }
+  const title = [`### ${name(g.metric)}`, `(${GOAL_WORDS[g.goal]}${g.goalSource === 'inferred' ? ', guessed from the name' : ''}; summary ${name(g.summary)}${withTask ? `; task ${name(g.task ?? '')}` : ''})`];
+  const cautions = g.comparisons.flatMap((c) => c.cautions.map((line) => `- ${name(c.candidate)} v ${name(c.baseline)}: ${escapeMarkdown(line)}`));
+  const means = g.comparisons.map((c) => {
+    const d = comparisonDecimals(c);
+    return `${name(c.candidate)} ${formatNumber(c.mean.candidate, d)} v ${name(c.baseline)} ${formatNumber(c.mean.baseline, d)}`;
+  });
+  return [title.join(' '), '', ...lines, '', `Means: ${means.join('; ')}.`, ...(cautions.length > 0 ? ['', 'Cautions:', '', ...cautions] : []), ''];
+}
+
+function problemLine(results: Results): string | null {
+  const counts = { error: 0, warning: 0, note: 0 };
+  for (const p of results.problems) counts[p.severity] += 1;
+  const parts = (['error', 'warning', 'note'] as const).filter((s) => counts[s] > 0).map((s) => `${counts[s]} ${s}${counts[s] === 1 ? '' : 's'}`);
+  return parts.length === 0 ? null : `Input problems: ${parts.join(', ')} (listed in the report).`;
+}
+
+/**
+ * Render the Markdown summary of `Results`.
+ * Cost O(comparisons + problems). Never throws for a `Results` value.
+ * Example: `summaryMarkdown(results)` → `'## seedsift verdicts\n\n...| memory=4 | memory=8 | +1.71 [0.06, 3.37] | 0.088 | ● inconclusive | 7 v 5 |...'`.
+ */
+export function summaryMarkdown(results: Results): string {
+  const s = results.settings;
+  const out: string[] = ['## seedsift verdicts', ''];
+  out.push(
+    `${results.runs.length} runs in ${results.configs.length} configs, generated ${results.generated.slice(0, 10)} by seedsift ${escapeMarkdown(results.tool.version)}. ` +
+      `Welch t-test on per-run values (summary ${name(s.summary)}), alpha ${s.alpha}, ${CORRECTION_WORDS[s.correction]} p-values` +
+      `${s.baseline === null ? ', every pair of configs' : `, baseline ${name(s.baseline)}`}${s.paired ? ', paired by seed' : ''}.`,
+    '',
+  );
+  const groups = comparisonGroups(results);
+  if (groups.length === 0) out.push('No comparisons: the runs hold fewer than two configs to compare, or no metric with values.', '');
+  for (const g of groups) out.push(...groupTable(results, g));
+  const problems = problemLine(results);
+  if (problems !== null) out.push(problems, '');
+  out.push(`> ${standardCaution(s.alpha)}`, '');
+  return out.join('\n');
+}

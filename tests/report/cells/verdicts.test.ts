@@ -1,0 +1,44 @@
+/**
+ * The verdict cell. The memory=8 v memory=4 row of val_acc carries METHODS.md's Welch values for
+ * samples A and B (scipy 1.10.1), Holm-adjusted over two comparisons.
+ */
+import { describe, expect, it } from 'vitest';
+import type { Comparison, Results } from '../../../src/analysis/results.js';
+import { sampleResults } from '../sampleResults.js';
+import { renderCells, textOf } from './renderCells.js';
+
+function rows(html: string): string[] {
+  return [...html.matchAll(/<tr class="row-[^"]*">([\s\S]*?)<\/tr>/g)].map((m) => textOf(m[1] ?? ''));
+}
+
+describe('{{verdicts}}', () => {
+  it('has one row per comparison, with the interval, adjusted p, verdict word and seeds', async () => {
+    const html = await renderCells('{{verdicts}}', sampleResults());
+    const r = rows(html);
+    expect(r).toHaveLength(4);
+    expect(r[0]).toBe('val_acc higher is better; summary final memory=4 memory=8 +1.71 [0.06, 3.37] 0.088 ● inconclusive 7 v 5');
+    expect(r[3]).toBe('memory=4 memory=12 +0.01514 [0.00588, 0.02441] 0.0052 ▼ worse 7 v 4 (1 diverged in the candidate, excluded)');
+    expect(html).toContain('<th scope="col" class="num">Difference [95% Welch t-interval]</th>');
+    expect(textOf(html)).toContain('A statistical test is evidence, not proof');
+    expect(textOf(html)).toContain('memory=8 v memory=4 (val_acc): Unequal seeds: 7 v 5.');
+  });
+
+  it('filters to one metric, and shows tasks and non-inferiority when Results has them', async () => {
+    const base = sampleResults();
+    const [first, second] = base.comparisons as [Comparison, Comparison];
+    const results: Results = {
+      ...base,
+      comparisons: [{ ...first, task: 'glyphs', nonInferiority: { margin: 0.5, p: 0.012, holds: true } }, { ...second, task: 'glyphs' }],
+    };
+    const html = await renderCells('{{verdicts "val_acc"}}', results);
+    expect(html).toContain('<th scope="col">Task</th>');
+    expect(rows(html)[0]).toContain('glyphs memory=4 memory=8');
+    expect(rows(html)[0]).toContain('not worse by more than 0.5 (p 0.012)');
+    expect(rows(await renderCells('{{verdicts "train_loss"}}', base))).toHaveLength(2);
+  });
+
+  it('says so when there are no comparisons', async () => {
+    const html = await renderCells('{{verdicts}}', { ...sampleResults(), comparisons: [] });
+    expect(textOf(html)).toContain('No comparisons');
+  });
+});
