@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { comparisonCautions, formatNumber, sampleSkewness, smallestTwoSidedP, type CautionFacts } from '../../src/analysis/cautions.js';
+import { comparisonCautions, pooledSkewness, formatNumber, sampleSkewness, smallestTwoSidedP, type CautionFacts } from '../../src/analysis/cautions.js';
 
 const base: CautionFacts = {
   metric: 'acc',
@@ -40,6 +40,20 @@ describe('sampleSkewness', () => {
   });
 });
 
+describe('pooledSkewness', () => {
+  it('centres each arm and matches scipy.stats.skew on the pooled values, with the normal-theory standard error', () => {
+    // scipy 1.10.1 (Debian): b=[1,2,3], c=[1,1.1,1.2,1.3,1.4,9]; r = concat(b-b.mean(), c-c.mean());
+    // stats.skew(r) = 2.058442550919847; 2*sqrt(6n(n-1)/((n-2)(n+1)(n+3))) at n=9 = 1.4342743312012722
+    const s = pooledSkewness([1, 2, 3], [1, 1.1, 1.2, 1.3, 1.4, 9]);
+    expect(s?.g1).toBeCloseTo(2.058442550919847, 12);
+    expect(2 * (s?.se as number)).toBeCloseTo(1.4342743312012722, 12);
+    expect(s?.n).toBe(9);
+    // A shift between arms is not skew: two symmetric arms far apart give 0.
+    expect(pooledSkewness([1, 2, 3], [101, 102, 103])?.g1).toBeCloseTo(0, 12);
+    expect(pooledSkewness([1, 2], [3, 4])).toBeNull();
+  });
+});
+
 describe('comparisonCautions', () => {
   it('says nothing for a plain 5 v 5 comparison', () => {
     expect(comparisonCautions(base)).toEqual({ lines: [], problems: [] });
@@ -49,16 +63,16 @@ describe('comparisonCautions', () => {
     const r = comparisonCautions({
       ...base,
       baselineValues: [1, 2, 3],
-      candidateValues: [1, 1.1, 1.2, 1.3, 5],
+      candidateValues: [1, 1.1, 1.2, 1.3, 1.4, 9],
       p: { welch: 0.04, permutation: 0.2, mannWhitney: null },
       verdict: 'better',
     });
     expect(r.lines).toEqual([
       'only 3 seeds in the baseline arm: intervals are wide and one more seed can turn the verdict',
-      "the candidate's values are skewed (sample skewness 1.48 at 5 seeds): t-based intervals may under-cover; read the rank and permutation tests beside Welch",
-      'unequal seed counts (5 candidate v 3 baseline)',
+      "the values are skewed within the arms (sample skewness 2.06 of the 9 values centred on their arm means, beyond 1.43, twice its standard error under normality): t-based intervals may under-cover; read the rank and permutation tests beside Welch",
+      'unequal seed counts (6 candidate v 3 baseline)',
       'the tests disagree at alpha 0.05 (Welch p = 0.04, the permutation test p = 0.2); treat the verdict as fragile',
-      "the 'better' verdict rests on 5 v 3 seeds: fragile; confirm it with more seeds before claiming it",
+      "the 'better' verdict rests on 6 v 3 seeds: fragile; confirm it with more seeds before claiming it",
     ]);
     expect(r.problems.map((p) => p.code)).toEqual(['few-seeds', 'skewed-values', 'unequal-seeds', 'tests-disagree']);
     expect(r.problems[0]?.message).toBe('acc (final), c v b: only 3 seeds in the baseline arm: intervals are wide and one more seed can turn the verdict');
