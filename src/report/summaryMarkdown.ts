@@ -39,7 +39,11 @@ function groupTable(results: Results, g: ComparisonGroup): string[] {
     lines.push(row([name(c.baseline), name(c.candidate), difference, formatP(c.pAdjusted), verdictCell(c), formatSeeds(c, results.settings.diverged)]));
   }
   const title = [`### ${name(g.metric)}`, `(${GOAL_WORDS[g.goal]}${g.goalSource === 'inferred' ? ', guessed from the name' : ''}; summary ${name(g.summary)}${withTask ? `; task ${name(g.task ?? '')}` : ''})`];
-  const cautions = g.comparisons.flatMap((c) => c.cautions.map((line) => `- ${name(c.candidate)} v ${name(c.baseline)}: ${escapeMarkdown(line)}`));
+  // Each caution once, with the comparisons it concerns (a line shared by all says so).
+  const pairsOf = new Map<string, string[]>();
+  for (const c of g.comparisons) for (const line of c.cautions) pairsOf.set(line, [...(pairsOf.get(line) ?? []), `${name(c.candidate)} v ${name(c.baseline)}`]);
+  const cautions = [...pairsOf].map(([line, pairs]) =>
+    pairs.length === g.comparisons.length && pairs.length > 1 ? `- all ${pairs.length} comparisons: ${escapeMarkdown(line)}` : `- ${pairs.join('; ')}: ${escapeMarkdown(line)}`);
   const means = g.comparisons.map((c) => {
     const d = comparisonDecimals(c);
     return `${name(c.candidate)} ${formatNumber(c.mean.candidate, d)} v ${name(c.baseline)} ${formatNumber(c.mean.baseline, d)}`;

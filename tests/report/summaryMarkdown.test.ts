@@ -71,3 +71,18 @@ describe('summaryMarkdown', () => {
     expect(tables(summaryMarkdown(empty))).toHaveLength(0);
   });
 });
+
+describe('summaryMarkdown cautions', () => {
+  it('lists a caution shared by every comparison of a metric once, and others with the pairs they concern', () => {
+    const base = sampleResults();
+    const metric = base.comparisons[0]?.metric as string;
+    const ofMetric = base.comparisons.filter((c) => c.metric === metric);
+    const comparisons = base.comparisons.map((c) =>
+      c.metric !== metric ? c : { ...c, cautions: ['shared line', ...(c === ofMetric[0] ? ['only the first'] : [])] },
+    );
+    const text = summaryMarkdown({ ...base, comparisons } as Results);
+    expect(text.split('shared line').length - 1).toBe(1);
+    expect(text).toContain(`- all ${ofMetric.length} comparisons: shared line`);
+    expect(text.split('only the first').length - 1).toBe(1);
+  });
+});
