@@ -8,11 +8,16 @@
  *
  * Planted effects (what a correct analysis must find; tests rely on these):
  * - val_acc at the end of training: 0.78 at 8 ticks, +0.03 at 16 ticks, +0.05 at 32 ticks;
- *   memory length has NO effect. Seed-to-seed spread (sd of a run's level) 0.008.
+ *   memory length has NO effect. Seed-to-seed spread (sd of a run's level) 0.006; evaluation noise 0.003.
  *   So ticks=32 beats ticks=8 and ticks=16 beats ticks=8; memory=12 vs memory=4 is null.
  * - val_loss mirrors val_acc (lower with more ticks), memory has no effect.
  * - per-tick accuracy val_acc@k rises with k and plateaus; more ticks reach a higher plateau.
  * - certainty@k rises with k.
+ *
+ * The random streams start at seed 2000 (see main): that base was chosen so that this one draw of
+ * the null memory comparisons does not fall among the 5% of draws where a test at alpha 0.05 calls
+ * a null difference significant. That seedsift holds its false-positive rate is tested separately,
+ * on 1,000 null experiments (tests/analysis/analyze.test.ts).
  *
  * Messy cases planted on purpose (each must be reported, none silently lost):
  * - ticks=32/memory=12/seed=4 diverges: train_loss and val_loss become nan from step 1400 on.
@@ -58,8 +63,8 @@ function writeRun(plan: RunPlan, random: Random): void {
   const { ticks, memory, seed } = plan;
   const dir = join(root, `ticks=${ticks}`, `memory=${memory}`, `seed=${seed}`);
   mkdirSync(dir, { recursive: true });
-  const level = 0.78 + (TICK_GAIN[ticks] ?? 0) + 0.008 * gauss(random);
-  const speed = 1 + 0.1 * gauss(random);
+  const level = 0.78 + (TICK_GAIN[ticks] ?? 0) + 0.006 * gauss(random);
+  const speed = 1 + 0.03 * gauss(random);
   const diverges = ticks === 32 && memory === 12 && seed === 4;
   const resumed = ticks === 16 && memory === 4 && seed === 2;
   const stopsAt = ticks === 8 && memory === 12 && seed === 3 ? 1300 : LAST_STEP;
@@ -74,7 +79,7 @@ function writeRun(plan: RunPlan, random: Random): void {
     const trainLoss = gone ? NaN : 2.3 * (1 - progress) + 0.25 - 0.5 * (level - 0.78) + 0.03 * Math.abs(gauss(random)) + jitter;
     const cells = [String(step), fmt(trainLoss)];
     if (step % EVAL_EVERY === 0) {
-      const valAcc = acc + 0.006 * gauss(random) + jitter;
+      const valAcc = acc + 0.003 * gauss(random) + jitter;
       const valLoss = gone ? NaN : 2.3 * (1 - progress) + 0.45 - 1.5 * (level - 0.78) + 0.02 * gauss(random);
       cells.push(fmt(valLoss), fmt(valAcc));
       for (let k = 0; k < ticks; k++) {
@@ -129,7 +134,7 @@ function main(): void {
   for (const ticks of TICKS) {
     for (const memory of MEMORY) {
       for (let seed = 0; seed < SEEDS; seed++) {
-        writeRun({ ticks, memory, seed }, createRandom(1000 + index++));
+        writeRun({ ticks, memory, seed }, createRandom(2000 + index++));
       }
     }
   }
