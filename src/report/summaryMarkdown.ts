@@ -8,7 +8,7 @@
 import type { Comparison, Results } from '../analysis/results.js';
 import { escapeMarkdown } from './escape.js';
 import { comparisonDecimals, formatDifference, formatIntervalKind, formatNumber, formatP, formatSeeds } from './format.js';
-import { comparisonGroups, GOAL_WORDS, sharedIntervalKind, standardCaution, VERDICT_LABELS, type ComparisonGroup } from './verdictWords.js';
+import { cautionScope, comparisonGroups, groupCautions, GOAL_WORDS, sharedIntervalKind, standardCaution, VERDICT_LABELS, type ComparisonGroup } from './verdictWords.js';
 
 /** Longest name shown in a table cell (longer names are cut with their length noted). */
 const NAME_LIMIT = 200;
@@ -39,11 +39,7 @@ function groupTable(results: Results, g: ComparisonGroup): string[] {
     lines.push(row([name(c.baseline), name(c.candidate), difference, formatP(c.pAdjusted), verdictCell(c), formatSeeds(c, results.settings.diverged)]));
   }
   const title = [`### ${name(g.metric)}`, `(${GOAL_WORDS[g.goal]}${g.goalSource === 'inferred' ? ', guessed from the name' : ''}; summary ${name(g.summary)}${withTask ? `; task ${name(g.task ?? '')}` : ''})`];
-  // Each caution once, with the comparisons it concerns (a line shared by all says so).
-  const pairsOf = new Map<string, string[]>();
-  for (const c of g.comparisons) for (const line of c.cautions) pairsOf.set(line, [...(pairsOf.get(line) ?? []), `${name(c.candidate)} v ${name(c.baseline)}`]);
-  const cautions = [...pairsOf].map(([line, pairs]) =>
-    pairs.length === g.comparisons.length && pairs.length > 1 ? `- all ${pairs.length} comparisons: ${escapeMarkdown(line)}` : `- ${pairs.join('; ')}: ${escapeMarkdown(line)}`);
+  const cautions = groupCautions(g.comparisons).map((c) => `- ${cautionScope(c, name)}: ${escapeMarkdown(c.line)}`);
   const means = g.comparisons.map((c) => {
     const d = comparisonDecimals(c);
     return `${name(c.candidate)} ${formatNumber(c.mean.candidate, d)} v ${name(c.baseline)} ${formatNumber(c.mean.baseline, d)}`;

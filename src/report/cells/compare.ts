@@ -5,6 +5,7 @@
  * (permutation, Mann-Whitney, paired tests when run), the adjusted p and verdict, effect sizes,
  * what the seeds can detect, and the caution lines. Everything is read from `Results`.
  */
+import { cautionScope, groupCautions } from '../verdictWords.js';
 import type { Comparison, Results } from '../../analysis/results.js';
 import { compareChart } from '../charts/compareChart.js';
 import { comparisonDecimals, formatDifference, formatIntervalKind, formatNumber, formatP, formatSeeds, formatSigned } from '../format.js';
@@ -65,7 +66,7 @@ export const compare: Cell = {
     const rows: TableCell[][] = labels.map((label, i) => [label, ...columns.map((col) => col[i]?.[1] ?? null)]);
     const head = ['', ...mine.map((c) => ({ html: comparisonTitleHtml(c) }))];
     const table = tableHtml({ className: 'compare', head, rows, numeric: mine.map((_, i) => i + 1) });
-    const cautions = mine.flatMap((c) => c.cautions.map((line) => `${c.candidate} v ${c.baseline}: ${line}`));
+    const cautions = groupCautions(mine).map((c) => `${cautionScope(c, (n) => n)}: ${c.line}`);
     return chart + table + listHtml(cautions);
   },
 };

@@ -7,7 +7,7 @@
 import type { Comparison, Results } from '../../analysis/results.js';
 import { comparisonDecimals, formatDifference, formatIntervalKind, formatP, formatSeeds } from '../format.js';
 import { listHtml, nameHtml, noteHtml, tableHtml, textHtml, type TableCell } from '../html.js';
-import { comparisonGroups, GOAL_WORDS, sharedIntervalKind, standardCaution, VERDICT_LABELS } from '../verdictWords.js';
+import { cautionScope, comparisonGroups, groupCautions, GOAL_WORDS, sharedIntervalKind, standardCaution, VERDICT_LABELS } from '../verdictWords.js';
 import { metricParam, type Cell } from './cell.js';
 
 const CORRECTION_HEAD = { holm: 'p (Holm)', bh: 'p (BH)', none: 'p' } as const;
@@ -46,8 +46,8 @@ function rows(results: Results, metric: string | undefined): { rows: TableCell[]
         formatSeeds(c, results.settings.diverged),
       ]);
       classes.push(i === 0 ? `row-${c.verdict} group-start` : `row-${c.verdict}`);
-      for (const line of c.cautions) cautions.push(`${c.candidate} v ${c.baseline} (${c.metric}): ${line}`);
     });
+    for (const c of groupCautions(g.comparisons)) cautions.push(`${g.metric}, ${cautionScope(c, (n) => n)}: ${c.line}`);
   }
   return { rows: out, classes, cautions, withTask, interval };
 }

@@ -20,7 +20,7 @@ describe('{{verdicts}}', () => {
     expect(r[3]).toBe('memory=4 memory=12 +0.01514 [0.00588, 0.02441] 0.0052 ▼ worse 7 v 4 (1 diverged in the candidate, excluded)');
     expect(html).toContain('<th scope="col" class="num">Difference [95% Welch t-interval]</th>');
     expect(textOf(html)).toContain('A statistical test is evidence, not proof');
-    expect(textOf(html)).toContain('memory=8 v memory=4 (val_acc): Unequal seeds: 7 v 5.');
+    expect(textOf(html)).toContain('val_acc, memory=8 v memory=4: Unequal seeds: 7 v 5.');
   });
 
   it('filters to one metric, and shows tasks and non-inferiority when Results has them', async () => {
