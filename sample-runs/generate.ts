@@ -91,7 +91,7 @@ function writeRun(plan: RunPlan, random: Random): void {
         cells.push(fmt(Math.min(1, Math.max(0, c + 0.01 * gauss(random)))));
       }
     } else {
-      cells.push(...new Array<string>(1 + 2 * ticks).fill(''));
+      cells.push(...new Array<string>(2 + 2 * ticks).fill(''));
     }
     return cells.join(',');
   };
