@@ -1,0 +1,28 @@
+/** `seedsift scan PATH...`: what was found, as text or JSON. */
+import { Command } from 'commander';
+import { inventory } from '../analysis/inventory.js';
+import { ingest } from '../ingest/ingest.js';
+import { scanJson } from '../report/scanJson.js';
+import { scanText } from '../report/scanText.js';
+import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
+import type { Io } from './io.js';
+import { writeOutput } from './writeOutput.js';
+
+export function scanCommand(io: Io, done: (code: number) => void): Command {
+  const command = new Command('scan')
+    .description('list what was found: configs x seeds, metrics and goals, tick metrics, step ranges, problems')
+    .argument('<paths...>', 'folders or files of run logs')
+    .option('--json <file>', "write the scan as JSON to FILE ('-' for standard output)");
+  addIngestOptions(command);
+  command.action(async (paths: string[], raw: RawIngestOptions & { json?: string }) => {
+    const runSet = await ingest(paths, resolveIngestOptions(raw));
+    const inv = inventory(runSet);
+    if (raw.json === '-') io.stdout(scanJson(runSet, inv));
+    else {
+      io.stdout(scanText(runSet, inv));
+      if (raw.json !== undefined) writeOutput(raw.json, scanJson(runSet, inv), runSet.files.map((f) => f.file));
+    }
+    done(0);
+  });
+  return command;
+}

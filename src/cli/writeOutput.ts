@@ -1,0 +1,32 @@
+/**
+ * Safe output writing: each file is written to a temporary file beside it and renamed into place,
+ * so a crash or kill mid-write leaves any earlier file intact; seedsift refuses to write over one
+ * of its own input files.
+ */
+import { existsSync, realpathSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { basename, dirname, join, resolve } from 'node:path';
+import { SeedsiftError } from '../problems.js';
+
+/** Real path when the file exists, else the resolved path (for comparing outputs with inputs). */
+function identity(path: string): string {
+  return existsSync(path) ? realpathSync(path) : resolve(path);
+}
+
+/**
+ * Write `text` to `path` atomically. `inputs` are the files the run read; writing over one of them
+ * throws SeedsiftError('output').
+ */
+export function writeOutput(path: string, text: string, inputs: readonly string[]): void {
+  const target = identity(path);
+  if (inputs.some((input) => identity(input) === target)) {
+    throw new SeedsiftError('output', `refusing to write over an input file: ${path}`);
+  }
+  const temp = join(dirname(target), `.${basename(target)}.${process.pid}.tmp`);
+  try {
+    writeFileSync(temp, text);
+    renameSync(temp, target);
+  } catch (error) {
+    rmSync(temp, { force: true });
+    throw new SeedsiftError('output', `cannot write ${path}: ${(error as Error).message}`);
+  }
+}

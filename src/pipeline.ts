@@ -1,0 +1,69 @@
+/**
+ * The whole job of `seedsift report`, as numbered steps in one function:
+ *
+ *   1. ingest     find the files and read them with DuckDB          → RunSet    (src/ingest/)
+ *   2. resolve    check the report options against what was read    → ResolvedOptions
+ *   3. analyze    summaries, curves, comparisons, verdicts, ticks   → Results   (src/analysis/)
+ *   4. render     the outputs asked for: HTML, JSON, Markdown       → strings   (src/report/)
+ *
+ * Writing files and exit codes are the command line's business (src/cli/report.ts).
+ */
+import type { ResolvedOptions, ReportOptions } from './analysis/options.js';
+import { resolveOptions } from './analysis/options.js';
+import { analyze } from './analysis/analyze.js';
+import type { Results } from './analysis/results.js';
+import { ingest } from './ingest/ingest.js';
+import type { IngestOptions, RunSet } from './ingest/types.js';
+import { renderReport } from './report/renderReport.js';
+import { resultsJson } from './report/resultsJson.js';
+import { summaryMarkdown } from './report/summaryMarkdown.js';
+import { SeedsiftError } from './problems.js';
+
+export interface ReportJob {
+  readonly paths: readonly string[];
+  readonly ingest: IngestOptions;
+  readonly report: ReportOptions;
+  readonly notebook: { readonly source: string; readonly file: string };
+  /** ISO date shown in the outputs. */
+  readonly generated: string;
+  readonly version: string;
+  readonly outputs: { readonly html: boolean; readonly json: boolean; readonly markdown: boolean };
+}
+
+export interface ReportOutputs {
+  readonly runSet: RunSet;
+  readonly options: ResolvedOptions;
+  readonly results: Results;
+  readonly html: string | null;
+  readonly json: string | null;
+  readonly markdown: string | null;
+}
+
+export async function reportPipeline(job: ReportJob): Promise<ReportOutputs> {
+  // 1. ingest
+  const runSet = await ingest(job.paths, job.ingest);
+  // 2. resolve
+  const options = resolveOptions(job.report, runSet);
+  // 3. analyze
+  const results = analyze(runSet, options, { paths: job.paths, generated: job.generated, version: job.version });
+  // 4. render
+  return {
+    runSet,
+    options,
+    results,
+    html: job.outputs.html ? await renderReport(results, job.notebook.source, job.notebook.file) : null,
+    json: job.outputs.json ? resultsJson(results) : null,
+    markdown: job.outputs.markdown ? summaryMarkdown(results) : null,
+  };
+}
+
+/** The report date: SOURCE_DATE_EPOCH (seconds) when set, so builds are reproducible; else now. */
+export function reportDate(env: Readonly<Record<string, string | undefined>>, now: () => Date = () => new Date()): string {
+  const epoch = env['SOURCE_DATE_EPOCH'];
+  if (epoch === undefined || epoch === '') return now().toISOString();
+  const seconds = Number(epoch);
+  if (!Number.isInteger(seconds) || seconds < 0) {
+    throw new SeedsiftError('usage', `SOURCE_DATE_EPOCH: expected a whole number of seconds, got '${epoch}'`);
+  }
+  return new Date(seconds * 1000).toISOString();
+}
