@@ -61,7 +61,8 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
     const notebookFile = raw.notebook ?? DEFAULT_NOTEBOOK;
     const notebookSource = readNotebook(notebookFile);
     const front = parseNotebook(notebookSource, raw.notebook ?? 'templates/notebook.md').options;
-    const runPaths = paths.length > 0 ? paths : notebookRuns(front, notebookFile);
+    const scores = raw.scores ?? front.scores;
+    const runPaths = paths.length > 0 || scores !== undefined ? paths : notebookRuns(front, notebookFile);
     const named = { html: raw.out, json: raw.json, markdown: raw.markdown };
     const outputs = named.html === undefined && named.json === undefined && named.markdown === undefined ? { ...named, html: 'report.html' } : named;
     const result = await reportPipeline({
