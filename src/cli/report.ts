@@ -8,7 +8,6 @@ import { dirname, isAbsolute, join, relative } from 'node:path';
 import { Command } from 'commander';
 import type { ReportOptions } from '../analysis/options.js';
 import type { Results } from '../analysis/results.js';
-import { reportDate, reportPipeline } from '../pipeline.js';
 import { SeedsiftError } from '../problems.js';
 import { parseNotebook, type NotebookOptions } from '../report/parseNotebook.js';
 import { DEFAULT_NOTEBOOK } from '../report/templatePaths.js';
@@ -65,6 +64,8 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
     const runPaths = paths.length > 0 || scores !== undefined ? paths : notebookRuns(front, notebookFile);
     const named = { html: raw.out, json: raw.json, markdown: raw.markdown };
     const outputs = named.html === undefined && named.json === undefined && named.markdown === undefined ? { ...named, html: 'report.html' } : named;
+    // Heavy modules (DuckDB, Vega) load only when the command runs, so --help starts fast.
+    const { reportDate, reportPipeline } = await import('../pipeline.js');
     const result = await reportPipeline({
       paths: runPaths,
       ingest: resolveIngestOptions(mergeIngest(front, raw)),

@@ -1,9 +1,5 @@
 /** `seedsift scan PATH...`: what was found, as text or JSON. */
 import { Command } from 'commander';
-import { inventory } from '../analysis/inventory.js';
-import { ingest } from '../ingest/ingest.js';
-import { scanJson } from '../report/scanJson.js';
-import { scanText } from '../report/scanText.js';
 import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
 import type { Io } from './io.js';
 import { writeOutput } from './writeOutput.js';
@@ -15,6 +11,13 @@ export function scanCommand(io: Io, done: (code: number) => void): Command {
     .option('--json <file>', "write the scan as JSON to FILE ('-' for standard output)");
   addIngestOptions(command);
   command.action(async (paths: string[], raw: RawIngestOptions & { json?: string }) => {
+    // Heavy modules (DuckDB) load only when the command runs, so --help and --version start fast.
+    const [{ ingest }, { inventory }, { scanJson }, { scanText }] = await Promise.all([
+      import('../ingest/ingest.js'),
+      import('../analysis/inventory.js'),
+      import('../report/scanJson.js'),
+      import('../report/scanText.js'),
+    ]);
     const runSet = await ingest(paths, resolveIngestOptions(raw));
     const inv = inventory(runSet);
     if (raw.json === '-') io.stdout(scanJson(runSet, inv));

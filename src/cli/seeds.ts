@@ -3,13 +3,10 @@
  * or from pilot runs (PATH... with --for METRIC and --baseline / --candidate selectors).
  */
 import { Command } from 'commander';
-import { analyze } from '../analysis/analyze.js';
 import { resolveOptions } from '../analysis/options.js';
 import { matchesSelector, parseSelector } from '../analysis/selectors.js';
 import { seedsNeeded, type SeedsAnswer, type SeedsQuestion } from '../analysis/seedsNeeded.js';
-import { ingest } from '../ingest/ingest.js';
 import { SeedsiftError } from '../problems.js';
-import { reportDate } from '../pipeline.js';
 import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
 import type { Io } from './io.js';
 import { version } from './version.js';
@@ -71,12 +68,13 @@ async function pilot(paths: readonly string[], raw: RawSeedsOptions, alpha: numb
   if (raw.for === undefined || raw.baseline === undefined) {
     throw new SeedsiftError('usage', 'seeds: with pilot runs, expected --for METRIC and --baseline SELECTOR');
   }
+  const [{ ingest }, { analyze }] = await Promise.all([import('../ingest/ingest.js'), import('../analysis/analyze.js')]);
   const runSet = await ingest(paths, resolveIngestOptions(raw));
   if (!runSet.metrics.some((m) => m.name === raw.for && m.kind === 'scalar')) {
     throw new SeedsiftError('usage', `--for: expected one of the metrics (${runSet.metrics.filter((m) => m.kind === 'scalar').map((m) => m.name).join(', ')}), got '${raw.for}'`);
   }
   const options = resolveOptions({ summary: raw.summary, seed: 1 }, runSet);
-  const results = analyze(runSet, options, { paths, generated: reportDate({}, () => new Date(0)), version: version() });
+  const results = analyze(runSet, options, { paths, generated: new Date(0).toISOString(), version: version() });
   const paramsOf = new Map(results.configs.map((c) => [c.id, c.params]));
   const armValues = (selectorText: string, option: string): number[] => {
     const selector = parseSelector(selectorText, option);

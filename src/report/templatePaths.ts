@@ -1,5 +1,6 @@
-/** Where the shipped templates live (resolved from this module, so it works from any working directory). */
-import { fileURLToPath } from 'node:url';
+/** Where the shipped templates live (found from the package root, so it works from any working directory and from dist/). */
+import { join } from 'node:path';
+import { packageRoot } from '../packageRoot.js';
 
-export const TEMPLATES_DIR = fileURLToPath(new URL('../../templates/', import.meta.url));
-export const DEFAULT_NOTEBOOK = fileURLToPath(new URL('../../templates/notebook.md', import.meta.url));
+export const TEMPLATES_DIR = join(packageRoot(), 'templates');
+export const DEFAULT_NOTEBOOK = join(TEMPLATES_DIR, 'notebook.md');
