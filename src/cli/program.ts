@@ -6,6 +6,7 @@
  * no stack trace unless --debug); 70 an internal error (a bug in seedsift: please report it).
  */
 import { Command, CommanderError } from 'commander';
+import { digestCommand } from './digest.js';
 import { SeedsiftError } from '../problems.js';
 import type { Io } from './io.js';
 import { notebookCommand } from './notebook.js';
@@ -15,17 +16,28 @@ import { seedsCommand } from './seeds.js';
 import { version } from './version.js';
 import { EXIT_DONE, EXIT_INTERNAL, EXIT_USAGE } from './exitCodes.js';
 
+/**
+ * Commander's usage errors as one line like seedsift's own (`seedsift: unknown option '--x' (Did
+ * you mean --y?) (see seedsift report --help)`): commander puts its suggestion on a second line.
+ */
+function oneLine(command: string): (text: string, write: (text: string) => void) => void {
+  return (text, write) => write(`seedsift: ${text.trim().replace(/^error: /, '').replace(/\s*\n\s*/g, ' ')} (see seedsift ${command}--help)\n`);
+}
 
 export function buildProgram(io: Io, done: (code: number) => void): Command {
   const program = new Command('seedsift')
     .description('Does a change beat seed noise? Reads many runs\' per-step logs, tests configurations against each other, and writes a self-contained report.')
     .version(version(), '-V, --version')
     .option('--debug', 'show the stack trace of an error')
-    .showHelpAfterError('(run seedsift --help for usage)')
-    .configureOutput({ writeOut: io.stdout, writeErr: io.stderr })
+    .configureOutput({ writeOut: io.stdout, writeErr: io.stderr, outputError: oneLine('') })
     .exitOverride();
-  for (const command of [scanCommand(io, done), reportCommand(io, done), notebookCommand(io, done), seedsCommand(io, done)]) {
-    command.configureOutput({ writeOut: io.stdout, writeErr: io.stderr }).exitOverride();
+  for (const command of [scanCommand(io, done), reportCommand(io, done), digestCommand(io, done), notebookCommand(io, done), seedsCommand(io, done)]) {
+    // Nested commands too (notebook new): without exitOverride commander would call process.exit(1).
+    const configure = (c: Command, path: string): void => {
+      c.configureOutput({ writeOut: io.stdout, writeErr: io.stderr, outputError: oneLine(path) }).exitOverride();
+      for (const sub of c.commands) configure(sub, `${path}${sub.name()} `);
+    };
+    configure(command, `${command.name()} `);
     program.addCommand(command);
   }
   program.addHelpText('after', `
@@ -33,6 +45,7 @@ Examples:
   seedsift scan sample-runs
   seedsift report sample-runs --baseline ticks=8,memory=4 -o report.html --json results.json --markdown summary.md
   seedsift report runs/ --baseline memory=4 --summary last:10% --fail-on worse
+  seedsift digest runs/shard-3 --out digests/3.parquet && seedsift report digests/*.parquet
   seedsift notebook new study.md
   seedsift seeds --sd 0.01 --effect 0.005`);
   return program;

@@ -4,7 +4,7 @@
  * for (none named: report.html), and applies the --fail-on gate.
  */
 import { readFileSync } from 'node:fs';
-import { dirname, isAbsolute, join, relative } from 'node:path';
+import { dirname, isAbsolute, join, relative, resolve } from 'node:path';
 import { Command } from 'commander';
 import type { ReportOptions } from '../analysis/options.js';
 import type { Results } from '../analysis/results.js';
@@ -13,6 +13,7 @@ import { parseNotebook, type NotebookOptions } from '../report/parseNotebook.js'
 import { DEFAULT_NOTEBOOK } from '../report/templatePaths.js';
 import { failedGate } from './gate.js';
 import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
+import { inputFiles } from './inputFiles.js';
 import type { Io } from './io.js';
 import { EXIT_GATE } from './exitCodes.js';
 import { version } from './version.js';
@@ -66,16 +67,20 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
     const outputs = named.html === undefined && named.json === undefined && named.markdown === undefined ? { ...named, html: 'report.html' } : named;
     // Heavy modules (DuckDB, Vega) load only when the command runs, so --help starts fast.
     const { reportDate, reportPipeline } = await import('../pipeline.js');
+    const ingestOptions = resolveIngestOptions(mergeIngest(front, raw));
+    const files = [outputs.html, outputs.json, outputs.markdown].filter((f): f is string => f !== undefined);
+    const twice = files.find((f, k) => files.findIndex((g) => resolve(g) === resolve(f)) !== k);
+    if (twice !== undefined) throw new SeedsiftError('usage', `-o, --json, --markdown: expected a different file for each, got ${twice} twice`);
     const result = await reportPipeline({
       paths: runPaths,
-      ingest: resolveIngestOptions(mergeIngest(front, raw)),
+      ingest: ingestOptions,
       report: mergeReport(front, raw),
       notebook: { source: notebookSource, file: raw.notebook ?? 'templates/notebook.md' },
       generated: reportDate(io.env),
       version: version(),
       outputs: { html: outputs.html !== undefined, json: outputs.json !== undefined, markdown: outputs.markdown !== undefined },
     });
-    const inputs = result.runSet.files.map((f) => f.file);
+    const inputs = inputFiles(result.runSet, [ingestOptions.manifest, ingestOptions.scores, notebookFile]);
     const written: string[] = [];
     for (const [file, text] of [[outputs.html, result.html], [outputs.json, result.json], [outputs.markdown, result.markdown]] as const) {
       if (file === undefined || text === null) continue;

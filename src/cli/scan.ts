@@ -1,6 +1,7 @@
 /** `seedsift scan PATH...`: what was found, as text or JSON. */
 import { Command } from 'commander';
 import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
+import { inputFiles } from './inputFiles.js';
 import type { Io } from './io.js';
 import { writeOutput } from './writeOutput.js';
 
@@ -18,12 +19,13 @@ export function scanCommand(io: Io, done: (code: number) => void): Command {
       import('../report/scanJson.js'),
       import('../report/scanText.js'),
     ]);
-    const runSet = await ingest(paths, resolveIngestOptions(raw));
+    const options = resolveIngestOptions(raw);
+    const runSet = await ingest(paths, options);
     const inv = inventory(runSet);
     if (raw.json === '-') io.stdout(scanJson(runSet, inv));
     else {
       io.stdout(scanText(runSet, inv));
-      if (raw.json !== undefined) writeOutput(raw.json, scanJson(runSet, inv), runSet.files.map((f) => f.file));
+      if (raw.json !== undefined) writeOutput(raw.json, scanJson(runSet, inv), inputFiles(runSet, [options.manifest, options.scores]));
     }
     done(0);
   });

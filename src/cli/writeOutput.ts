@@ -27,6 +27,8 @@ export function writeOutput(path: string, text: string, inputs: readonly string[
     renameSync(temp, target);
   } catch (error) {
     rmSync(temp, { force: true });
-    throw new SeedsiftError('output', `cannot write ${path}: ${(error as Error).message}`);
+    const e = error as NodeJS.ErrnoException;
+    const why = e.code === 'ENOENT' ? `no folder ${dirname(path)}` : e.code === 'EACCES' || e.code === 'EPERM' ? 'permission denied' : e.code === 'EISDIR' ? 'it is a folder' : (e.code ?? e.message);
+    throw new SeedsiftError('output', `cannot write ${path}: ${why}`);
   }
 }

@@ -48,6 +48,16 @@ export function sqlString(text: string): string {
 }
 
 /**
+ * A file path as a SQL string literal for DuckDB's readers, its glob characters made literal
+ * (`*` as `[*]`, `?` as `[?]`, `[` as `[[]`): DuckDB expands globs in every path it reads, so a
+ * file named `log?.csv` would also read `logX.csv` beside it, and the rows of a batch would be
+ * given to the wrong files. Pure, O(length). Example: `sqlPath('runs/log[1].csv')` is `'runs/log[[]1].csv'`.
+ */
+export function sqlPath(path: string): string {
+  return sqlString(path.replace(/[[*?]/g, (c) => `[${c}]`));
+}
+
+/**
  * A SQL identifier: the name in double quotes, inner double quotes doubled. Pure, O(length).
  * Example: `sqlIdent('val"acc')` is `"val""acc"`.
  */

@@ -6,6 +6,8 @@
  *   3. load     read the rows with DuckDB, one call per batch of same-shaped files   loadFiles.ts
  *   4. runs     split files into runs, apply the messy-log policies, build dumps     runs.ts
  *   5. report   metrics and goals, file records, problems with exact lines     goals.ts, loadRefs.ts
+ *   6. digests  when digests were among the files (found in step 1 by their marker): read them   digestRead.ts
+ *               and merge them with the runs read from logs                      mergeRunSets.ts
  *
  * One DuckDB instance per call (default threads), closed at the end whatever happens. A file
  * that cannot be used is listed with a problem and ingest goes on; only what the user typed
@@ -13,14 +15,16 @@
  */
 import { problem, type Problem } from '../problems.js';
 import { planColumns, type ColumnPlan } from './columns.js';
+import { findDigests, readDigest } from './digestRead.js';
 import { closeEngine, openEngine, type Engine } from './duckdb.js';
 import { metricGoal } from './goals.js';
-import { locate } from './locate.js';
+import { locate, type Located } from './locate.js';
 import { fileDrafts, headerDrift, notNumericDrafts } from './loadChecks.js';
 import { loadFiles, type FileData, type FileToRead } from './loadFiles.js';
 import { readHeader } from './loadHeader.js';
 import { draft, finishDrafts, type Draft } from './loadRefs.js';
 import { numericNames } from './loadRows.js';
+import { mergeRunSets, type RunSetPart } from './mergeRunSets.js';
 import { assembleRuns } from './runs.js';
 import { readScores } from './scores.js';
 import type { FileRecord, IngestOptions, MetricInfo, Run, RunSet, RunSource } from './types.js';
@@ -49,6 +53,15 @@ export function metricInfos(runs: readonly Run[], options: Pick<IngestOptions, '
   return { metrics, problems };
 }
 
+/** Step 6: read the digests and merge them with the runs read from logs, parts in the order their first file was found. */
+async function withDigests(engine: Engine, found: Located, logs: RunSet, digests: ReadonlyMap<string, string>, options: IngestOptions): Promise<RunSet> {
+  const order = new Map(found.sources.map((s, k) => [s.file, k]));
+  const parts: { at: number; part: RunSetPart }[] = [{ at: found.sources.findIndex((s) => !digests.has(s.file)), part: { digest: null, runSet: logs } }];
+  for (const file of digests.keys()) parts.push({ at: order.get(file) ?? -1, part: { digest: file, runSet: await readDigest(engine, file) } });
+  parts.sort((a, b) => a.at - b.at);
+  return await mergeRunSets(parts.map((p) => p.part), options);
+}
+
 async function ingestScores(engine: Engine, options: IngestOptions): Promise<RunSet> {
   const table = await readScores(engine, options);
   const { metrics, problems } = metricInfos(table.runs, options);
@@ -58,8 +71,9 @@ async function ingestScores(engine: Engine, options: IngestOptions): Promise<Run
 /**
  * Read every run under `paths` (or the `--scores` table) into a RunSet (see the module comment).
  * Throws SeedsiftError('usage' | 'input') only for what the user typed or supplied (from locate,
- * or options). Cost: dominated by DuckDB parsing the files (measured on a shared 2-core machine:
- * 500 runs x 20,000 rows x 4 columns, 315 MB of CSV, in 5 to 9 s with a peak RSS of 0.6 to 0.7 GB);
+ * or options, or a digest that cannot be used: digestRead.ts, mergeRunSets.ts). Cost: dominated
+ * by DuckDB parsing the files (measured on a shared 2-core machine: 500 runs x 20,000 rows x 4
+ * columns, 315 MB of CSV, in 5 to 9 s with a peak RSS of 0.6 to 0.7 GB);
  * memory about 8 bytes per number kept, plus one batch of DuckDB results.
  * Example: `await ingest(['runs'], options)` with runs/ticks=8/seed=1/log.csv gives one run `ticks=8,seed=1`.
  */
@@ -67,8 +81,10 @@ export async function ingest(paths: readonly string[], options: IngestOptions): 
   const engine = await openEngine();
   try {
     if (options.scores !== null) return await ingestScores(engine, options);
-    // 1. locate
-    const located = await locate(paths, options);
+    // 1. locate (digests are set aside for step 6)
+    const found = await locate(paths, options);
+    const digests = await findDigests(engine, found.sources.filter((s) => s.format === 'parquet' && !s.gzip).map((s) => s.file));
+    const located: Located = digests.size === 0 ? found : { sources: found.sources.filter((s) => !digests.has(s.file)), files: found.files, problems: found.problems.filter((p) => p.file === undefined || !digests.has(p.file)) };
     const drafts: Draft[] = [];
     const records: FileRecord[] = [...located.files];
     const failed: RunSource[] = [];
@@ -120,7 +136,9 @@ export async function ingest(paths: readonly string[], options: IngestOptions): 
     const lineProblems = await finishDrafts(drafts);
     const order = new Map(located.sources.map((s, k) => [s.file, k]));
     const files = [...located.files, ...records.slice(located.files.length).sort((a, b) => (order.get(a.file) ?? 0) - (order.get(b.file) ?? 0))];
-    return { mode: 'logs', keys: assembly.keys, runs: assembly.runs, metrics, tickDumps: assembly.dumps, files, problems: [...located.problems, ...lineProblems, ...problems] };
+    const logs: RunSet = { mode: 'logs', keys: assembly.keys, runs: assembly.runs, metrics, tickDumps: assembly.dumps, files, problems: [...located.problems, ...lineProblems, ...problems] };
+    // 6. digests
+    return digests.size === 0 ? logs : await withDigests(engine, found, logs, digests, options);
   } finally {
     closeEngine(engine);
   }

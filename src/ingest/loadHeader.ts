@@ -6,14 +6,18 @@
  * Only the head of a text file is read (64 KiB, more only if the header line is longer); a
  * gzipped file is decompressed just that far. A file that cannot be opened or decompressed is
  * `file-unreadable`; one with no line that is not blank is `file-empty` (a header without rows is
- * found to be empty later, when its rows are counted).
+ * found to be empty later, when its rows are counted). Also `file-unreadable`: a first line with a
+ * NUL byte (binary data, not text), a first line of more than `MAX_COLUMNS` fields, and a gzip
+ * file that is truncated or damaged (gzipDamage.ts: checked in full, since DuckDB would read it up
+ * to the damage without a word).
  *
  * Headerless files: with `--columns a,b,c`, a text file whose first line is exactly those names
  * is read with that line as its header; any other text file is read as headerless with those names.
  */
 import { open, stat } from 'node:fs/promises';
 import { constants, gunzipSync } from 'node:zlib';
-import { sqlString, type Engine } from './duckdb.js';
+import { sqlPath, type Engine } from './duckdb.js';
+import { gzipDamage } from './gzipDamage.js';
 import { sniffDelimiter, whitespaceFields } from './loadSniff.js';
 import type { RunSource } from './types.js';
 
@@ -47,6 +51,13 @@ export type HeaderResult =
 
 const HEAD_BYTES = 65536;
 const MAX_HEAD_BYTES = 16 * 1024 * 1024;
+/**
+ * Most columns a text log may have. DuckDB's time grows with the number of columns (measured: about
+ * 1 s per 1,000 columns), so a file written without line breaks (a 5 MB first line of 600,000
+ * fields) would hold ingest for minutes; a per-step log with more than this many columns is not
+ * plausible. Such a file is `file-unreadable` with the count.
+ */
+export const MAX_COLUMNS = 10000;
 
 /** Split one line on a one-character delimiter, double-quoted fields unquoted (`""` inside is `"`). */
 function splitFields(line: string, char: string): string[] {
@@ -127,7 +138,8 @@ export function textHeader(lines: readonly string[], format: 'csv' | 'tsv' | 'tx
 /**
  * Read a file's header (see the module comment). Text files are read with Node (head only);
  * Parquet files are described by DuckDB. Never throws: failures are returned as
- * `file-unreadable` or `file-empty` with the reason. Cost: one small read per file.
+ * `file-unreadable` or `file-empty` with the reason. Cost: one small read per file, plus one full
+ * streamed decompression of a gzipped one.
  * Example: for `runs/seed=1/log.csv` starting `step,loss` the names are `['step', 'loss']`.
  */
 export async function readHeader(source: RunSource, columns: readonly string[] | null, engine: Engine): Promise<HeaderResult> {
@@ -139,7 +151,7 @@ export async function readHeader(source: RunSource, columns: readonly string[] |
   }
   if (source.format === 'parquet') {
     try {
-      const reader = await engine.connection.runAndReadAll(`DESCRIBE SELECT * FROM read_parquet(${sqlString(source.file)})`);
+      const reader = await engine.connection.runAndReadAll(`DESCRIBE SELECT * FROM read_parquet(${sqlPath(source.file)}, hive_partitioning=false)`);
       const rows = reader.getRowsJS();
       const names = nameColumns(rows.map((r) => String(r[0])));
       return { ok: true, header: { source, names, parquetTypes: rows.map((r) => String(r[1])), text: null, bytes, textLike: [] } };
@@ -156,7 +168,15 @@ export async function readHeader(source: RunSource, columns: readonly string[] |
   const text = head.text.startsWith('\uFEFF') ? head.text.slice(1) : head.text;
   const lines = text.split(/\r\n|\n|\r/);
   if (!head.complete && lines.length > 1) lines.pop();
+  if ((lines[0] as string).includes('\u0000')) return { ok: false, code: 'file-unreadable', reason: 'binary data (a NUL byte on the first line), not a text log' };
   const parsed = textHeader(lines, source.format, columns);
   if (parsed === null) return { ok: false, code: 'file-empty', reason: bytes === 0 ? 'the file is empty (0 bytes)' : 'the file has only blank lines' };
+  if (parsed.names.length > MAX_COLUMNS) {
+    return { ok: false, code: 'file-unreadable', reason: `its first line has ${parsed.names.length} fields (more than ${MAX_COLUMNS}), so it is not read as a per-step log (rows written without line breaks?)` };
+  }
+  if (source.gzip) {
+    const damage = await gzipDamage(source.file);
+    if (damage !== null) return { ok: false, code: 'file-unreadable', reason: damage };
+  }
   return { ok: true, header: { source, names: parsed.names, parquetTypes: null, text: parsed.text, bytes, textLike: parsed.textLike } };
 }

@@ -20,6 +20,8 @@ import { gunzipSync } from 'node:zlib';
 export interface Records {
   /** 1-based physical line on which record k starts (record k is DuckDB's line k + 1). */
   readonly start: Int32Array;
+  /** 1-based physical line on which record k ends (after `start` when a quoted field holds line breaks, or a quote is never closed). */
+  readonly end: Int32Array;
   /** 1 when record k is blank: zero length (delimited) or whitespace only (whitespace mode). */
   readonly blank: Uint8Array;
 }
@@ -35,10 +37,12 @@ function isSpace(b: number): boolean {
 /**
  * Find the records of a text file (see the module comment). `quoted`: double quotes group a field
  * (delimited files); false in whitespace mode. Pure, O(bytes).
- * Example: for `'a\n"x\ny"\n\nb\n'` with quoting, the starts are `[1, 2, 4, 5]` and only record 2 is blank.
+ * Example: for `'a\n"x\ny"\n\nb\n'` with quoting, the starts are `[1, 2, 4, 5]`, the ends `[1, 3, 4, 5]`
+ * and only record 2 is blank.
  */
 export function scanRecords(bytes: Uint8Array, options: { quoted: boolean; whitespace: boolean }): Records {
   const starts: number[] = [];
+  const ends: number[] = [];
   const blanks: number[] = [];
   const n = bytes.length;
   let line = 1;
@@ -48,10 +52,12 @@ export function scanRecords(bytes: Uint8Array, options: { quoted: boolean; white
     let quoted = false;
     let length = 0;
     let visible = 0;
+    let endLine = line;
     while (i < n) {
       const b = bytes[i] as number;
       if (b === LF || b === CR) {
         if (b === CR && bytes[i + 1] === LF) i++;
+        endLine = line;
         line++;
         i++;
         if (!quoted) break;
@@ -60,14 +66,16 @@ export function scanRecords(bytes: Uint8Array, options: { quoted: boolean; white
         continue;
       }
       if (options.quoted && b === QUOTE) quoted = !quoted;
+      endLine = line;
       length++;
       if (!isSpace(b)) visible++;
       i++;
     }
     starts.push(startLine);
+    ends.push(endLine);
     blanks.push(options.whitespace ? (visible === 0 ? 1 : 0) : length === 0 ? 1 : 0);
   }
-  return { start: Int32Array.from(starts), blank: Uint8Array.from(blanks) };
+  return { start: Int32Array.from(starts), end: Int32Array.from(ends), blank: Uint8Array.from(blanks) };
 }
 
 /**

@@ -19,9 +19,11 @@
  * result is the file's position in the batch (`file_index`); a `--seed-column` column comes back as
  * the 1-based position of its text in a list of the seeds found (0 for an empty cell); a
  * whitespace-separated batch adds a last column, 1 for a row whose number of fields is wrong.
- * Malformed rows of delimited files go to DuckDB's reject tables (`store_rejects`).
+ * Malformed rows of delimited files go to DuckDB's reject tables (`store_rejects`). Hive partitioning
+ * is off: DuckDB would otherwise add a column for every `key=value` folder above a file, and one
+ * named like a column of ours (`c0=5/`, `file_index=3/`) would replace it.
  */
-import { sqlIdent, sqlString } from './duckdb.js';
+import { sqlIdent, sqlPath, sqlString } from './duckdb.js';
 import type { FileHeader } from './loadHeader.js';
 
 /** Names of DuckDB's reject tables (temporary, per connection; dropped after each batch). */
@@ -63,20 +65,20 @@ export interface BatchSpec {
 const NONE: ReadonlySet<number> = new Set();
 
 function fileList(headers: readonly FileHeader[]): string {
-  return `[${headers.map((h) => sqlString(h.source.file)).join(', ')}]`;
+  return `[${headers.map((h) => sqlPath(h.source.file)).join(', ')}]`;
 }
 
 /** The table function call that reads the batch with columns named c0, c1, ... (or `line`). */
 function readCall(headers: readonly FileHeader[], doubles: ReadonlySet<number>): string {
   const first = headers[0] as FileHeader;
-  if (first.text === null) return `read_parquet(${fileList(headers)})`;
+  if (first.text === null) return `read_parquet(${fileList(headers)}, hive_partitioning=false)`;
   const whitespace = first.text.delimiter === null;
   const columns = whitespace ? `{'line': 'VARCHAR'}` : `{${first.names.map((_, k) => `'c${k}': '${doubles.has(k) ? 'DOUBLE' : 'VARCHAR'}'`).join(', ')}}`;
   const delimiter = whitespace ? LINE_DELIMITER : (first.text.delimiter as string);
   const quote = whitespace ? `quote='', escape=''` : `quote='"', escape='"'`;
   return (
     `read_csv(${fileList(headers)}, header=${first.text.header}, delim=${sqlString(delimiter)}, ${quote}, columns=${columns}, ` +
-    `auto_detect=false, compression=${first.source.gzip ? "'gzip'" : "'none'"}, store_rejects=true, ` +
+    `auto_detect=false, hive_partitioning=false, compression=${first.source.gzip ? "'gzip'" : "'none'"}, store_rejects=true, ` +
     `rejects_table=${sqlString(REJECTS_TABLE)}, rejects_scan=${sqlString(REJECTS_SCAN)})`
   );
 }

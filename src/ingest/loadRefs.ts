@@ -21,7 +21,8 @@ export interface RowRef {
 
 /**
  * A problem whose rows are not yet line numbers. The first row's line becomes `line`; with several
- * rows the message gets ` (lines 3, 7)` appended, and rows without lines (Parquet) ` (row 4)`.
+ * rows the message gets ` (lines 3, 7)` appended, and rows without lines (Parquet) ` (row 4)`; a
+ * rejected record that spans several lines (a quoted line break, a quote never closed) names them all.
  */
 export interface Draft {
   readonly code: ProblemCode;
@@ -40,10 +41,11 @@ export function draft(code: ProblemCode, message: string, where: { file?: string
   return d;
 }
 
-/** Line of each data row and of each DuckDB record, for one text file. */
+/** Line of each data row and of each DuckDB record (where it starts and ends), for one text file. */
 interface LineMap {
   readonly dataRow: Int32Array;
   readonly record: Int32Array;
+  readonly recordEnd: Int32Array;
 }
 
 async function lineMap(data: FileData): Promise<LineMap | null> {
@@ -54,7 +56,7 @@ async function lineMap(data: FileData): Promise<LineMap | null> {
     const whitespace = text.delimiter === null;
     const records = scanRecords(bytes, { quoted: !whitespace, whitespace });
     const rejected = new Set(data.rejects.map((r) => r.record));
-    return { dataRow: dataRowLines(records, text.header, rejected), record: records.start };
+    return { dataRow: dataRowLines(records, text.header, rejected), record: records.start, recordEnd: records.end };
   } catch {
     return null; // the file changed or vanished since it was read: fall back to row numbers
   }
@@ -83,6 +85,11 @@ export async function finishDrafts(drafts: readonly Draft[]): Promise<Problem[]>
     let message = d.message;
     const lines = place.every((p) => p.line !== undefined);
     if (place.length > 1 || (place.length === 1 && !lines)) message += ` (${lines ? 'lines ' : ''}${place.map((p) => p.text).join(', ')})`;
+    // A rejected record that spans lines (a quote never closed swallows the lines after it): say so.
+    const only = rows.length === 1 ? (rows[0] as RowRef) : null;
+    const start = only?.kind === 'record' ? maps.get(only.data)?.record[only.n - 1] : undefined;
+    const end = only?.kind === 'record' ? maps.get(only.data)?.recordEnd[only.n - 1] : undefined;
+    if (start !== undefined && end !== undefined && end > start) message += ` (the rejected row spans lines ${start} to ${end})`;
     const where: { file?: string; line?: number; run?: string } = {};
     if (d.file !== undefined) where.file = d.file;
     else if (rows.length > 0) where.file = (rows[0] as RowRef).data.header.source.file;

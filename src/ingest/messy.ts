@@ -138,6 +138,9 @@ export function cleanSeries(steps: Float64Array, cells: Float64Array, order: Int
     end--;
     divergedRow = winners[end] as number;
   }
+  // "Goes non-finite and stays so" needs a finite stretch before: a metric that is never finite
+  // did not diverge, it was never logged (the loader reports it as metric-empty).
+  if (end === 0 || !winners.slice(0, end).some((w) => Number.isFinite(cells[w] as number))) divergedRow = -1;
   let finite = 0;
   for (const w of winners) if (Number.isFinite(cells[w] as number)) finite++;
   const outSteps = new Float64Array(finite);

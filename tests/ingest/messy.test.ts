@@ -94,10 +94,12 @@ describe('cleanSeries: the policies of DESIGN "Messy logs"', () => {
     expect(Array.from(c.series.values)).toEqual([0.1, 0.2]);
   });
 
-  it('a metric non-finite from the start diverges at its first step and has no values', () => {
+  it('a metric never finite did not diverge (DESIGN: "goes non-finite and stays so" needs a finite stretch first); it has no values', () => {
     const c = clean([5, 6], [NF, NF]);
-    expect(c.series.divergedAt).toBe(5);
+    expect(c.series.divergedAt).toBeNull();
     expect(c.series.values.length).toBe(0);
+    // After a finite start, the same tail is a divergence.
+    expect(clean([4, 5, 6], [0.5, NF, NF]).series.divergedAt).toBe(5);
   });
 
   it('does not mutate its inputs', () => {
