@@ -3,8 +3,12 @@
 // as JSON. When a chart comes near the screen, a Vega view is built from the spec, drawn
 // off-screen, and swapped in for the SVG once it has rendered, so the page never shows an empty
 // chart; if anything fails, the SVG stays. `data-live` on the chart says which: pending, true, failed.
+// Expressions are evaluated by Vega's interpreter (the global vegaInterpreter, inlined before this
+// script) from the parsed syntax trees, never compiled with eval or Function: the page's
+// Content-Security-Policy allows neither. Legend clicks are the charts' own (Vega-Lite selections):
+// a click shows that config alone, shift-click adds or removes one, a double-click shows all.
 // Tooltips use a small handler of our own that writes text only (never HTML). Nothing here reaches
-// the network: the page's Content-Security-Policy forbids it.
+// the network: the Content-Security-Policy forbids it.
 (function () {
   'use strict';
 
@@ -68,7 +72,8 @@
     }
     var holder = document.createElement('div');
     holder.className = 'chart-live';
-    var live = new vega.View(vega.parse(spec), { renderer: 'svg', logLevel: vega.Error });
+    var runtime = vega.parse(spec, null, { ast: true });
+    var live = new vega.View(runtime, { expr: vegaInterpreter, renderer: 'svg', logLevel: vega.Error });
     live.tooltip(tooltip);
     live.hover();
     live.initialize(holder);
@@ -97,7 +102,7 @@
 
   // Charts become interactive as they come near the screen, so opening a long report stays quick.
   function start() {
-    if (typeof vega === 'undefined') return;
+    if (typeof vega === 'undefined' || typeof vegaInterpreter === 'undefined') return;
     var views = document.querySelectorAll('.chart-view[data-chart]');
     var i;
     if (!('IntersectionObserver' in window)) {

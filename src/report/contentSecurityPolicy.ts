@@ -3,10 +3,10 @@
  * posted or connected to; images only from `data:` URLs; the inline style allowed; scripts only
  * those whose SHA-256 hash the policy lists (CSP Level 3, "hash-source").
  *
- * `'unsafe-eval'`: the Vega runtime compiles its expressions (tooltips, selections, scales) with
- * `Function`, so the interactive view needs it. It allows no network access and no script that is
- * not already in the page; Vega's CSP-safe interpreter lives in a separate package (vega-interpreter)
- * that seedsift does not ship.
+ * No `'unsafe-eval'`: the Vega runtime would compile its expressions (tooltips, selections,
+ * scales) with `Function`, so the page parses chart specs with `{ ast: true }` and evaluates them
+ * with Vega's interpreter (vega-interpreter, inlined as a classic script) instead; nothing on the
+ * page needs `eval` or `Function`.
  */
 import { createHash } from 'node:crypto';
 
@@ -21,14 +21,14 @@ export function scriptHash(script: string): string {
 /**
  * The policy for a page whose inline scripts are `scripts` (their exact text between the tags).
  * Cost O(total script length). Never throws.
- * Example: `contentSecurityPolicy(['x'])` → `"default-src 'none'; img-src data:; style-src 'unsafe-inline'; script-src 'sha256-...' 'unsafe-eval'; connect-src 'none'; ..."`.
+ * Example: `contentSecurityPolicy(['x'])` → `"default-src 'none'; img-src data:; style-src 'unsafe-inline'; script-src 'sha256-...'; connect-src 'none'; ..."`.
  */
 export function contentSecurityPolicy(scripts: readonly string[]): string {
   return [
     "default-src 'none'",
     'img-src data:',
     "style-src 'unsafe-inline'",
-    `script-src ${scripts.map(scriptHash).join(' ')} 'unsafe-eval'`,
+    `script-src ${scripts.map(scriptHash).join(' ')}`,
     "connect-src 'none'",
     "font-src 'none'",
     "media-src 'none'",

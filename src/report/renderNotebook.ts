@@ -7,7 +7,9 @@
  *   3. render the Markdown (prose) with markdown-it;
  *   4. put each cell's HTML in place of its placeholder;
  *   5. render every recorded chart to SVG (one after another, so ids are stable), with its compiled
- *      Vega spec beside it for the interactive view, and put it in its figure.
+ *      Vega spec beside it for the interactive view, and put it in its figure. Chart data is rounded
+ *      to 6 significant digits first (`roundChartData`), and the SVG leaves out the invisible hover
+ *      layers that only the interactive view uses (`staticChart`).
  * Template mistakes (a misspelled cell or field, a metric that does not exist, a syntax error)
  * become SeedsiftError('notebook') with the notebook's file and line.
  */
@@ -20,6 +22,8 @@ import { CHART_PLACEHOLDER, type RenderState } from './cells/cell.js';
 import { jsonForScript, visibleText } from './escape.js';
 import { createMarkdown } from './markdown.js';
 import type { Notebook } from './parseNotebook.js';
+import { roundChartData } from './charts/roundChartData.js';
+import { staticChart } from './charts/staticChart.js';
 import { compileVega, renderSvg } from './renderSvg.js';
 import { createSlugger } from './slugger.js';
 
@@ -112,11 +116,12 @@ function notebookError(error: unknown, notebook: Notebook): unknown {
 
 /**
  * One chart: its server-rendered SVG (ids prefixed so charts on one page do not share clip paths)
- * and its compiled Vega spec as JSON for the interactive view.
+ * and its compiled Vega spec as JSON for the interactive view, both from the rounded data.
  */
-async function chartHtml(spec: TopLevelSpec, index: number): Promise<string> {
+async function chartHtml(full: TopLevelSpec, index: number): Promise<string> {
   const prefix = `c${index + 1}-`;
-  const svg = prefixIds(stripNamespaces(await renderSvg(spec)), prefix);
+  const spec = roundChartData(full);
+  const svg = prefixIds(stripNamespaces(await renderSvg(staticChart(spec))), prefix);
   const { $schema: _schema, ...vega } = compileVega(spec) as { $schema?: string } & Record<string, unknown>;
   return `<div class="chart-view" data-chart="${index + 1}">${svg}</div><script type="application/json" class="chart-spec">${jsonForScript(vega)}</script>`;
 }

@@ -2,8 +2,9 @@
  * The report page: one self-contained HTML file rendered from `Results` and a notebook.
  *   1. render the notebook (`renderNotebook`: cells, prose, charts as inline SVG with their Vega specs);
  *   2. list the headings for the table of contents;
- *   3. hash the two inline scripts (the Vega runtime and the small script that makes charts
- *      interactive) into the Content-Security-Policy, which forbids all network access;
+ *   3. hash the three inline scripts (the Vega runtime, Vega's expression interpreter and the small
+ *      script that makes charts interactive) into the Content-Security-Policy, which forbids all
+ *      network access and `eval`;
  *   4. fill the layout (a strict template on a private Handlebars instance) with the title, the
  *      date from `Results.generated`, a line of facts, the contents, the style sheet and the scripts.
  * Identical `Results` and notebook give identical bytes (no clock, no random ids, charts rendered
@@ -66,7 +67,7 @@ export async function renderReport(results: Results, notebookSource: string, not
   for (const [name, source] of Object.entries(assets.partials)) hb.registerPartial(name, source);
   const layout = hb.compile(assets.layout, { strict: true });
   return layout({
-    csp: contentSecurityPolicy([assets.vega, assets.hydrate]),
+    csp: contentSecurityPolicy([assets.vega, assets.interpreter, assets.hydrate]),
     version: results.tool.version,
     title: visibleText(title, 200),
     date: readableDate(results.generated),
@@ -76,6 +77,7 @@ export async function renderReport(results: Results, notebookSource: string, not
     css: assets.css,
     body: body.html,
     vegaScript: assets.vega,
+    interpreterScript: assets.interpreter,
     hydrateScript: assets.hydrate,
   });
 }

@@ -1,9 +1,11 @@
 /// <reference lib="dom" />
 /**
  * The report in a real browser (Debian's chromium driven by playwright-core), from a file:// URL:
- * no console output, no network request but the file itself, every chart drawn, the verdict table
- * on the first screen, tooltips on hover, charts still drawn without JavaScript; and a report built
- * from hostile names fires no dialog, prints nothing, and shows the names as text.
+ * a Content-Security-Policy with no 'unsafe-eval' under which every chart still becomes a live Vega
+ * view (Chromium reports any blocked eval as a console error, and the test wants none), no network
+ * request but the file itself, the verdict table on the first screen, tooltips on hover, a click on
+ * a legend entry fading the other configs, charts still drawn without JavaScript; and a report
+ * built from hostile names fires no dialog, prints nothing, and shows the names as text.
  *
  * Without chromium the suite is skipped on a developer machine and fails under CI (env CI set).
  * Install it with `apt-get install -y chromium`; CHROMIUM_PATH overrides /usr/bin/chromium.
@@ -13,9 +15,10 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { renderReport } from '../../src/report/renderReport.js';
+import { CONFIG_COLOURS } from '../../src/report/palette.js';
 import { DEFAULT_NOTEBOOK } from '../../src/report/templatePaths.js';
 import { HOSTILE_NAMES, LONG_NAME } from './hostileNames.js';
-import { sampleResults } from './sampleResults.js';
+import { SAMPLE_NAMES, sampleResults } from './sampleResults.js';
 
 const CHROMIUM = process.env['CHROMIUM_PATH'] ?? '/usr/bin/chromium';
 const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
@@ -100,10 +103,18 @@ suite('the report in chromium', () => {
     await browser?.close();
   });
 
-  it('opens with no console output and no request but the file, charts drawn, verdicts on the first screen, tooltips', async () => {
+  it('opens under a policy without eval: no console output, no request but the file, every chart live, verdicts on the first screen, tooltips, legend toggling', async () => {
     const { page, watch } = await open(browser, reportFile);
     // Figures measured on this machine are printed for the report (no timing assertion).
     console.info(`report.html: ${statSync(reportFile).size} bytes, load event after ${watch.openMs.toFixed(0)} ms`);
+
+    // The policy the page runs under: scripts only by hash, no eval of any kind.
+    const csp = await page.evaluate(() => document.querySelector('meta[http-equiv="Content-Security-Policy"]')?.getAttribute('content') ?? '');
+    const scriptSrc = csp.split('; ').find((d) => d.startsWith('script-src '))?.split(' ').slice(1) ?? [];
+    expect(scriptSrc).toHaveLength(3);
+    expect(scriptSrc.every((source) => /^'sha256-[A-Za-z0-9+/]+=*'$/.test(source))).toBe(true);
+    expect(csp).not.toContain('unsafe-eval');
+    expect(csp).toMatch(/default-src 'none'/);
 
     // The verdict table lies inside the first 1280 x 800 screen.
     const box = await page.locator('table.verdicts').boundingBox();
@@ -137,6 +148,24 @@ suite('the report in chromium', () => {
     expect(shown).toBe(true);
     expect(await tip.innerText()).toMatch(/seed/);
 
+    // Clicking a config in the legend of the learning curves keeps its lines and fades the others.
+    const curves = page.locator('figure.chart').nth(0);
+    await curves.scrollIntoViewIfNeeded();
+    const meanOpacity = (): Promise<Record<string, string>> =>
+      curves.evaluate((f) => Object.fromEntries([...f.querySelectorAll('.mean_marks path')].map((p) => [p.getAttribute('stroke') ?? '', p.getAttribute('opacity') ?? '1'])));
+    const [c0, c1, c2] = [CONFIG_COLOURS[0] ?? '', CONFIG_COLOURS[1] ?? '', CONFIG_COLOURS[2] ?? ''];
+    expect(await meanOpacity()).toEqual({ [c0]: '1', [c1]: '1', [c2]: '1' });
+    const label = curves.locator('.role-legend-label text', { hasText: new RegExp(`^${SAMPLE_NAMES.configs[1]}$`) });
+    expect(await label.count()).toBe(1);
+    await expect(curves.locator('.chart-hint').isVisible()).resolves.toBe(true);
+    await label.click();
+    await expect.poll(meanOpacity).toEqual({ [c0]: '0.15', [c1]: '1', [c2]: '0.15' });
+    // A double-click on the plot shows every config again.
+    const plot = await curves.locator('.mean_marks').first().boundingBox();
+    expect(plot).not.toBeNull();
+    await page.mouse.dblclick((plot?.x ?? 0) + 4, (plot?.y ?? 0) + 4);
+    await expect.poll(meanOpacity).toEqual({ [c0]: '1', [c1]: '1', [c2]: '1' });
+
     await page.screenshot({ path: `${ARTIFACTS}report-full.png`, fullPage: true });
     expect(watch.console).toEqual([]);
     expect(watch.dialogs).toEqual([]);
@@ -150,6 +179,9 @@ suite('the report in chromium', () => {
     expect(marks).toHaveLength(15);
     expect(marks.every((n) => n > 0)).toBe(true);
     expect(await page.locator('.chart-view[data-live]').count()).toBe(0);
+    // The toggling hint is for live charts only.
+    expect(await page.locator('.chart-hint').count()).toBe(5);
+    expect(await page.locator('.chart-hint:visible').count()).toBe(0);
     expect(watch.console).toEqual([]);
     await page.context().close();
   });
@@ -185,7 +217,7 @@ suite('the report in chromium', () => {
     expect(dom.images).toBe(0);
     expect(dom.handlers).toBe(0);
     expect(dom.jsLinks).toBe(0);
-    expect(dom.scripts.filter((t) => t === 'classic')).toHaveLength(2);
+    expect(dom.scripts.filter((t) => t === 'classic')).toHaveLength(3);
     expect(dom.scripts.filter((t) => t !== 'classic' && t !== 'application/json')).toEqual([]);
     for (const text of ['memory=<script>alert(1)</script>', `memory="'><img src=x onerror=alert(2)>`, '</script><script>alert(3)</script>', '{{verdicts}} [click](javascript:alert(4)) _x_ ‹U+202E›gnp.exe', '<a href="javascript:alert(7)">x</a> {{problems}} ‹U+202E›evil']) {
       expect(dom.text).toContain(text);

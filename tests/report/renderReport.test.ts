@@ -1,15 +1,17 @@
 /**
  * The report page as a file: self-contained (no URL that could be fetched), a Content-Security-
  * Policy whose script hashes match the inline scripts (SHA-256 per FIPS 180-4, recomputed here
- * with node:crypto; hash-source syntax per CSP Level 3), every chart present as SVG with a
- * parseable compiled spec, the verdict table first, and the same bytes for the same input.
- * (The browser test opens the page; this one reads the text.)
+ * with node:crypto; hash-source syntax per CSP Level 3) and that allows no eval, every chart
+ * present as SVG with a parseable compiled spec, the verdict table first, and the same bytes for
+ * the same input. (The browser test opens the page; this one reads the text.)
  */
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { interpreterScript } from '../../src/report/interpreterScript.js';
 import { DEFAULT_NOTEBOOK } from '../../src/report/templatePaths.js';
 import { readableDate, renderReport } from '../../src/report/renderReport.js';
+import { demoSizedResults } from './demoSizedResults.js';
 import { sampleResults } from './sampleResults.js';
 
 const NOTEBOOK = readFileSync(DEFAULT_NOTEBOOK, 'utf8');
@@ -35,8 +37,10 @@ describe('renderReport', () => {
     expect(directives.get('img-src')).toEqual(['data:']);
     expect(directives.get('style-src')).toEqual(["'unsafe-inline'"]);
     const hashes = inlineScripts(html).map((s) => `'sha256-${createHash('sha256').update(s, 'utf8').digest('base64')}'`);
-    expect(hashes).toHaveLength(2);
-    expect(directives.get('script-src')).toEqual([...hashes, "'unsafe-eval'"]);
+    expect(hashes).toHaveLength(3);
+    // Exactly the three hashes: no 'unsafe-eval' (Vega's expressions are interpreted, not compiled), no 'unsafe-inline'.
+    expect(directives.get('script-src')).toEqual(hashes);
+    expect(csp).not.toContain('unsafe-eval');
   });
 
   it('contains no URL that could be fetched', () => {
@@ -52,10 +56,12 @@ describe('renderReport', () => {
     for (const url of urls) expect(html.split(url).length - 1).toBe(vega.split(url).length - 1);
   });
 
-  it('inlines the Vega runtime from node_modules and the interaction script', () => {
-    const [vega, hydrate] = inlineScripts(html);
+  it('inlines the Vega runtime and its expression interpreter from node_modules, and the interaction script', () => {
+    const [vega, interpreter, hydrate] = inlineScripts(html);
     expect(vega).toBe(readFileSync(new URL('../../node_modules/vega/build/vega.min.js', import.meta.url), 'utf8'));
-    expect(hydrate).toContain('new vega.View(vega.parse(spec)');
+    expect(interpreter).toBe(interpreterScript(readFileSync(new URL('../../node_modules/vega-interpreter/build/vega-interpreter.js', import.meta.url), 'utf8')));
+    expect(hydrate).toContain('vega.parse(spec, null, { ast: true })');
+    expect(hydrate).toContain('expr: vegaInterpreter');
   });
 
   it('draws every chart as SVG with marks, beside a compiled Vega spec that parses', () => {
@@ -72,6 +78,41 @@ describe('renderReport', () => {
     // Charts on one page never share an element id (clip paths would cross over).
     const ids = [...html.matchAll(/\sid="([^"]+)"/g)].map((m) => m[1]);
     expect(new Set(ids).size).toBe(ids.length);
+  });
+
+  it('draws no invisible hover layer in the SVG but keeps it in the live spec, and rounds chart data to 6 significant digits', () => {
+    const figure = /<figure class="chart" id="chart-1">([\s\S]*?)<\/figure>/.exec(html)?.[1] ?? '';
+    expect(figure).toContain('learning curves');
+    const svg = /<svg[\s\S]*<\/svg>/.exec(figure)?.[0] ?? '';
+    const json = /<script type="application\/json" class="chart-spec">([\s\S]*?)<\/script>/.exec(figure)?.[1] ?? '';
+    expect(svg).toContain('mean_marks');
+    expect(svg).not.toContain('hover_marks');
+    expect(json).toContain('"name":"hover_marks"');
+    // Every number in every chart's inline data: an integer, or at most 6 significant digits.
+    const numbers: number[] = [];
+    const walk = (node: unknown): void => {
+      if (typeof node === 'number') numbers.push(node);
+      else if (Array.isArray(node)) node.forEach(walk);
+      else if (node !== null && typeof node === 'object') Object.values(node).forEach(walk);
+    };
+    for (const m of html.matchAll(/<script type="application\/json" class="chart-spec">([\s\S]*?)<\/script>/g)) {
+      const spec = JSON.parse(m[1] ?? '{}') as { data?: { values?: unknown }[] };
+      for (const d of spec.data ?? []) walk(d.values);
+    }
+    expect(numbers.length).toBeGreaterThan(1000);
+    expect(numbers.filter((x) => !Number.isInteger(x) && Number(x.toPrecision(6)) !== x)).toEqual([]);
+    // The fixture's data does carry longer numbers (so the check above is not vacuous).
+    expect(sampleResults().curves.flatMap((c) => c.mean).some((x) => x !== null && Number(x.toPrecision(6)) !== x)).toBe(true);
+  });
+
+  it('says how to toggle configs beside the charts whose legend does it, and only there', () => {
+    const figures = [...html.matchAll(/<figure class="chart" id="chart-\d+">([\s\S]*?)<\/figure>/g)].map((m) => m[1] ?? '');
+    const titled = (title: string): string => figures.find((f) => f.includes(`<title>${title}</title>`)) ?? '';
+    const hint = '<p class="chart-hint">Click a config in the legend to show it alone; shift-click to add or remove one; double-click the plot to show all.</p>';
+    for (const title of ['val_acc: learning curves', 'tick_acc by internal tick', 'Halting: accuracy at exit against exit tick', 'Calibration by internal tick']) expect(titled(title)).toContain(hint);
+    expect(titled('val_acc: one value per seed (final)')).not.toContain('chart-hint');
+    expect(figures.filter((f) => f.includes('chart-hint'))).toHaveLength(5); // two metrics' curves, ticks, halting, calibration
+    expect(html).toMatch(/\.chart-hint \{ display: none;/);
   });
 
   it('puts the verdict table first, with a table of contents and the date of the results', () => {
@@ -98,6 +139,19 @@ describe('renderReport', () => {
     const page = await renderReport(sampleResults(), '---\ntitle: Memory <study>\n---\n{{verdicts}}\n', 'n.md');
     expect(page).toContain('<title>Memory &lt;study&gt;</title>');
     expect(page).toContain('<h1>Memory &lt;study&gt;</h1>');
+  });
+});
+
+describe('the size of a report as large as the demo', () => {
+  it('stays under 2 MB (6 configs x 5 seeds, a 200-bin learning curve, ticks, halting, calibration)', async () => {
+    const results = demoSizedResults();
+    // The fixture has the demo's shape (so the bound speaks for the demo report).
+    expect(results.curves.filter((c) => c.metric === 'train_loss').map((c) => c.steps.length * c.runs.length)).toEqual([1000, 1000, 1000, 1000, 1000, 1000]);
+    expect(results.ticks.map((t) => t.ticks.length)).toEqual([8, 8, 16, 16, 32, 32, 8, 8, 16, 16, 32, 32]);
+    const page = await renderReport(results, NOTEBOOK, 'templates/notebook.md');
+    expect([...page.matchAll(/<figure class="chart"/g)]).toHaveLength(17);
+    // Rendered by the code of commit 8f350a1 (before this bound), this fixture measured 3,277,052 bytes.
+    expect(Buffer.byteLength(page, 'utf8')).toBeLessThan(2_000_000);
   });
 });
 

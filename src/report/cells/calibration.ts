@@ -27,10 +27,10 @@ export const calibration: Cell = {
     if (r.calibration.length === 0) return noteHtml(NO_TICK_DATA.calibration);
     const level = formatLevel(r.settings.level);
     const bins = [...new Set(r.calibration.map((c) => c.bins))].join(' or ');
-    const caption = `Expected calibration error over ${bins} equal-width confidence bins; lower is better calibrated.`;
+    const caption = `Expected calibration error over ${bins} equal-width confidence bins; lower is better calibrated. Which noise: the band is the ${level} interval across seeds (the spread between training runs). The reliability diagrams below pool every seed's samples, so their whiskers show only the between-example noise of each bin.`;
     let html = figureHtml(state, calibrationChart(r), caption, 'No calibration curves.');
     const rows: TableCell[][] = r.calibration.map((c) => [{ html: nameHtml(c.config) }, c.seeds === undefined ? null : `${c.seeds}`, `${c.bins}`, ece(c.ece[0]), ece(c.ece[c.ece.length - 1])]);
-    html += tableHtml({ className: 'calibration', head: ['Config', 'Seeds', 'Bins', `ECE first tick [${level}]`, `ECE last tick [${level}]`], rows, numeric: [1, 2, 3, 4] });
+    html += tableHtml({ className: 'calibration', head: ['Config', 'Seeds', 'Bins', `ECE first tick [${level} across seeds]`, `ECE last tick [${level} across seeds]`], rows, numeric: [1, 2, 3, 4] });
     for (const c of r.calibration) {
       html += figureHtml(state, reliabilityChart(r, c.config), '', `No reliability diagram for ${c.config}.`);
     }

@@ -11,6 +11,7 @@
  */
 import type { TopLevelSpec } from 'vega-lite';
 import type { MetricRecord, Results } from '../../analysis/results.js';
+import { hasLegendToggle, LEGEND_TOGGLE_HINT } from '../charts/legendToggle.js';
 import { escapeHtml, visibleText } from '../escape.js';
 
 /**
@@ -116,15 +117,17 @@ export function summaryOption(state: RenderState, call: CellCall, metric: string
 
 /**
  * A figure for a chart: records the spec and returns the figure with a placeholder where the SVG
- * goes, and the caption (text, escaped here; none when empty). A null spec gives the `missing`
- * note instead.
+ * goes, and the caption (text, escaped here; none when empty). A chart whose legend toggles
+ * configs gets a hint saying how, which the style sheet shows only once the chart is live. A null
+ * spec gives the `missing` note instead.
  * Cost O(1) (the spec is rendered later). Never throws.
  */
 export function figureHtml(state: RenderState, spec: TopLevelSpec | null, caption: string, missing: string): string {
   if (spec === null) return `<p class="note">${escapeHtml(visibleText(missing))}</p>`;
   const index = state.charts.push(spec) - 1;
+  const hint = hasLegendToggle(spec) ? `<p class="chart-hint">${escapeHtml(LEGEND_TOGGLE_HINT)}</p>` : '';
   const figcaption = caption === '' ? '' : `<figcaption>${escapeHtml(visibleText(caption))}</figcaption>`;
-  return `<figure class="chart" id="chart-${index + 1}"><!--seedsift-chart:${index}-->${figcaption}</figure>`;
+  return `<figure class="chart" id="chart-${index + 1}"><!--seedsift-chart:${index}-->${hint}${figcaption}</figure>`;
 }
 
 /** The placeholder pattern that `figureHtml` leaves for chart N. */

@@ -1,12 +1,37 @@
 /**
  * `{{problems}}`: everything seedsift noticed about the input, errors first: severity, code,
- * message, where (file:line, run), and what to do (from the table of problem codes).
+ * message, where (file:line, run), and what to do (from the table of problem codes). When there
+ * are many, the notes (expected things, such as train and eval rows sharing a file) fold away
+ * under a line that counts them by code, so errors and warnings stay in view.
  */
 import { PROBLEM_CODES, type Problem, type Severity } from '../../problems.js';
 import { codeHtml, nameHtml, noteHtml, tableHtml, textHtml, type TableCell } from '../html.js';
 import { type Cell } from './cell.js';
 
 const ORDER: Readonly<Record<Severity, number>> = { error: 0, warning: 1, note: 2 };
+
+/** Problems shown in one open table; above this many, notes fold away. */
+const OPEN_UP_TO = 12;
+
+const HEAD = ['Severity', 'Code', 'Message', 'Where', 'What to do'];
+
+function table(list: readonly Problem[]): string {
+  const rows: TableCell[][] = list.map((p) => [
+    { html: `<span class="severity severity-${p.severity}">${textHtml(p.severity)}</span>` },
+    { html: `<code>${textHtml(p.code)}</code>` },
+    p.message,
+    where(p),
+    PROBLEM_CODES[p.code]?.action ?? null,
+  ]);
+  return tableHtml({ className: 'problems', head: HEAD, rows, rowClasses: list.map((p) => `severity-${p.severity}`) });
+}
+
+/** "40 notes: cells-missing 38, steps-unsorted 2". */
+function noteSummary(notes: readonly Problem[]): string {
+  const counts = new Map<string, number>();
+  for (const p of notes) counts.set(p.code, (counts.get(p.code) ?? 0) + 1);
+  return `${notes.length} notes: ${[...counts].map(([code, n]) => `${code} ${n}`).join(', ')}`;
+}
 
 function where(p: Problem): TableCell {
   const parts: string[] = [];
@@ -27,13 +52,10 @@ export const problems: Cell = {
       .sort((a, b) => ORDER[a.p.severity] - ORDER[b.p.severity] || a.i - b.i)
       .map(({ p }) => p);
     if (list.length === 0) return noteHtml('No problems found in the input.');
-    const rows: TableCell[][] = list.map((p) => [
-      { html: `<span class="severity severity-${p.severity}">${textHtml(p.severity)}</span>` },
-      { html: `<code>${textHtml(p.code)}</code>` },
-      p.message,
-      where(p),
-      PROBLEM_CODES[p.code]?.action ?? null,
-    ]);
-    return tableHtml({ className: 'problems', head: ['Severity', 'Code', 'Message', 'Where', 'What to do'], rows, rowClasses: list.map((p) => `severity-${p.severity}`) });
+    const notes = list.filter((p) => p.severity === 'note');
+    if (list.length <= OPEN_UP_TO || notes.length === 0) return table(list);
+    const serious = list.filter((p) => p.severity !== 'note');
+    const open = serious.length === 0 ? noteHtml('No errors or warnings; only notes.') : table(serious);
+    return `${open}<details class="fold"><summary>${textHtml(noteSummary(notes))}</summary>${table(notes)}</details>`;
   },
 };

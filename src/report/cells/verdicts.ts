@@ -33,7 +33,7 @@ function rows(results: Results, metric: string | undefined): { rows: TableCell[]
     g.comparisons.forEach((c, i) => {
       const d = comparisonDecimals(c);
       const goal = `${GOAL_WORDS[g.goal]}${g.goalSource === 'inferred' ? ' (guessed)' : ''}`;
-      const metricCell: TableCell = i === 0 ? { html: `${nameHtml(g.metric)}<br><span class="small">${textHtml(goal)}; ${textHtml(`summary ${g.summary}`)}</span>` } : { html: '' };
+      const metricCell: TableCell = i === 0 ? { html: `${nameHtml(g.metric)}<br><span class="small">${textHtml(goal)};<br>${textHtml(`summary ${g.summary}`)}</span>` } : { html: '' };
       const difference = formatDifference(c.difference, d) + (interval === null ? ` (${formatIntervalKind(c.difference)})` : '');
       out.push([
         metricCell,

@@ -6,12 +6,15 @@ import type { Results } from '../../analysis/results.js';
 import { CONFIG_LEGEND, configColourScale } from '../palette.js';
 import { chartFrame, NUMBER_FORMAT, type Layer } from './chartFrame.js';
 import { formatLevel } from './intervalLabel.js';
+import { layerOpacity, withLegendToggle } from './legendToggle.js';
+import { tickDomain } from './tickDomain.js';
 
 /**
  * Vega-Lite spec of `CalibrationCurve.ece`: per config, the expected calibration error
  * (equal-width confidence bins; Naeini, Cooper & Hauskrecht 2015; Guo et al. 2017) by tick as a
  * mean line with points and a band across seeds (level from `Settings.level`; the record carries
- * no level or method). Lines and bands break at nulls.
+ * no level or method). Lines and bands break at nulls. Clicking a config in the legend fades the
+ * others (`withLegendToggle`).
  * Returns null when there is no calibration curve with a mean. Cost O(configs * ticks). Never throws.
  * Example: `calibrationChart(results)` → layers band, mean, points.
  */
@@ -27,22 +30,27 @@ export function calibrationChart(results: Results): TopLevelSpec | null {
   );
   const configs = curves.map((c) => c.config);
   const color = { field: 'config', type: 'nominal', title: 'config', scale: configColourScale(results, configs), legend: CONFIG_LEGEND } as const;
-  const x = { field: 'tick', type: 'quantitative', title: 'internal tick', axis: { tickMinStep: 1, format: 'd' } } as const;
+  // The axis ends at the first and last tick (a "nice" domain would run past the last tick).
+  const allTicks = rows.map((r) => r.tick);
+  const tickScale: { domain: number[]; nice: boolean } = { domain: tickDomain(allTicks), nice: false };
+  const x = { field: 'tick', type: 'quantitative', title: 'internal tick', axis: { tickMinStep: 1, format: 'd' }, scale: tickScale } as const;
   const y = (field: string) => ({ field, type: 'quantitative', title: 'expected calibration error' }) as const;
 
   if (!rows.some((r) => r.mean !== null)) return null;
   const hasBand = rows.some((r) => r.low !== null);
   // A layer with nothing to draw is left out (Vega warns on an empty extent).
   const layers: Layer[] = [];
-  if (hasBand) layers.push({ name: 'band', data: { values: rows }, mark: { type: 'area', opacity: 0.2 }, encoding: { x, y: y('low'), y2: { field: 'high' }, color } });
+  const opacity = (o: number) => layerOpacity(o, configs.length);
+  if (hasBand) layers.push({ name: 'band', data: { values: rows }, mark: { type: 'area' }, encoding: { x, y: y('low'), y2: { field: 'high' }, color, opacity: opacity(0.2) } });
   layers.push(
-    { name: 'mean', data: { values: rows }, mark: { type: 'line' }, encoding: { x, y: y('mean'), color } },
+    { name: 'mean', data: { values: rows }, mark: { type: 'line' }, encoding: { x, y: y('mean'), color, opacity: opacity(1) } },
     {
       name: 'points',
       data: { values: rows.filter((r) => r.mean !== null) },
       mark: { type: 'point', filled: true, size: 30 },
       encoding: {
-        x, y: y('mean'), color,
+        // 0.7: Vega-Lite's default opacity of point marks, kept so the chart looks as before.
+        x, y: y('mean'), color, opacity: opacity(0.7),
         tooltip: [
           { field: 'config', type: 'nominal', title: 'config' },
           { field: 'tick', type: 'quantitative', title: 'tick' },
@@ -61,10 +69,10 @@ export function calibrationChart(results: Results): TopLevelSpec | null {
       title: 'Calibration by internal tick',
       subtitle: [
         `Expected calibration error, ${bins} equal-width confidence bins; lower is better.`,
-        `Line: mean across seeds. ${hasBand ? `Band: ${formatLevel(results.settings.level)} interval across seeds.` : 'No band: too few seeds.'}`,
+        `Line: mean across seeds. ${hasBand ? `Band: ${formatLevel(results.settings.level)} interval across seeds (seed-to-seed spread).` : 'No band: too few seeds.'}`,
       ],
       description: `Expected calibration error against internal tick for ${curves.length} config${curves.length === 1 ? '' : 's'}, mean across seeds${hasBand ? ` with a ${formatLevel(results.settings.level)} band` : ''}.`,
     }),
-    layer: layers,
+    layer: withLegendToggle(layers, configs.length, ['mean']),
   };
 }

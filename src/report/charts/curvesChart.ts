@@ -4,9 +4,10 @@
  */
 import type { TopLevelSpec } from 'vega-lite';
 import type { IntervalMethod, Results } from '../../analysis/results.js';
-import { CONFIG_LEGEND, configColourScale } from '../palette.js';
+import { CONFIG_LEGEND, configColourScale, REFERENCE_INK } from '../palette.js';
 import { chartFrame, NUMBER_FORMAT, STEP_FORMAT, type Layer } from './chartFrame.js';
 import { intervalLabel, intervalLabels } from './intervalLabel.js';
+import { layerOpacity, withLegendToggle } from './legendToggle.js';
 
 /**
  * Vega-Lite spec of the learning curves of one metric (`Results.curves`), one colour per config.
@@ -14,7 +15,14 @@ import { intervalLabel, intervalLabels } from './intervalLabel.js';
  * band (`low`..`high`, labelled with its method and level in the subtitle, per bin from
  * `bandByBin` when present, else `band`; each bin's method also in the tooltip) where either end is
  * null, and each seed's line (`Curve.runs`) where its value is null. Hover points on the mean
- * carry tooltips (step, mean, interval, runs in the bin). A layer with nothing to draw is left out.
+ * carry tooltips (step, mean, interval, runs in the bin). A dashed vertical rule marks the metric's
+ * common horizon (`MetricRecord.horizon`), where the runs are compared. A layer with nothing to
+ * draw is left out.
+ * Clicking a config in the legend fades the others (`withLegendToggle`).
+ * Data is stored compactly: one row per run (seed lines) or per config (mean and band) holding
+ * its steps and values as parallel arrays, which a `flatten` transform turns back into one row
+ * per step (a row names its config and seed once instead of at every step: the bulk of a long
+ * curve's bytes).
  * Returns null when the metric has no curve with a value. Cost O(configs * bins * seeds). Never throws.
  * Example: `curvesChart(results, 'val_acc')` → a layered spec with layers seeds, band, mean, hover.
  */
@@ -22,22 +30,26 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
   const curves = results.curves.filter((c) => c.metric === metric && c.steps.length > 0);
   if (curves.length === 0) return null;
 
-  const summary: Record<string, unknown>[] = [];
-  const seeds: Record<string, unknown>[] = [];
+  const summary: { config: string; step: number[]; mean: (number | null)[]; low: (number | null)[]; high: (number | null)[]; n: number[]; band: string[] }[] = [];
+  const seeds: { config: string; run: string; seed: string; step: number[]; value: (number | null)[] }[] = [];
   const bandMethods: { method: IntervalMethod; level: number }[] = [];
   for (const c of curves) {
-    c.steps.forEach((step, i) => {
+    const row = { config: c.config, step: [...c.steps], mean: [] as (number | null)[], low: [] as (number | null)[], high: [] as (number | null)[], n: [] as number[], band: [] as string[] };
+    c.steps.forEach((_, i) => {
       const low = c.low[i] ?? null;
       const high = c.high[i] ?? null;
       const banded = low !== null && high !== null;
       const method = c.bandByBin?.[i] ?? c.band;
       if (banded && method !== 'none') bandMethods.push({ method, level: c.level });
-      summary.push({ config: c.config, step, mean: c.mean[i] ?? null, low: banded ? low : null, high: banded ? high : null, n: c.n[i] ?? 0, band: banded ? intervalLabel(method, c.level) : 'none' });
+      row.mean.push(c.mean[i] ?? null);
+      row.low.push(banded ? low : null);
+      row.high.push(banded ? high : null);
+      row.n.push(c.n[i] ?? 0);
+      row.band.push(banded ? intervalLabel(method, c.level) : 'none');
     });
+    summary.push(row);
     for (const r of c.runs) {
-      c.steps.forEach((step, i) => {
-        seeds.push({ config: c.config, run: r.run, seed: r.seed, step, value: r.values[i] ?? null });
-      });
+      seeds.push({ config: c.config, run: r.run, seed: r.seed, step: [...c.steps], value: c.steps.map((_, i) => r.values[i] ?? null) });
     }
   }
 
@@ -48,22 +60,35 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
   const band = intervalLabels(bandMethods);
   const runCount = curves.reduce((total, c) => total + c.runs.length, 0);
 
-  const hasSeeds = seeds.some((row) => row['value'] !== null);
-  const hasBand = summary.some((row) => row['low'] !== null);
-  const hasMean = summary.some((row) => row['mean'] !== null);
+  const hasSeeds = seeds.some((row) => row.value.some((v) => v !== null));
+  const hasBand = summary.some((row) => row.low.some((v) => v !== null));
+  const hasMean = summary.some((row) => row.mean.some((v) => v !== null));
+  const perStep = { flatten: ['step', 'mean', 'low', 'high', 'n', 'band'] };
   if (!hasSeeds && !hasMean) return null;
+
+  const horizon = results.metrics.find((m) => m.name === metric && m.kind === 'scalar')?.horizon ?? null;
 
   // A layer whose data has no drawable value is left out (Vega warns on an empty extent).
   const layers: Layer[] = [];
+  if (horizon !== null) {
+    layers.push({
+      name: 'horizon',
+      data: { values: [{ step: horizon }] },
+      mark: { type: 'rule', color: REFERENCE_INK, strokeDash: [4, 4], strokeWidth: 1 },
+      encoding: { x, tooltip: [{ field: 'step', type: 'quantitative', title: 'common horizon (step)', format: STEP_FORMAT }] },
+    });
+  }
   if (hasSeeds) {
     layers.push({
       name: 'seeds',
       data: { values: seeds },
-      mark: { type: 'line', strokeWidth: 0.8, opacity: 0.35 },
+      transform: [{ flatten: ['step', 'value'] }],
+      mark: { type: 'line', strokeWidth: 0.8 },
       encoding: {
         x,
         y: y('value'),
         color,
+        opacity: layerOpacity(0.35, configs.length),
         detail: { field: 'run', type: 'nominal' },
         tooltip: [
           { field: 'config', type: 'nominal', title: 'config' },
@@ -76,8 +101,9 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
     layers.push({
       name: 'band',
       data: { values: summary },
-      mark: { type: 'area', opacity: 0.2 },
-      encoding: { x, y: y('low'), y2: { field: 'high' }, color },
+      transform: [perStep],
+      mark: { type: 'area' },
+      encoding: { x, y: y('low'), y2: { field: 'high' }, color, opacity: layerOpacity(0.2, configs.length) },
     });
   }
   if (hasMean) {
@@ -85,12 +111,14 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
       {
         name: 'mean',
         data: { values: summary },
+        transform: [perStep],
         mark: { type: 'line', strokeWidth: 2.2 },
-        encoding: { x, y: y('mean'), color },
+        encoding: { x, y: y('mean'), color, opacity: layerOpacity(1, configs.length) },
       },
       {
         name: 'hover',
-        data: { values: summary.filter((row) => row['mean'] !== null) },
+        data: { values: summary },
+        transform: [perStep, { filter: { field: 'mean', valid: true } }],
         mark: { type: 'point', filled: true, size: 50, opacity: 0 },
         encoding: {
           x,
@@ -116,9 +144,10 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
       subtitle: [
         `Thick line: mean across seeds. Thin lines: single seeds (${runCount}).`,
         band === '' ? 'No band: too few seeds per step for an interval.' : `Band: ${band} of the mean across seeds, per step.`,
+        ...(horizon === null ? [] : [`Dashed line: the common horizon (step ${horizon}), where runs are compared.`]),
       ],
       description: `Learning curves of ${metric} against step for ${curves.length} config${curves.length === 1 ? '' : 's'}: mean across seeds${band === '' ? '' : ` with a ${band} band`}, and ${runCount} single-seed lines.`,
     }),
-    layer: layers,
+    layer: withLegendToggle(layers, configs.length, ['seeds', 'mean']),
   };
 }

@@ -6,6 +6,7 @@ import type { TopLevelSpec } from 'vega-lite';
 import type { Results } from '../../analysis/results.js';
 import { CONFIG_LEGEND, configColourScale } from '../palette.js';
 import { chartFrame, NUMBER_FORMAT, type Layer } from './chartFrame.js';
+import { layerOpacity, withLegendToggle } from './legendToggle.js';
 import { formatLevel } from './intervalLabel.js';
 
 /**
@@ -13,7 +14,8 @@ import { formatLevel } from './intervalLabel.js';
  * the accuracy at exit (y), both means across seeds, joined in threshold order, with horizontal
  * and vertical bars for their intervals (level from `Settings.level`; `HaltingCurve` carries no
  * level or method). Points or bars with a null end are not drawn; the line breaks there; a layer
- * with nothing to draw is left out.
+ * with nothing to draw is left out. Clicking a config in the legend fades the others
+ * (`withLegendToggle`).
  * Returns null when there is no halting curve. Cost O(configs * thresholds). Never throws.
  * Example: `haltingChart(results)` → layers path, exitInterval, accuracyInterval, points.
  */
@@ -43,13 +45,14 @@ export function haltingChart(results: Results): TopLevelSpec | null {
 
   const exitIntervals = points.filter((r) => r.exitLow !== null && r.exitHigh !== null);
   const accuracyIntervals = points.filter((r) => r.accuracyLow !== null && r.accuracyHigh !== null);
+  const opacity = (o: number) => layerOpacity(o, configs.length);
   // A layer with no rows is left out (Vega warns on an empty extent).
   const layers: Layer[] = [
     {
       name: 'path',
       data: { values: rows },
       mark: { type: 'line', strokeWidth: 1.5 },
-      encoding: { x, y, color, order: { field: 'threshold', type: 'quantitative' } },
+      encoding: { x, y, color, opacity: opacity(1), order: { field: 'threshold', type: 'quantitative' } },
     },
   ];
   if (exitIntervals.length > 0) {
@@ -57,7 +60,7 @@ export function haltingChart(results: Results): TopLevelSpec | null {
       name: 'exitInterval',
       data: { values: exitIntervals },
       mark: { type: 'rule', strokeWidth: 1.2 },
-      encoding: { x: { ...x, field: 'exitLow' }, x2: { field: 'exitHigh' }, y, color },
+      encoding: { x: { ...x, field: 'exitLow' }, x2: { field: 'exitHigh' }, y, color, opacity: opacity(1) },
     });
   }
   if (accuracyIntervals.length > 0) {
@@ -65,7 +68,7 @@ export function haltingChart(results: Results): TopLevelSpec | null {
       name: 'accuracyInterval',
       data: { values: accuracyIntervals },
       mark: { type: 'rule', strokeWidth: 1.2 },
-      encoding: { x, y: { ...y, field: 'accuracyLow' }, y2: { field: 'accuracyHigh' }, color },
+      encoding: { x, y: { ...y, field: 'accuracyLow' }, y2: { field: 'accuracyHigh' }, color, opacity: opacity(1) },
     });
   }
   layers.push({
@@ -73,7 +76,8 @@ export function haltingChart(results: Results): TopLevelSpec | null {
     data: { values: points },
     mark: { type: 'point', filled: true, size: 44 },
     encoding: {
-      x, y, color,
+      // 0.7: Vega-Lite's default opacity of point marks, kept so the chart looks as before.
+      x, y, color, opacity: opacity(0.7),
       tooltip: [
         { field: 'config', type: 'nominal', title: 'config' },
         { field: 'threshold', type: 'quantitative', title: 'certainty threshold', format: NUMBER_FORMAT },
@@ -93,10 +97,10 @@ export function haltingChart(results: Results): TopLevelSpec | null {
       title: 'Halting: accuracy at exit against exit tick',
       subtitle: [
         'Each point is a certainty threshold: a sample exits at the first tick whose certainty reaches it (else at the last tick).',
-        `Points: means across seeds. ${exitIntervals.length + accuracyIntervals.length > 0 ? `Bars: ${formatLevel(results.settings.level)} intervals across seeds.` : 'No intervals: too few seeds.'}`,
+        `Points: means across seeds. ${exitIntervals.length + accuracyIntervals.length > 0 ? `Bars: ${formatLevel(results.settings.level)} intervals across seeds (seed-to-seed spread).` : 'No intervals: too few seeds.'}`,
       ],
       description: `Certainty-threshold halting trade-off for ${curves.length} config${curves.length === 1 ? '' : 's'}: mean exit tick against accuracy at exit over ${points.length} threshold points, with intervals across seeds.`,
     }),
-    layer: layers,
+    layer: withLegendToggle(layers, configs.length, ['path']),
   };
 }

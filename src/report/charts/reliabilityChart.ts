@@ -4,13 +4,17 @@
 import type { TopLevelSpec } from 'vega-lite';
 import type { Results } from '../../analysis/results.js';
 import { configColour, REFERENCE_INK } from '../palette.js';
+import { binomialHalfWidth } from '../../stats/binomialHalfWidth.js';
 import { chartFrame, NUMBER_FORMAT, type Layer } from './chartFrame.js';
 
 /**
  * Vega-Lite spec of `CalibrationCurve.reliability` for one config: per bin with samples, a bar
  * over the bin's confidence range up to its accuracy, a point at (mean confidence, accuracy), and
  * the diagonal of perfect calibration. Bins with no sample or a null accuracy are not drawn.
- * Counts are summed over seeds as analysis gives them (in the tooltip).
+ * Counts are summed over seeds as analysis gives them (in the tooltip). Each point has a whisker
+ * of ±1 between-example standard error √(a(1−a)/n) of the bin's accuracy a over its n pooled
+ * samples (the binomial standard error, `binomialHalfWidth`), cut to [0, 1]: the only noise a
+ * pooled diagram can show, and the subtitle says so (the spread between seeds is not in it).
  * Returns null when the config has no calibration curve or no bin to draw.
  * Cost O(bins). Never throws.
  * Example: `reliabilityChart(results, 'memory=4')` → layers diagonal, bins, points.
@@ -20,7 +24,11 @@ export function reliabilityChart(results: Results, config: string): TopLevelSpec
   if (curve === undefined) return null;
   const bins = curve.reliability
     .filter((b) => b.count > 0 && b.accuracy !== null)
-    .map((b) => ({ low: b.low, high: b.high, accuracy: b.accuracy, confidence: b.confidence, count: b.count }));
+    .map((b) => {
+      const a = b.accuracy as number;
+      const se = a >= 0 && a <= 1 && Number.isInteger(b.count) ? binomialHalfWidth(a, b.count) : null;
+      return { low: b.low, high: b.high, accuracy: a, confidence: b.confidence, count: b.count, exampleSe: se, from: se === null ? null : Math.max(0, a - se), to: se === null ? null : Math.min(1, a + se) };
+    });
   if (bins.length === 0) return null;
 
   const colour = configColour(results, config);
@@ -31,6 +39,7 @@ export function reliabilityChart(results: Results, config: string): TopLevelSpec
     { field: 'confidence', type: 'quantitative', title: 'mean confidence', format: NUMBER_FORMAT },
     { field: 'accuracy', type: 'quantitative', title: 'accuracy', format: NUMBER_FORMAT },
     { field: 'count', type: 'quantitative', title: 'samples', format: ',d' },
+    { field: 'exampleSe', type: 'quantitative', title: 'between-example SE', format: NUMBER_FORMAT },
   ] as const;
 
   const layers: Layer[] = [
@@ -57,6 +66,20 @@ export function reliabilityChart(results: Results, config: string): TopLevelSpec
     },
   ];
   const located = bins.filter((b) => b.confidence !== null);
+  const whiskers = located.filter((b) => b.exampleSe !== null);
+  if (whiskers.length > 0) {
+    layers.push({
+      name: 'exampleSpread',
+      data: { values: whiskers },
+      mark: { type: 'rule', color: colour, strokeWidth: 1.5 },
+      encoding: {
+        x: { field: 'confidence', type: 'quantitative', scale: unit },
+        y: { field: 'from', type: 'quantitative', scale: unit },
+        y2: { field: 'to' },
+        tooltip: [...tooltip],
+      },
+    });
+  }
   if (located.length > 0) {
     layers.push({
       name: 'points',
@@ -76,6 +99,7 @@ export function reliabilityChart(results: Results, config: string): TopLevelSpec
       subtitle: [
         `${curve.bins} equal-width confidence bins, samples summed over ${curve.seeds === undefined ? 'seeds' : `${curve.seeds} seed${curve.seeds === 1 ? '' : 's'}`}. Bars: accuracy per bin; points: at the bin's mean confidence.`,
         'Dashed diagonal: perfect calibration (points below it are over-confident).',
+        ...(whiskers.length > 0 ? ['Whiskers: ±1 between-example standard error √(a(1−a)/n) of each bin; seeds are pooled, so seed-to-seed spread is not shown.'] : []),
       ],
       description: `Reliability diagram for config ${config} at the last tick: accuracy against confidence in ${bins.length} non-empty bins of ${curve.bins}, with the diagonal of perfect calibration.`,
       height: 320,

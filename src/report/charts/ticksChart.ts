@@ -7,13 +7,16 @@ import type { Results } from '../../analysis/results.js';
 import { CONFIG_LEGEND, configColourScale } from '../palette.js';
 import { chartFrame, NUMBER_FORMAT, type Layer } from './chartFrame.js';
 import { intervalLabels } from './intervalLabel.js';
+import { layerOpacity, withLegendToggle } from './legendToggle.js';
+import { tickDomain } from './tickDomain.js';
 
 /**
  * Vega-Lite spec of `Results.ticks` for one metric: mean line with points, band `low`..`high`
  * (between-seed spread; `TickCurve` carries no level, so `Settings.level` is named), whiskers of
  * ±1 between-example standard error `sqrt(p(1-p)/m)` (`exampleHalfWidth`, drawn as given, around
  * the mean) where analysis supplied it, and a dashed vertical rule at each config's earliest good
- * tick. Lines and bands break where values are null.
+ * tick. Lines and bands break where values are null. Clicking a config in the legend fades the
+ * others (`withLegendToggle`).
  * Returns null when the metric has no tick curve with a mean. Cost O(configs * ticks). Never throws.
  * Example: `ticksChart(results, 'val_acc')` → layers band, mean, points, exampleSpread?, earliest?.
  */
@@ -42,22 +45,27 @@ export function ticksChart(results: Results, metric: string): TopLevelSpec | nul
 
   const configs = curves.map((c) => c.config);
   const color = { field: 'config', type: 'nominal', title: 'config', scale: configColourScale(results, configs), legend: CONFIG_LEGEND } as const;
-  const x = { field: 'tick', type: 'quantitative', title: 'internal tick', axis: { tickMinStep: 1, format: 'd' } } as const;
+  // The axis ends at the first and last tick (a "nice" domain would run past the last tick).
+  const allTicks = curves.flatMap((c) => c.ticks);
+  const tickScale: { domain: number[]; nice: boolean } = { domain: tickDomain(allTicks), nice: false };
+  const x = { field: 'tick', type: 'quantitative', title: 'internal tick', axis: { tickMinStep: 1, format: 'd' }, scale: tickScale } as const;
   const y = (field: string) => ({ field, type: 'quantitative', title: metric, scale: { zero: false } }) as const;
 
   if (!rows.some((r) => r['mean'] !== null)) return null;
   const hasBand = rows.some((r) => r['low'] !== null);
   // A layer with nothing to draw is left out (Vega warns on an empty extent).
   const layers: Layer[] = [];
-  if (hasBand) layers.push({ name: 'band', data: { values: rows }, mark: { type: 'area', opacity: 0.2 }, encoding: { x, y: y('low'), y2: { field: 'high' }, color } });
+  const opacity = (o: number) => layerOpacity(o, configs.length);
+  if (hasBand) layers.push({ name: 'band', data: { values: rows }, mark: { type: 'area' }, encoding: { x, y: y('low'), y2: { field: 'high' }, color, opacity: opacity(0.2) } });
   layers.push(
-    { name: 'mean', data: { values: rows }, mark: { type: 'line' }, encoding: { x, y: y('mean'), color } },
+    { name: 'mean', data: { values: rows }, mark: { type: 'line' }, encoding: { x, y: y('mean'), color, opacity: opacity(1) } },
     {
       name: 'points',
       data: { values: rows.filter((r) => r['mean'] !== null) },
       mark: { type: 'point', filled: true, size: 30 },
       encoding: {
-        x, y: y('mean'), color,
+        // 0.7: Vega-Lite's default opacity of point marks, kept so the chart looks as before.
+        x, y: y('mean'), color, opacity: opacity(0.7),
         tooltip: [
           { field: 'config', type: 'nominal', title: 'config' },
           { field: 'tick', type: 'quantitative', title: 'tick' },
@@ -75,16 +83,16 @@ export function ticksChart(results: Results, metric: string): TopLevelSpec | nul
       name: 'exampleSpread',
       data: { values: whiskers },
       mark: { type: 'rule', strokeWidth: 1, strokeDash: [2, 2] },
-      encoding: { x, y: y('from'), y2: { field: 'to' }, color },
+      encoding: { x, y: y('from'), y2: { field: 'to' }, color, opacity: opacity(1) },
     });
   }
   if (earliest.length > 0) {
     layers.push({
       name: 'earliest',
       data: { values: earliest },
-      mark: { type: 'rule', strokeDash: [6, 4], strokeWidth: 1.2, opacity: 0.8 },
+      mark: { type: 'rule', strokeDash: [6, 4], strokeWidth: 1.2 },
       encoding: {
-        x, color,
+        x, color, opacity: opacity(0.8),
         tooltip: [
           { field: 'config', type: 'nominal', title: 'config' },
           { field: 'tick', type: 'quantitative', title: 'earliest good tick' },
@@ -114,6 +122,6 @@ export function ticksChart(results: Results, metric: string): TopLevelSpec | nul
       subtitle,
       description: `${metric} against internal tick for ${curves.length} config${curves.length === 1 ? '' : 's'}${at}: mean across seeds${band === '' ? '' : ` with a ${band} band`}.`,
     }),
-    layer: layers,
+    layer: withLegendToggle(layers, configs.length, ['mean']),
   };
 }

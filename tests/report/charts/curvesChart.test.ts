@@ -36,8 +36,9 @@ describe('curvesChart', () => {
     const mixed = withCurves(results, (c) => (c.config !== c0 ? c : { ...c, bandByBin: c.steps.map((_, i) => (i < 3 ? 't' : 'bca')) }));
     const spec = curvesChart(mixed, 'val_acc') as TopLevelSpec & { title: { subtitle: string[] }; layer: { name?: string; data?: { values: Record<string, unknown>[] } }[] };
     expect(spec.title.subtitle.join(' ')).toContain('95% t-interval or 95% BCa bootstrap interval of the mean');
+    // One row per config holds the per-step arrays (a flatten transform makes them rows).
     const hover = spec.layer.find((l) => l.name === 'hover')?.data?.values ?? [];
-    expect(hover.filter((r) => r['config'] === c0).map((r) => r['band'])).toEqual(['95% t-interval', '95% t-interval', '95% t-interval', '95% BCa bootstrap interval', '95% BCa bootstrap interval']);
+    expect(hover.filter((r) => r['config'] === c0).map((r) => r['band'])).toEqual([['95% t-interval', '95% t-interval', '95% t-interval', '95% BCa bootstrap interval', '95% BCa bootstrap interval']]);
   });
 
   it('draws a thin line per seed and a band and mean line per config, each config in its report colour', async () => {
@@ -77,6 +78,34 @@ describe('curvesChart', () => {
     expect(warnings).toEqual([]);
     expect(markItems(svg, 'band').some(drawn)).toBe(false);
     expect(markItems(svg, 'mean').every(drawn)).toBe(true);
+  });
+
+  it('stores each run and each config once, with per-step arrays, and draws one hover point per step with a mean', async () => {
+    const spec = curvesChart(results, 'val_acc') as TopLevelSpec & { layer: { name?: string; data?: { values: Record<string, unknown>[] } }[] };
+    const seeds = spec.layer.find((l) => l.name === 'seeds')?.data?.values ?? [];
+    expect(seeds).toHaveLength(9);
+    expect(Object.keys(seeds[0] ?? {}).sort()).toEqual(['config', 'run', 'seed', 'step', 'value']);
+    expect(seeds[0]).toMatchObject({ config: c0, run: `${c0},seed=1`, seed: '1', step: [0, 100, 200, 300, 400] });
+    // The fixture's first seed of the first config: its base curve 0.3, 0.5, 0.62, 0.7, 0.74 minus 0.01.
+    ((seeds[0]?.['value'] ?? []) as number[]).forEach((v, i) => expect(v).toBeCloseTo([0.29, 0.49, 0.61, 0.69, 0.73][i] ?? NaN, 12));
+    // The fixture has 3 configs x 5 steps, one mean null (config index 2 at step 200): 14 hover points.
+    const svg = await renderSvg(spec);
+    expect(markItems(svg, 'hover')).toHaveLength(14);
+    expect(markItems(svg, 'hover').filter((el) => (attr(el, 'aria-label') ?? '').includes(`config: ${c2}`))).toHaveLength(4);
+  });
+
+  it('marks the common horizon with a dashed rule and says so', async () => {
+    const spec = curvesChart(results, 'val_acc') as TopLevelSpec & { title: { subtitle: string[] } };
+    expect(spec.title.subtitle.join(' ')).toContain('Dashed line: the common horizon (step 400), where runs are compared.');
+    const svg = await renderSvg(spec);
+    const rule = markItems(svg, 'horizon');
+    expect(rule).toHaveLength(1);
+    // Steps 0..400 on a 520 px axis: the horizon (400) is the right edge.
+    expect(attr(rule[0] ?? '', 'transform')).toBe('translate(520,0)');
+    expect(attr(rule[0] ?? '', 'stroke-dasharray')).toBe('4,4');
+    const none = curvesChart({ ...results, metrics: results.metrics.map((m) => ({ ...m, horizon: null })) }, 'val_acc') as TopLevelSpec & { title: { subtitle: string[] } };
+    expect(none.title.subtitle.join(' ')).not.toContain('horizon');
+    expect(markItems(await renderSvg(none), 'horizon')).toEqual([]);
   });
 
   it('puts tooltips on the hover points (not on the band) for the interactive runtime', () => {

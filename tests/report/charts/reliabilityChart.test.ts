@@ -35,3 +35,18 @@ describe('reliabilityChart', () => {
     expect(attr(markItems(svg, 'diagonal')[0] ?? '', 'd')).toBe('M0,320L320,0');
   });
 });
+
+describe('reliabilityChart between-example whiskers', () => {
+  it('draws ±1 binomial standard error √(a(1−a)/n) per bin and says that seeds are pooled', async () => {
+    const spec = reliabilityChart(results, config) as TopLevelSpec & { title: { subtitle: string[] } };
+    expect(spec.title.subtitle.join(' ')).toContain('Whiskers: ±1 between-example standard error √(a(1−a)/n) of each bin; seeds are pooled, so seed-to-seed spread is not shown.');
+    const whiskers = markItems(await renderSvg(spec), 'exampleSpread');
+    expect(whiskers).toHaveLength(4);
+    // The fixture's bin 0.2-0.4 of the first config: accuracy a = 0.27 on n = 40 samples; by hand,
+    // √(0.27 × 0.73 / 40) = √0.0049275 = 0.0701962, a whisker 2 × 0.0701962 × 320 px = 44.926 px long.
+    const bin = whiskers.find((w) => (attr(w, 'aria-label') ?? '').includes('samples: 40;'));
+    expect(attr(bin ?? '', 'aria-label')).toContain('accuracy: 0.27;');
+    expect(attr(bin ?? '', 'aria-label')).toContain('between-example SE: 0.0702');
+    expect(Math.abs(Number(attr(bin ?? '', 'y2')))).toBeCloseTo(44.926, 2);
+  });
+});

@@ -8,13 +8,30 @@ import type { Results } from '../../../src/analysis/results.js';
 import { ticksChart } from '../../../src/report/charts/ticksChart.js';
 import { renderSvg } from '../../../src/report/renderSvg.js';
 import { DEFAULT_NAMES, makeResults } from '../fixtures.js';
-import { drawn, markItems, subpaths } from './svgInspect.js';
+import { drawn, markItems, subpaths, translate } from './svgInspect.js';
 
 const results = makeResults();
 const metric = DEFAULT_NAMES.tickMetric;
 const subtitle = (r: Results): string => ((ticksChart(r, metric) as TopLevelSpec & { title: { subtitle: string[] } }).title.subtitle).join(' ');
 
 describe('ticksChart', () => {
+  it('runs the tick axis from the first to the last tick (0..31 on 520 px), not on to a rounder number', async () => {
+    // One config with 32 ticks (0..31): a "nice" domain would end past 31 and leave the last point short of the edge.
+    const long: Results = {
+      ...results,
+      ticks: results.ticks.map((t, k) => {
+        if (k !== 2) return t;
+        const ticks = Array.from({ length: 32 }, (_, i) => i);
+        const mean = ticks.map((i) => 0.4 + 0.01 * i);
+        return { ...t, ticks, mean, low: mean.map((m) => m - 0.01), high: mean.map((m) => m + 0.01), n: ticks.map(() => 3), exampleHalfWidth: null, versusBaseline: null };
+      }),
+    };
+    const svg = await renderSvg(ticksChart(long, metric) as TopLevelSpec);
+    const xs = markItems(svg, 'points').map((p) => translate(p).x);
+    expect(Math.min(...xs)).toBe(0);
+    expect(Math.max(...xs)).toBe(520);
+  });
+
   it('returns null for a metric without tick curves', () => {
     expect(ticksChart(results, DEFAULT_NAMES.metric)).toBeNull();
   });
