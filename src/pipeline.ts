@@ -12,7 +12,7 @@ import type { ResolvedOptions, ReportOptions } from './analysis/options.js';
 import { resolveOptions } from './analysis/options.js';
 import { analyze } from './analysis/analyze.js';
 import type { Results } from './analysis/results.js';
-import { ingest } from './ingest/ingest.js';
+import { ingest, type IngestHooks } from './ingest/ingest.js';
 import type { IngestOptions, RunSet } from './ingest/types.js';
 import { renderReport } from './report/renderReport.js';
 import { resultsJson } from './report/resultsJson.js';
@@ -28,6 +28,8 @@ export interface ReportJob {
   readonly generated: string;
   readonly version: string;
   readonly outputs: { readonly html: boolean; readonly json: boolean; readonly markdown: boolean };
+  /** Observers of the reading (progress display). */
+  readonly hooks?: IngestHooks;
 }
 
 export interface ReportOutputs {
@@ -41,7 +43,7 @@ export interface ReportOutputs {
 
 export async function reportPipeline(job: ReportJob): Promise<ReportOutputs> {
   // 1. ingest
-  const runSet = await ingest(job.paths, job.ingest);
+  const runSet = await ingest(job.paths, job.ingest, job.hooks);
   // 2. resolve
   const options = resolveOptions(job.report, runSet);
   // 3. analyze

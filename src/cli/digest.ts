@@ -13,6 +13,7 @@ import { SeedsiftError } from '../problems.js';
 import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
 import { inputFiles } from './inputFiles.js';
 import type { Io } from './io.js';
+import { progressDisplay } from './progress.js';
 
 /** Real path when the file exists, else the resolved path (for comparing the output with inputs). */
 const identity = (path: string): string => (existsSync(path) ? realpathSync(path) : resolve(path));
@@ -33,7 +34,8 @@ export function digestCommand(io: Io, done: (code: number) => void): Command {
     if (!/\.parquet$/i.test(raw.out)) throw new SeedsiftError('usage', `--out: expected a file name ending in .parquet (so that report and scan find it), got '${raw.out}'`);
     const options = resolveIngestOptions(raw);
     if (paths.length === 0 && options.scores === null) throw new SeedsiftError('usage', 'digest: expected PATH... (folders or files of run logs) or --scores FILE');
-    const runSet = await ingest(paths, options);
+    const progress = progressDisplay(io, raw.quiet === true);
+    const runSet = await ingest(paths, options, progress.hooks).finally(() => progress.done());
     const target = identity(raw.out);
     if (inputFiles(runSet, [options.manifest, options.scores]).some((f) => identity(f) === target)) throw new SeedsiftError('output', `refusing to write over an input file: ${raw.out}`);
     const temp = join(dirname(target), `.${basename(target)}.${process.pid}.tmp.parquet`);

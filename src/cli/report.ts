@@ -12,6 +12,7 @@ import { SeedsiftError } from '../problems.js';
 import { parseNotebook, type NotebookOptions } from '../report/parseNotebook.js';
 import { DEFAULT_NOTEBOOK } from '../report/templatePaths.js';
 import { failedGate } from './gate.js';
+import { progressDisplay } from './progress.js';
 import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
 import { inputFiles } from './inputFiles.js';
 import type { Io } from './io.js';
@@ -71,7 +72,9 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
     const files = [outputs.html, outputs.json, outputs.markdown].filter((f): f is string => f !== undefined);
     const twice = files.find((f, k) => files.findIndex((g) => resolve(g) === resolve(f)) !== k);
     if (twice !== undefined) throw new SeedsiftError('usage', `-o, --json, --markdown: expected a different file for each, got ${twice} twice`);
+    const progress = progressDisplay(io, raw.quiet === true);
     const result = await reportPipeline({
+      hooks: progress.hooks,
       paths: runPaths,
       ingest: ingestOptions,
       report: mergeReport(front, raw),
@@ -79,7 +82,7 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
       generated: reportDate(io.env),
       version: version(),
       outputs: { html: outputs.html !== undefined, json: outputs.json !== undefined, markdown: outputs.markdown !== undefined },
-    });
+    }).finally(() => progress.done());
     const inputs = inputFiles(result.runSet, [ingestOptions.manifest, ingestOptions.scores, notebookFile]);
     const written: string[] = [];
     for (const [file, text] of [[outputs.html, result.html], [outputs.json, result.json], [outputs.markdown, result.markdown]] as const) {

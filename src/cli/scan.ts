@@ -2,6 +2,7 @@
 import { Command } from 'commander';
 import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
 import { inputFiles } from './inputFiles.js';
+import { progressDisplay } from './progress.js';
 import type { Io } from './io.js';
 import { writeOutput } from './writeOutput.js';
 
@@ -9,9 +10,10 @@ export function scanCommand(io: Io, done: (code: number) => void): Command {
   const command = new Command('scan')
     .description('list what was found: configs x seeds, metrics and goals, tick metrics, step ranges, problems')
     .argument('<paths...>', 'folders or files of run logs')
-    .option('--json <file>', "write the scan as JSON to FILE ('-' for standard output)");
+    .option('--json <file>', "write the scan as JSON to FILE ('-' for standard output)")
+    .option('--quiet', 'no progress display while reading');
   addIngestOptions(command);
-  command.action(async (paths: string[], raw: RawIngestOptions & { json?: string }) => {
+  command.action(async (paths: string[], raw: RawIngestOptions & { json?: string; quiet?: boolean }) => {
     // Heavy modules (DuckDB) load only when the command runs, so --help and --version start fast.
     const [{ ingest }, { inventory }, { scanJson }, { scanText }] = await Promise.all([
       import('../ingest/ingest.js'),
@@ -20,7 +22,8 @@ export function scanCommand(io: Io, done: (code: number) => void): Command {
       import('../report/scanText.js'),
     ]);
     const options = resolveIngestOptions(raw);
-    const runSet = await ingest(paths, options);
+    const progress = progressDisplay(io, raw.quiet === true);
+    const runSet = await ingest(paths, options, progress.hooks).finally(() => progress.done());
     const inv = inventory(runSet);
     if (raw.json === '-') io.stdout(scanJson(runSet, inv));
     else {

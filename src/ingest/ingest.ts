@@ -77,7 +77,14 @@ async function ingestScores(engine: Engine, options: IngestOptions): Promise<Run
  * memory about 8 bytes per number kept, plus one batch of DuckDB results.
  * Example: `await ingest(['runs'], options)` with runs/ticks=8/seed=1/log.csv gives one run `ticks=8,seed=1`.
  */
-export async function ingest(paths: readonly string[], options: IngestOptions): Promise<RunSet> {
+/** Optional observers of a long ingest (the command line shows progress on a terminal). */
+export interface IngestHooks {
+  /** Called as work advances: `stage` is 'headers' or 'reading', with files done of total. */
+  readonly progress?: (stage: 'headers' | 'reading', done: number, total: number) => void;
+}
+
+export async function ingest(paths: readonly string[], options: IngestOptions, hooks: IngestHooks = {}): Promise<RunSet> {
+  const progress = hooks.progress ?? ((): void => undefined);
   const engine = await openEngine();
   try {
     if (options.scores !== null) return await ingestScores(engine, options);
@@ -93,7 +100,8 @@ export async function ingest(paths: readonly string[], options: IngestOptions): 
     };
     // 2. headers and column plans
     const toRead: FileToRead[] = [];
-    for (const source of located.sources) {
+    for (const [i, source] of located.sources.entries()) {
+      progress('headers', i, located.sources.length);
       const header = await readHeader(source, options.columns, engine);
       if (!header.ok) {
         drafts.push(draft(header.code, header.code === 'file-empty' ? `${header.reason}; no run is built from it` : `cannot be read: ${header.reason}`, { file: source.file }));
@@ -113,7 +121,7 @@ export async function ingest(paths: readonly string[], options: IngestOptions): 
     }
     drafts.push(...headerDrift(toRead));
     // 3. load
-    const loaded = await loadFiles(engine, toRead);
+    const loaded = await loadFiles(engine, toRead, undefined, (done) => progress('reading', done, toRead.length));
     for (const f of loaded.failed) {
       drafts.push(draft('file-unreadable', `cannot be read: ${f.reason}`, { file: f.header.source.file }));
       record(f.header.source, 'unreadable', 'unknown');

@@ -226,9 +226,10 @@ function firstLine(error: unknown): string {
  * results come back in the order given. Never throws for a bad file: it is listed in `failed`.
  * Cost: one DuckDB call per batch (plus one per batch for the seed list with `--seed-column`),
  * memory O(cells read).
+ * `onBatch` is told how many files are read so far after each batch (for a progress display).
  * Example: `await loadFiles(engine, [{ header, plan }])`.
  */
-export async function loadFiles(engine: Engine, items: readonly FileToRead[], budget: number = BATCH_BYTES): Promise<LoadedFiles> {
+export async function loadFiles(engine: Engine, items: readonly FileToRead[], budget: number = BATCH_BYTES, onBatch: (filesDone: number) => void = () => undefined): Promise<LoadedFiles> {
   const groups = new Map<string, FileToRead[]>();
   for (const item of items) {
     const key = shapeKey(item);
@@ -276,7 +277,11 @@ export async function loadFiles(engine: Engine, items: readonly FileToRead[], bu
       else failed.push({ header: (pending[0] as FileToRead).header, reason: firstLine(error) });
     }
   };
-  for (const b of batches) await readSafely(engine.connection, b.items, b.doubles);
+  let done = 0;
+  for (const b of batches) {
+    await readSafely(engine.connection, b.items, b.doubles);
+    onBatch((done += b.items.length));
+  }
   const data = items.flatMap((item) => {
     const d = byFile.get(item);
     return d === undefined ? [] : [d];
