@@ -1,5 +1,6 @@
 /** `seedsift scan PATH...`: what was found, as text or JSON. */
 import { Command } from 'commander';
+import { SeedsiftError } from '../problems.js';
 import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
 import { inputFiles } from './inputFiles.js';
 import { progressDisplay } from './progress.js';
@@ -9,7 +10,7 @@ import { writeOutput } from './writeOutput.js';
 export function scanCommand(io: Io, done: (code: number) => void): Command {
   const command = new Command('scan')
     .description('list what was found: configs x seeds, metrics and goals, tick metrics, step ranges, problems')
-    .argument('<paths...>', 'folders or files of run logs')
+    .argument('[paths...]', 'folders or files of run logs (none with --scores)')
     .option('--json <file>', "write the scan as JSON to FILE ('-' for standard output)")
     .option('--quiet', 'no progress display while reading');
   addIngestOptions(command);
@@ -22,6 +23,7 @@ export function scanCommand(io: Io, done: (code: number) => void): Command {
       import('../report/scanText.js'),
     ]);
     const options = resolveIngestOptions(raw);
+    if (paths.length === 0 && options.scores === null) throw new SeedsiftError('usage', 'scan: expected PATH... (folders or files of run logs) or --scores FILE');
     const progress = progressDisplay(io, raw.quiet === true);
     const runSet = await ingest(paths, options, progress.hooks).finally(() => progress.done());
     const inv = inventory(runSet);

@@ -99,7 +99,9 @@ export async function readScores(engine: Engine, options: IngestOptions): Promis
   const configCols = at('config');
   const seedCol = at('seed')[0];
   const metricCols = at('metric');
-  const text = await textColumns(engine, data, [...configCols, ...(seedCol === undefined ? [] : [seedCol])]);
+  const textCols = [...configCols, ...(seedCol === undefined ? [] : [seedCol])];
+  // A table of numbers only (no config or seed column) has no text to fetch.
+  const text = textCols.length === 0 ? [] : await textColumns(engine, data, textCols);
   const keys = configCols.map((k) => plan.names[k] as string);
   const drafts: Draft[] = [];
   for (const k of at('unused')) drafts.push(draft('column-not-numeric', `score table column ${plan.names[k] as string} ${options.by === null ? 'is empty' : 'holds text and is not named by --by'}; not used`, { file }));

@@ -43,7 +43,7 @@ const USAGE: readonly [string, string[], RegExp][] = [
   ['--baseline naming no config', ['report', runs, '--baseline', 'ticks=99', '--json', json], /--baseline: ticks=99 matches no config/],
   ['--baseline with an unknown key', ['report', runs, '--baseline', 'depth=3', '--json', json], /--baseline: no config key 'depth'/],
   ['a missing PATH', ['report', 'no-such-folder', '--json', json], /PATH: .*no such file or folder \(no-such-folder\)/],
-  ['scan without a PATH', ['scan'], /missing required argument 'paths'/],
+  ['scan without a PATH', ['scan'], /scan: expected PATH\.\.\. \(folders or files of run logs\) or --scores FILE/],
   ['--fail-on with a bad value', ['report', runs, '--fail-on', 'maybe', '--json', json], /--fail-on: expected worse, not-better, got 'maybe'/],
   ['--correction unknown', ['report', runs, '--correction', 'bonferroni', '--json', json], /--correction: .*'bonferroni'/],
   ['--metric without a goal', ['report', runs, '--metric', 'val_acc', '--json', json], /--metric: expected NAME:max or NAME:min, got 'val_acc'/],
