@@ -50,6 +50,11 @@ export interface BootstrapInterval {
   readonly resamples: number;
 }
 
+/** The interval from bounds given as deviations from the estimate (the resampled statistics are centred). */
+function intervalAround(estimate: number, level: number, method: BootstrapMethod, resamples: number): (bounds: { low: number; high: number }) => BootstrapInterval {
+  return (bounds) => ({ estimate, low: estimate + bounds.low, high: estimate + bounds.high, level, method, resamples });
+}
+
 /**
  * Bootstrap confidence interval for the mean of x (method as in the module comment; default BCa
  * with 10,000 resamples at level 0.95). The BCa acceleration is the jackknife one.
@@ -75,14 +80,7 @@ export function bootstrapMean(x: Numbers, random: Random, opts: BootstrapOptions
     else stats[b] = m;
   }
   stats.sort();
-  const shift = (bounds: { low: number; high: number }): BootstrapInterval => ({
-    estimate,
-    low: estimate + bounds.low,
-    high: estimate + bounds.high,
-    level,
-    method,
-    resamples,
-  });
+  const shift = intervalAround(estimate, level, method, resamples);
   switch (method) {
     case 'percentile':
       return shift(tailInterval(stats, (1 - level) / 2));
@@ -135,14 +133,7 @@ export function bootstrapMeanDifference(x: Numbers, y: Numbers, random: Random, 
   stats.sort();
   const vx = gx.variance / n1;
   const vy = gy.variance / n2;
-  const shift = (bounds: { low: number; high: number }): BootstrapInterval => ({
-    estimate,
-    low: estimate + bounds.low,
-    high: estimate + bounds.high,
-    level,
-    method,
-    resamples,
-  });
+  const shift = intervalAround(estimate, level, method, resamples);
   switch (method) {
     case 'percentile':
       return shift(tailInterval(stats, (1 - level) / 2));
