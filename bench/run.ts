@@ -71,12 +71,12 @@ function parseOptions(argv: readonly string[]): BenchOptions | null {
 }
 
 /**
- * The seedsift command a user would run: the compiled entry dist/src/cli/main.js when it exists and
- * no source file is newer than its compiled file (a stale build would time code that is not there
- * any more), else the sources through tsx. `--entry` forces one.
+ * The seedsift command a user would run: the bundle dist/main.js (`npm run build`) when it exists
+ * and no source file is newer than it (a stale build would time code that is not there any more),
+ * else the sources through tsx. `--entry` forces one.
  */
 function seedsiftCommand(entry: Entry): { args: string[]; label: string } {
-  const compiled = { args: ['dist/src/cli/main.js'], label: 'node dist/src/cli/main.js' };
+  const compiled = { args: ['dist/main.js'], label: 'node dist/main.js' };
   const sources = { args: ['--import', 'tsx', 'src/cli/main.ts'], label: 'node --import tsx src/cli/main.ts' };
   if (entry === 'dist') return compiled;
   if (entry === 'src') return sources;
@@ -86,13 +86,13 @@ function seedsiftCommand(entry: Entry): { args: string[]; label: string } {
   return compiled;
 }
 
-/** The first src/ TypeScript file newer than its compiled dist/ file (or missing there), or null. */
+/** The first src/ file newer than the bundle dist/main.js, or null. */
 function staleBuild(): string | null {
+  const built = statSync(join(ROOT, 'dist', 'main.js')).mtimeMs;
   for (const entry of readdirSync(join(ROOT, 'src'), { withFileTypes: true, recursive: true })) {
-    if (!entry.isFile() || !entry.name.endsWith('.ts') || entry.name.endsWith('.d.ts')) continue;
+    if (!entry.isFile()) continue;
     const source = join(entry.parentPath, entry.name);
-    const built = join(ROOT, 'dist', relative(ROOT, source)).replace(/\.ts$/, '.js');
-    if (!existsSync(built) || statSync(built).mtimeMs < statSync(source).mtimeMs) return relative(ROOT, source);
+    if (statSync(source).mtimeMs > built) return relative(ROOT, source);
   }
   return null;
 }
