@@ -9,9 +9,12 @@
  * for as few columns as it can, materialises the result (`run`, then synchronous `getChunk`; a
  * streamed result fetched chunk by chunk was 2-3x slower in CPU time), and never returns NULL
  * (missing cells are encoded as non-finite doubles by `cellSql` in loadQuery.ts), because a
- * validity mask makes every `getItem` test a BigInt bit.
+ * validity mask makes every `getItem` test a BigInt bit. DOUBLE columns are not read item by item
+ * at all: `resultColumns` copies each chunk's data buffer in one call through DuckDB's C API
+ * (`@duckdb/node-bindings`, the layer under the node API), about 5x faster than `getItem`.
  */
-import { DuckDBInstance, type DuckDBConnection, type DuckDBMaterializedResult } from '@duckdb/node-api';
+import { DuckDBInstance, DuckDBTypeId, type DuckDBConnection, type DuckDBMaterializedResult } from '@duckdb/node-api';
+import bindings from '@duckdb/node-bindings';
 
 /** An open engine: the instance and its one connection. */
 export interface Engine {
@@ -68,21 +71,27 @@ export function sqlIdent(name: string): string {
 /**
  * Copy every column of a materialised result into its own `Float64Array` (one value per row, in
  * result order). Columns must be numeric (DOUBLE, INTEGER, ...); a NULL becomes NaN, but the
- * queries of ingest never return NULL (see the module comment). Cost: O(rows x columns) plus one
- * vector object per column per chunk. Example: for `SELECT 1::DOUBLE, 2::INTEGER` the result is
- * `[Float64Array [1], Float64Array [2]]`.
+ * queries of ingest never return NULL (see the module comment). DOUBLE columns are copied a chunk
+ * at a time from DuckDB's buffer (NULLs then set to NaN from the validity mask); other numeric
+ * types go value by value. Cost: O(rows x columns) plus one vector per column per chunk.
+ * Example: for `SELECT 1::DOUBLE, 2::INTEGER` the result is `[Float64Array [1], Float64Array [2]]`.
  */
 export function resultColumns(result: DuckDBMaterializedResult): Float64Array[] {
   const rows = result.rowCount;
   const columns = Array.from({ length: result.columnCount }, () => new Float64Array(rows));
+  const isDouble = columns.map((_, j) => result.columnTypeId(j) === DuckDBTypeId.DOUBLE);
   const chunks = result.chunkCount;
   let offset = 0;
   for (let k = 0; k < chunks; k++) {
     const chunk = result.getChunk(k);
     const count = chunk.rowCount;
     for (let j = 0; j < columns.length; j++) {
-      const vector = chunk.getColumnVector(j);
       const out = columns[j] as Float64Array;
+      if (isDouble[j] === true) {
+        copyDoubles(bindings.data_chunk_get_vector(chunk.chunk, j), count, out, offset);
+        continue;
+      }
+      const vector = chunk.getColumnVector(j);
       for (let i = 0; i < count; i++) {
         const value = vector.getItem(i);
         out[offset + i] = typeof value === 'number' ? value : value === null ? NaN : Number(value);
@@ -91,4 +100,17 @@ export function resultColumns(result: DuckDBMaterializedResult): Float64Array[] 
     offset += count;
   }
   return columns;
+}
+
+/**
+ * Copy `count` doubles of a DOUBLE vector into `out` at `offset`, NULLs as NaN. DuckDB's validity
+ * mask is an array of 64-bit words, bit i of the mask set when row i is valid (absent when every
+ * row is valid); read here byte by byte (little-endian, as on every platform DuckDB ships for).
+ */
+function copyDoubles(vector: bindings.Vector, count: number, out: Float64Array, offset: number): void {
+  const bytes = bindings.vector_get_data(vector, count * Float64Array.BYTES_PER_ELEMENT);
+  out.set(new Float64Array(bytes.buffer, bytes.byteOffset, count), offset);
+  const validity = bindings.vector_get_validity(vector, Math.ceil(count / 64) * 8);
+  if (!validity) return;
+  for (let i = 0; i < count; i++) if ((((validity[i >> 3] as number) >> (i & 7)) & 1) === 0) out[offset + i] = NaN;
 }
