@@ -73,10 +73,13 @@ export function sqlIdent(name: string): string {
  * result order). Columns must be numeric (DOUBLE, INTEGER, ...); a NULL becomes NaN, but the
  * queries of ingest never return NULL (see the module comment). DOUBLE columns are copied a chunk
  * at a time from DuckDB's buffer (NULLs then set to NaN from the validity mask); other numeric
- * types go value by value. Cost: O(rows x columns) plus one vector per column per chunk.
+ * types go value by value. A DOUBLE column j with `encode[j]` true gets the cell encoding of
+ * loadQuery.ts on the way: NaN and the infinities become +Infinity, then NULLs become NaN (for
+ * cells the CSV reader parsed as DOUBLE: `nan`/`inf` cells, and empty ones).
+ * Cost: O(rows x columns) plus one vector per column per chunk.
  * Example: for `SELECT 1::DOUBLE, 2::INTEGER` the result is `[Float64Array [1], Float64Array [2]]`.
  */
-export function resultColumns(result: DuckDBMaterializedResult): Float64Array[] {
+export function resultColumns(result: DuckDBMaterializedResult, encode: readonly boolean[] = []): Float64Array[] {
   const rows = result.rowCount;
   const columns = Array.from({ length: result.columnCount }, () => new Float64Array(rows));
   const isDouble = columns.map((_, j) => result.columnTypeId(j) === DuckDBTypeId.DOUBLE);
@@ -88,7 +91,7 @@ export function resultColumns(result: DuckDBMaterializedResult): Float64Array[] 
     for (let j = 0; j < columns.length; j++) {
       const out = columns[j] as Float64Array;
       if (isDouble[j] === true) {
-        copyDoubles(bindings.data_chunk_get_vector(chunk.chunk, j), count, out, offset);
+        copyDoubles(bindings.data_chunk_get_vector(chunk.chunk, j), count, out, offset, encode[j] === true);
         continue;
       }
       const vector = chunk.getColumnVector(j);
@@ -107,9 +110,15 @@ export function resultColumns(result: DuckDBMaterializedResult): Float64Array[] 
  * mask is an array of 64-bit words, bit i of the mask set when row i is valid (absent when every
  * row is valid); read here byte by byte (little-endian, as on every platform DuckDB ships for).
  */
-function copyDoubles(vector: bindings.Vector, count: number, out: Float64Array, offset: number): void {
+function copyDoubles(vector: bindings.Vector, count: number, out: Float64Array, offset: number, encode: boolean): void {
   const bytes = bindings.vector_get_data(vector, count * Float64Array.BYTES_PER_ELEMENT);
   out.set(new Float64Array(bytes.buffer, bytes.byteOffset, count), offset);
+  if (encode) {
+    for (let i = offset; i < offset + count; i++) {
+      const v = out[i] as number;
+      if (v - v !== 0) out[i] = Infinity;
+    }
+  }
   const validity = bindings.vector_get_validity(vector, Math.ceil(count / 64) * 8);
   if (!validity) return;
   for (let i = 0; i < count; i++) if ((((validity[i >> 3] as number) >> (i & 7)) & 1) === 0) out[offset + i] = NaN;

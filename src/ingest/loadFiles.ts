@@ -13,7 +13,7 @@ import type { DuckDBConnection } from '@duckdb/node-api';
 import type { ColumnPlan } from './columns.js';
 import { resultColumns, type Engine } from './duckdb.js';
 import type { FileHeader } from './loadHeader.js';
-import { batchSql, REJECTS_SCAN, REJECTS_SQL, REJECTS_TABLE, seedValuesSql } from './loadQuery.js';
+import { batchSql, rawColumns, REJECTS_SCAN, REJECTS_SQL, REJECTS_TABLE, seedValuesSql } from './loadQuery.js';
 
 /** A row DuckDB rejected: its record number (DuckDB's `line`, see loadLines.ts) and why. */
 export interface Reject {
@@ -151,8 +151,8 @@ async function readBatch(connection: DuckDBConnection, items: readonly FileToRea
     seed = { index: first.plan.seed, values };
   }
   await dropRejects(connection);
-  const result = await connection.run(batchSql({ headers, columns, seed, doubles }));
-  const out = resultColumns(result);
+  const spec = { headers, columns, seed, doubles };
+  const out = resultColumns(await connection.run(batchSql(spec)), rawColumns(spec));
   const rejects = await readRejects(connection);
   await dropRejects(connection);
   const whitespace = first.header.text !== null && first.header.text.delimiter === null;

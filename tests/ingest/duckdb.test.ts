@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeEngine, openEngine, resultColumns, sqlIdent, sqlString, type Engine } from '../../src/ingest/duckdb.js';
+import { cellSql } from '../../src/ingest/loadQuery.js';
 
 let engine: Engine;
 beforeAll(async () => {
@@ -43,5 +44,12 @@ describe('resultColumns', () => {
     });
     expect(Number.isNaN(a?.[63])).toBe(true);
     expect(a?.[62]).toBe(62 * 0.1);
+  });
+  it('encodes DOUBLE cells on request exactly as cellSql does in SQL (NULL as NaN, nan/inf as +Infinity)', async () => {
+    const values = `(VALUES (0, 1.5::DOUBLE), (1, NULL), (2, 'nan'::DOUBLE), (3, 'inf'::DOUBLE), (4, '-inf'::DOUBLE), (5, -0.0::DOUBLE), (6, 1e308::DOUBLE)) t(i, x)`;
+    const [raw] = resultColumns(await engine.connection.run(`SELECT x FROM ${values} ORDER BY i`), [true]);
+    const [sql] = resultColumns(await engine.connection.run(`SELECT ${cellSql('x', 'DOUBLE')} FROM ${values} ORDER BY i`));
+    expect(Array.from(raw ?? [])).toEqual([1.5, NaN, Infinity, Infinity, Infinity, -0, 1e308]);
+    expect(Array.from(raw ?? [])).toEqual(Array.from(sql ?? []));
   });
 });
