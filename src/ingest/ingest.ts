@@ -21,7 +21,8 @@ import { metricGoal } from './goals.js';
 import { locate, type Located } from './locate.js';
 import { fileDrafts, headerDrift, notNumericDrafts } from './loadChecks.js';
 import { loadFiles, type FileData, type FileToRead } from './loadFiles.js';
-import { readHeader } from './loadHeader.js';
+import { readHeader, type HeaderResult } from './loadHeader.js';
+import { mapPool } from './mapPool.js';
 import { draft, finishDrafts, type Draft } from './loadRefs.js';
 import { numericNames } from './loadRows.js';
 import { mergeRunSets, type RunSetPart } from './mergeRunSets.js';
@@ -62,6 +63,23 @@ async function withDigests(engine: Engine, found: Located, logs: RunSet, digests
   return await mergeRunSets(parts.map((p) => p.part), options);
 }
 
+/** Files whose heads are read at the same time (text files; Parquet ones go one by one through the one DuckDB connection). */
+const HEAD_READS = 8;
+
+/** Step 2's reading: every source's header, in source order. */
+async function readHeaders(sources: readonly RunSource[], options: IngestOptions, engine: Engine, progress: (stage: 'headers', done: number, total: number) => void): Promise<HeaderResult[]> {
+  let done = 0;
+  const read = async (source: RunSource): Promise<HeaderResult> => {
+    const header = await readHeader(source, options.columns, engine);
+    progress('headers', ++done, sources.length);
+    return header;
+  };
+  const text = await mapPool(sources, HEAD_READS, async (source) => (source.format === 'parquet' ? null : await read(source)));
+  const out: HeaderResult[] = [];
+  for (const [i, source] of sources.entries()) out.push(text[i] ?? (await read(source)));
+  return out;
+}
+
 async function ingestScores(engine: Engine, options: IngestOptions): Promise<RunSet> {
   const table = await readScores(engine, options);
   const { metrics, problems } = metricInfos(table.runs, options);
@@ -100,9 +118,9 @@ export async function ingest(paths: readonly string[], options: IngestOptions, h
     };
     // 2. headers and column plans
     const toRead: FileToRead[] = [];
+    const headers = await readHeaders(located.sources, options, engine, progress);
     for (const [i, source] of located.sources.entries()) {
-      progress('headers', i, located.sources.length);
-      const header = await readHeader(source, options.columns, engine);
+      const header = headers[i] as HeaderResult;
       if (!header.ok) {
         drafts.push(draft(header.code, header.code === 'file-empty' ? `${header.reason}; no run is built from it` : `cannot be read: ${header.reason}`, { file: source.file }));
         record(source, header.code === 'file-empty' ? 'skipped' : 'unreadable', 'unknown');
