@@ -6,8 +6,12 @@ import type { TopLevelSpec } from 'vega-lite';
 import type { IntervalMethod, Results } from '../../analysis/results.js';
 import { CONFIG_LEGEND, configColourScale, REFERENCE_INK } from '../palette.js';
 import { chartFrame, NUMBER_FORMAT, STEP_FORMAT, type Layer } from './chartFrame.js';
+import { coarsenLine, lineStride } from './coarsenLine.js';
 import { intervalLabel, intervalLabels } from './intervalLabel.js';
 import { layerOpacity, withLegendToggle } from './legendToggle.js';
+
+/** Most points the single-seed lines of one chart hold (all lines together). */
+export const SEED_POINTS = 24_000;
 
 /**
  * Vega-Lite spec of the learning curves of one metric (`Results.curves`), one colour per config.
@@ -23,12 +27,18 @@ import { layerOpacity, withLegendToggle } from './legendToggle.js';
  * its steps and values as parallel arrays, which a `flatten` transform turns back into one row
  * per step (a row names its config and seed once instead of at every step: the bulk of a long
  * curve's bytes).
+ * Single-seed lines hold at most `SEED_POINTS` points in all: beyond that (hundreds of runs) each
+ * is drawn with one point per group of consecutive bins (`coarsenLine`), and the subtitle says so;
+ * the mean and its band keep every bin. (400 runs x 400 bins drawn in full made the page's
+ * rendering take 1.4 GB of memory and 20 s.)
  * Returns null when the metric has no curve with a value. Cost O(configs * bins * seeds). Never throws.
  * Example: `curvesChart(results, 'val_acc')` → a layered spec with layers seeds, band, mean, hover.
  */
 export function curvesChart(results: Results, metric: string): TopLevelSpec | null {
   const curves = results.curves.filter((c) => c.metric === metric && c.steps.length > 0);
   if (curves.length === 0) return null;
+  const runCount = curves.reduce((total, c) => total + c.runs.length, 0);
+  const stride = lineStride(runCount, Math.max(...curves.map((c) => c.steps.length)), SEED_POINTS);
 
   const summary: { config: string; step: number[]; mean: (number | null)[]; low: (number | null)[]; high: (number | null)[]; n: number[]; band: string[] }[] = [];
   const seeds: { config: string; run: string; seed: string; step: number[]; value: (number | null)[] }[] = [];
@@ -49,7 +59,8 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
     });
     summary.push(row);
     for (const r of c.runs) {
-      seeds.push({ config: c.config, run: r.run, seed: r.seed, step: [...c.steps], value: c.steps.map((_, i) => r.values[i] ?? null) });
+      const line = coarsenLine(c.steps, c.steps.map((_, i) => r.values[i] ?? null), stride);
+      seeds.push({ config: c.config, run: r.run, seed: r.seed, step: line.steps, value: line.values });
     }
   }
 
@@ -58,7 +69,6 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
   const x = { field: 'step', type: 'quantitative', title: 'step', axis: { format: '~s' } } as const;
   const y = (field: string) => ({ field, type: 'quantitative', title: metric, scale: { zero: false } }) as const;
   const band = intervalLabels(bandMethods);
-  const runCount = curves.reduce((total, c) => total + c.runs.length, 0);
 
   const hasSeeds = seeds.some((row) => row.value.some((v) => v !== null));
   const hasBand = summary.some((row) => row.low.some((v) => v !== null));
@@ -142,7 +152,7 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
     ...chartFrame({
       title: `${metric}: learning curves`,
       subtitle: [
-        `Thick line: mean across seeds. Thin lines: single seeds (${runCount}).`,
+        `Thick line: mean across seeds. Thin lines: single seeds (${runCount})${stride === 1 ? '' : `, each drawn with one point per ${stride} bins to keep the page light`}.`,
         band === '' ? 'No band: too few seeds per step for an interval.' : `Band: ${band} of the mean across seeds, per step.`,
         ...(horizon === null ? [] : [`Dashed line: the common horizon (step ${horizon}), where runs are compared.`]),
       ],

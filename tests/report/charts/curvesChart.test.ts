@@ -5,7 +5,7 @@
 import type { TopLevelSpec } from 'vega-lite';
 import { describe, expect, it } from 'vitest';
 import type { Curve, Results } from '../../../src/analysis/results.js';
-import { curvesChart } from '../../../src/report/charts/curvesChart.js';
+import { curvesChart, SEED_POINTS } from '../../../src/report/charts/curvesChart.js';
 import { CONFIG_COLOURS } from '../../../src/report/palette.js';
 import { compileVega, renderSvg, renderSvgWithWarnings } from '../../../src/report/renderSvg.js';
 import { DEFAULT_NAMES, makeResults } from '../fixtures.js';
@@ -39,6 +39,32 @@ describe('curvesChart', () => {
     // One row per config holds the per-step arrays (a flatten transform makes them rows).
     const hover = spec.layer.find((l) => l.name === 'hover')?.data?.values ?? [];
     expect(hover.filter((r) => r['config'] === c0).map((r) => r['band'])).toEqual([['95% t-interval', '95% t-interval', '95% t-interval', '95% BCa bootstrap interval', '95% BCa bootstrap interval']]);
+  });
+
+  it('draws hundreds of seed lines with fewer points, says so, and keeps every bin of the mean', () => {
+    const bins = 400;
+    const many = withCurves(results, (c) => ({
+      ...c,
+      steps: Array.from({ length: bins }, (_, i) => i * 10),
+      mean: Array.from({ length: bins }, (_, i) => i / bins),
+      low: Array.from({ length: bins }, () => null),
+      high: Array.from({ length: bins }, () => null),
+      n: Array.from({ length: bins }, () => 100),
+      bandByBin: null,
+      runs: Array.from({ length: 100 }, (_, r) => ({ run: `${c.config},seed=${r}`, seed: String(r), values: Array.from({ length: bins }, (_, i) => (i + r) / bins) })),
+    }));
+    const spec = curvesChart(many, 'val_acc') as TopLevelSpec & { title: { subtitle: string[] }; layer: { name?: string; data?: { values: Record<string, unknown>[] } }[] };
+    const seeds = spec.layer.find((l) => l.name === 'seeds')?.data?.values ?? [];
+    const points = seeds.reduce((total, r) => total + (r['step'] as number[]).length, 0);
+    expect(seeds).toHaveLength(300);
+    expect(points).toBeLessThanOrEqual(SEED_POINTS);
+    expect(points).toBe(300 * Math.ceil(bins / 5)); // 300 x 400 points over 24,000: one point per 5 bins
+    expect(spec.title.subtitle.join(' ')).toContain('one point per 5 bins');
+    // First seed line, first group: steps 0..40 and values (0..4)/400 averaged.
+    expect((seeds[0]?.['step'] as number[])[0]).toBe(20);
+    expect((seeds[0]?.['value'] as number[])[0]).toBeCloseTo(2 / bins, 15);
+    const mean = spec.layer.find((l) => l.name === 'mean')?.data?.values ?? [];
+    expect((mean[0]?.['step'] as number[]).length).toBe(bins);
   });
 
   it('draws a thin line per seed and a band and mean line per config, each config in its report colour', async () => {
