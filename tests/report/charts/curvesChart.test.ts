@@ -50,7 +50,6 @@ describe('curvesChart', () => {
       low: Array.from({ length: bins }, () => null),
       high: Array.from({ length: bins }, () => null),
       n: Array.from({ length: bins }, () => 100),
-      bandByBin: null,
       runs: Array.from({ length: 100 }, (_, r) => ({ run: `${c.config},seed=${r}`, seed: String(r), values: Array.from({ length: bins }, (_, i) => (i + r) / bins) })),
     }));
     const spec = curvesChart(many, 'val_acc') as TopLevelSpec & { title: { subtitle: string[] }; layer: { name?: string; data?: { values: Record<string, unknown>[] } }[] };
