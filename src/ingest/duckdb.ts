@@ -15,6 +15,8 @@
  */
 import { DuckDBInstance, DuckDBTypeId, type DuckDBConnection, type DuckDBMaterializedResult } from '@duckdb/node-api';
 import bindings from '@duckdb/node-bindings';
+import { setFlagsFromString } from 'node:v8';
+import { runInNewContext } from 'node:vm';
 
 /** An open engine: the instance and its one connection. */
 export interface Engine {
@@ -31,6 +33,24 @@ export async function openEngine(): Promise<Engine> {
   const instance = await DuckDBInstance.create(':memory:');
   const connection = await instance.connect();
   return { instance, connection };
+}
+
+let collect: (() => void) | null = null;
+
+/**
+ * Free the native memory of the DuckDB results that are no longer referenced. The node API
+ * releases a result's memory only when its JavaScript object is garbage collected, and V8 does not
+ * count that memory, so it would not hurry: read in batches, the results of every batch stayed
+ * resident together (about 45 MB more peak memory on the medium benchmark). Ingest calls this after
+ * each batch; it runs a full collection of the JavaScript heap (V8's `gc`, enabled at the first
+ * call), a few milliseconds while that heap holds only typed arrays. Example: `releaseResults()`.
+ */
+export function releaseResults(): void {
+  if (collect === null) {
+    setFlagsFromString('--expose-gc');
+    collect = runInNewContext('gc') as () => void;
+  }
+  collect();
 }
 
 /**

@@ -11,7 +11,7 @@
  */
 import type { DuckDBConnection } from '@duckdb/node-api';
 import type { ColumnPlan } from './columns.js';
-import { resultColumns, type Engine } from './duckdb.js';
+import { releaseResults, resultColumns, type Engine } from './duckdb.js';
 import type { FileHeader } from './loadHeader.js';
 import { batchSql, rawColumns, REJECTS_SCAN, REJECTS_SQL, REJECTS_TABLE, seedValuesSql } from './loadQuery.js';
 
@@ -280,6 +280,7 @@ export async function loadFiles(engine: Engine, items: readonly FileToRead[], bu
   let done = 0;
   for (const b of batches) {
     await readSafely(engine.connection, b.items, b.doubles);
+    releaseResults();
     onBatch((done += b.items.length));
   }
   const data = items.flatMap((item) => {
