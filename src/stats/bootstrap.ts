@@ -23,10 +23,10 @@
  */
 import normalCdf from '@stdlib/stats-base-dists-normal-cdf';
 import normalQuantile from '@stdlib/stats-base-dists-normal-quantile';
-import tQuantile from '@stdlib/stats-base-dists-t-quantile';
 import { mean, variance, type Numbers } from './moments.js';
 import { quantileSorted } from './quantile.js';
 import type { Random } from './random.js';
+import { studentTQuantile } from './studentTQuantile.js';
 
 /** Every bootstrap interval method, in the order the module comment describes them. */
 export const BOOTSTRAP_METHODS = ['percentile', 'expanded-percentile', 'bca', 'bootstrap-t'] as const;
@@ -312,7 +312,7 @@ function tailInterval(sorted: Float64Array, tail: number): { low: number; high: 
 
 /** Hesterberg's expanded tail probability Phi(sqrt(ratio) t_{alpha/2, df}), for variance ratio `ratio`. */
 function expandedTail(level: number, ratio: number, df: number): number {
-  return normalCdf(Math.sqrt(ratio) * tQuantile((1 - level) / 2, df), 0, 1);
+  return normalCdf(Math.sqrt(ratio) * studentTQuantile((1 - level) / 2, df), 0, 1);
 }
 
 /** BCa needs spread: throws when every sorted resampled statistic is equal. */

@@ -13,8 +13,8 @@
  */
 import normalCdf from '@stdlib/stats-base-dists-normal-cdf';
 import normalQuantile from '@stdlib/stats-base-dists-normal-quantile';
-import tQuantile from '@stdlib/stats-base-dists-t-quantile';
 import { noncentralTCdf } from './noncentralT.js';
+import { studentTQuantile } from './studentTQuantile.js';
 
 function checkAlpha(alpha: number, who: string): void {
   if (!(alpha > 0 && alpha < 1)) throw new RangeError(`${who}: alpha must be in (0, 1), got ${alpha}`);
@@ -40,7 +40,7 @@ export function welchPower(effect: number, n1: number, n2: number, alpha = 0.05)
   checkAlpha(alpha, 'welchPower');
   const df = n1 + n2 - 2;
   const ncp = effect * Math.sqrt((n1 * n2) / (n1 + n2));
-  const critical = tQuantile(1 - alpha / 2, df);
+  const critical = studentTQuantile(1 - alpha / 2, df);
   return 1 - noncentralTCdf(critical, df, ncp) + noncentralTCdf(-critical, df, ncp);
 }
 

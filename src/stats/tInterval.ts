@@ -1,10 +1,11 @@
 /**
  * Student t confidence intervals (Student 1908; any statistics handbook): estimate +- t quantile x
- * standard error, with the t quantile from @stdlib (inverse regularized incomplete beta).
+ * standard error, with the t quantile from @stdlib (inverse regularized incomplete beta), remembered
+ * per probability and df (`studentTQuantile`).
  */
-import tQuantile from '@stdlib/stats-base-dists-t-quantile';
 import type { Alternative } from './alternative.js';
 import { mean, standardDeviation, type Numbers } from './moments.js';
+import { studentTQuantile } from './studentTQuantile.js';
 
 export interface TInterval {
   readonly estimate: number;
@@ -52,12 +53,12 @@ export function studentTBounds(
   if (!(se >= 0)) throw new RangeError(`t bounds: standard error must be >= 0, got ${se}`);
   switch (alternative) {
     case 'two-sided': {
-      const half = tQuantile((1 + level) / 2, df) * se;
+      const half = studentTQuantile((1 + level) / 2, df) * se;
       return { low: estimate - half, high: estimate + half };
     }
     case 'greater':
-      return { low: estimate - tQuantile(level, df) * se, high: Infinity };
+      return { low: estimate - studentTQuantile(level, df) * se, high: Infinity };
     case 'less':
-      return { low: -Infinity, high: estimate + tQuantile(level, df) * se };
+      return { low: -Infinity, high: estimate + studentTQuantile(level, df) * se };
   }
 }

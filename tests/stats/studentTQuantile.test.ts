@@ -1,0 +1,58 @@
+import tQuantile from '@stdlib/stats-base-dists-t-quantile';
+import { describe, expect, it } from 'vitest';
+import { studentTQuantile } from '../../src/stats/studentTQuantile.js';
+
+function expectRel(actual: number, expected: number, tolerance: number): void {
+  const err = Math.abs(actual - expected) / Math.abs(expected);
+  expect(err, `${actual} vs ${expected}`).toBeLessThanOrEqual(tolerance);
+}
+
+describe('studentTQuantile', () => {
+  it('matches the handbook t table of METHODS.md (0.975 at df 1, 2, 5, 10, 30, 120), first call and remembered', () => {
+    // METHODS.md check values (any statistics handbook's t table, 6 decimals).
+    const table: ReadonlyArray<readonly [number, number]> = [
+      [1, 12.706205],
+      [2, 4.302653],
+      [5, 2.570582],
+      [10, 2.228139],
+      [30, 2.042272],
+      [120, 1.97993],
+    ];
+    for (let round = 0; round < 2; round++) {
+      for (const [df, q] of table) expect(Math.abs(studentTQuantile(0.975, df) - q), `df ${df}, round ${round}`).toBeLessThanOrEqual(5e-7);
+    }
+  });
+
+  it('matches scipy stats.t.ppf, whole and fractional df, both tails', () => {
+    // scipy 1.17.1 stats.t.ppf(p, df) (the PyPI build; Debian's python3-scipy 1.10.1 gives values about
+    // 1e-10 relative away, from its older t.ppf: see METHODS.md's note on the Welch interval).
+    const cases: ReadonlyArray<readonly [number, number, number]> = [
+      [0.975, 1, 12.706204736174694],
+      [0.975, 7.5, 2.333039626864974],
+      [0.95, 10, 1.8124611228116756],
+      [0.995, 3.25, 5.416951201235887],
+      [0.025, 12, -2.1788128296672293],
+    ];
+    for (let round = 0; round < 2; round++) {
+      for (const [p, df, q] of cases) expectRel(studentTQuantile(p, df), q, 1e-12);
+    }
+  });
+
+  it('returns exactly the number @stdlib returns, also once remembered and after the memo starts over', () => {
+    // More distinct (p, df) pairs than the memo keeps (4,096), so it is cleared at least once on the way.
+    const pairs: [number, number][] = [];
+    for (const p of [0.9, 0.95, 0.975, 0.995, 0.025, 0.5]) for (let i = 0; i < 800; i++) pairs.push([p, 1 + i * 0.37]);
+    for (let round = 0; round < 2; round++) {
+      for (const [p, df] of pairs) expect(Object.is(studentTQuantile(p, df), tQuantile(p, df)), `p ${p}, df ${df}`).toBe(true);
+    }
+  });
+
+  it('gives what @stdlib gives outside the domain (NaN) and at the ends (infinities), without throwing', () => {
+    expect(studentTQuantile(0.975, 0)).toBeNaN();
+    expect(studentTQuantile(0.975, -1)).toBeNaN();
+    expect(studentTQuantile(1.5, 3)).toBeNaN();
+    expect(studentTQuantile(Number.NaN, 3)).toBeNaN();
+    expect(studentTQuantile(0, 3)).toBe(-Infinity);
+    expect(studentTQuantile(1, 3)).toBe(Infinity);
+  });
+});
