@@ -78,50 +78,93 @@ export function binOf(grid: StepGrid, step: number): number {
  * Example: `learningCurves(runs, 'val_acc', settings)[0].n` counts the runs per bin of the first config.
  */
 export function learningCurves(runs: readonly Run[], metric: string, settings: CurveSettings): Curve[] {
-  const withMetric = runs.filter((r) => (r.metrics[metric]?.steps.length ?? 0) > 0);
-  const grid = stepGrid(withMetric.map((r) => r.metrics[metric] as Series), settings.bins);
+  const withMetric: Run[] = [];
+  const seriesOf: Series[] = [];
+  for (const run of runs) {
+    const s = run.metrics[metric];
+    if (s === undefined || s.steps.length === 0) continue;
+    withMetric.push(run);
+    seriesOf.push(s);
+  }
+  const grid = stepGrid(seriesOf, settings.bins);
   if (grid === null) return [];
-  const byConfig = new Map<string, Run[]>();
-  for (const run of withMetric) {
-    const list = byConfig.get(run.config) ?? [];
-    list.push(run);
-    byConfig.set(run.config, list);
+  const byConfig = new Map<string, { runs: Run[]; series: Series[] }>();
+  for (let j = 0; j < withMetric.length; j++) {
+    const run = withMetric[j] as Run;
+    let group = byConfig.get(run.config);
+    if (group === undefined) {
+      group = { runs: [], series: [] };
+      byConfig.set(run.config, group);
+    }
+    group.runs.push(run);
+    group.series.push(seriesOf[j] as Series);
   }
   const curves: Curve[] = [];
-  for (const [config, group] of byConfig) curves.push(configCurve(group, metric, config, grid, settings));
+  for (const [config, group] of byConfig) curves.push(configCurve(group.runs, group.series, metric, config, grid, settings));
   return curves;
 }
 
-function configCurve(runs: readonly Run[], metric: string, config: string, grid: StepGrid, settings: CurveSettings): Curve {
+/*
+ * The work of one curve is split into small functions on purpose: V8 optimizes a hot loop in a
+ * small function once, where a long function that holds the loop is re-optimized each time it
+ * reaches code it has not run yet, and runs several times slower in between on a first report.
+ */
+
+function configCurve(runs: readonly Run[], series: readonly Series[], metric: string, config: string, grid: StepGrid, settings: CurveSettings): Curve {
   const k = grid.bins;
   const r = runs.length;
   // Work buffers, allocated once per curve: runs x bins matrix (NaN = no value), per-bin sums, a column.
   const matrix = new Float64Array(r * k).fill(NaN);
   const sums = new Float64Array(k);
   const counts = new Float64Array(k);
-  const column = new Float64Array(r);
   const perRun: Curve['runs'][number][] = [];
   for (let j = 0; j < r; j++) {
     const run = runs[j] as Run;
-    const s = run.metrics[metric] as Series;
+    const s = series[j] as Series;
     sums.fill(0);
     counts.fill(0);
-    for (let i = 0; i < s.steps.length; i++) {
-      const b = binOf(grid, s.steps[i] as number);
-      sums[b] = (sums[b] as number) + (s.values[i] as number);
-      counts[b] = (counts[b] as number) + 1;
-    }
-    const values: (number | null)[] = new Array<number | null>(k);
-    for (let b = 0; b < k; b++) {
-      const c = counts[b] as number;
-      const v = c > 0 ? (sums[b] as number) / c : NaN;
-      matrix[j * k + b] = v;
-      values[b] = c > 0 ? v : null;
-    }
-    perRun.push({ run: run.id, seed: run.seed, values });
+    accumulate(s.steps, s.values, grid.first, grid.width, k, sums, counts);
+    perRun.push({ run: run.id, seed: run.seed, values: binMeans(sums, counts, matrix, j * k) });
   }
   const counted = runs.map((run) => settings.diverged === 'worst' || !isDiverged(run, metric));
   const random = createRandom(deriveSeed(settings.seed, `curve|${metric}|${config}`));
+  const { mean, low, high, n, bandByBin } = binBands(matrix, r, k, counted, settings, random);
+  return { metric, config, steps: grid.centres, mean, low, high, n, band: mainMethod(bandByBin), bandByBin, level: settings.level, runs: perRun };
+}
+
+/** Add each point's value to its bin's sum and count, in point order (the bin is `binOf`'s, inlined). */
+function accumulate(steps: Float64Array, values: Float64Array, first: number, width: number, bins: number, sums: Float64Array, counts: Float64Array): void {
+  const n = steps.length;
+  for (let i = 0; i < n; i++) {
+    const b = width === 0 ? 0 : Math.min(bins - 1, Math.max(0, Math.floor(((steps[i] as number) - first) / width)));
+    sums[b] = (sums[b] as number) + (values[i] as number);
+    counts[b] = (counts[b] as number) + 1;
+  }
+}
+
+/** Per bin the mean of the run's values (null where it logged nothing), also written to matrix[offset + bin] (NaN there). */
+function binMeans(sums: Float64Array, counts: Float64Array, matrix: Float64Array, offset: number): (number | null)[] {
+  const k = sums.length;
+  const values: (number | null)[] = new Array<number | null>(k);
+  for (let b = 0; b < k; b++) {
+    const c = counts[b] as number;
+    const v = c > 0 ? (sums[b] as number) / c : NaN;
+    matrix[offset + b] = v;
+    values[b] = c > 0 ? v : null;
+  }
+  return values;
+}
+
+/** Mean, band, n and method per bin over the counted runs of a runs x bins matrix. */
+function binBands(
+  matrix: Float64Array,
+  r: number,
+  k: number,
+  counted: readonly boolean[],
+  settings: CurveSettings,
+  random: Random,
+): Pick<Curve, 'mean' | 'low' | 'high' | 'n'> & { bandByBin: IntervalMethod[] } {
+  const column = new Float64Array(r);
   const mean: (number | null)[] = [];
   const low: (number | null)[] = [];
   const high: (number | null)[] = [];
@@ -140,7 +183,7 @@ function configCurve(runs: readonly Run[], metric: string, config: string, grid:
     n.push(m);
     bandByBin.push(band.method);
   }
-  return { metric, config, steps: grid.centres, mean, low, high, n, band: mainMethod(bandByBin), bandByBin, level: settings.level, runs: perRun };
+  return { mean, low, high, n, bandByBin };
 }
 
 interface Band {
