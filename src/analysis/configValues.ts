@@ -6,7 +6,7 @@
  * comparison's difference interval).
  */
 import { createRandom, deriveSeed } from '../stats/random.js';
-import { binBand } from './curves.js';
+import { binBand, freshDraws } from './curves.js';
 import type { ConfigValue, RunValue } from './results.js';
 
 export interface ConfigValueSettings {
@@ -30,7 +30,7 @@ export function configValues(values: readonly RunValue[], settings: ConfigValueS
     const first = list[0] as RunValue;
     const present = Float64Array.from(list.filter((v) => v.value !== null).map((v) => v.value as number));
     const random = createRandom(deriveSeed(settings.seed, `values|${first.metric}|${first.summary}|${config}`));
-    const band = binBand(present, settings, random);
+    const band = binBand(present, settings, freshDraws(random, settings.bandResamples));
     out.push({ metric: first.metric, summary: first.summary, config, n: present.length, missing: list.length - present.length, mean: band.mean, low: band.low, high: band.high, level: settings.level, method: band.method });
   }
   return out;

@@ -10,7 +10,10 @@
  * (the t-interval of the mean while fewer than `bootstrapFrom` (20) runs contribute; the BCa
  * bootstrap of the mean with `bandResamples` (2,000) resamples at or above, falling back to the t
  * interval if BCa fails, e.g. on identical values), n per bin, and the method per bin. Bands are
- * for looking; tests decide.
+ * for looking; tests decide. The bootstrap resamples the seeds as whole curves: one table of
+ * resample positions per curve (per number of runs present in a bin) serves every bin, so a bin
+ * costs sums rather than random draws (400 bins x 40 runs: about 5x faster than drawing per bin)
+ * and neighbouring bins move together, as the runs behind them do.
  *
  * Diverged runs are kept as thin per-seed lines; under `--diverged exclude` they do not enter the
  * mean, band or n, under `worst` their logged (finite) values do, up to where they stop.
@@ -19,7 +22,7 @@
  * (Float64Array) are allocated once per curve.
  */
 import type { Run, Series } from '../ingest/types.js';
-import { bootstrapMean } from '../stats/bootstrap.js';
+import { bootstrapMeanFromIndices, resampleIndices } from '../stats/bootstrap.js';
 import { createRandom, deriveSeed, type Random } from '../stats/random.js';
 import { tInterval } from '../stats/tInterval.js';
 import { isDiverged } from './horizon.js';
@@ -128,7 +131,7 @@ function configCurve(runs: readonly Run[], series: readonly Series[], metric: st
   }
   const counted = runs.map((run) => settings.diverged === 'worst' || !isDiverged(run, metric));
   const random = createRandom(deriveSeed(settings.seed, `curve|${metric}|${config}`));
-  const { mean, low, high, n, bandByBin } = binBands(matrix, r, k, counted, settings, random);
+  const { mean, low, high, n, bandByBin } = binBands(matrix, r, k, counted, settings, sharedDraws(random, settings.bandResamples));
   return { metric, config, steps: grid.centres, mean, low, high, n, band: mainMethod(bandByBin), bandByBin, level: settings.level, runs: perRun };
 }
 
@@ -162,7 +165,7 @@ function binBands(
   k: number,
   counted: readonly boolean[],
   settings: CurveSettings,
-  random: Random,
+  draws: Draws,
 ): Pick<Curve, 'mean' | 'low' | 'high' | 'n'> & { bandByBin: IntervalMethod[] } {
   const column = new Float64Array(r);
   const mean: (number | null)[] = [];
@@ -176,7 +179,7 @@ function binBands(
       const v = matrix[j * k + b] as number;
       if (counted[j] === true && !Number.isNaN(v)) column[m++] = v;
     }
-    const band = binBand(column.subarray(0, m), settings, random);
+    const band = binBand(column.subarray(0, m), settings, draws);
     mean.push(band.mean);
     low.push(band.low);
     high.push(band.high);
@@ -193,15 +196,42 @@ interface Band {
   readonly method: IntervalMethod;
 }
 
-/** The band of one bin: t-interval below `bootstrapFrom` runs, BCa bootstrap at or above. */
-export function binBand(x: Float64Array, settings: Pick<CurveSettings, 'level' | 'bootstrapFrom' | 'bandResamples'>, random: Random): Band {
+/** Bootstrap resample positions for m values (`resampleIndices` layout), B resamples. */
+export type Draws = (m: number) => Int32Array;
+
+/**
+ * Draws that every bin of a curve shares: one table per number of values m, drawn from `random`
+ * the first time a bin with m values asks. Example: `sharedDraws(createRandom(1), 2000)(25).length` is 50,000.
+ */
+export function sharedDraws(random: Random, resamples: number): Draws {
+  const tables = new Map<number, Int32Array>();
+  return (m) => {
+    let table = tables.get(m);
+    if (table === undefined) {
+      table = resampleIndices(random, m, resamples);
+      tables.set(m, table);
+    }
+    return table;
+  };
+}
+
+/**
+ * Fresh draws on every call (one interval per generator): the same numbers as `bootstrapMean`
+ * with that generator. Example: `freshDraws(createRandom(1), 2000)(25).length` is 50,000.
+ */
+export function freshDraws(random: Random, resamples: number): Draws {
+  return (m) => resampleIndices(random, m, resamples);
+}
+
+/** The band of one bin: t-interval below `bootstrapFrom` runs, BCa bootstrap (positions from `draws`) at or above. */
+export function binBand(x: Float64Array, settings: Pick<CurveSettings, 'level' | 'bootstrapFrom'>, draws: Draws): Band {
   const m = x.length;
   if (m === 0) return { mean: null, low: null, high: null, method: 'none' };
   if (m === 1) return { mean: x[0] as number, low: null, high: null, method: 'none' };
   const t = tInterval(x, settings.level);
   if (m >= settings.bootstrapFrom) {
     try {
-      const boot = bootstrapMean(x, random, { method: 'bca', resamples: settings.bandResamples, level: settings.level });
+      const boot = bootstrapMeanFromIndices(x, draws(m), { method: 'bca', level: settings.level });
       if (Number.isFinite(boot.low) && Number.isFinite(boot.high)) return { mean: t.estimate, low: boot.low, high: boot.high, method: 'bca' };
     } catch (error) {
       if (!(error instanceof RangeError)) throw error;

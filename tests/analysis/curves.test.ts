@@ -85,3 +85,24 @@ describe('learningCurves', () => {
     expect(learningCurves(set.runs, 'acc', settings)).toEqual(learningCurves(set.runs, 'acc', settings));
   });
 });
+
+describe('learningCurves: bootstrap bands at 20 runs or more', () => {
+  // 25 runs, two points each: bin 0 holds v, bin 1 holds 2v + 1. The seeds are resampled as whole
+  // curves (one table of positions per curve), so bin 1's resamples are bin 0's mapped by 2v + 1,
+  // and BCa respects increasing affine maps (Efron 1987: z0 and the acceleration are unchanged):
+  // bin 1's band is bin 0's band mapped the same way. Independent draws per bin would break this.
+  it('resamples seeds as whole curves: an affine image of a bin gets the affine image of its band', () => {
+    const specs: RunSpec[] = Array.from({ length: 25 }, (_, i) => {
+      const v = Math.sin(i * 1.7) + i / 10;
+      return { params: { m: 'a' }, seed: i, metrics: { acc: { steps: [0, 10], values: [v, 2 * v + 1] } } };
+    });
+    const set = runSet(['m'], specs, [{ name: 'acc', goal: 'max' }]);
+    const [curve] = learningCurves(set.runs, 'acc', settings);
+    expect(curve?.bandByBin).toEqual(['bca', 'bca']);
+    const [low0, low1] = [curve?.low[0] as number, curve?.low[1] as number];
+    const [high0, high1] = [curve?.high[0] as number, curve?.high[1] as number];
+    expect(low1).toBeCloseTo(2 * low0 + 1, 12);
+    expect(high1).toBeCloseTo(2 * high0 + 1, 12);
+    expect(high0 - low0).toBeGreaterThan(0);
+  });
+});

@@ -5,9 +5,11 @@ import {
   BOOTSTRAP_METHODS,
   bcaInterval,
   bootstrapMean,
+  bootstrapMeanFromIndices,
   bootstrapMeanDifference,
   jackknifeAcceleration,
   percentileInterval,
+  resampleIndices,
 } from '../../src/stats/bootstrap.js';
 import { mean, standardDeviation } from '../../src/stats/moments.js';
 import { quantileSorted } from '../../src/stats/quantile.js';
@@ -274,5 +276,32 @@ describe('bootstrap: facts and failures', () => {
     expect(() => bootstrapMean([1, 2], random, { level: 1 })).toThrow(RangeError);
     expect(() => bootstrapMean([1, 2], random, { method: 'basic' as never })).toThrow(RangeError);
     expect(() => percentileInterval([], 0.95)).toThrow(RangeError);
+  });
+});
+
+describe('resampleIndices and bootstrapMeanFromIndices', () => {
+  // The shared-resample path must give bootstrapMean's interval number for number (same draws, same arithmetic).
+  const x = [71.2, 69.8, 73.1, 70.4, 72.0, 68.9, 74.3];
+  for (const method of BOOTSTRAP_METHODS) {
+    it(`equals bootstrapMean for ${method} with a generator in the same state`, () => {
+      const direct = bootstrapMean(x, createRandom(7), { method, resamples: 999, level: 0.9 });
+      const shared = bootstrapMeanFromIndices(x, resampleIndices(createRandom(7), x.length, 999), { method, level: 0.9 });
+      expect(shared).toEqual(direct);
+      expect(Object.is(shared.low, direct.low) && Object.is(shared.high, direct.high)).toBe(true);
+    });
+  }
+  it('lays resamples out row by row, each position a draw in 0..n-1', () => {
+    const indices = resampleIndices(createRandom(3), 4, 50);
+    expect(indices.length).toBe(200);
+    expect(Math.min(...indices)).toBe(0);
+    expect(Math.max(...indices)).toBe(3);
+    const again = createRandom(3);
+    expect(Array.from(indices.subarray(0, 8))).toEqual(Array.from({ length: 8 }, () => again.int(4)));
+  });
+  it('refuses tables that do not fit the sample', () => {
+    expect(() => resampleIndices(createRandom(1), 0, 10)).toThrow(RangeError);
+    expect(() => resampleIndices(createRandom(1), 3, 0)).toThrow(RangeError);
+    expect(() => bootstrapMeanFromIndices([1, 2, 3], new Int32Array(10))).toThrow(/whole number of resamples/);
+    expect(() => bootstrapMeanFromIndices([1, 2, 3], Int32Array.of(0, 1, 3))).toThrow(/outside/);
   });
 });
