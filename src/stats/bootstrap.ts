@@ -76,71 +76,69 @@ export function bootstrapMean(x: Numbers, random: Random, opts: BootstrapOptions
 }
 
 /**
- * Positions for B bootstrap resamples of n values, drawn with replacement from `random` in the
- * order `bootstrapMean` draws them: resample b is `indices[b * n]` .. `indices[b * n + n - 1]`.
- * With one such table a whole curve's bins can be resampled alike (the seeds resampled as whole
- * curves) for the price of one bin's draws: see `bootstrapMeanFromIndices`.
- * Cost O(B n) draws; memory 4 B n bytes. Throws a RangeError for n < 1 or B < 1.
- * Example: `resampleIndices(createRandom(1), 5, 2000).length` is 10,000.
+ * B bootstrap resamples of n values as counts: row b (`counts[b * n]` .. `counts[b * n + n - 1]`)
+ * says how many times each value is drawn in resample b, the draws made with `random.int(n)` in the
+ * order `bootstrapMean` makes them (so the resamples are the ones `bootstrapMean` would use). With
+ * one such table a whole curve's bins can be resampled alike (the seeds resampled as whole curves)
+ * for the price of one bin's draws: see `bootstrapMeanFromCounts`.
+ * Cost O(B n) draws; memory 8 B n bytes. Throws a RangeError for n < 1 or B < 1.
+ * Example: `resampleCounts(createRandom(1), 5, 2000)` has 10,000 entries, each row summing to 5.
  */
-export function resampleIndices(random: Random, n: number, resamples: number): Int32Array {
-  if (!(Number.isInteger(n) && n >= 1)) throw new RangeError(`resampleIndices: n must be a whole number >= 1, got ${n}`);
-  if (!(Number.isInteger(resamples) && resamples >= 1)) throw new RangeError(`resampleIndices: resamples must be a whole number >= 1, got ${resamples}`);
-  const indices = new Int32Array(n * resamples);
-  for (let i = 0; i < indices.length; i++) indices[i] = random.int(n);
-  return indices;
+export function resampleCounts(random: Random, n: number, resamples: number): Float64Array {
+  if (!(Number.isInteger(n) && n >= 1)) throw new RangeError(`resampleCounts: n must be a whole number >= 1, got ${n}`);
+  if (!(Number.isInteger(resamples) && resamples >= 1)) throw new RangeError(`resampleCounts: resamples must be a whole number >= 1, got ${resamples}`);
+  const counts = new Float64Array(n * resamples);
+  for (let b = 0; b < resamples; b++) {
+    const row = b * n;
+    for (let i = 0; i < n; i++) {
+      const k = row + random.int(n);
+      counts[k] = (counts[k] as number) + 1;
+    }
+  }
+  return counts;
 }
 
 /**
- * `bootstrapMean` with the resamples given as positions (`resampleIndices(random, x.length, B)`):
- * the same interval, number for number, as `bootstrapMean(x, random, { resamples: B, ... })` with a
- * generator in the same state. B is `indices.length / x.length`; `opts.resamples` is not used.
+ * `bootstrapMean` with the resamples given as counts (`resampleCounts(random, x.length, B)`): each
+ * resample's mean is sum_j counts[b][j] x_j / n, a dot product instead of n random look-ups, so
+ * the interval equals `bootstrapMean`'s with a generator in the same state up to rounding in the
+ * sums (relative differences near 1e-15). B is `counts.length / x.length`.
  * Cost O(B n) plus O(B log B), no random draws. Throws as `bootstrapMean`, and a RangeError when
- * `indices` is not a whole number of resamples of x or holds a position outside x.
- * Example: `bootstrapMeanFromIndices(x, resampleIndices(createRandom(1), x.length, 2000), { method: 'bca' })`.
+ * `counts` is not a whole number of resamples of x or a row does not sum to n.
+ * Example: `bootstrapMeanFromCounts(x, resampleCounts(createRandom(1), x.length, 2000), { method: 'bca' })`.
  */
-export function bootstrapMeanFromIndices(x: Numbers, indices: Int32Array, opts: Omit<BootstrapOptions, 'resamples'> = {}): BootstrapInterval {
-  const group = centredGroup(x, 'bootstrapMeanFromIndices', 'x');
-  const n = group.values.length;
-  const resamples = indices.length / n;
-  if (!Number.isInteger(resamples) || resamples < 1) throw new RangeError(`bootstrapMeanFromIndices: ${indices.length} positions are not a whole number of resamples of ${n} values`);
-  const { method, level } = resolveOptions({ ...opts, resamples }, 'bootstrapMeanFromIndices');
-  let lowest = 0;
-  let highest = 0;
-  for (let i = 0; i < indices.length; i++) {
-    const k = indices[i] as number;
-    if (k < lowest) lowest = k;
-    if (k > highest) highest = k;
-  }
-  if (lowest < 0 || highest >= n) throw new RangeError(`bootstrapMeanFromIndices: position ${lowest < 0 ? lowest : highest} is outside 0..${n - 1}`);
+export function bootstrapMeanFromCounts(x: Numbers, counts: Float64Array, opts: Omit<BootstrapOptions, 'resamples'> = {}): BootstrapInterval {
+  const group = centredGroup(x, 'bootstrapMeanFromCounts', 'x');
+  const values = group.values;
+  const n = values.length;
+  const resamples = counts.length / n;
+  if (!Number.isInteger(resamples) || resamples < 1) throw new RangeError(`bootstrapMeanFromCounts: ${counts.length} counts are not a whole number of resamples of ${n} values`);
+  const { method, level } = resolveOptions({ ...opts, resamples }, 'bootstrapMeanFromCounts');
   const stats = new Float64Array(resamples);
-  if (method === 'bootstrap-t') {
-    const buffer = new Float64Array(n);
-    for (let b = 0; b < resamples; b++) stats[b] = resampledStatistic(group.values, buffer, gatherMean(group.values, indices, b * n, buffer), method);
-  } else {
-    for (let b = 0; b < resamples; b++) stats[b] = resampleSum(group.values, indices, b * n) / n;
+  for (let b = 0; b < resamples; b++) {
+    const row = b * n;
+    let drawn = 0;
+    let sum = 0;
+    for (let j = 0; j < n; j++) {
+      const c = counts[row + j] as number;
+      drawn += c;
+      sum += c * (values[j] as number);
+    }
+    if (drawn !== n) throw new RangeError(`bootstrapMeanFromCounts: resample ${b} draws ${drawn} values, not ${n}`);
+    stats[b] = method === 'bootstrap-t' ? studentized(sum / n, countedSd(values, counts, row, sum / n) / Math.sqrt(n)) : sum / n;
   }
   return meanInterval(group, stats, method, level, resamples);
 }
 
-/** Sum of the values at positions indices[from .. from + n - 1] (n = values.length). */
-function resampleSum(values: Float64Array, indices: Int32Array, from: number): number {
+/** Sample standard deviation (n - 1) of a resample given by its counts in row `row`, around its mean m. */
+function countedSd(values: Float64Array, counts: Float64Array, row: number, m: number): number {
   const n = values.length;
-  let sum = 0;
-  for (let i = 0; i < n; i++) sum += values[indices[from + i] as number] as number;
-  return sum;
-}
-
-/** The resample at positions indices[from ..] copied into buffer; returns its mean. */
-function gatherMean(values: Float64Array, indices: Int32Array, from: number, buffer: Float64Array): number {
-  const n = values.length;
-  let sum = 0;
-  for (let i = 0; i < n; i++) {
-    const v = values[indices[from + i] as number] as number;
-    buffer[i] = v;
-    sum += v;
+  let ss = 0;
+  for (let j = 0; j < n; j++) {
+    const d = (values[j] as number) - m;
+    ss += (counts[row + j] as number) * d * d;
   }
-  return sum / n;
+  return Math.sqrt(ss / (n - 1));
 }
 
 /** One resample's statistic: its mean, or for bootstrap-t its studentized mean (buffer holds the resample). */
