@@ -1,5 +1,6 @@
 import tQuantile from '@stdlib/stats-base-dists-t-quantile';
 import { describe, expect, it } from 'vitest';
+import { T_TABLE_0975 } from './tTable.js';
 import { studentTQuantile } from '../../src/stats/studentTQuantile.js';
 
 function expectRel(actual: number, expected: number, tolerance: number): void {
@@ -10,14 +11,7 @@ function expectRel(actual: number, expected: number, tolerance: number): void {
 describe('studentTQuantile', () => {
   it('matches the handbook t table of METHODS.md (0.975 at df 1, 2, 5, 10, 30, 120), first call and remembered', () => {
     // METHODS.md check values (any statistics handbook's t table, 6 decimals).
-    const table: ReadonlyArray<readonly [number, number]> = [
-      [1, 12.706205],
-      [2, 4.302653],
-      [5, 2.570582],
-      [10, 2.228139],
-      [30, 2.042272],
-      [120, 1.97993],
-    ];
+    const table = T_TABLE_0975;
     for (let round = 0; round < 2; round++) {
       for (const [df, q] of table) expect(Math.abs(studentTQuantile(0.975, df) - q), `df ${df}, round ${round}`).toBeLessThanOrEqual(5e-7);
     }

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { T_TABLE_0975 } from './tTable.js';
 import { studentTBounds, tInterval } from '../../src/stats/tInterval.js';
 
 function expectRel(actual: number, expected: number, tolerance: number): void {
@@ -24,14 +25,7 @@ function unitStandardError(n: number): number[] {
 describe('tInterval', () => {
   it('uses the Student t quantiles of the handbook table (0.975, df 1, 2, 5, 10, 30, 120)', () => {
     // Any statistics handbook's t table, as quoted in METHODS.md (6 decimals).
-    const table: ReadonlyArray<readonly [number, number]> = [
-      [1, 12.706205],
-      [2, 4.302653],
-      [5, 2.570582],
-      [10, 2.228139],
-      [30, 2.042272],
-      [120, 1.97993],
-    ];
+    const table = T_TABLE_0975;
     for (const [df, q] of table) {
       const r = tInterval(Object.freeze(unitStandardError(df + 1)));
       expect(r.df).toBe(df);
