@@ -76,7 +76,7 @@ export function columnsToRead(plan: ColumnPlan): number[] {
 
 function shapeKey(item: FileToRead): string {
   const h = item.header;
-  return JSON.stringify([h.text === null, h.source.gzip, h.text?.delimiter ?? null, h.text?.header ?? null, h.names, h.parquetTypes]);
+  return JSON.stringify([h.text === null, h.source.gzip, h.text?.delimiter ?? null, h.text?.header ?? null, h.text?.skip ?? 0, h.names, h.parquetTypes]);
 }
 
 function weight(h: FileHeader): number {

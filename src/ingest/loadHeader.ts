@@ -11,6 +11,9 @@
  * file that is truncated or damaged (gzipDamage.ts: checked in full, since DuckDB would read it up
  * to the damage without a word).
  *
+ * Blank lines (empty or spaces only) before the header are skipped (`TextFormat.skip`, DuckDB's
+ * `skip`); line numbers in problems still count them.
+ *
  * Headerless files: with `--columns a,b,c`, a text file whose first line is exactly those names
  * is read with that line as its header; any other text file is read as headerless with those names.
  */
@@ -25,8 +28,10 @@ import type { RunSource } from './types.js';
 export interface TextFormat {
   /** One-character delimiter, or null for runs of whitespace. */
   readonly delimiter: string | null;
-  /** The first line is a header (skipped as data). */
+  /** The first line that is not blank is a header (skipped as data). */
   readonly header: boolean;
+  /** Blank lines (empty or spaces only) before the header or the first data line, skipped unread. */
+  readonly skip: number;
 }
 
 /** A file's shape, read from its head. */
@@ -123,16 +128,17 @@ export function textHeader(lines: readonly string[], format: 'csv' | 'tsv' | 'tx
   if (nonBlank.length === 0) return null;
   const delimiter = format === 'csv' ? ',' : format === 'tsv' ? '\t' : sniffDelimiter(nonBlank.slice(0, 50)).char;
   const split = (line: string): string[] => (delimiter === null ? whitespaceFields(line) : splitFields(line, delimiter));
-  const fields = split(lines[0] as string);
+  const skip = lines.findIndex((l) => l.trim().length > 0);
+  const fields = split(lines[skip] as string);
   const header = columns === null || (fields.length === columns.length && fields.every((f, k) => f.trim() === columns[k]));
   const names = columns === null ? nameColumns(fields) : [...columns];
   const textLike = new Set<number>();
-  for (const line of (header ? lines.slice(1) : lines).filter((l) => l.trim().length > 0).slice(0, 50)) {
+  for (const line of lines.slice(header ? skip + 1 : skip).filter((l) => l.trim().length > 0).slice(0, 50)) {
     split(line).forEach((cell, k) => {
       if (k < names.length && cell.trim() !== '' && !NUMBER.test(cell)) textLike.add(k);
     });
   }
-  return { names, text: { delimiter, header }, textLike: [...textLike].sort((a, b) => a - b) };
+  return { names, text: { delimiter, header, skip }, textLike: [...textLike].sort((a, b) => a - b) };
 }
 
 /**

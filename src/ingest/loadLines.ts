@@ -79,14 +79,16 @@ export function scanRecords(bytes: Uint8Array, options: { quoted: boolean; white
 }
 
 /**
- * Physical line of every accepted data row: records after the header (record 0 when `header`),
- * neither blank nor rejected (`rejected` holds DuckDB's reject line numbers, i.e. record k + 1).
+ * Physical line of every accepted data row: records after the `skip` leading blank lines and the
+ * header (record `skip` when `header`), neither blank nor rejected (`rejected` holds DuckDB's
+ * reject line numbers, i.e. record k + 1: DuckDB numbers lines from the start of the file, skipped
+ * lines included).
  * Pure, O(records). Example: records starting at lines [1, 2, 3, 4] with record 3 (line 3) blank
  * and DuckDB line 2 rejected give `[4]`.
  */
-export function dataRowLines(records: Records, header: boolean, rejected: ReadonlySet<number>): Int32Array {
+export function dataRowLines(records: Records, header: boolean, rejected: ReadonlySet<number>, skip = 0): Int32Array {
   const out: number[] = [];
-  for (let k = header ? 1 : 0; k < records.start.length; k++) {
+  for (let k = skip + (header ? 1 : 0); k < records.start.length; k++) {
     if (records.blank[k] === 1 || rejected.has(k + 1)) continue;
     out.push(records.start[k] as number);
   }

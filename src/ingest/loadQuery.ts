@@ -80,7 +80,7 @@ function readCall(headers: readonly FileHeader[], doubles: ReadonlySet<number>):
   const delimiter = whitespace ? LINE_DELIMITER : (first.text.delimiter as string);
   const quote = whitespace ? `quote='', escape=''` : `quote='"', escape='"'`;
   return (
-    `read_csv(${fileList(headers)}, header=${first.text.header}, delim=${sqlString(delimiter)}, ${quote}, columns=${columns}, ` +
+    `read_csv(${fileList(headers)}, header=${first.text.header}, skip=${first.text.skip}, delim=${sqlString(delimiter)}, ${quote}, columns=${columns}, ` +
     `auto_detect=false, hive_partitioning=false, compression=${first.source.gzip ? "'gzip'" : "'none'"}, store_rejects=true, ` +
     `rejects_table=${sqlString(REJECTS_TABLE)}, rejects_scan=${sqlString(REJECTS_SCAN)})`
   );

@@ -56,7 +56,7 @@ async function lineMap(data: FileData): Promise<LineMap | null> {
     const whitespace = text.delimiter === null;
     const records = scanRecords(bytes, { quoted: !whitespace, whitespace });
     const rejected = new Set(data.rejects.map((r) => r.record));
-    return { dataRow: dataRowLines(records, text.header, rejected), record: records.start, recordEnd: records.end };
+    return { dataRow: dataRowLines(records, text.header, rejected, text.skip), record: records.start, recordEnd: records.end };
   } catch {
     return null; // the file changed or vanished since it was read: fall back to row numbers
   }

@@ -115,6 +115,27 @@ describe('run ids and keys', () => {
   });
 });
 
+describe('blank lines before the header', () => {
+  // DESIGN.md "Inputs": a log is a per-step table; blank lines carry nothing, so leading ones are
+  // skipped, and problems still name the physical line (counted by hand in each fixture).
+  it('are skipped in csv, crlf csv, whitespace txt and gzip, and lines are still counted from the top', async () => {
+    const { set, at } = await ingestTree({
+      'f=csv/seed=1/log.csv': '\n  \nstep,loss\n1,0.5\nx,0.4\n3,0.3\n',
+      'f=crlf/seed=1/log.csv': '\r\n\r\nstep,loss\r\n1,0.5\r\n2,0.4,7\r\n3,0.3\r\n',
+      'f=ws/seed=1/log.txt': '\n   \nstep loss\n1 0.5\n2 0.4 9\n3 0.3\n',
+      'f=gz/seed=1/log.csv.gz': gz('\n\nstep,loss\n1,0.5\n2,0.4\n'),
+    });
+    expect(withCode(set, 'step-column-missing')).toEqual([]);
+    expect(values(set, 'f=csv,seed=1', 'loss')).toEqual([[1, 3], [0.5, 0.3]]);
+    expect(values(set, 'f=crlf,seed=1', 'loss')).toEqual([[1, 3], [0.5, 0.3]]);
+    expect(values(set, 'f=ws,seed=1', 'loss')).toEqual([[1, 3], [0.5, 0.3]]);
+    expect(values(set, 'f=gz,seed=1', 'loss')).toEqual([[1, 2], [0.5, 0.4]]);
+    expect(withCode(set, 'step-invalid')).toEqual([expect.objectContaining({ file: at('f=csv/seed=1/log.csv'), line: 5 })]);
+    const malformed = withCode(set, 'row-malformed').map((p) => [p.file, p.line]);
+    expect(malformed).toEqual(expect.arrayContaining([[at('f=crlf/seed=1/log.csv'), 5], [at('f=ws/seed=1/log.txt'), 5]]));
+  });
+});
+
 describe('seed column and seed columns', () => {
   it('--seed-column: one file holds many seeds, one run per seed', async () => {
     const { set, at } = await ingestTree({ 'method=a/runs.csv': 'step,seed,acc\n1,1,0.5\n1,2,0.6\n2,1,0.55\n2,2,0.65\n3,,0.7\n' }, opts({ seedColumn: 'seed' }));

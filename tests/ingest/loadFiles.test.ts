@@ -73,7 +73,7 @@ describe('loadFiles', () => {
     for (const f of ['a.csv.gz', 'b.csv.gz', 'c.csv.gz']) {
       const h = await readHeader(source(root, f), null, engine);
       if (h.ok) list.push({ header: h.header, plan: planColumns(h.header.names, none) });
-      else list.push({ header: { source: source(root, f), names: ['step', 'loss'], parquetTypes: null, text: { delimiter: ',', header: true }, bytes: 40, textLike: [] }, plan: planColumns(['step', 'loss'], none) });
+      else list.push({ header: { source: source(root, f), names: ['step', 'loss'], parquetTypes: null, text: { delimiter: ',', header: true, skip: 0 }, bytes: 40, textLike: [] }, plan: planColumns(['step', 'loss'], none) });
     }
     const loaded = await loadFiles(engine, list);
     expect(loaded.data.map((d) => d.header.source.relPath)).toEqual(['a.csv.gz', 'c.csv.gz']);

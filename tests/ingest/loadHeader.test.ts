@@ -34,9 +34,14 @@ describe('textHeader', () => {
     expect(textHeader(['a\tb,c'], 'tsv', null)?.names).toEqual(['a', 'b,c']);
   });
   it('--columns: headerless unless the first line is exactly those names', () => {
-    expect(textHeader(['1,2'], 'csv', ['step', 'loss'])).toEqual({ names: ['step', 'loss'], text: { delimiter: ',', header: false }, textLike: [] });
-    expect(textHeader(['step,loss', '1,2'], 'csv', ['step', 'loss'])).toEqual({ names: ['step', 'loss'], text: { delimiter: ',', header: true }, textLike: [] });
+    expect(textHeader(['1,2'], 'csv', ['step', 'loss'])).toEqual({ names: ['step', 'loss'], text: { delimiter: ',', header: false, skip: 0 }, textLike: [] });
+    expect(textHeader(['step,loss', '1,2'], 'csv', ['step', 'loss'])).toEqual({ names: ['step', 'loss'], text: { delimiter: ',', header: true, skip: 0 }, textLike: [] });
   });
+
+  it('blank lines (empty or spaces) before the header are counted to be skipped', () => {
+    expect(textHeader(['', '  ', 'step,loss', '1,2'], 'csv', null)).toEqual({ names: ['step', 'loss'], text: { delimiter: ',', header: true, skip: 2 }, textLike: [] });
+  });
+
   it('columns with text among the first lines are hinted (nan, inf, 1e-3, quoted numbers are numbers)', () => {
     expect(textHeader(['step,phase,loss,note', '1,train,nan,"0.5"', '2,eval,1e-3,', '3,,inf,x'], 'csv', null)?.textLike).toEqual([1, 3]);
   });
@@ -52,7 +57,7 @@ describe('readHeader', () => {
   });
   it('gzipped files (decompressed only as far as needed)', async () => {
     const h = await readHeader(source(root, 'c.tsv.gz'), null, engine);
-    expect(h.ok && [h.header.names, h.header.text]).toEqual([['step', 'loss'], { delimiter: '\t', header: true }]);
+    expect(h.ok && [h.header.names, h.header.text]).toEqual([['step', 'loss'], { delimiter: '\t', header: true, skip: 0 }]);
   });
   it('a .txt file: delimiter sniffed', async () => {
     const h = await readHeader(source(root, 'd.txt'), null, engine);

@@ -7,7 +7,7 @@ import { none, source } from '../fixtures/ingest/tree.js';
 // DESIGN.md "Inputs", identity 3 and 4: a seed column (one file, many seeds) and one column per seed.
 function fileData(names: string[], seed: string | null, extra: Partial<FileData> = {}, options = none): FileData {
   const plan = planColumns(names, options);
-  return { header: { source: source('/r', 'm=a/log.csv', { m: 'a' }, seed), names, parquetTypes: null, text: { delimiter: ',', header: true }, bytes: 0, textLike: [] }, plan, rows: 0, cells: new Map(), seedCodes: null, seedValues: [], rowIds: null, rejects: [], malformed: [], ...extra };
+  return { header: { source: source('/r', 'm=a/log.csv', { m: 'a' }, seed), names, parquetTypes: null, text: { delimiter: ',', header: true, skip: 0 }, bytes: 0, textLike: [] }, plan, rows: 0, cells: new Map(), seedCodes: null, seedValues: [], rowIds: null, rejects: [], malformed: [], ...extra };
 }
 
 describe('splitParts', () => {
