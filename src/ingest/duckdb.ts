@@ -18,6 +18,14 @@ import bindings from '@duckdb/node-bindings';
 import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
 
+/**
+ * DuckDB hands freed memory back to the operating system only once 128 MB have piled up (by
+ * default); ingest frees a batch's memory after every batch, so a low threshold keeps the peak
+ * down: on the medium benchmark (40 runs, 100 MB of CSV) the peak of ingest went from about 332 to
+ * 266 MiB, for about 0.25 s more system CPU time (wall-clock time within the noise).
+ */
+const ALLOCATOR_SETTINGS = { allocator_flush_threshold: '8MB', allocator_bulk_deallocation_flush_threshold: '8MB' } as const;
+
 /** An open engine: the instance and its one connection. */
 export interface Engine {
   readonly instance: DuckDBInstance;
@@ -30,7 +38,7 @@ export interface Engine {
  * Example: `const engine = await openEngine(); ...; closeEngine(engine);`
  */
 export async function openEngine(): Promise<Engine> {
-  const instance = await DuckDBInstance.create(':memory:');
+  const instance = await DuckDBInstance.create(':memory:', ALLOCATOR_SETTINGS);
   const connection = await instance.connect();
   return { instance, connection };
 }
