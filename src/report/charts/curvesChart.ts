@@ -12,6 +12,12 @@ import { layerOpacity, withLegendToggle } from './legendToggle.js';
 
 /** Most points the single-seed lines of one chart hold (all lines together). */
 export const SEED_POINTS = 24_000;
+/**
+ * Most points of one single-seed line: 200 across the 520-pixel plot is one point every 2.6
+ * pixels, as fine as a thin translucent line can show (400 bins drawn in full cost a curves chart
+ * about 350 ms to render and 355 KB of SVG on the medium benchmark; at 200, 220 ms and 235 KB).
+ */
+export const SEED_LINE_POINTS = 200;
 
 /**
  * Vega-Lite spec of the learning curves of one metric (`Results.curves`), one colour per config.
@@ -27,9 +33,9 @@ export const SEED_POINTS = 24_000;
  * its steps and values as parallel arrays, which a `flatten` transform turns back into one row
  * per step (a row names its config and seed once instead of at every step: the bulk of a long
  * curve's bytes).
- * Single-seed lines hold at most `SEED_POINTS` points in all: beyond that (hundreds of runs) each
- * is drawn with one point per group of consecutive bins (`coarsenLine`), and the subtitle says so;
- * the mean and its band keep every bin. (400 runs x 400 bins drawn in full made the page's
+ * Single-seed lines hold at most `SEED_LINE_POINTS` points each and `SEED_POINTS` in all: beyond
+ * that each is drawn with one point per group of consecutive bins (`coarsenLine`), and the
+ * subtitle says so; the mean and its band keep every bin. (400 runs x 400 bins drawn in full made the page's
  * rendering take 1.4 GB of memory and 20 s.)
  * Returns null when the metric has no curve with a value. Cost O(configs * bins * seeds). Never throws.
  * Example: `curvesChart(results, 'val_acc')` → a layered spec with layers seeds, band, mean, hover.
@@ -38,7 +44,8 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
   const curves = results.curves.filter((c) => c.metric === metric && c.steps.length > 0);
   if (curves.length === 0) return null;
   const runCount = curves.reduce((total, c) => total + c.runs.length, 0);
-  const stride = lineStride(runCount, Math.max(...curves.map((c) => c.steps.length)), SEED_POINTS);
+  const bins = Math.max(...curves.map((c) => c.steps.length));
+  const stride = Math.max(lineStride(runCount, bins, SEED_POINTS), lineStride(1, bins, SEED_LINE_POINTS));
 
   const summary: { config: string; step: number[]; mean: (number | null)[]; low: (number | null)[]; high: (number | null)[]; n: number[]; band: string[] }[] = [];
   const seeds: { config: string; run: string; seed: string; step: number[]; value: (number | null)[] }[] = [];
@@ -152,7 +159,7 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
     ...chartFrame({
       title: `${metric}: learning curves`,
       subtitle: [
-        `Thick line: mean across seeds. Thin lines: single seeds (${runCount})${stride === 1 ? '' : `, each drawn with one point per ${stride} bins to keep the page light`}.`,
+        `Thick line: mean across seeds. Thin lines: single seeds (${runCount})${stride === 1 ? '' : `, each drawn with one point per ${stride} bins`}.`,
         band === '' ? 'No band: too few seeds per step for an interval.' : `Band: ${band} of the mean across seeds, per step.`,
         ...(horizon === null ? [] : [`Dashed line: the common horizon (step ${horizon}), where runs are compared.`]),
       ],

@@ -5,7 +5,7 @@
 import type { TopLevelSpec } from 'vega-lite';
 import { describe, expect, it } from 'vitest';
 import type { Curve, Results } from '../../../src/analysis/results.js';
-import { curvesChart, SEED_POINTS } from '../../../src/report/charts/curvesChart.js';
+import { curvesChart, SEED_LINE_POINTS, SEED_POINTS } from '../../../src/report/charts/curvesChart.js';
 import { CONFIG_COLOURS } from '../../../src/report/palette.js';
 import { compileVega, renderSvg, renderSvgWithWarnings } from '../../../src/report/renderSvg.js';
 import { DEFAULT_NAMES, makeResults } from '../fixtures.js';
@@ -39,6 +39,26 @@ describe('curvesChart', () => {
     // One row per config holds the per-step arrays (a flatten transform makes them rows).
     const hover = spec.layer.find((l) => l.name === 'hover')?.data?.values ?? [];
     expect(hover.filter((r) => r['config'] === c0).map((r) => r['band'])).toEqual([['95% t-interval', '95% t-interval', '95% t-interval', '95% BCa bootstrap interval', '95% BCa bootstrap interval']]);
+  });
+
+  it('draws a seed line with at most SEED_LINE_POINTS points, and says so only when it had more', () => {
+    const lineOf = (bins: number): { points: number; subtitle: string } => {
+      const r = withCurves(results, (c) => ({
+        ...c,
+        steps: Array.from({ length: bins }, (_, i) => i),
+        mean: Array.from({ length: bins }, (_, i) => i),
+        low: Array.from({ length: bins }, () => null),
+        high: Array.from({ length: bins }, () => null),
+        n: Array.from({ length: bins }, () => 3),
+        runs: c.runs.map((run) => ({ ...run, values: Array.from({ length: bins }, (_, i) => i) })),
+      }));
+      const spec = curvesChart(r, 'val_acc') as TopLevelSpec & { title: { subtitle: string[] }; layer: { name?: string; data?: { values: Record<string, unknown>[] } }[] };
+      const seeds = spec.layer.find((l) => l.name === 'seeds')?.data?.values ?? [];
+      return { points: (seeds[0]?.['step'] as number[]).length, subtitle: spec.title.subtitle.join(' ') };
+    };
+    expect(lineOf(SEED_LINE_POINTS)).toEqual({ points: SEED_LINE_POINTS, subtitle: expect.not.stringContaining('one point per') });
+    expect(lineOf(400)).toEqual({ points: 200, subtitle: expect.stringContaining('one point per 2 bins') });
+    expect(lineOf(401).points).toBe(134); // ceil(401 / 3)
   });
 
   it('draws hundreds of seed lines with fewer points, says so, and keeps every bin of the mean', () => {
