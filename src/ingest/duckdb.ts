@@ -18,15 +18,6 @@ import bindings from '@duckdb/node-bindings';
 import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
 
-/**
- * DuckDB hands freed memory back to the operating system only once 128 MB have piled up (by
- * default); ingest frees a batch's memory after every batch, so a lower threshold keeps the peak
- * down. Measured on the medium benchmark (40 runs, 100 MB of CSV; 4 runs each, in turns): peak
- * 248-250 MiB instead of 303-333 MiB, for about 0.25 s more system CPU time and a median wall time
- * of 2.30 s instead of 2.24 s (8 MB was no better in memory and a little slower).
- */
-const ALLOCATOR_SETTINGS = { allocator_flush_threshold: '32MB', allocator_bulk_deallocation_flush_threshold: '32MB' } as const;
-
 /** An open engine: the instance and its one connection. */
 export interface Engine {
   readonly instance: DuckDBInstance;
@@ -35,11 +26,15 @@ export interface Engine {
 
 /**
  * Open an in-memory DuckDB instance with one connection (threads: DuckDB's default, one per core).
+ * DuckDB's allocator keeps up to 128 MB of freed memory before handing it back; a lower threshold
+ * (`allocator_flush_threshold` and `allocator_bulk_deallocation_flush_threshold` at 32 MB) lowered
+ * the medium benchmark's peak from about 330 to 250 MiB but cost 0.2-0.25 s of CPU (about 7%) in
+ * A/B runs in turns, so the default is kept: the time is what a user waits for.
  * Cost: a few milliseconds. Throws what DuckDB throws if the native library cannot load.
  * Example: `const engine = await openEngine(); ...; closeEngine(engine);`
  */
 export async function openEngine(): Promise<Engine> {
-  const instance = await DuckDBInstance.create(':memory:', ALLOCATOR_SETTINGS);
+  const instance = await DuckDBInstance.create(':memory:');
   const connection = await instance.connect();
   return { instance, connection };
 }
