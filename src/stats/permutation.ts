@@ -39,9 +39,10 @@ const RELATIVE_TOLERANCE = 1e-9;
 /**
  * Permutation test of H0: x and y are exchangeable, on T = mean(x) - mean(y).
  *
- * Exact when C(N, n1) <= maxExact: every split is listed by a depth-first walk over the
- * combinations of the smaller group with a running sum (one addition per tree node, no allocation
- * per split), and p = atLeast / C(N, n1). 10 v 10 (184,756 splits) takes a few milliseconds.
+ * Exact when C(N, n1) <= maxExact: every split is counted, by meeting in the middle (the sums of
+ * the subsets of each half of the pooled values, sorted, paired with two pointers; see
+ * `enumerateSplits`), and p = atLeast / C(N, n1). 10 v 10 (184,756 splits) takes well under a
+ * millisecond.
  * Otherwise Monte Carlo: M random relabelings (partial Fisher-Yates shuffles of one index buffer)
  * and p = (1 + b) / (1 + M), where b counts relabelings at least as extreme (Phipson & Smyth 2010,
  * "Permutation p-values should never be zero", SAGMB 9(1):39); this p is itself a valid p-value.
@@ -135,23 +136,57 @@ function countSplits(n: number, k: number, maxExact: number): number {
   return c;
 }
 
-/** Count extreme splits over all k-subsets of values: depth-first with running sums, tight last level. */
+/**
+ * Count extreme splits over all k-subsets of values, meeting in the middle: the values are cut in
+ * two halves; for each a, the sums of the a-subsets of the first half and of the (k - a)-subsets of
+ * the second are listed and sorted, and the pairs whose total is <= low or >= high are counted with
+ * two pointers. About sum_a C(n/2, a) log C(n/2, a) work instead of C(n, k) (10 v 10: some 2,000
+ * sums instead of 184,756 splits). A subset's sum is the sum of its two halves' sums, rounded in
+ * another order than one running sum; the tolerance of the bounds (1e-9 of the scale) is far wider.
+ */
 function enumerateSplits(values: Float64Array, k: number, bounds: ExtremeSums): number {
   const n = values.length;
-  const { low, high } = bounds;
+  const half = n >> 1;
+  const left = subsetSums(values.subarray(0, half), k);
+  const right = subsetSums(values.subarray(half), k);
+  let all = 0;
   let count = 0;
-  const visit = (start: number, depth: number, partial: number): void => {
-    if (depth === k - 1) {
-      for (let j = start; j < n; j++) {
-        const s = partial + (values[j] as number);
-        if (s <= low || s >= high) count++;
-      }
-      return;
+  for (let a = 0; a <= k; a++) {
+    const l = left[a];
+    const r = right[k - a];
+    if (l === undefined || r === undefined || l.length === 0 || r.length === 0) continue;
+    all += l.length * r.length;
+    if (bounds.low >= bounds.high) continue; // every split is extreme (counted below)
+    count += pairsBelow(l, r, bounds.low, true) + l.length * r.length - pairsBelow(l, r, bounds.high, false);
+  }
+  return bounds.low >= bounds.high ? all : count;
+}
+
+/** Sorted sums of the subsets of `values` by size: entry a lists the sums of all a-subsets (a <= maxSize). */
+function subsetSums(values: Float64Array, maxSize: number): Float64Array[] {
+  let bySize: number[][] = [[0]];
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i] as number;
+    const next = bySize.map((list) => list.slice());
+    for (let a = 0; a < bySize.length && a < maxSize; a++) {
+      const target = next[a + 1] ?? (next[a + 1] = []);
+      for (const s of bySize[a] as number[]) target.push(s + v);
     }
-    const last = n - (k - depth);
-    for (let j = start; j <= last; j++) visit(j + 1, depth + 1, partial + (values[j] as number));
-  };
-  visit(0, 0, 0);
+    bySize = next;
+  }
+  return bySize.map((list) => Float64Array.from(list).sort());
+}
+
+/** Pairs (i, j) of two ascending lists with l[i] + r[j] <= t (`inclusive`) or < t. Two pointers, O(|l| + |r|). */
+function pairsBelow(l: Float64Array, r: Float64Array, t: number, inclusive: boolean): number {
+  let j = r.length - 1;
+  let count = 0;
+  for (let i = 0; i < l.length; i++) {
+    const li = l[i] as number;
+    while (j >= 0 && (inclusive ? li + (r[j] as number) > t : li + (r[j] as number) >= t)) j--;
+    if (j < 0) break;
+    count += j + 1;
+  }
   return count;
 }
 
