@@ -3,8 +3,9 @@
  *
  * Colours come from the colour-blind-safe palette of Okabe & Ito (2008), "Color Universal Design
  * (CUD): how to make figures and presentations that are friendly to colorblind people"
- * (https://jfly.uni-koeln.de/color/). Configs take them in the order of `Results.configs`, so a
- * config has the same colour in every chart of one report. Verdicts use the palette's green and
+ * (https://jfly.uni-koeln.de/color/), then, for configs 9 to 17, Paul Tol's muted scheme. Configs
+ * take them in the order of `Results.configs`, so a config has the same colour in every chart of
+ * one report. Verdicts use the palette's green and
  * vermillion plus a neutral grey, and are always named in text and shape as well as colour.
  *
  * The look is our own: a warm paper background, serif titles over sans-serif labels, dotted grid
@@ -26,8 +27,27 @@ export const OKABE_ITO = {
 } as const;
 
 /**
- * Order in which configs take colours: the darker, high-contrast colours first on a light
- * background; yellow (low contrast on white) last. A ninth config starts the cycle again.
+ * Paul Tol's "muted" qualitative scheme (Tol 2021, "Colour schemes", SRON technical note
+ * SRON/EPS/TN/09-002; values from memory), also designed to stay apart for colour-blind readers:
+ * the colours of configs 9 to 17, so that a study with more configs than Okabe & Ito have colours
+ * does not show two configs in one colour.
+ */
+export const TOL_MUTED = {
+  indigo: '#332288',
+  cyan: '#88CCEE',
+  teal: '#44AA99',
+  green: '#117733',
+  olive: '#999933',
+  sand: '#DDCC77',
+  rose: '#CC6677',
+  wine: '#882255',
+  purple: '#AA4499',
+} as const;
+
+/**
+ * Order in which configs take colours: the Okabe & Ito colours first, the darker, high-contrast
+ * ones first on a light background and yellow (low contrast on white) last; then Tol's muted
+ * colours. An 18th config starts the cycle again.
  */
 export const CONFIG_COLOURS: readonly string[] = [
   OKABE_ITO.blue,
@@ -38,6 +58,17 @@ export const CONFIG_COLOURS: readonly string[] = [
   OKABE_ITO.skyBlue,
   OKABE_ITO.black,
   OKABE_ITO.yellow,
+  // Tol's colours least like an Okabe & Ito one first (rose, teal, sand and cyan are near
+  // reddish purple, bluish green, yellow and sky blue).
+  TOL_MUTED.indigo,
+  TOL_MUTED.olive,
+  TOL_MUTED.wine,
+  TOL_MUTED.green,
+  TOL_MUTED.purple,
+  TOL_MUTED.rose,
+  TOL_MUTED.teal,
+  TOL_MUTED.sand,
+  TOL_MUTED.cyan,
 ];
 
 /** Verdict colours (grey is not in the palette: it is the neutral "no decision"). */
@@ -87,7 +118,7 @@ export function configColourScale(results: Results, present: readonly string[]):
 }
 
 /**
- * The report-wide colour of one config (its index in `Results.configs`, cycling after eight).
+ * The report-wide colour of one config (its index in `Results.configs`, cycling after seventeen).
  * Example: `configColour(results, results.configs[0].id)` → `'#0072B2'`.
  */
 export function configColour(results: Results, config: string): string {

@@ -6,7 +6,7 @@
  * reddish purple 204,121,167.
  */
 import { describe, expect, it } from 'vitest';
-import { CONFIG_COLOURS, configColour, configColourScale, OKABE_ITO, VERDICT_COLOURS, VERDICT_SHAPES } from '../../../src/report/palette.js';
+import { CONFIG_COLOURS, configColour, configColourScale, OKABE_ITO, TOL_MUTED, VERDICT_COLOURS, VERDICT_SHAPES } from '../../../src/report/palette.js';
 import { DEFAULT_NAMES, makeResults } from '../fixtures.js';
 
 const rgb = (hex: string): number[] => [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16));
@@ -21,7 +21,14 @@ describe('palette', () => {
     expect(rgb(OKABE_ITO.blue)).toEqual([0, 114, 178]);
     expect(rgb(OKABE_ITO.vermillion)).toEqual([213, 94, 0]);
     expect(rgb(OKABE_ITO.reddishPurple)).toEqual([204, 121, 167]);
-    expect(new Set(CONFIG_COLOURS)).toEqual(new Set(Object.values(OKABE_ITO)));
+    expect(new Set(CONFIG_COLOURS.slice(0, 8))).toEqual(new Set(Object.values(OKABE_ITO)));
+  });
+
+  it('then uses Paul Tol\'s muted scheme (Tol 2021, SRON technical note; from memory) for configs 9 to 17', () => {
+    expect(rgb(TOL_MUTED.indigo)).toEqual([51, 34, 136]);
+    expect(rgb(TOL_MUTED.rose)).toEqual([204, 102, 119]);
+    expect(new Set(CONFIG_COLOURS.slice(8))).toEqual(new Set(Object.values(TOL_MUTED)));
+    expect(new Set(CONFIG_COLOURS).size).toBe(17);
   });
 
   it('gives a config the same colour in every chart, by its place in Results.configs', () => {
@@ -34,11 +41,13 @@ describe('palette', () => {
     expect(configColourScale(results, ['zz', a])).toEqual({ domain: [a, 'zz'], range: [CONFIG_COLOURS[0], CONFIG_COLOURS[3]] });
   });
 
-  it('cycles after eight configs', () => {
+  it('gives 17 configs 17 colours, and cycles after that', () => {
     const base = makeResults();
-    const many = { ...base, configs: Array.from({ length: 10 }, (_, i) => ({ ...base.configs[0]!, id: `c${i}` })) };
-    expect(configColour(many, 'c8')).toBe(CONFIG_COLOURS[0]);
-    expect(configColour(many, 'c9')).toBe(CONFIG_COLOURS[1]);
+    const many = { ...base, configs: Array.from({ length: 19 }, (_, i) => ({ ...base.configs[0]!, id: `c${i}` })) };
+    expect(new Set(Array.from({ length: 17 }, (_, i) => configColour(many, `c${i}`))).size).toBe(17);
+    expect(configColour(many, 'c8')).toBe(TOL_MUTED.indigo);
+    expect(configColour(many, 'c17')).toBe(CONFIG_COLOURS[0]);
+    expect(configColour(many, 'c18')).toBe(CONFIG_COLOURS[1]);
   });
 
   it('never tells verdicts apart by colour alone', () => {
