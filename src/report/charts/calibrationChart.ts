@@ -4,10 +4,11 @@
 import type { TopLevelSpec } from 'vega-lite';
 import type { Results } from '../../analysis/results.js';
 import { CONFIG_LEGEND, configColourScale } from '../palette.js';
-import { chartFrame, NUMBER_FORMAT, type Layer } from './chartFrame.js';
+import { chartFrame, NUMBER_FORMAT } from './chartFrame.js';
 import { formatLevel } from './intervalLabel.js';
-import { layerOpacity, withLegendToggle } from './legendToggle.js';
-import { tickDomain } from './tickDomain.js';
+import { withLegendToggle } from './legendToggle.js';
+import { tickAxis } from './tickDomain.js';
+import { tickLayers } from './tickLayers.js';
 
 /**
  * Vega-Lite spec of `CalibrationCurve.ece`: per config, the expected calibration error
@@ -30,38 +31,26 @@ export function calibrationChart(results: Results): TopLevelSpec | null {
   );
   const configs = curves.map((c) => c.config);
   const color = { field: 'config', type: 'nominal', title: 'config', scale: configColourScale(results, configs), legend: CONFIG_LEGEND } as const;
-  // The axis ends at the first and last tick (a "nice" domain would run past the last tick).
-  const allTicks = rows.map((r) => r.tick);
-  const tickScale: { domain: number[]; nice: boolean } = { domain: tickDomain(allTicks), nice: false };
-  const x = { field: 'tick', type: 'quantitative', title: 'internal tick', axis: { tickMinStep: 1, format: 'd' }, scale: tickScale } as const;
+  const x = tickAxis(rows.map((r) => r.tick));
   const y = (field: string) => ({ field, type: 'quantitative', title: 'expected calibration error' }) as const;
 
   if (!rows.some((r) => r.mean !== null)) return null;
   const hasBand = rows.some((r) => r.low !== null);
-  // A layer with nothing to draw is left out (Vega warns on an empty extent).
-  const layers: Layer[] = [];
-  const opacity = (o: number) => layerOpacity(o, configs.length);
-  if (hasBand) layers.push({ name: 'band', data: { values: rows }, mark: { type: 'area' }, encoding: { x, y: y('low'), y2: { field: 'high' }, color, opacity: opacity(0.2) } });
-  layers.push(
-    { name: 'mean', data: { values: rows }, mark: { type: 'line' }, encoding: { x, y: y('mean'), color, opacity: opacity(1) } },
-    {
-      name: 'points',
-      data: { values: rows.filter((r) => r.mean !== null) },
-      mark: { type: 'point', filled: true, size: 30 },
-      encoding: {
-        // 0.7: Vega-Lite's default opacity of point marks, kept so the chart looks as before.
-        x, y: y('mean'), color, opacity: opacity(0.7),
-        tooltip: [
-          { field: 'config', type: 'nominal', title: 'config' },
-          { field: 'tick', type: 'quantitative', title: 'tick' },
-          { field: 'mean', type: 'quantitative', title: 'ECE', format: NUMBER_FORMAT },
-          { field: 'low', type: 'quantitative', title: 'interval low', format: NUMBER_FORMAT },
-          { field: 'high', type: 'quantitative', title: 'interval high', format: NUMBER_FORMAT },
-          { field: 'bins', type: 'quantitative', title: 'bins' },
-        ],
-      },
-    },
-  );
+  const layers = tickLayers({
+    rows,
+    x,
+    y,
+    color,
+    configs: configs.length,
+    tooltip: [
+      { field: 'config', type: 'nominal', title: 'config' },
+      { field: 'tick', type: 'quantitative', title: 'tick' },
+      { field: 'mean', type: 'quantitative', title: 'ECE', format: NUMBER_FORMAT },
+      { field: 'low', type: 'quantitative', title: 'interval low', format: NUMBER_FORMAT },
+      { field: 'high', type: 'quantitative', title: 'interval high', format: NUMBER_FORMAT },
+      { field: 'bins', type: 'quantitative', title: 'bins' },
+    ],
+  });
   const bins = [...new Set(curves.map((c) => c.bins))].join(' or ');
 
   return {

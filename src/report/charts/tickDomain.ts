@@ -18,3 +18,11 @@ export function tickDomain(ticks: readonly number[]): number[] {
   }
   return low === high ? [low - 0.5, high + 0.5] : [low, high];
 }
+
+/**
+ * The x encoding of a chart against the internal tick: whole ticks, the axis from the first to the
+ * last tick (`tickDomain`, no "nice" rounding). Example: `tickAxis([0, 1, 7]).scale.domain` → `[0, 7]`.
+ */
+export function tickAxis(ticks: readonly number[]) {
+  return { field: 'tick', type: 'quantitative', title: 'internal tick', axis: { tickMinStep: 1, format: 'd' }, scale: { domain: tickDomain(ticks), nice: false } } as const;
+}
