@@ -23,13 +23,18 @@
  * The Parquet key-value metadata carries the marker `seedsift-digest` = `1` (the format version);
  * an ordinary Parquet log has no such key and is read as a log.
  *
- * Writing (measured, see README "Scaling out"): rows go through an appender into a staging table
- * of one row per series with list columns, and `COPY ... unnest(...)` writes the long table. That
- * staging cost about 0.25-0.3 s of CPU per million numbers; appending the long rows directly
- * (2,048 rows per native call) cost about 2.5x more, since each appended chunk has a fixed native
- * cost. DuckDB's Parquet writer (ZSTD) then takes about as long again.
+ * Writing (measured on the medium benchmark set, 40 runs, 11.2 million rows): `COPY` reads the rows
+ * from a table function (`seedsift_digest_rows`) that fills DuckDB's data chunks straight from the
+ * RunSet's typed arrays, one native copy per column per 2,048 rows, so nothing is staged: peak
+ * 355-475 MiB and 8-9.5 s for `seedsift digest`. Staging the rows first cost far more memory:
+ * appending DuckDB list values built number by number, 1.7-1.9 GB and 9 s; a staging table of
+ * lists filled by native copies, 1.4-1.8 GB and 6-7 s (its `COPY ... unnest(...)` held the whole
+ * output of one staging row group at once); a long staging table, 1.5 GB. The table function runs
+ * on one thread so that rows reach the file in order, which leaves the ZSTD compression to one
+ * thread too (level 6 against level 1: about 2 s of the 8).
  */
-import { DOUBLE, DuckDBDataChunk, DuckDBListValue, INTEGER, LIST, UTINYINT, VARCHAR, type DuckDBAppender, type DuckDBValue, type DuckDBVector } from '@duckdb/node-api';
+import { DOUBLE, DuckDBTableFunction, INTEGER, UTINYINT, VARCHAR, type DuckDBDataChunk } from '@duckdb/node-api';
+import bindings from '@duckdb/node-bindings';
 import type { Problem } from '../problems.js';
 import { closeEngine, openEngine, sqlString } from './duckdb.js';
 import type { FileRecord, IdentitySource, MetricInfo, RunSet, RunStatus } from './types.js';
@@ -120,12 +125,19 @@ export function digestHeader(runSet: RunSet): DigestHeader {
 const ZSTD_LEVEL = 6;
 const ROW_GROUP_ROWS = 1 << 20;
 
-const STAGE_COLUMNS = [UTINYINT, INTEGER, INTEGER, INTEGER, LIST(DOUBLE), LIST(DOUBLE), VARCHAR];
-/** Staging rows per appended chunk, and numbers per chunk (bounds the memory of one chunk). */
-const CHUNK_ROWS = 2048;
-const CHUNK_NUMBERS = 1 << 20;
+/** The long table's columns, as staged and as written. */
+const TABLE_COLUMNS = [
+  ['kind', UTINYINT],
+  ['run', INTEGER],
+  ['item', INTEGER],
+  ['tick', INTEGER],
+  ['step', DOUBLE],
+  ['value', DOUBLE],
+  ['text', VARCHAR],
+] as const;
 
-interface StageRow {
+/** One array of numbers and where it goes: a series, one tick of a tick metric, one array of a dump, or the header. */
+interface Piece {
   readonly kind: number;
   readonly run: number;
   readonly item: number;
@@ -135,92 +147,132 @@ interface StageRow {
   readonly text: string | null;
 }
 
-/** Appends staging rows in chunks of list columns (see the module comment). */
-class Stage {
-  private rows: StageRow[] = [];
-  private numbers = 0;
-  constructor(private readonly appender: DuckDBAppender) {}
-
-  add(row: StageRow): void {
-    this.rows.push(row);
-    this.numbers += row.steps.length;
-    if (this.rows.length >= CHUNK_ROWS || this.numbers >= CHUNK_NUMBERS) this.flush();
+/** The pieces of a digest in the file's row order (see the module comment); a dump's per-tick arrays are made as they are reached. */
+function* pieces(runSet: RunSet, header: DigestHeader): Generator<Piece> {
+  const nan = Float64Array.of(NaN);
+  yield { kind: DIGEST_KIND.header, run: -1, item: -1, tick: 0, steps: nan, values: nan, text: JSON.stringify(header) };
+  for (const [i, r] of runSet.runs.entries()) {
+    for (const [j, s] of Object.values(r.metrics).entries()) yield { kind: DIGEST_KIND.metric, run: i, item: j, tick: 0, steps: s.steps, values: s.values, text: null };
   }
-
-  flush(): void {
-    if (this.rows.length === 0) return;
-    const chunk = DuckDBDataChunk.create(STAGE_COLUMNS, this.rows.length);
-    const vectors = STAGE_COLUMNS.map((_, j) => chunk.getColumnVector(j));
-    const set = (j: number, i: number, value: DuckDBValue): void => (vectors[j] as DuckDBVector).setItem(i, value);
-    this.rows.forEach((row, i) => {
-      set(0, i, row.kind);
-      set(1, i, row.run);
-      set(2, i, row.item);
-      set(3, i, row.tick);
-      // A list value takes a plain array; Array.from copies the doubles once (no per-number objects).
-      set(4, i, new DuckDBListValue(Array.from(row.steps)));
-      set(5, i, new DuckDBListValue(Array.from(row.values)));
-      set(6, i, row.text);
-    });
-    for (const v of vectors) v.flush();
-    this.appender.appendDataChunk(chunk);
-    this.rows = [];
-    this.numbers = 0;
+  for (const [i, r] of runSet.runs.entries()) {
+    for (const [j, t] of Object.values(r.tickMetrics).entries()) {
+      if (t.values.length === 0) yield { kind: DIGEST_KIND.tick, run: i, item: j, tick: -1, steps: t.steps, values: new Float64Array(t.steps.length).fill(NaN), text: null };
+      for (const [k, v] of t.values.entries()) yield { kind: DIGEST_KIND.tick, run: i, item: j, tick: k, steps: t.steps, values: v, text: null };
+    }
+  }
+  const runIndex = new Map(runSet.runs.map((r, i) => [r.id, i]));
+  for (const [j, d] of runSet.tickDumps.entries()) {
+    const run = runIndex.get(d.run) ?? -1;
+    yield* dumpPieces(DIGEST_KIND.correct, run, j, d.samples, d.ticks, (k) => d.correct[k] as number);
+    yield* dumpPieces(DIGEST_KIND.certainty, run, j, d.samples, d.ticks, (k) => d.certainty[k] as number);
+    const confidence = d.confidence;
+    if (confidence !== null) yield* dumpPieces(DIGEST_KIND.confidence, run, j, d.samples, d.ticks, (k) => confidence[k] as number);
   }
 }
 
-/** One array of a dump (sample-major, `samples x ticks`) as per-tick rows: sample index, value. */
-function dumpRows(stage: Stage, kind: number, run: number, item: number, samples: number, ticks: number, cell: (k: number) => number): void {
+/** One array of a dump (sample-major, `samples x ticks`) as per-tick pieces: sample index, value. */
+function* dumpPieces(kind: number, run: number, item: number, samples: number, ticks: number, cell: (k: number) => number): Generator<Piece> {
   const index = new Float64Array(samples);
   for (let s = 0; s < samples; s++) index[s] = s;
   for (let t = 0; t < ticks; t++) {
     const values = new Float64Array(samples);
     for (let s = 0; s < samples; s++) values[s] = cell(s * ticks + t);
-    stage.add({ kind, run, item, tick: t, steps: index, values, text: null });
+    yield { kind, run, item, tick: t, steps: index, values, text: null };
   }
+}
+
+/**
+ * The long table's rows, a data chunk at a time, for a DuckDB table function to hand to `COPY`:
+ * each column is filled in a typed array, then copied into the chunk's vector in one native call.
+ * Nothing is staged: no DuckDB value per number (that cost about 0.25 us and 60 bytes each) and no
+ * table, so memory stays at the Parquet writer's row group.
+ */
+class RowSource {
+  private readonly size = bindings.vector_size();
+  private readonly kind = new Uint8Array(this.size);
+  private readonly run = new Int32Array(this.size);
+  private readonly item = new Int32Array(this.size);
+  private readonly tick = new Int32Array(this.size);
+  private readonly step = new Float64Array(this.size);
+  private readonly value = new Float64Array(this.size);
+  private piece: Piece | null = null;
+  /** Rows of `piece` already given. */
+  private from = 0;
+  constructor(private readonly source: Iterator<Piece>) {}
+
+  /** Fill `chunk` with the next rows (none when all were given). Only the header piece (one row) has a text; every other row's is NULL. */
+  fill(chunk: DuckDBDataChunk): void {
+    let rows = 0;
+    let text: { at: number; value: string } | null = null;
+    while (rows < this.size) {
+      if (this.piece === null || this.from === this.piece.steps.length) {
+        const next = this.source.next();
+        if (next.done === true) break;
+        [this.piece, this.from] = [next.value, 0];
+      }
+      const p = this.piece;
+      if (p.text !== null && this.from === 0) text = { at: rows, value: p.text };
+      const count = Math.min(p.steps.length - this.from, this.size - rows);
+      this.kind.fill(p.kind, rows, rows + count);
+      this.run.fill(p.run, rows, rows + count);
+      this.item.fill(p.item, rows, rows + count);
+      this.tick.fill(p.tick, rows, rows + count);
+      this.step.set(p.steps.subarray(this.from, this.from + count), rows);
+      this.value.set(p.values.subarray(this.from, this.from + count), rows);
+      rows += count;
+      this.from += count;
+    }
+    chunk.rowCount = rows;
+    if (rows === 0) return;
+    const vector = (j: number): bindings.Vector => bindings.data_chunk_get_vector(chunk.chunk, j);
+    copyInto(vector(0), this.kind.subarray(0, rows));
+    copyInto(vector(1), this.run.subarray(0, rows));
+    copyInto(vector(2), this.item.subarray(0, rows));
+    copyInto(vector(3), this.tick.subarray(0, rows));
+    copyInto(vector(4), this.step.subarray(0, rows));
+    copyInto(vector(5), this.value.subarray(0, rows));
+    const textVector = vector(6);
+    const valid = new Uint8Array(Math.ceil(rows / 64) * 8);
+    if (text !== null) {
+      bindings.vector_assign_string_element(textVector, text.at, text.value);
+      valid[text.at >> 3] = 1 << (text.at & 7);
+    }
+    bindings.vector_ensure_validity_writable(textVector);
+    bindings.copy_data_to_vector_validity(textVector, 0, valid.buffer, 0, valid.byteLength);
+  }
+}
+
+/** Copy a typed array into a fixed-width vector from its first row. */
+function copyInto(vector: bindings.Vector, data: ArrayBufferView): void {
+  bindings.copy_data_to_vector(vector, 0, data.buffer as ArrayBuffer, data.byteOffset, data.byteLength);
 }
 
 /**
  * Write `runSet` to `file` as a digest (see the module comment); `file` is overwritten when it
  * exists (the command line writes to a temporary name and renames). The RunSet is kept exactly:
  * `readDigest(file)` gives back a RunSet whose every field and number equals this one.
- * Cost: one DuckDB instance; about 16 bytes of staging per number plus DuckDB's Parquet writer;
- * the file holds about 3.5 bytes per point (step and value) on the benchmark, where noisy values
+ * Cost: one DuckDB instance and one row group of DuckDB's Parquet writer (1 Mi rows), nothing
+ * per number beyond the RunSet itself; the file holds about 3.5 bytes per point (step and value) on the benchmark, where noisy values
  * take nearly all of it and steps almost nothing.
  * Throws what DuckDB throws when the file cannot be written (a missing folder, no permission).
  * Example: `await writeDigest(await ingest(['runs'], options), 'shard-1.parquet')`.
  */
 export async function writeDigest(runSet: RunSet, file: string): Promise<void> {
-  const header = digestHeader(runSet);
+  const rows = new RowSource(pieces(runSet, digestHeader(runSet)));
   const engine = await openEngine();
   try {
     const { connection } = engine;
-    await connection.run('CREATE TEMP TABLE digest_stage (kind UTINYINT, run INTEGER, item INTEGER, tick INTEGER, steps DOUBLE[], "values" DOUBLE[], text VARCHAR)');
-    const appender = await connection.createAppender('digest_stage');
-    const stage = new Stage(appender);
-    const nan = Float64Array.of(NaN);
-    stage.add({ kind: DIGEST_KIND.header, run: -1, item: -1, tick: 0, steps: nan, values: nan, text: JSON.stringify(header) });
-    runSet.runs.forEach((r, i) => {
-      Object.values(r.metrics).forEach((s, j) => stage.add({ kind: DIGEST_KIND.metric, run: i, item: j, tick: 0, steps: s.steps, values: s.values, text: null }));
-    });
-    runSet.runs.forEach((r, i) => {
-      Object.values(r.tickMetrics).forEach((t, j) => {
-        if (t.values.length === 0) stage.add({ kind: DIGEST_KIND.tick, run: i, item: j, tick: -1, steps: t.steps, values: new Float64Array(t.steps.length).fill(NaN), text: null });
-        t.values.forEach((v, k) => stage.add({ kind: DIGEST_KIND.tick, run: i, item: j, tick: k, steps: t.steps, values: v, text: null }));
-      });
-    });
-    const runIndex = new Map(runSet.runs.map((r, i) => [r.id, i]));
-    runSet.tickDumps.forEach((d, j) => {
-      const run = runIndex.get(d.run) ?? -1;
-      dumpRows(stage, DIGEST_KIND.correct, run, j, d.samples, d.ticks, (k) => d.correct[k] as number);
-      dumpRows(stage, DIGEST_KIND.certainty, run, j, d.samples, d.ticks, (k) => d.certainty[k] as number);
-      const confidence = d.confidence;
-      if (confidence !== null) dumpRows(stage, DIGEST_KIND.confidence, run, j, d.samples, d.ticks, (k) => confidence[k] as number);
-    });
-    stage.flush();
-    appender.closeSync();
+    connection.registerTableFunction(
+      DuckDBTableFunction.create({
+        name: 'seedsift_digest_rows',
+        bindFunction: (bind) => TABLE_COLUMNS.forEach(([name, type]) => bind.addResultColumn(name, type)),
+        // One thread: the rows must reach the file in the order they are made.
+        initFunction: (init) => init.setMaxThreads(1),
+        mainFunction: (_, chunk) => rows.fill(chunk),
+      }),
+    );
     await connection.run(
-      `COPY (SELECT kind, run, item, tick, unnest(steps) AS step, unnest("values") AS value, text FROM digest_stage) TO ${sqlString(file)} (FORMAT parquet, COMPRESSION zstd, COMPRESSION_LEVEL ${ZSTD_LEVEL}, ROW_GROUP_SIZE ${ROW_GROUP_ROWS}, KV_METADATA {${sqlString(DIGEST_KEY)}: ${sqlString(String(DIGEST_VERSION))}})`,
+      `COPY (SELECT * FROM seedsift_digest_rows()) TO ${sqlString(file)} (FORMAT parquet, COMPRESSION zstd, COMPRESSION_LEVEL ${ZSTD_LEVEL}, ROW_GROUP_SIZE ${ROW_GROUP_ROWS}, KV_METADATA {${sqlString(DIGEST_KEY)}: ${sqlString(String(DIGEST_VERSION))}})`,
     );
   } finally {
     closeEngine(engine);

@@ -159,6 +159,40 @@ describe('a digest keeps a RunSet exactly', () => {
     expect(differences({ ...back, files: back.files.slice(1) }, set)).toEqual([]);
   });
 
+  it('series that end on, just before and just after a 2,048-row chunk boundary come back equal, rows in the documented order', async () => {
+    // The writer hands rows to DuckDB 2,048 at a time (DuckDB's vector size, common practice for its
+    // C API); pieces of these lengths start and end at every position relative to a chunk.
+    const lengths = [2047, 1, 2048, 0, 2049, 5000, 3];
+    const series = (n: number, k: number): { steps: Float64Array; values: Float64Array; divergedAt: null; missing: number } => ({
+      steps: Float64Array.from({ length: n }, (_, i) => i * 10 + k),
+      values: Float64Array.from({ length: n }, (_, i) => Math.sin(i + k) * 1e3 + k),
+      divergedAt: null,
+      missing: 0,
+    });
+    const metrics = Object.fromEntries(lengths.map((n, k) => [`m${k}`, series(n, k)]));
+    const ticks = series(3000, 9);
+    const set: RunSet = {
+      mode: 'logs',
+      keys: ['c'],
+      runs: [{ id: 'c=1,seed=1', config: 'c=1', params: { c: '1' }, seed: '1', info: {}, files: ['a.csv'], identity: 'hive', metrics, tickMetrics: { acc: { steps: ticks.steps, values: [ticks.values, ticks.values.map((v) => -v)] } }, status: 'ok', lastStep: 49990, divergedAt: null }],
+      metrics: [...lengths.map((_, k) => ({ name: `m${k}`, goal: 'max' as const, goalSource: 'option' as const, kind: 'scalar' as const, ticks: 0 })), { name: 'acc', goal: 'max', goalSource: 'option', kind: 'tick', ticks: 2 }],
+      tickDumps: [],
+      files: [],
+      problems: [],
+    };
+    const { file, back } = await roundTrip(set);
+    expect(differences({ ...back, files: [] }, set)).toEqual([]);
+    // Plain DuckDB, in file order: the header first, then each piece's rows consecutively.
+    const rows = await sql(`SELECT kind, item, tick, step FROM read_parquet('${file}', file_row_number = true) ORDER BY file_row_number`);
+    const expected: unknown[][] = [[0, -1, 0, NaN]];
+    lengths.forEach((n, k) => {
+      for (let i = 0; i < n; i++) expected.push([1, k, 0, i * 10 + k]);
+    });
+    for (const t of [0, 1]) for (let i = 0; i < 3000; i++) expected.push([2, 0, t, i * 10 + 9]);
+    expect(rows.length).toBe(expected.length);
+    expect(differences(rows, expected)).toEqual([]);
+  });
+
   it('a score-table RunSet comes back equal too', async () => {
     const root = await tree({ 'scores.csv': 'method,seed,acc\nours,1,0.9\nours,2,\nbase,1,0.8\n' });
     const set = await ingest([], opts({ scores: join(root, 'scores.csv') }));
