@@ -24,7 +24,8 @@
 import normalCdf from '@stdlib/stats-base-dists-normal-cdf';
 import normalQuantile from '@stdlib/stats-base-dists-normal-quantile';
 import { mean, variance, type Numbers } from './moments.js';
-import { quantileSorted } from './quantile.js';
+import { OrderStatistics, sortedOrder, type Ordered } from './orderStatistics.js';
+import { quantileAt } from './quantile.js';
 import type { Random } from './random.js';
 import { studentTQuantile } from './studentTQuantile.js';
 
@@ -59,7 +60,8 @@ function intervalAround(estimate: number, level: number, method: BootstrapMethod
  * Bootstrap confidence interval for the mean of x (method as in the module comment; default BCa
  * with 10,000 resamples at level 0.95). The BCa acceleration is the jackknife one.
  *
- * Cost O(B n) time plus O(B log B) to sort; memory O(B + n). Throws a RangeError when x has fewer
+ * Cost O(B n) time plus O(B) to find the few order statistics an interval needs (`OrderStatistics`,
+ * no sort); memory O(B + n). Throws a RangeError when x has fewer
  * than 2 values or a non-finite value, an option is invalid, or BCa cannot be computed
  * (see `bcaInterval`; e.g. all values equal).
  * Example: `bootstrapMean([71.2, 69.8, 73.1, 70.4, 72.0], createRandom(1), { method: 'percentile' })`
@@ -103,7 +105,7 @@ export function resampleCounts(random: Random, n: number, resamples: number): Fl
  * resample's mean is sum_j counts[b][j] x_j / n, a dot product instead of n random look-ups, so
  * the interval equals `bootstrapMean`'s with a generator in the same state up to rounding in the
  * sums (relative differences near 1e-15). B is `counts.length / x.length`.
- * Cost O(B n) plus O(B log B), no random draws. Throws as `bootstrapMean`, and a RangeError when
+ * Cost O(B n) plus O(B), no random draws. Throws as `bootstrapMean`, and a RangeError when
  * `counts` is not a whole number of resamples of x or a row does not sum to n.
  * Example: `bootstrapMeanFromCounts(x, resampleCounts(createRandom(1), x.length, 2000), { method: 'bca' })`.
  */
@@ -115,7 +117,11 @@ export function bootstrapMeanFromCounts(x: Numbers, counts: Float64Array, opts: 
   if (!Number.isInteger(resamples) || resamples < 1) throw new RangeError(`bootstrapMeanFromCounts: ${counts.length} counts are not a whole number of resamples of ${n} values`);
   const { method, level } = resolveOptions({ ...opts, resamples }, 'bootstrapMeanFromCounts');
   const stats = new Float64Array(resamples);
-  for (let b = 0; b < resamples; b++) {
+  // Four resamples at a time: four independent sums keep the processor busy where one waits on
+  // each addition (about 2x faster); each sum still adds in j order, so the numbers do not change.
+  let b = 0;
+  if (method !== 'bootstrap-t') for (; b + 4 <= resamples; b += 4) countedMeans4(values, counts, b, stats);
+  for (; b < resamples; b++) {
     const row = b * n;
     let drawn = 0;
     let sum = 0;
@@ -128,6 +134,47 @@ export function bootstrapMeanFromCounts(x: Numbers, counts: Float64Array, opts: 
     stats[b] = method === 'bootstrap-t' ? studentized(sum / n, countedSd(values, counts, row, sum / n) / Math.sqrt(n)) : sum / n;
   }
   return meanInterval(group, stats, method, level, resamples);
+}
+
+/** The means of resamples b..b+3 given by their counts, into stats[b..b+3]; throws when one does not draw n values. */
+function countedMeans4(values: Float64Array, counts: Float64Array, b: number, stats: Float64Array): void {
+  const n = values.length;
+  const r0 = b * n;
+  const r1 = r0 + n;
+  const r2 = r1 + n;
+  const r3 = r2 + n;
+  let s0 = 0;
+  let s1 = 0;
+  let s2 = 0;
+  let s3 = 0;
+  let d0 = 0;
+  let d1 = 0;
+  let d2 = 0;
+  let d3 = 0;
+  for (let j = 0; j < n; j++) {
+    const v = values[j] as number;
+    const c0 = counts[r0 + j] as number;
+    const c1 = counts[r1 + j] as number;
+    const c2 = counts[r2 + j] as number;
+    const c3 = counts[r3 + j] as number;
+    s0 += c0 * v;
+    s1 += c1 * v;
+    s2 += c2 * v;
+    s3 += c3 * v;
+    d0 += c0;
+    d1 += c1;
+    d2 += c2;
+    d3 += c3;
+  }
+  if (d0 !== n || d1 !== n || d2 !== n || d3 !== n) {
+    const drawn = [d0, d1, d2, d3];
+    const bad = drawn.findIndex((d) => d !== n);
+    throw new RangeError(`bootstrapMeanFromCounts: resample ${b + bad} draws ${drawn[bad]} values, not ${n}`);
+  }
+  stats[b] = s0 / n;
+  stats[b + 1] = s1 / n;
+  stats[b + 2] = s2 / n;
+  stats[b + 3] = s3 / n;
 }
 
 /** Sample standard deviation (n - 1) of a resample given by its counts in row `row`, around its mean m. */
@@ -147,11 +194,11 @@ function resampledStatistic(values: Float64Array, buffer: Float64Array, m: numbe
   return studentized(m, Math.sqrt(sampleVariance(buffer, m) / values.length));
 }
 
-/** The interval of `bootstrapMean` from the resampled statistics (sorted here, in place). */
-function meanInterval(group: CentredGroup, stats: Float64Array, method: BootstrapMethod, level: number, resamples: number): BootstrapInterval {
+/** The interval of `bootstrapMean` from the resampled statistics (reordered here, in place). */
+function meanInterval(group: CentredGroup, statistics: Float64Array, method: BootstrapMethod, level: number, resamples: number): BootstrapInterval {
   const n = group.values.length;
   const se = Math.sqrt(group.variance / n);
-  stats.sort();
+  const stats = new OrderStatistics(statistics);
   const shift = intervalAround(group.mean, level, method, resamples);
   switch (method) {
     case 'percentile':
@@ -177,7 +224,7 @@ function meanInterval(group: CentredGroup, stats: Float64Array, method: Bootstra
  * the plug-in standard error of the difference and n - 1 the Welch-Satterthwaite degrees of
  * freedom (both reduce to Hesterberg's one-sample values when one group is a constant).
  *
- * Cost O(B (n1 + n2)) time plus O(B log B); memory O(B + n1 + n2). Throws a RangeError when a group
+ * Cost O(B (n1 + n2)) time plus O(B); memory O(B + n1 + n2). Throws a RangeError when a group
  * has fewer than 2 values or a non-finite value, an option is invalid, or BCa cannot be computed.
  * Example: `bootstrapMeanDifference(a, b, createRandom(1), { method: 'percentile' }).estimate` is mean(a) - mean(b).
  */
@@ -202,27 +249,27 @@ export function bootstrapMeanDifference(x: Numbers, y: Numbers, random: Random, 
       stats[b] = mx - my;
     }
   }
-  stats.sort();
+  const ordered = new OrderStatistics(stats);
   const vx = gx.variance / n1;
   const vy = gy.variance / n2;
   const shift = intervalAround(estimate, level, method, resamples);
   switch (method) {
     case 'percentile':
-      return shift(tailInterval(stats, (1 - level) / 2));
+      return shift(tailInterval(ordered, (1 - level) / 2));
     case 'expanded-percentile': {
       const plugIn = (vx * (n1 - 1)) / n1 + (vy * (n2 - 1)) / n2;
-      if (!(plugIn > 0)) return shift(tailInterval(stats, (1 - level) / 2)); // both groups constant: every resample equal
+      if (!(plugIn > 0)) return shift(tailInterval(ordered, (1 - level) / 2)); // both groups constant: every resample equal
       const df = (vx + vy) ** 2 / ((vx * vx) / (n1 - 1) + (vy * vy) / (n2 - 1));
-      return shift(tailInterval(stats, expandedTail(level, (vx + vy) / plugIn, df)));
+      return shift(tailInterval(ordered, expandedTail(level, (vx + vy) / plugIn, df)));
     }
     case 'bca': {
-      requireSpread(stats);
+      requireSpread(ordered);
       const jx = jackknifeMeanDeviations(gx.values, 1);
       const jy = jackknifeMeanDeviations(gy.values, -1);
-      return shift(bcaSorted(stats, 0, jackknifeAcceleration([jx, jy]), level, tieTolerance(stats)));
+      return shift(bcaSorted(ordered, 0, jackknifeAcceleration([jx, jy]), level, tieTolerance(ordered)));
     }
     case 'bootstrap-t':
-      return shift(studentizedBounds(stats, Math.sqrt(vx + vy), level));
+      return shift(studentizedBounds(ordered, Math.sqrt(vx + vy), level));
   }
 }
 
@@ -234,7 +281,7 @@ export function bootstrapMeanDifference(x: Numbers, y: Numbers, random: Random, 
  */
 export function percentileInterval(statistics: Numbers, level: number): { low: number; high: number } {
   checkLevel(level, 'percentileInterval');
-  return tailInterval(sortedStatistics(statistics, 'percentileInterval'), (1 - level) / 2);
+  return tailInterval(sortedOrder(sortedStatistics(statistics, 'percentileInterval')), (1 - level) / 2);
 }
 
 /**
@@ -267,7 +314,7 @@ export function bcaInterval(
   checkLevel(level, 'bcaInterval');
   if (!Number.isFinite(acceleration)) throw new RangeError(`bca: acceleration must be finite, got ${acceleration}`);
   if (!(tieTolerance >= 0)) throw new RangeError(`bca: tieTolerance must be >= 0, got ${tieTolerance}`);
-  return bcaSorted(sortedStatistics(statistics, 'bcaInterval'), estimate, acceleration, level, tieTolerance);
+  return bcaSorted(sortedOrder(sortedStatistics(statistics, 'bcaInterval')), estimate, acceleration, level, tieTolerance);
 }
 
 /**
@@ -384,9 +431,19 @@ function sortedStatistics(statistics: Numbers, who: string): Float64Array {
   return sorted.sort();
 }
 
-/** Quantiles at tail and 1 - tail of sorted statistics. */
-function tailInterval(sorted: Float64Array, tail: number): { low: number; high: number } {
-  return { low: quantileSorted(sorted, tail), high: quantileSorted(sorted, 1 - tail) };
+/** Quantiles at tail and 1 - tail of the statistics. */
+function tailInterval(stats: Ordered, tail: number): { low: number; high: number } {
+  return { low: quantileOf(stats, tail), high: quantileOf(stats, 1 - tail) };
+}
+
+/** The type-7 p-quantile of the statistics. */
+function quantileOf(stats: Ordered, p: number): number {
+  return quantileAt(stats.values.length, p, (k) => stats.at(k));
+}
+
+/** The smallest and the largest statistic. */
+function extremes(stats: Ordered): { min: number; max: number } {
+  return { min: stats.at(0), max: stats.at(stats.values.length - 1) };
 }
 
 /** Hesterberg's expanded tail probability Phi(sqrt(ratio) t_{alpha/2, df}), for variance ratio `ratio`. */
@@ -394,32 +451,34 @@ function expandedTail(level: number, ratio: number, df: number): number {
   return normalCdf(Math.sqrt(ratio) * studentTQuantile((1 - level) / 2, df), 0, 1);
 }
 
-/** BCa needs spread: throws when every sorted resampled statistic is equal. */
-function requireSpread(sorted: Float64Array): void {
-  if (sorted[0] === sorted[sorted.length - 1]) throw new RangeError('bca: every resampled statistic is equal, so there is no spread to correct');
+/** BCa needs spread: throws when every resampled statistic is equal. */
+function requireSpread(stats: Ordered): void {
+  const { min, max } = extremes(stats);
+  if (min === max) throw new RangeError('bca: every resampled statistic is equal, so there is no spread to correct');
 }
 
 /** Tolerance for ties with theta = 0 on the centred scale: 1e-9 of the largest |theta* - theta|. */
-function tieTolerance(sortedCentred: Float64Array): number {
-  return 1e-9 * Math.max(Math.abs(sortedCentred[0] as number), Math.abs(sortedCentred[sortedCentred.length - 1] as number));
+function tieTolerance(centred: Ordered): number {
+  const { min, max } = extremes(centred);
+  return 1e-9 * Math.max(Math.abs(min), Math.abs(max));
 }
 
 function bcaSorted(
-  sorted: Float64Array,
+  stats: Ordered,
   estimate: number,
   acceleration: number,
   level: number,
   tolerance: number,
 ): { low: number; high: number; z0: number; lowerTail: number; upperTail: number } {
-  const count = sorted.length;
-  requireSpread(sorted);
+  const values = stats.values;
+  const count = values.length;
+  requireSpread(stats);
   let below = 0;
   let equal = 0;
   for (let i = 0; i < count; i++) {
-    const v = sorted[i] as number;
+    const v = values[i] as number;
     if (v < estimate - tolerance) below++;
     else if (v <= estimate + tolerance) equal++;
-    else break;
   }
   const z0 = normalQuantile((below + equal / 2) / count, 0, 1);
   if (!Number.isFinite(z0)) throw new RangeError('bca: every resampled statistic lies on one side of the estimate, so the bias correction z0 is infinite');
@@ -432,14 +491,14 @@ function bcaSorted(
   const zLow = normalQuantile((1 - level) / 2, 0, 1);
   const lowerTail = tail(zLow);
   const upperTail = tail(-zLow);
-  return { low: quantileSorted(sorted, lowerTail), high: quantileSorted(sorted, upperTail), z0, lowerTail, upperTail };
+  return { low: quantileOf(stats, lowerTail), high: quantileOf(stats, upperTail), z0, lowerTail, upperTail };
 }
 
 /** Bootstrap-t bounds on the centred scale: (-q_{1-alpha/2} se, -q_{alpha/2} se), q the sorted t*. */
-function studentizedBounds(sortedT: Float64Array, se: number, level: number): { low: number; high: number } {
+function studentizedBounds(t: Ordered, se: number, level: number): { low: number; high: number } {
   const tail = (1 - level) / 2;
-  const qLow = quantileWithInfinities(sortedT, tail);
-  const qHigh = quantileWithInfinities(sortedT, 1 - tail);
+  const qLow = quantileWithInfinities(t, tail);
+  const qHigh = quantileWithInfinities(t, 1 - tail);
   return { low: scaleBound(-qHigh, se), high: scaleBound(-qLow, se) };
 }
 
@@ -451,13 +510,14 @@ function scaleBound(q: number, se: number): number {
  * Type-7 quantile that also accepts +-Infinity among the sorted values: interpolating towards an
  * infinite neighbour gives that infinity (the limit), where plain arithmetic would give NaN.
  */
-function quantileWithInfinities(sorted: Float64Array, p: number): number {
-  const h = (sorted.length - 1) * p;
+function quantileWithInfinities(t: Ordered, p: number): number {
+  const n = t.values.length;
+  const h = (n - 1) * p;
   const lo = Math.floor(h);
-  const a = sorted[lo] as number;
-  const b = sorted[Math.min(lo + 1, sorted.length - 1)] as number;
+  const a = t.at(lo);
+  const b = t.at(Math.min(lo + 1, n - 1));
   if (h === lo || a === b) return a;
   if (a === -Infinity) return -Infinity;
   if (b === Infinity) return Infinity;
-  return quantileSorted(sorted, p);
+  return quantileOf(t, p);
 }

@@ -15,14 +15,23 @@ import type { Numbers } from './moments.js';
  * Example: `quantileSorted([1, 2, 3, 4], 0.25)` is 1.75.
  */
 export function quantileSorted(sorted: Numbers, p: number): number {
-  const n = sorted.length;
+  return quantileAt(sorted.length, p, (k) => sorted[k] as number);
+}
+
+/**
+ * The type-7 p-quantile of n values given by their order statistics: `at(k)` is the k-th smallest
+ * (k from 0), read for k = floor((n - 1) p) and the next one only. Cost: two calls of `at`.
+ * Throws a RangeError when n is 0 or p is outside [0, 1].
+ * Example: `quantileAt(4, 0.25, (k) => [1, 2, 3, 4][k])` is 1.75.
+ */
+export function quantileAt(n: number, p: number, at: (k: number) => number): number {
   if (n === 0) throw new RangeError('quantile requires at least 1 value');
   if (!(p >= 0 && p <= 1)) throw new RangeError(`quantile: p must be in [0, 1], got ${p}`);
   const h = (n - 1) * p;
   const lo = Math.floor(h);
-  const a = sorted[lo] as number;
+  const a = at(lo);
   if (lo >= n - 1) return a;
-  const b = sorted[lo + 1] as number;
+  const b = at(lo + 1);
   const frac = h - lo;
   return frac === 0 ? a : a + (b - a) * frac;
 }
