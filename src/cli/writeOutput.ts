@@ -1,9 +1,10 @@
 /**
  * Safe output writing: each file is written to a temporary file beside it and renamed into place,
  * so a crash or kill mid-write leaves any earlier file intact; seedsift refuses to write over one
- * of its own input files.
+ * of its own input files. A target that exists and is not a file or a folder (`/dev/null`, a
+ * named pipe, a terminal) is written to directly: renaming over it would replace the device.
  */
-import { existsSync, realpathSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, realpathSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { SeedsiftError } from '../problems.js';
 
@@ -20,6 +21,13 @@ export function writeOutput(path: string, text: string, inputs: readonly string[
   const target = identity(path);
   if (inputs.some((input) => identity(input) === target)) {
     throw new SeedsiftError('output', `refusing to write over an input file: ${path}`);
+  }
+  if (existsSync(target)) {
+    const kind = statSync(target);
+    if (!kind.isFile() && !kind.isDirectory()) {
+      writeFileSync(target, text);
+      return;
+    }
   }
   const temp = join(dirname(target), `.${basename(target)}.${process.pid}.tmp`);
   try {

@@ -11,8 +11,8 @@
  * run writes), never a mix or a part. That rename(2) replaces a file atomically is POSIX
  * (common practice, the reason for the temporary file).
  */
-import { spawn } from 'node:child_process';
-import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
+import { execFileSync, spawn } from 'node:child_process';
+import { cpSync, existsSync, lstatSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -101,6 +101,27 @@ describe('a normal run leaves no temporary file behind', () => {
     const io = memoryIo();
     expect(await run(['report', runs, '-o', join(out, 'report.html'), '--json', join(out, 'results.json'), '--markdown', join(out, 'summary.md')], io)).toBe(0);
     expect(readdirSync(out).sort()).toEqual(['report.html', 'results.json', 'summary.md']);
+  });
+
+  it('an output that is a named pipe is written into, not replaced (as /dev/null must be)', async () => {
+    const root = join(dir, 'pipe');
+    const runs = study(root);
+    const fifo = join(root, 'json.fifo');
+    execFileSync('mkfifo', [fifo]);
+    // A reader on the pipe (opening a pipe for writing waits for one), collecting what comes through.
+    const reader = spawn('cat', [fifo], { stdio: ['ignore', 'pipe', 'ignore'] });
+    let received = '';
+    reader.stdout.on('data', (d: Buffer) => (received += d.toString()));
+    const closed = new Promise((resolve) => reader.on('close', resolve));
+    try {
+      expect(await run(['report', runs, '--json', fifo], memoryIo())).toBe(0);
+      expect(lstatSync(fifo).isFIFO()).toBe(true);
+      await closed;
+    } finally {
+      reader.kill();
+    }
+    expect((JSON.parse(received) as { runs: unknown[] }).runs).toHaveLength(6);
+    expect(readdirSync(root).filter((f) => f.endsWith('.tmp'))).toEqual([]);
   });
 });
 
