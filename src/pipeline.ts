@@ -17,6 +17,7 @@ import type { IngestOptions, RunSet } from './ingest/types.js';
 import { resultsJson } from './report/resultsJson.js';
 import { summaryMarkdown } from './report/summaryMarkdown.js';
 import { SeedsiftError } from './problems.js';
+import type { ProgressHook } from './progress.js';
 
 export interface ReportJob {
   readonly paths: readonly string[];
@@ -27,7 +28,7 @@ export interface ReportJob {
   readonly generated: string;
   readonly version: string;
   readonly outputs: { readonly html: boolean; readonly json: boolean; readonly markdown: boolean };
-  /** Observers of the reading (progress display). */
+  /** Observers of the work (progress display). */
   readonly hooks?: IngestHooks;
 }
 
@@ -46,13 +47,13 @@ export async function reportPipeline(job: ReportJob): Promise<ReportOutputs> {
   // 2. resolve
   const options = resolveOptions(job.report, runSet);
   // 3. analyze
-  const results = analyze(runSet, options, { paths: job.paths, generated: job.generated, version: job.version });
+  const results = analyze(runSet, options, { paths: job.paths, generated: job.generated, version: job.version }, job.hooks?.progress);
   // 4. render
   return {
     runSet,
     options,
     results,
-    html: job.outputs.html ? await renderHtml(results, job.notebook) : null,
+    html: job.outputs.html ? await renderHtml(results, job.notebook, job.hooks?.progress) : null,
     json: job.outputs.json ? resultsJson(results) : null,
     markdown: job.outputs.markdown ? summaryMarkdown(results) : null,
   };
@@ -62,9 +63,9 @@ export async function reportPipeline(job: ReportJob): Promise<ReportOutputs> {
  * The HTML report. Its renderer (Handlebars, Vega, Vega-Lite, the page's scripts) is loaded only
  * here, when a page is asked for: loading it costs about 0.3 s, a third of a small job.
  */
-async function renderHtml(results: Results, notebook: ReportJob['notebook']): Promise<string> {
+async function renderHtml(results: Results, notebook: ReportJob['notebook'], progress?: ProgressHook): Promise<string> {
   const { renderReport } = await import('./report/renderReport.js');
-  return await renderReport(results, notebook.source, notebook.file);
+  return await renderReport(results, notebook.source, notebook.file, progress);
 }
 
 /** The report date: SOURCE_DATE_EPOCH (seconds) when set, so builds are reproducible; else now. */

@@ -29,6 +29,7 @@ import { checkSelector, matchesSelector } from './selectors.js';
 import { summaryGoal } from './summarySpec.js';
 import { taskAggregates, type TaskScore } from './tasks.js';
 import { tickCurves } from './ticks.js';
+import type { ProgressHook } from '../progress.js';
 
 export interface AnalyzeMeta {
   readonly paths: readonly string[];
@@ -42,9 +43,10 @@ export interface AnalyzeMeta {
  * baseline selector matches no config (listing what is available); data problems never throw,
  * they become `Problem`s and null fields.
  * Cost: dominated by the permutation tests (one per comparison) and, at 20+ runs, bootstraps.
+ * `progress` hears of each metric as its work starts ('comparing', metrics done, metrics).
  * Example: `analyze(runSet, resolveOptions({ baseline: 'memory=4' }), meta).comparisons`.
  */
-export function analyze(runSet: RunSet, options: ResolvedOptions, meta: AnalyzeMeta): Results {
+export function analyze(runSet: RunSet, options: ResolvedOptions, meta: AnalyzeMeta, progress: ProgressHook = () => undefined): Results {
   // 1. inventory
   const inv = inventory(runSet);
   const runs = orderRuns(runSet);
@@ -75,6 +77,7 @@ export function analyze(runSet: RunSet, options: ResolvedOptions, meta: AnalyzeM
   const cache: PowerCache = new Map();
   const runsByConfig = groupRuns(runs);
   for (const [i, info] of runSet.metrics.entries()) {
+    progress('comparing', i, runSet.metrics.length);
     const record = inv.metrics[i] as MetricRecord;
     if (info.kind === 'tick') {
       metrics.push(record);
@@ -114,6 +117,8 @@ export function analyze(runSet: RunSet, options: ResolvedOptions, meta: AnalyzeM
     }
     if (options.taskKey !== null) tasks.push(...metricTasks(info, runs, mv.byRun, pairing, options));
   }
+
+  progress('comparing', runSet.metrics.length, runSet.metrics.length);
 
   // 4. ticks: per-sample dumps
   const { halting, calibration } = dumpAnalyses(runSet, options, problems);

@@ -14,6 +14,7 @@
  * (a missing PATH, a bad option) throws a SeedsiftError.
  */
 import { problem, type Problem } from '../problems.js';
+import type { ProgressHook } from '../progress.js';
 import { planColumns, type ColumnPlan } from './columns.js';
 import { findDigests, readDigest } from './digestRead.js';
 import { closeEngine, openEngine, type Engine } from './duckdb.js';
@@ -98,7 +99,7 @@ async function ingestScores(engine: Engine, options: IngestOptions): Promise<Run
 /** Optional observers of a long ingest (the command line shows progress on a terminal). */
 export interface IngestHooks {
   /** Called as work advances: `stage` is 'headers' or 'reading', with files done of total. */
-  readonly progress?: (stage: 'headers' | 'reading', done: number, total: number) => void;
+  readonly progress?: ProgressHook;
 }
 
 export async function ingest(paths: readonly string[], options: IngestOptions, hooks: IngestHooks = {}): Promise<RunSet> {

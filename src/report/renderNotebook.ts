@@ -17,6 +17,7 @@ import Handlebars from 'handlebars';
 import type { TopLevelSpec } from 'vega-lite';
 import type { Results } from '../analysis/results.js';
 import { SeedsiftError } from '../problems.js';
+import type { ProgressHook } from '../progress.js';
 import { CELL_NAMES, CELL_PLACEHOLDER, registerCells } from './cells/index.js';
 import { CHART_PLACEHOLDER, type RenderState } from './cells/cell.js';
 import { jsonForScript, visibleText } from './escape.js';
@@ -55,7 +56,7 @@ export interface RenderedNotebook {
  * rendering errors (a bug, not a user mistake).
  * Example: `await renderNotebook(results, parseNotebook('{{verdicts}}', 'n.md'), 'Study')` → `{ html: '<div class="verdicts-cell">...', charts: 0 }`.
  */
-export async function renderNotebook(results: Results, notebook: Notebook, title: string): Promise<RenderedNotebook> {
+export async function renderNotebook(results: Results, notebook: Notebook, title: string, progress: ProgressHook = () => undefined): Promise<RenderedNotebook> {
   const slug = createSlugger();
   const state: RenderState = { results, file: notebook.file, bodyLine: notebook.bodyLine, charts: [], cells: [], slug };
   const markdownText = runTemplate(notebook, state, context(results, title));
@@ -63,7 +64,11 @@ export async function renderNotebook(results: Results, notebook: Notebook, title
     .render(markdownText)
     .replace(CELL_PLACEHOLDER, (_m: string, i: string) => state.cells[Number(i)] ?? '');
   const figures: string[] = [];
-  for (const [i, spec] of state.charts.entries()) figures.push(await chartHtml(spec, i));
+  for (const [i, spec] of state.charts.entries()) {
+    progress('drawing', i, state.charts.length);
+    figures.push(await chartHtml(spec, i));
+  }
+  progress('drawing', state.charts.length, state.charts.length);
   return { html: html.replace(CHART_PLACEHOLDER, (_m: string, i: string) => figures[Number(i)] ?? ''), charts: figures.length };
 }
 

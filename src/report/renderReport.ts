@@ -12,6 +12,7 @@
  */
 import Handlebars from 'handlebars';
 import type { Results } from '../analysis/results.js';
+import type { ProgressHook } from '../progress.js';
 import { contentSecurityPolicy } from './contentSecurityPolicy.js';
 import { visibleText } from './escape.js';
 import { parseNotebook } from './parseNotebook.js';
@@ -58,10 +59,10 @@ function facts(results: Results): string[] {
  * (see `parseNotebook` and `renderNotebook`).
  * Example: `await renderReport(results, readFileSync(DEFAULT_NOTEBOOK, 'utf8'), DEFAULT_NOTEBOOK)` → `'<!DOCTYPE html>\n<html lang="en">...'`.
  */
-export async function renderReport(results: Results, notebookSource: string, notebookFile: string): Promise<string> {
+export async function renderReport(results: Results, notebookSource: string, notebookFile: string, progress?: ProgressHook): Promise<string> {
   const notebook = parseNotebook(notebookSource, notebookFile);
   const title = notebook.options.title ?? DEFAULT_TITLE;
-  const body = await renderNotebook(results, notebook, title);
+  const body = await renderNotebook(results, notebook, title, progress);
   const assets = loadReportAssets();
   const hb = Handlebars.create();
   for (const [name, source] of Object.entries(assets.partials)) hb.registerPartial(name, source);
