@@ -9,7 +9,7 @@
  */
 import type { DuckDBBlobValue } from '@duckdb/node-api';
 import { SeedsiftError } from '../problems.js';
-import { resultColumns, sqlPath, sqlString, type Engine } from './duckdb.js';
+import { releaseResults, resultColumns, sqlPath, sqlString, type Engine } from './duckdb.js';
 import { DIGEST_KEY, DIGEST_KIND, DIGEST_VERSION, type DigestHeader } from './digestWrite.js';
 import type { FileRecord, Run, RunSet, Series, TickDump, TickSeries } from './types.js';
 
@@ -73,24 +73,41 @@ async function readHeader(engine: Engine, file: string): Promise<DigestHeader> {
   return header;
 }
 
-/** Cuts the long columns into series, in the order they were written. */
+/**
+ * Cuts the long columns into series, in the order they were written. Values are views into the
+ * one values column; steps are copied out, and a run's series with the same steps share one copy
+ * (as a run's metrics read from one log share its step column), so the long steps column, which
+ * repeats the steps for every metric and every tick, is not kept.
+ */
 class Cursor {
   private at = 0;
   constructor(
     private readonly steps: Float64Array,
     private readonly values: Float64Array,
   ) {}
-  /** The next `n` rows: steps and values (views, not copies). */
-  take(n: number): { steps: Float64Array; values: Float64Array } {
+  /**
+   * The next `n` rows: their values (a view) and steps, the steps shared with an equal array of
+   * `pool` (the run's step arrays so far), or copied and added to it; a view when `pool` is null
+   * (for rows whose steps are not kept).
+   */
+  take(n: number, pool: Float64Array[] | null): { steps: Float64Array; values: Float64Array } {
     const from = this.at;
     this.at += n;
     if (this.at > this.steps.length) throw new RangeError(`expected at least ${this.at} rows, got ${this.steps.length}`);
-    return { steps: this.steps.subarray(from, this.at), values: this.values.subarray(from, this.at) };
+    const values = this.values.subarray(from, this.at);
+    const steps = this.steps.subarray(from, this.at);
+    if (pool === null) return { steps, values };
+    let shared = pool.find((s) => sameNumbers(s, steps));
+    if (shared === undefined) {
+      shared = steps.slice();
+      pool.push(shared);
+    }
+    return { steps: shared, values };
   }
   /** One dump array (`samples x ticks`, sample-major) from its per-tick rows. */
   dump<T extends Float64Array | Uint8Array>(out: T, samples: number, ticks: number): T {
     for (let t = 0; t < ticks; t++) {
-      const { values } = this.take(samples);
+      const { values } = this.take(samples, null);
       for (let s = 0; s < samples; s++) out[s * ticks + t] = values[s] as number;
     }
     return out;
@@ -98,6 +115,13 @@ class Cursor {
   get position(): number {
     return this.at;
   }
+}
+
+/** The same numbers in the same order, bit for bit (Object.is: -0 is not 0). */
+function sameNumbers(a: Float64Array, b: Float64Array): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (!Object.is(a[i], b[i])) return false;
+  return true;
 }
 
 /**
@@ -118,18 +142,20 @@ export async function readDigest(engine: Engine, file: string): Promise<RunSet> 
   } catch (error) {
     throw bad(file, `its rows cannot be read (${(error as Error).message})`);
   }
+  releaseResults();
   if (steps.length !== header.points) throw bad(file, `expected ${header.points} rows of numbers, got ${steps.length}`);
   const cursor = new Cursor(steps, values);
   try {
-    const metrics = header.runs.map((r) => {
+    const pools = header.runs.map((): Float64Array[] => []);
+    const metrics = header.runs.map((r, i) => {
       const out: Record<string, Series> = {};
-      for (const m of r.metrics) out[m.name] = { ...cursor.take(m.points), divergedAt: m.divergedAt, missing: m.missing };
+      for (const m of r.metrics) out[m.name] = { ...cursor.take(m.points, pools[i] as Float64Array[]), divergedAt: m.divergedAt, missing: m.missing };
       return out;
     });
-    const ticks = header.runs.map((r) => {
+    const ticks = header.runs.map((r, i) => {
       const out: Record<string, TickSeries> = {};
       for (const t of r.tickMetrics) {
-        const blocks = Array.from({ length: Math.max(1, t.ticks) }, () => cursor.take(t.steps));
+        const blocks = Array.from({ length: Math.max(1, t.ticks) }, () => cursor.take(t.steps, pools[i] as Float64Array[]));
         out[t.name] = { steps: (blocks[0] as { steps: Float64Array }).steps, values: t.ticks === 0 ? [] : blocks.map((b) => b.values) };
       }
       return out;
