@@ -125,7 +125,7 @@ export function digestHeader(runSet: RunSet): DigestHeader {
 const ZSTD_LEVEL = 6;
 const ROW_GROUP_ROWS = 1 << 20;
 
-/** The long table's columns, as staged and as written. */
+/** The long table's columns: what the table function gives and the file holds. */
 const TABLE_COLUMNS = [
   ['kind', UTINYINT],
   ['run', INTEGER],
@@ -184,8 +184,8 @@ function* dumpPieces(kind: number, run: number, item: number, samples: number, t
 /**
  * The long table's rows, a data chunk at a time, for a DuckDB table function to hand to `COPY`:
  * each column is filled in a typed array, then copied into the chunk's vector in one native call.
- * Nothing is staged: no DuckDB value per number (that cost about 0.25 us and 60 bytes each) and no
- * table, so memory stays at the Parquet writer's row group.
+ * Nothing is staged: no DuckDB value is made per number and no table is filled, so memory stays at
+ * the Parquet writer's row group (see the module comment for what staging cost).
  */
 class RowSource {
   private readonly size = bindings.vector_size();
