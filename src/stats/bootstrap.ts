@@ -208,7 +208,7 @@ function meanInterval(group: CentredGroup, statistics: Float64Array, method: Boo
     case 'bca': {
       requireSpread(stats);
       const jackknife = jackknifeMeanDeviations(group.values, 1);
-      return shift(bcaSorted(stats, 0, jackknifeAcceleration([jackknife]), level, tieTolerance(stats)));
+      return shift(bcaBounds(stats, 0, jackknifeAcceleration([jackknife]), level, tieTolerance(stats)));
     }
     case 'bootstrap-t':
       return shift(studentizedBounds(stats, se, level));
@@ -266,7 +266,7 @@ export function bootstrapMeanDifference(x: Numbers, y: Numbers, random: Random, 
       requireSpread(ordered);
       const jx = jackknifeMeanDeviations(gx.values, 1);
       const jy = jackknifeMeanDeviations(gy.values, -1);
-      return shift(bcaSorted(ordered, 0, jackknifeAcceleration([jx, jy]), level, tieTolerance(ordered)));
+      return shift(bcaBounds(ordered, 0, jackknifeAcceleration([jx, jy]), level, tieTolerance(ordered)));
     }
     case 'bootstrap-t':
       return shift(studentizedBounds(ordered, Math.sqrt(vx + vy), level));
@@ -314,7 +314,7 @@ export function bcaInterval(
   checkLevel(level, 'bcaInterval');
   if (!Number.isFinite(acceleration)) throw new RangeError(`bca: acceleration must be finite, got ${acceleration}`);
   if (!(tieTolerance >= 0)) throw new RangeError(`bca: tieTolerance must be >= 0, got ${tieTolerance}`);
-  return bcaSorted(sortedOrder(sortedStatistics(statistics, 'bcaInterval')), estimate, acceleration, level, tieTolerance);
+  return bcaBounds(sortedOrder(sortedStatistics(statistics, 'bcaInterval')), estimate, acceleration, level, tieTolerance);
 }
 
 /**
@@ -463,7 +463,8 @@ function tieTolerance(centred: Ordered): number {
   return 1e-9 * Math.max(Math.abs(min), Math.abs(max));
 }
 
-function bcaSorted(
+/** The BCa bounds of `bcaInterval` from statistics in any order (their order statistics read through `stats`). */
+function bcaBounds(
   stats: Ordered,
   estimate: number,
   acceleration: number,
