@@ -10,7 +10,7 @@
 import type { DuckDBBlobValue } from '@duckdb/node-api';
 import { SeedsiftError } from '../problems.js';
 import { releaseResults, resultColumns, sqlPath, sqlString, type Engine } from './duckdb.js';
-import { DIGEST_KEY, DIGEST_KIND, DIGEST_VERSION, type DigestHeader } from './digestWrite.js';
+import { DIGEST_KEY, DIGEST_KIND, DIGEST_VERSION, ROW_GROUP_ROWS, type DigestHeader } from './digestWrite.js';
 import type { FileRecord, Run, RunSet, Series, TickDump, TickSeries } from './types.js';
 
 const blobText = (value: unknown): string => Buffer.from((value as DuckDBBlobValue).bytes).toString('utf8');
@@ -124,9 +124,6 @@ function sameNumbers(a: Float64Array, b: Float64Array): boolean {
   return true;
 }
 
-/** Rows read per query: one Parquet row group of the writer (digestWrite.ts). */
-const SLICE_ROWS = 1 << 20;
-
 /**
  * The step and value columns of a digest's number rows, in file order, read a slice of rows at a
  * time (the file's row number picks the slice, and DuckDB reads only the row groups it needs;
@@ -139,8 +136,8 @@ async function readNumbers(engine: Engine, file: string, points: number): Promis
   const steps = new Float64Array(points);
   const values = new Float64Array(points);
   let filled = 0;
-  for (let from = 0; from <= points; from += SLICE_ROWS) {
-    const sql = `SELECT step, value FROM read_parquet(${sqlPath(file)}, hive_partitioning = false, file_row_number = true) WHERE kind > ${DIGEST_KIND.header} AND file_row_number >= ${from} AND file_row_number < ${from + SLICE_ROWS}`;
+  for (let from = 0; from <= points; from += ROW_GROUP_ROWS) {
+    const sql = `SELECT step, value FROM read_parquet(${sqlPath(file)}, hive_partitioning = false, file_row_number = true) WHERE kind > ${DIGEST_KIND.header} AND file_row_number >= ${from} AND file_row_number < ${from + ROW_GROUP_ROWS}`;
     const [s, v] = resultColumns(await engine.connection.run(sql)) as [Float64Array, Float64Array];
     if (filled + s.length > points) throw new RangeError(`expected ${points} rows of numbers, got more`);
     steps.set(s, filled);

@@ -123,7 +123,8 @@ export function digestHeader(runSet: RunSet): DigestHeader {
  * of 1 Mi rows (DuckDB's default is 122,880) let ZSTD see long runs of similar numbers: 17 MB.
  */
 const ZSTD_LEVEL = 6;
-const ROW_GROUP_ROWS = 1 << 20;
+/** Rows per Parquet row group of a digest (the reader also reads this many rows per query). */
+export const ROW_GROUP_ROWS = 1 << 20;
 
 /** The long table's columns: what the table function gives and the file holds. */
 const TABLE_COLUMNS = [
