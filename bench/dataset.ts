@@ -1,5 +1,5 @@
 /**
- * Generating the benchmark data sets with ../shared/bench/make_runs.py (run with Debian's
+ * Generating the benchmark data sets with bench/peer/make_runs.py (run with Debian's
  * /usr/bin/python3 and its numpy), cached under bench/.data/<name>/ with a stamp of the arguments.
  */
 import { spawnSync } from 'node:child_process';
@@ -16,7 +16,7 @@ const STAMP = '.make_runs.json';
  * Make sure `dir` holds make_runs.py's output for `spec` (deterministic, make_runs.py's default
  * --rng 7): reuse it when its stamp matches, else delete the folder and generate it again.
  * Returns whether it generated. Throws Error when make_runs.py fails.
- * Example: ensureDataset('../shared/bench/make_runs.py', 'bench/.data/small', spec) → true.
+ * Example: ensureDataset('bench/peer/make_runs.py', 'bench/.data/small', spec) → true.
  */
 export function ensureDataset(makeRuns: string, dir: string, spec: RunsSpec): boolean {
   const stamp = JSON.stringify(spec);

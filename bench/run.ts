@@ -1,7 +1,7 @@
 /**
  * `npm run bench`: seedsift against the pandas/scipy peer on the same synthetic runs.
  *
- * For each data set: generate it with ../shared/bench/make_runs.py into bench/.data/<name>/ (cached),
+ * For each data set: generate it with bench/peer/make_runs.py into bench/.data/<name>/ (cached),
  * run one untimed warm-up of each tool, then run `seedsift report DIR --json OUT --baseline B` and
  * `reference_pipeline.py DIR --out OUT --baseline B` in turns (ABBA order: seedsift first on even
  * repeats, the peer first on odd ones), each under `/usr/bin/time -v`; then seedsift once more with
@@ -21,7 +21,7 @@ import { checkTargets, formatTargets } from './targets.js';
 import { timedRun } from './timedRun.js';
 
 const ROOT = fileURLToPath(new URL('..', import.meta.url));
-const SHARED_BENCH = fileURLToPath(new URL('../../shared/bench/', import.meta.url));
+const PEER_DIR = fileURLToPath(new URL('./peer/', import.meta.url));
 const DATA = join(ROOT, 'bench', '.data');
 const OUT = join(ROOT, 'bench', '.out');
 
@@ -110,7 +110,7 @@ function progress(size: string, tool: string, label: string, s: Sample): void {
 function benchSize(size: BenchSize, options: BenchOptions, seedsift: readonly string[]): SizeResult {
   const dir = join(DATA, size.name);
   const started = performance.now();
-  const generated = ensureDataset(join(SHARED_BENCH, 'make_runs.py'), dir, size.spec);
+  const generated = ensureDataset(join(PEER_DIR, 'make_runs.py'), dir, size.spec);
   const dataMiB = bytesOnDisk(dir) / 2 ** 20;
   const baseline = peerBaseline(configsOnDisk(dir));
   console.log(`${size.name}: ${runCount(size.spec)} runs (${size.spec.configs} configs x ${size.spec.seeds} seeds) x ${size.spec.steps} steps, ${size.spec.metrics} metrics, ${size.spec.ticks} ticks; ${dataMiB.toFixed(0)} MiB ${generated ? `generated in ${((performance.now() - started) / 1000).toFixed(1)} s` : 'reused'}; baseline ${baseline}`);
@@ -122,7 +122,7 @@ function benchSize(size: BenchSize, options: BenchOptions, seedsift: readonly st
   const peerJson = join(out, 'peer.json');
   const reportArgs = (...outputs: string[]): string[] => [...seedsift, 'report', rel(dir), ...outputs, '--baseline', baseline];
   const ownArgs = reportArgs('--json', rel(ownJson));
-  const peerArgs = [join(SHARED_BENCH, 'reference_pipeline.py'), rel(dir), '--out', rel(peerJson), '--baseline', baseline];
+  const peerArgs = [join(PEER_DIR, 'reference_pipeline.py'), rel(dir), '--out', rel(peerJson), '--baseline', baseline];
   const runPeer = size.peerSkipped === null;
   if (!runPeer) console.log(`  peer not run: ${size.peerSkipped}`);
 
@@ -178,14 +178,14 @@ function main(argv: readonly string[]): void {
     return;
   }
   for (const script of ['make_runs.py', 'reference_pipeline.py']) {
-    if (!existsSync(join(SHARED_BENCH, script))) throw new Error(`expected ${script} in ../shared/bench/ beside the repository (${SHARED_BENCH})`);
+    if (!existsSync(join(PEER_DIR, script))) throw new Error(`expected ${script} in bench/peer/ (${PEER_DIR})`);
   }
   const seedsift = seedsiftCommand(options.entry);
   const header = [
     `seedsift bench, ${new Date().toISOString()}`,
     `Node ${process.version}; ${cpus().length} x ${cpus()[0]?.model ?? 'unknown CPU'}; load average at start ${loadavg().map((l) => l.toFixed(2)).join(' ')}`,
     `seedsift: ${seedsift.label} report DIR --json OUT --baseline B   (HTML run adds -o report.html)`,
-    `peer:     ${SYSTEM_PYTHON} ../shared/bench/reference_pipeline.py DIR --out OUT --baseline B`,
+    `peer:     ${SYSTEM_PYTHON} bench/peer/reference_pipeline.py DIR --out OUT --baseline B`,
     `${options.repeats} timed runs of each tool per data set, in turns (ABBA), after ${options.warmup} untimed warm-up run(s); wall = median; peak = largest of the runs (GNU time, max RSS)`,
   ].join('\n');
   console.log(header);

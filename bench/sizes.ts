@@ -1,6 +1,6 @@
 /**
- * The data sets of `npm run bench`: each is one call of ../shared/bench/make_runs.py
- * (runs = configs x seeds). The peer (../shared/bench/reference_pipeline.py) runs an exact
+ * The data sets of `npm run bench`: each is one call of bench/peer/make_runs.py
+ * (runs = configs x seeds). The peer (bench/peer/reference_pipeline.py) runs an exact
  * permutation test over all C(2n, n) splits, so it is only run where n <= 10 seeds per config.
  */
 

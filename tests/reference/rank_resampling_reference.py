@@ -159,7 +159,7 @@ check('perm C,D #(T* >= T)', round(perm(C, D, mean_diff, 'greater') * 792), 40)
 check('perm C,D #(|T*| >= |T|)', round(perm(C, D, abs_mean_diff, 'greater') * 792), 76)
 
 # Michelson (NIST StRD "Michelso", data from line 61): counts by exact integer arithmetic (values x 100).
-MICH_TXT = pathlib.Path(__file__).resolve().parents[3] / 'shared/reference/nist-strd-univariate/Michelso.txt'
+MICH_TXT = pathlib.Path(__file__).resolve().parent / 'nist-strd-univariate/Michelso.txt'
 mich_float = [float(v) for v in MICH_TXT.read_text().split('\n')[60:] if v.strip()]
 mich = [int(round(v * 100)) for v in mich_float]
 

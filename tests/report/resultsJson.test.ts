@@ -108,7 +108,7 @@ interface DesignKey {
 }
 
 function designKeys(): DesignKey[] {
-  const design = readFileSync(new URL('../../../shared/DESIGN.md', import.meta.url), 'utf8');
+  const design = readFileSync(new URL('../reference/results-contract.md', import.meta.url), 'utf8');
   const from = design.indexOf('### `results.json`');
   const block = /```\n([\s\S]*?)```/.exec(design.slice(from))?.[1] ?? '';
   const tokens = block.replace(/\/\/[^\n]*/g, '').match(/\.\.\.|[A-Za-z_]\w*|\[\]|\{\}|"[^"]*"|\d+|[{}:,|?]/g) ?? [];

@@ -5,7 +5,7 @@ import { lag1Autocorrelation } from '../../src/stats/autocorrelation.js';
 
 // NIST StRD univariate summary statistics (https://www.itl.nist.gov/div898/strd/univ/), the copies
 // described in shared/reference/README.md. Certified r(1) values are parsed from the files themselves.
-const NIST_DIR = fileURLToPath(new URL('../../../shared/reference/nist-strd-univariate/', import.meta.url));
+const NIST_DIR = fileURLToPath(new URL('../reference/nist-strd-univariate/', import.meta.url));
 
 /** Certified lag-1 autocorrelation and data of one StRD file (NIST layout or `name = value` layout). */
 function readStrd(file: string): { name: string; r1: number; data: readonly number[] } {

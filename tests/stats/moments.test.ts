@@ -5,7 +5,7 @@ import { mean, standardDeviation, sum, variance } from '../../src/stats/moments.
 
 // NIST StRD univariate summary statistics (https://www.itl.nist.gov/div898/strd/univ/), the copies
 // described in shared/reference/README.md. Certified values are parsed from the files themselves.
-const NIST_DIR = fileURLToPath(new URL('../../../shared/reference/nist-strd-univariate/', import.meta.url));
+const NIST_DIR = fileURLToPath(new URL('../reference/nist-strd-univariate/', import.meta.url));
 
 interface StrdDataset {
   readonly name: string;

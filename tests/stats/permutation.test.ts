@@ -12,7 +12,7 @@ const D = Object.freeze([69, 70, 68, 71, 70, 67, 72]);
 
 /** Michelson's speed-of-light measurements (NIST StRD "Michelso", data from line 61), 2 decimals, many ties. */
 const MICHELSON = Object.freeze(
-  readFileSync(new URL('../../../shared/reference/nist-strd-univariate/Michelso.txt', import.meta.url), 'utf8')
+  readFileSync(new URL('../reference/nist-strd-univariate/Michelso.txt', import.meta.url), 'utf8')
     .split('\n')
     .slice(60)
     .map((line) => line.trim())

@@ -12,7 +12,7 @@ function expectRelative(actual: number, expected: number, tolerance = 1e-10): vo
 }
 
 /** Michelson's speed-of-light data (NIST StRD "Michelso"): 5 experiments of 20 runs, our strata. */
-const MICHELSON = readFileSync(new URL('../../../shared/reference/nist-strd-univariate/Michelso.txt', import.meta.url), 'utf8')
+const MICHELSON = readFileSync(new URL('../reference/nist-strd-univariate/Michelso.txt', import.meta.url), 'utf8')
   .split('\n')
   .slice(60)
   .map((line) => line.trim())
