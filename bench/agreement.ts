@@ -56,7 +56,12 @@ export function agreement(seedsiftFile: string, peerFile: string): Agreement {
     }
     matched++;
     maxDifferenceGap = Math.max(maxDifferenceGap, Math.abs(difference - peer.difference));
-    if (typeof p === 'number' && Number.isFinite(p) && typeof peer.welchP === 'number' && Number.isFinite(peer.welchP)) {
+    if (
+      typeof p === 'number' &&
+      Number.isFinite(p) &&
+      typeof peer.welchP === 'number' &&
+      Number.isFinite(peer.welchP)
+    ) {
       maxWelchPGap = Math.max(maxWelchPGap, Math.abs(p - peer.welchP));
     } else welchUndefined++;
   }

@@ -31,7 +31,9 @@ export function median(values: readonly number[]): number {
   if (values.length === 0) throw new RangeError('median: expected at least one value');
   const sorted = [...values].sort((a, b) => a - b);
   const mid = sorted.length >> 1;
-  return sorted.length % 2 === 1 ? (sorted[mid] as number) : ((sorted[mid - 1] as number) + (sorted[mid] as number)) / 2;
+  return sorted.length % 2 === 1
+    ? (sorted[mid] as number)
+    : ((sorted[mid - 1] as number) + (sorted[mid] as number)) / 2;
 }
 
 /** Median wall seconds, median CPU seconds and the largest peak of some samples. */
@@ -48,7 +50,12 @@ export function formatColumns(rows: readonly (readonly string[])[], leftColumns 
   const widths: number[] = [];
   for (const row of rows) row.forEach((cell, i) => (widths[i] = Math.max(widths[i] ?? 0, cell.length)));
   return rows
-    .map((row) => row.map((cell, i) => (i < leftColumns ? cell.padEnd(widths[i] ?? 0) : cell.padStart(widths[i] ?? 0))).join('  ').trimEnd())
+    .map((row) =>
+      row
+        .map((cell, i) => (i < leftColumns ? cell.padEnd(widths[i] ?? 0) : cell.padStart(widths[i] ?? 0)))
+        .join('  ')
+        .trimEnd(),
+    )
     .join('\n');
 }
 
@@ -61,18 +68,42 @@ const loads = (samples: readonly Sample[]): string => {
 
 /** The per-tool table: median (min-max) wall seconds, median CPU seconds, peak MiB, load range. */
 export function timingTable(results: readonly SizeResult[]): string {
-  const rows: string[][] = [['data set', 'runs', 'steps', 'MiB on disk', 'tool', 'n', 'wall s median', 'min-max', 'CPU s', 'peak MiB', 'load 1m']];
+  const rows: string[][] = [
+    [
+      'data set',
+      'runs',
+      'steps',
+      'MiB on disk',
+      'tool',
+      'n',
+      'wall s median',
+      'min-max',
+      'CPU s',
+      'peak MiB',
+      'load 1m',
+    ],
+  ];
   for (const r of results) {
     const head = [r.size.name, String(runCount(r.size.spec)), r.size.spec.steps.toLocaleString('en'), mib(r.dataMiB)];
     const line = (tool: string, samples: readonly Sample[], first: boolean): string[] => {
       const t = summarize(samples);
       const walls = samples.map((s) => s.measurement.wallSeconds);
-      return [...(first ? head : ['', '', '', '']), tool, String(samples.length), s2(t.wall), `${s2(Math.min(...walls))}-${s2(Math.max(...walls))}`, s2(t.cpu), mib(t.peak), loads(samples)];
+      return [
+        ...(first ? head : ['', '', '', '']),
+        tool,
+        String(samples.length),
+        s2(t.wall),
+        `${s2(Math.min(...walls))}-${s2(Math.max(...walls))}`,
+        s2(t.cpu),
+        mib(t.peak),
+        loads(samples),
+      ];
     };
     rows.push(line('seedsift (JSON)', r.seedsift, true));
     if (r.peer !== null) rows.push(line('peer (pandas/scipy)', r.peer, false));
     else rows.push(['', '', '', '', 'peer', '-', 'not run', '', '', '', '']);
-    if (typeof r.html === 'string') rows.push(['', '', '', '', 'seedsift (JSON + HTML)', '-', 'failed', '', '', '', '']);
+    if (typeof r.html === 'string')
+      rows.push(['', '', '', '', 'seedsift (JSON + HTML)', '-', 'failed', '', '', '', '']);
     else if (r.html !== null) rows.push(line('seedsift (JSON + HTML)', [r.html], false));
   }
   return formatColumns(rows, 1);
@@ -80,7 +111,17 @@ export function timingTable(results: readonly SizeResult[]): string {
 
 /** Per data set: speed-up, memory ratio, the HTML report's extra cost, and the agreement check. */
 export function ratioTable(results: readonly SizeResult[]): string {
-  const rows: string[][] = [['data set', 'speed-up (peer/seedsift wall)', 'CPU ratio', 'memory (seedsift/peer)', 'HTML extra s', 'HTML extra MiB', 'agreement with peer']];
+  const rows: string[][] = [
+    [
+      'data set',
+      'speed-up (peer/seedsift wall)',
+      'CPU ratio',
+      'memory (seedsift/peer)',
+      'HTML extra s',
+      'HTML extra MiB',
+      'agreement with peer',
+    ],
+  ];
   for (const r of results) {
     const own = summarize(r.seedsift);
     const peer = r.peer === null ? null : summarize(r.peer);
@@ -93,7 +134,9 @@ export function ratioTable(results: readonly SizeResult[]): string {
       peer === null ? '-' : s2(own.peak / peer.peak),
       html === null ? '-' : `${html.wallSeconds - own.wall >= 0 ? '+' : ''}${s2(html.wallSeconds - own.wall)}`,
       html === null ? '-' : `${html.peakMiB - own.peak >= 0 ? '+' : ''}${mib(html.peakMiB - own.peak)}`,
-      a === null ? '-' : `${a.matched} matched, ${a.unmatched} not; max |diff gap| ${a.maxDifferenceGap.toExponential(1)}, max |Welch p gap| ${a.maxWelchPGap.toExponential(1)} (${a.welchUndefined} without a Welch p on one side)`,
+      a === null
+        ? '-'
+        : `${a.matched} matched, ${a.unmatched} not; max |diff gap| ${a.maxDifferenceGap.toExponential(1)}, max |Welch p gap| ${a.maxWelchPGap.toExponential(1)} (${a.welchUndefined} without a Welch p on one side)`,
     ]);
   }
   return formatColumns(rows, 1);
@@ -106,7 +149,9 @@ export function scalingTable(results: readonly SizeResult[]): string {
   if (first === undefined) return '(scaling series not run)';
   const base = summarize(first.seedsift);
   const peerBase = first.peer === null ? null : summarize(first.peer);
-  const rows: string[][] = [['data set', 'runs', 'comparisons', 'seedsift wall s', 'x 1x', 'seedsift CPU s', 'x 1x', 'peer wall s', 'x 1x']];
+  const rows: string[][] = [
+    ['data set', 'runs', 'comparisons', 'seedsift wall s', 'x 1x', 'seedsift CPU s', 'x 1x', 'peer wall s', 'x 1x'],
+  ];
   for (const r of series) {
     const own = summarize(r.seedsift);
     const peer = r.peer === null ? null : summarize(r.peer);

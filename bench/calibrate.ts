@@ -81,7 +81,12 @@ export interface SimulationOptions {
 }
 
 /** Rejection rate at `alpha` of each test (or of the listed ones) under the scenario's null, n per arm. */
-export function typeIErrors(scenario: Scenario, n: number, opts: SimulationOptions, tests: readonly TestName[] = TESTS): Record<TestName, Proportion | undefined> {
+export function typeIErrors(
+  scenario: Scenario,
+  n: number,
+  opts: SimulationOptions,
+  tests: readonly TestName[] = TESTS,
+): Record<TestName, Proportion | undefined> {
   const [dx, dy] = SCENARIOS[scenario];
   const cell = `type-I/${scenario}/${n}`;
   const data = createRandom(deriveSeed(opts.seed, `${cell}/data`));
@@ -91,10 +96,15 @@ export function typeIErrors(scenario: Scenario, n: number, opts: SimulationOptio
   const errors = { welch: 0, permutation: 0, mannWhitney: 0, bootstrapExcludesZero: 0 };
   const run: Record<TestName, (x: Float64Array, y: Float64Array) => boolean> = {
     welch: (x, y) => welch(x, y).p <= opts.alpha,
-    permutation: (x, y) => permutationTest(x, y, permutationRandom, { resamples: opts.permutationResamples }).p <= opts.alpha,
+    permutation: (x, y) =>
+      permutationTest(x, y, permutationRandom, { resamples: opts.permutationResamples }).p <= opts.alpha,
     mannWhitney: (x, y) => mannWhitney(x, y).p <= opts.alpha,
     bootstrapExcludesZero: (x, y) => {
-      const r = bootstrapMeanDifference(x, y, bootstrapRandom, { method: 'percentile', resamples: opts.resamples, level: 1 - opts.alpha });
+      const r = bootstrapMeanDifference(x, y, bootstrapRandom, {
+        method: 'percentile',
+        resamples: opts.resamples,
+        level: 1 - opts.alpha,
+      });
       return r.low > 0 || r.high < 0;
     },
   };
@@ -110,7 +120,12 @@ export function typeIErrors(scenario: Scenario, n: number, opts: SimulationOptio
       }
     }
   }
-  const out: Record<TestName, Proportion | undefined> = { welch: undefined, permutation: undefined, mannWhitney: undefined, bootstrapExcludesZero: undefined };
+  const out: Record<TestName, Proportion | undefined> = {
+    welch: undefined,
+    permutation: undefined,
+    mannWhitney: undefined,
+    bootstrapExcludesZero: undefined,
+  };
   for (const test of tests) out[test] = proportion(hits[test], opts.reps - errors[test], errors[test]);
   return out;
 }
@@ -139,7 +154,13 @@ export function coverage(
   const truth = DISTRIBUTIONS[distribution].mean;
   const cell = `coverage/${distribution}/${n}`;
   const data = createRandom(deriveSeed(opts.seed, `${cell}/data`));
-  const out: Record<IntervalName, CoverageResult | undefined> = { t: undefined, percentile: undefined, 'expanded-percentile': undefined, bca: undefined, 'bootstrap-t': undefined };
+  const out: Record<IntervalName, CoverageResult | undefined> = {
+    t: undefined,
+    percentile: undefined,
+    'expanded-percentile': undefined,
+    bca: undefined,
+    'bootstrap-t': undefined,
+  };
   const tallies = intervals.map((name) => ({
     name,
     random: createRandom(deriveSeed(opts.seed, `${cell}/${name}`)),
@@ -156,7 +177,11 @@ export function coverage(
         bounds =
           tally.name === 't'
             ? tInterval(x, level)
-            : bootstrapMean(x, tally.random, { method: tally.name as BootstrapMethod, resamples: opts.resamples, level });
+            : bootstrapMean(x, tally.random, {
+                method: tally.name as BootstrapMethod,
+                resamples: opts.resamples,
+                level,
+              });
       } catch (error) {
         if (!(error instanceof RangeError)) throw error;
         tally.errors++;
@@ -169,7 +194,11 @@ export function coverage(
   }
   for (const t of tallies) {
     const trials = opts.reps - t.errors;
-    out[t.name] = { ...proportion(t.hits, trials, t.errors), infinite: t.infinite / Math.max(1, trials), medianWidth: median(t.widths) };
+    out[t.name] = {
+      ...proportion(t.hits, trials, t.errors),
+      infinite: t.infinite / Math.max(1, trials),
+      medianWidth: median(t.widths),
+    };
   }
   return out;
 }
@@ -178,7 +207,9 @@ function median(values: readonly number[]): number {
   if (values.length === 0) return NaN;
   const sorted = Float64Array.from(values).sort();
   const mid = sorted.length >> 1;
-  return sorted.length % 2 === 1 ? (sorted[mid] as number) : ((sorted[mid - 1] as number) + (sorted[mid] as number)) / 2;
+  return sorted.length % 2 === 1
+    ? (sorted[mid] as number)
+    : ((sorted[mid - 1] as number) + (sorted[mid] as number)) / 2;
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -217,11 +248,18 @@ function compare(where: string, ours: Proportion | undefined, methods: number | 
 // ---------------------------------------------------------------------------------------------
 // Printing
 
-const fmt = (p: Proportion | undefined): string => (p === undefined || !(p.trials > 0) ? '-' : `${p.rate.toFixed(3)} ±${p.se.toFixed(3)}${p.errors > 0 ? ` (${p.errors} failed)` : ''}`);
+const fmt = (p: Proportion | undefined): string =>
+  p === undefined || !(p.trials > 0)
+    ? '-'
+    : `${p.rate.toFixed(3)} ±${p.se.toFixed(3)}${p.errors > 0 ? ` (${p.errors} failed)` : ''}`;
 
 function table(header: readonly string[], rows: readonly (readonly string[])[]): string {
   const widths = header.map((h, k) => Math.max(h.length, ...rows.map((r) => (r[k] ?? '').length)));
-  const line = (cells: readonly string[]): string => cells.map((c, k) => c.padEnd(widths[k] as number)).join('  ').trimEnd();
+  const line = (cells: readonly string[]): string =>
+    cells
+      .map((c, k) => c.padEnd(widths[k] as number))
+      .join('  ')
+      .trimEnd();
   return [line(header), line(widths.map((w) => '-'.repeat(w))), ...rows.map(line)].join('\n');
 }
 
@@ -264,10 +302,13 @@ function main(argv: readonly string[]): void {
   };
   const sizes = values.sizes.split(',').map((s) => integer('sizes', s.trim(), 2));
   const only = values.only;
-  if (!['type-i', 'coverage', 'both'].includes(only)) throw new RangeError(`--only: expected type-i, coverage or both, got ${only}`);
+  if (!['type-i', 'coverage', 'both'].includes(only))
+    throw new RangeError(`--only: expected type-i, coverage or both, got ${only}`);
   const started = performance.now();
-  console.log(`seedsift calibration: ${opts.reps} replications per cell, B = ${opts.resamples} bootstrap resamples, ` +
-    `${opts.permutationResamples} random relabelings when a permutation test cannot enumerate, seed ${opts.seed}.`);
+  console.log(
+    `seedsift calibration: ${opts.reps} replications per cell, B = ${opts.resamples} bootstrap resamples, ` +
+      `${opts.permutationResamples} random relabelings when a permutation test cannot enumerate, seed ${opts.seed}.`,
+  );
   console.log('Each cell: Monte Carlo proportion ± its standard error sqrt(p(1-p)/reps).\n');
   const comparisons: Comparison[] = [];
 
@@ -278,12 +319,15 @@ function main(argv: readonly string[]): void {
       for (const scenario of Object.keys(SCENARIOS) as Scenario[]) {
         const r = typeIErrors(scenario, n, opts);
         rows.push([String(n), scenario, ...TESTS.map((t) => fmt(r[t]))]);
-        for (const t of TESTS) compare(`type-I ${scenario}, n = ${n}, ${t}`, r[t], METHODS_TYPE_I[`${scenario}/${n}`]?.[t], comparisons);
+        for (const t of TESTS)
+          compare(`type-I ${scenario}, n = ${n}, ${t}`, r[t], METHODS_TYPE_I[`${scenario}/${n}`]?.[t], comparisons);
       }
     }
     console.log(table(['n', 'scenario', 'Welch t', 'permutation', 'Mann-Whitney', 'bootstrap CI excludes 0'], rows));
-    console.log(`(permutation: exact while C(2n, n) <= 200,000, so up to n = 10; Monte Carlo with ${opts.permutationResamples} relabelings above. ` +
-      'Mann-Whitney: exact distribution, the data have no ties. Bootstrap: percentile interval of the difference, resampling within arms.)\n');
+    console.log(
+      `(permutation: exact while C(2n, n) <= 200,000, so up to n = 10; Monte Carlo with ${opts.permutationResamples} relabelings above. ` +
+        'Mann-Whitney: exact distribution, the data have no ties. Bootstrap: percentile interval of the difference, resampling within arms.)\n',
+    );
   }
 
   if (only !== 'type-i') {
@@ -298,10 +342,23 @@ function main(argv: readonly string[]): void {
           bt !== undefined && r.t !== undefined && Number.isFinite(bt.medianWidth) && bt.infinite < 0.5
             ? `median width bootstrap-t / t ${(bt.medianWidth / r.t.medianWidth).toFixed(2)}`
             : '',
-        ].filter((s) => s !== '').join('; ');
-        rows.push([String(n), distribution === 'lognormal' ? 'lognormal(0,1)' : 'normal', ...INTERVALS.map((i) => fmt(r[i])), extra]);
+        ]
+          .filter((s) => s !== '')
+          .join('; ');
+        rows.push([
+          String(n),
+          distribution === 'lognormal' ? 'lognormal(0,1)' : 'normal',
+          ...INTERVALS.map((i) => fmt(r[i])),
+          extra,
+        ]);
         for (const i of INTERVALS) {
-          if (!(i === 'bootstrap-t' && n === 3)) compare(`coverage ${distribution}, n = ${n}, ${i}`, r[i], METHODS_COVERAGE[`${distribution}/${n}`]?.[i], comparisons);
+          if (!(i === 'bootstrap-t' && n === 3))
+            compare(
+              `coverage ${distribution}, n = ${n}, ${i}`,
+              r[i],
+              METHODS_COVERAGE[`${distribution}/${n}`]?.[i],
+              comparisons,
+            );
         }
       }
     }
@@ -314,16 +371,23 @@ function main(argv: readonly string[]): void {
 }
 
 function printNote(comparisons: readonly Comparison[], opts: SimulationOptions): void {
-  console.log(`Comparison with METHODS.md's table (${METHODS_REPS.toLocaleString('en')} replications, B = 2,000): ${comparisons.length} cells in common.`);
+  console.log(
+    `Comparison with METHODS.md's table (${METHODS_REPS.toLocaleString('en')} replications, B = 2,000): ${comparisons.length} cells in common.`,
+  );
   if (comparisons.length === 0) return;
   const off = comparisons.filter((c) => Math.abs(c.z) > 3);
   const worst = comparisons.reduce((a, b) => (Math.abs(b.z) > Math.abs(a.z) ? b : a));
-  console.log(`Largest difference: ${worst.where}: ${worst.ours.rate.toFixed(3)} here vs ${worst.methods.toFixed(3)} in METHODS.md (z = ${worst.z.toFixed(1)}).`);
+  console.log(
+    `Largest difference: ${worst.where}: ${worst.ours.rate.toFixed(3)} here vs ${worst.methods.toFixed(3)} in METHODS.md (z = ${worst.z.toFixed(1)}).`,
+  );
   if (off.length === 0) {
     console.log('Every common cell agrees within 3 combined Monte Carlo standard errors.');
   } else {
     console.log(`${off.length} cells differ by more than 3 combined Monte Carlo standard errors:`);
-    for (const c of off) console.log(`  ${c.where}: ${c.ours.rate.toFixed(3)} ±${c.ours.se.toFixed(3)} vs ${c.methods.toFixed(3)} (z = ${c.z.toFixed(1)})`);
+    for (const c of off)
+      console.log(
+        `  ${c.where}: ${c.ours.rate.toFixed(3)} ±${c.ours.se.toFixed(3)} vs ${c.methods.toFixed(3)} (z = ${c.z.toFixed(1)})`,
+      );
   }
   if (opts.resamples !== 2000) {
     console.log(`Bootstrap cells here used B = ${opts.resamples} resamples, METHODS.md used B = 2,000.`);

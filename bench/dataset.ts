@@ -23,11 +23,26 @@ export function ensureDataset(makeRuns: string, dir: string, spec: RunsSpec): bo
   const stampFile = join(dir, STAMP);
   if (existsSync(stampFile) && readFileSync(stampFile, 'utf8') === stamp) return false;
   rmSync(dir, { recursive: true, force: true });
-  const args = [makeRuns, '--out', dir, '--configs', String(spec.configs), '--seeds', String(spec.seeds),
-    '--steps', String(spec.steps), '--metrics', String(spec.metrics), '--ticks', String(spec.ticks)];
+  const args = [
+    makeRuns,
+    '--out',
+    dir,
+    '--configs',
+    String(spec.configs),
+    '--seeds',
+    String(spec.seeds),
+    '--steps',
+    String(spec.steps),
+    '--metrics',
+    String(spec.metrics),
+    '--ticks',
+    String(spec.ticks),
+  ];
   const result = spawnSync(SYSTEM_PYTHON, args, { encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'] });
   if (result.status !== 0) {
-    throw new Error(`make_runs.py failed (exit ${result.status ?? result.signal}): ${result.stderr || result.error?.message}`);
+    throw new Error(
+      `make_runs.py failed (exit ${result.status ?? result.signal}): ${result.stderr || result.error?.message}`,
+    );
   }
   writeFileSync(stampFile, stamp);
   return true;

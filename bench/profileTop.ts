@@ -25,8 +25,20 @@ interface CpuProfile {
 
 /** Inclusive times are printed for these function names when they appear. */
 const PIPELINE = [
-  'ingest', 'resolveOptions', 'analyze', 'learningCurves', 'compareFamily', 'tickCurves', 'metricValues',
-  'bootstrapMeanDifference', 'bootstrapMean', 'permutationTest', 'mannWhitney', 'welch', 'renderReport', 'resultsJson',
+  'ingest',
+  'resolveOptions',
+  'analyze',
+  'learningCurves',
+  'compareFamily',
+  'tickCurves',
+  'metricValues',
+  'bootstrapMeanDifference',
+  'bootstrapMean',
+  'permutationTest',
+  'mannWhitney',
+  'welch',
+  'renderReport',
+  'resultsJson',
 ];
 
 /** The area a frame belongs to, from its URL. */
@@ -48,7 +60,11 @@ function area(url: string, name: string): string {
 }
 
 function main(argv: readonly string[]): void {
-  const { values, positionals } = parseArgs({ args: [...argv], allowPositionals: true, options: { top: { type: 'string', default: '10' } } });
+  const { values, positionals } = parseArgs({
+    args: [...argv],
+    allowPositionals: true,
+    options: { top: { type: 'string', default: '10' } },
+  });
   const file = positionals[0];
   if (file === undefined) throw new RangeError('usage: npx tsx bench/profileTop.ts FILE.cpuprofile [--top N]');
   const profile = JSON.parse(readFileSync(file, 'utf8')) as CpuProfile;
@@ -59,8 +75,10 @@ function main(argv: readonly string[]): void {
   const self = new Map<number, number>();
   profile.samples.forEach((id, i) => self.set(id, (self.get(id) ?? 0) + (profile.timeDeltas[i] ?? 0)));
   const total = [...self.values()].reduce((a, b) => a + b, 0);
-  const ms = (us: number): string => `${(us / 1000).toFixed(0).padStart(7)} ms ${((100 * us) / total).toFixed(1).padStart(5)}%`;
-  const where = (n: ProfileNode): string => `${n.callFrame.url.replace(/^file:\/\/.*?\/(src|node_modules)\//, '$1/')}:${n.callFrame.lineNumber + 1}`;
+  const ms = (us: number): string =>
+    `${(us / 1000).toFixed(0).padStart(7)} ms ${((100 * us) / total).toFixed(1).padStart(5)}%`;
+  const where = (n: ProfileNode): string =>
+    `${n.callFrame.url.replace(/^file:\/\/.*?\/(src|node_modules)\//, '$1/')}:${n.callFrame.lineNumber + 1}`;
 
   const fnSelf = new Map<string, { us: number; node: ProfileNode }>();
   const areaSelf = new Map<string, number>();
@@ -72,8 +90,11 @@ function main(argv: readonly string[]): void {
     const a = area(n.callFrame.url, n.callFrame.functionName);
     areaSelf.set(a, (areaSelf.get(a) ?? 0) + us);
   }
-  console.log(`${file}: ${(total / 1000).toFixed(0)} ms sampled on the main thread\n\nTop ${values.top} functions by self time:`);
-  for (const [key, v] of [...fnSelf].sort((a, b) => b[1].us - a[1].us).slice(0, Number(values.top))) console.log(`${ms(v.us)}  ${key}`);
+  console.log(
+    `${file}: ${(total / 1000).toFixed(0)} ms sampled on the main thread\n\nTop ${values.top} functions by self time:`,
+  );
+  for (const [key, v] of [...fnSelf].sort((a, b) => b[1].us - a[1].us).slice(0, Number(values.top)))
+    console.log(`${ms(v.us)}  ${key}`);
   console.log('\nSelf time by area:');
   const areas = [...areaSelf].sort((x, y) => y[1] - x[1]);
   for (const [a, us] of areas.slice(0, 14)) console.log(`${ms(us)}  ${a}`);

@@ -56,18 +56,29 @@ function parseOptions(argv: readonly string[]): BenchOptions | null {
     },
   });
   if (values.help) return null;
-  const groups = values.sizes.split(',').map((s) => s.trim()).filter((s) => s !== '');
+  const groups = values.sizes
+    .split(',')
+    .map((s) => s.trim())
+    .filter((s) => s !== '');
   for (const g of groups) {
-    if (!(SIZE_GROUPS as readonly string[]).includes(g)) throw new RangeError(`--sizes: expected some of ${SIZE_GROUPS.join(', ')}, got '${g}'`);
+    if (!(SIZE_GROUPS as readonly string[]).includes(g))
+      throw new RangeError(`--sizes: expected some of ${SIZE_GROUPS.join(', ')}, got '${g}'`);
   }
   if (values.large && !groups.includes('large')) groups.push('large');
   const count = (name: string, text: string, min: number): number => {
     const n = Number(text);
-    if (!Number.isInteger(n) || n < min) throw new RangeError(`--${name}: expected a whole number >= ${min}, got '${text}'`);
+    if (!Number.isInteger(n) || n < min)
+      throw new RangeError(`--${name}: expected a whole number >= ${min}, got '${text}'`);
     return n;
   };
-  if (!(ENTRIES as readonly string[]).includes(values.entry)) throw new RangeError(`--entry: expected one of ${ENTRIES.join(', ')}, got '${values.entry}'`);
-  return { groups: groups as SizeGroup[], entry: values.entry as Entry, repeats: count('repeats', values.repeats, 1), warmup: count('warmup', values.warmup, 0) };
+  if (!(ENTRIES as readonly string[]).includes(values.entry))
+    throw new RangeError(`--entry: expected one of ${ENTRIES.join(', ')}, got '${values.entry}'`);
+  return {
+    groups: groups as SizeGroup[],
+    entry: values.entry as Entry,
+    repeats: count('repeats', values.repeats, 1),
+    warmup: count('warmup', values.warmup, 0),
+  };
 }
 
 /**
@@ -80,9 +91,11 @@ function seedsiftCommand(entry: Entry): { args: string[]; label: string } {
   const sources = { args: ['--import', 'tsx', 'src/cli/main.ts'], label: 'node --import tsx src/cli/main.ts' };
   if (entry === 'dist') return compiled;
   if (entry === 'src') return sources;
-  if (!existsSync(join(ROOT, compiled.args[0] as string))) return { ...sources, label: `${sources.label} (no dist/ build)` };
+  if (!existsSync(join(ROOT, compiled.args[0] as string)))
+    return { ...sources, label: `${sources.label} (no dist/ build)` };
   const stale = staleBuild();
-  if (stale !== null) return { ...sources, label: `${sources.label} (dist/ is older than ${stale}; --entry dist to use it anyway)` };
+  if (stale !== null)
+    return { ...sources, label: `${sources.label} (dist/ is older than ${stale}; --entry dist to use it anyway)` };
   return compiled;
 }
 
@@ -104,7 +117,9 @@ function sample(command: string, args: readonly string[]): Sample {
 
 function progress(size: string, tool: string, label: string, s: Sample): void {
   const m = s.measurement;
-  console.log(`  ${size} ${tool} ${label}: wall ${m.wallSeconds.toFixed(2)} s, CPU ${m.cpuSeconds.toFixed(2)} s, peak ${m.peakMiB.toFixed(0)} MiB, load ${s.loadBefore.toFixed(2)}`);
+  console.log(
+    `  ${size} ${tool} ${label}: wall ${m.wallSeconds.toFixed(2)} s, CPU ${m.cpuSeconds.toFixed(2)} s, peak ${m.peakMiB.toFixed(0)} MiB, load ${s.loadBefore.toFixed(2)}`,
+  );
 }
 
 function benchSize(size: BenchSize, options: BenchOptions, seedsift: readonly string[]): SizeResult {
@@ -113,14 +128,23 @@ function benchSize(size: BenchSize, options: BenchOptions, seedsift: readonly st
   const generated = ensureDataset(join(PEER_DIR, 'make_runs.py'), dir, size.spec);
   const dataMiB = bytesOnDisk(dir) / 2 ** 20;
   const baseline = peerBaseline(configsOnDisk(dir));
-  console.log(`${size.name}: ${runCount(size.spec)} runs (${size.spec.configs} configs x ${size.spec.seeds} seeds) x ${size.spec.steps} steps, ${size.spec.metrics} metrics, ${size.spec.ticks} ticks; ${dataMiB.toFixed(0)} MiB ${generated ? `generated in ${((performance.now() - started) / 1000).toFixed(1)} s` : 'reused'}; baseline ${baseline}`);
+  console.log(
+    `${size.name}: ${runCount(size.spec)} runs (${size.spec.configs} configs x ${size.spec.seeds} seeds) x ${size.spec.steps} steps, ${size.spec.metrics} metrics, ${size.spec.ticks} ticks; ${dataMiB.toFixed(0)} MiB ${generated ? `generated in ${((performance.now() - started) / 1000).toFixed(1)} s` : 'reused'}; baseline ${baseline}`,
+  );
 
   const out = join(OUT, size.name);
   mkdirSync(out, { recursive: true });
   const rel = (p: string): string => relative(ROOT, p);
   const ownJson = join(out, 'seedsift.json');
   const peerJson = join(out, 'peer.json');
-  const reportArgs = (...outputs: string[]): string[] => [...seedsift, 'report', rel(dir), ...outputs, '--baseline', baseline];
+  const reportArgs = (...outputs: string[]): string[] => [
+    ...seedsift,
+    'report',
+    rel(dir),
+    ...outputs,
+    '--baseline',
+    baseline,
+  ];
   const ownArgs = reportArgs('--json', rel(ownJson));
   const peerArgs = [join(PEER_DIR, 'reference_pipeline.py'), rel(dir), '--out', rel(peerJson), '--baseline', baseline];
   const runPeer = size.peerSkipped === null;
@@ -143,10 +167,17 @@ function benchSize(size: BenchSize, options: BenchOptions, seedsift: readonly st
   let html: Sample | string | null = null;
   if (size.html) {
     try {
-      html = sample(process.execPath, reportArgs('--json', rel(join(out, 'seedsift-html.json')), '-o', rel(join(out, 'report.html'))));
+      html = sample(
+        process.execPath,
+        reportArgs('--json', rel(join(out, 'seedsift-html.json')), '-o', rel(join(out, 'report.html'))),
+      );
       progress(size.name, 'seedsift', 'with HTML', html);
     } catch (error) {
-      html = (error as Error).message.split('\n').filter((l) => l.startsWith('seedsift:')).join(' ') || (error as Error).message;
+      html =
+        (error as Error).message
+          .split('\n')
+          .filter((l) => l.startsWith('seedsift:'))
+          .join(' ') || (error as Error).message;
       console.log(`  ${size.name} seedsift with HTML: FAILED: ${html}`);
     }
   }
@@ -183,16 +214,22 @@ function main(argv: readonly string[]): void {
   const seedsift = seedsiftCommand(options.entry);
   const header = [
     `seedsift bench, ${new Date().toISOString()}`,
-    `Node ${process.version}; ${cpus().length} x ${cpus()[0]?.model ?? 'unknown CPU'}; load average at start ${loadavg().map((l) => l.toFixed(2)).join(' ')}`,
+    `Node ${process.version}; ${cpus().length} x ${cpus()[0]?.model ?? 'unknown CPU'}; load average at start ${loadavg()
+      .map((l) => l.toFixed(2))
+      .join(' ')}`,
     `seedsift: ${seedsift.label} report DIR --json OUT --baseline B   (HTML run adds -o report.html)`,
     `peer:     ${SYSTEM_PYTHON} bench/peer/reference_pipeline.py DIR --out OUT --baseline B`,
     `${options.repeats} timed runs of each tool per data set, in turns (ABBA), after ${options.warmup} untimed warm-up run(s); wall = median; peak = largest of the runs (GNU time, max RSS)`,
   ].join('\n');
   console.log(header);
-  const results = BENCH_SIZES.filter((s) => options.groups.includes(s.group)).map((s) => benchSize(s, options, seedsift.args));
+  const results = BENCH_SIZES.filter((s) => options.groups.includes(s.group)).map((s) =>
+    benchSize(s, options, seedsift.args),
+  );
   const text = [
     header,
-    `load average at end ${loadavg().map((l) => l.toFixed(2)).join(' ')}`,
+    `load average at end ${loadavg()
+      .map((l) => l.toFixed(2))
+      .join(' ')}`,
     '',
     timingTable(results),
     '',

@@ -38,11 +38,41 @@ const STEPS = 20_000;
  * test C(40, 20) = 1.4e11 splits). Comparisons grow 1, 3, 7 per metric (6, 18, 42 in all).
  */
 export const BENCH_SIZES: readonly BenchSize[] = [
-  { name: 'small', group: 'small', spec: { configs: 4, seeds: 5, steps: 2_000, metrics: 6, ticks: 0 }, peerSkipped: null, html: true },
-  { name: 'medium', group: 'medium', spec: { configs: 4, seeds: 10, steps: STEPS, metrics: 6, ticks: 8 }, peerSkipped: null, html: true },
-  { name: 'scaling-1x', group: 'scaling', spec: { configs: 2, seeds: 10, steps: STEPS, metrics: 6, ticks: 0 }, peerSkipped: null, html: false },
-  { name: 'scaling-2x', group: 'scaling', spec: { configs: 4, seeds: 10, steps: STEPS, metrics: 6, ticks: 0 }, peerSkipped: null, html: false },
-  { name: 'scaling-4x', group: 'scaling', spec: { configs: 8, seeds: 10, steps: STEPS, metrics: 6, ticks: 0 }, peerSkipped: null, html: false },
+  {
+    name: 'small',
+    group: 'small',
+    spec: { configs: 4, seeds: 5, steps: 2_000, metrics: 6, ticks: 0 },
+    peerSkipped: null,
+    html: true,
+  },
+  {
+    name: 'medium',
+    group: 'medium',
+    spec: { configs: 4, seeds: 10, steps: STEPS, metrics: 6, ticks: 8 },
+    peerSkipped: null,
+    html: true,
+  },
+  {
+    name: 'scaling-1x',
+    group: 'scaling',
+    spec: { configs: 2, seeds: 10, steps: STEPS, metrics: 6, ticks: 0 },
+    peerSkipped: null,
+    html: false,
+  },
+  {
+    name: 'scaling-2x',
+    group: 'scaling',
+    spec: { configs: 4, seeds: 10, steps: STEPS, metrics: 6, ticks: 0 },
+    peerSkipped: null,
+    html: false,
+  },
+  {
+    name: 'scaling-4x',
+    group: 'scaling',
+    spec: { configs: 8, seeds: 10, steps: STEPS, metrics: 6, ticks: 0 },
+    peerSkipped: null,
+    html: false,
+  },
   {
     name: 'large',
     group: 'large',

@@ -45,11 +45,17 @@ async function main(argv: readonly string[]): Promise<void> {
   console.log(`start      RSS ${(process.memoryUsage().rss / MiB).toFixed(0)} MiB after loading the modules`);
   const runSet = await stage('ingest', () => ingest(paths, resolveIngestOptions({})));
   const options = await stage('resolve', () => resolveOptions({ baseline: values.baseline ?? null }, runSet));
-  const results = await stage('analyze', () => analyze(runSet, options, { paths, generated: new Date(0).toISOString(), version: 'bench' }));
+  const results = await stage('analyze', () =>
+    analyze(runSet, options, { paths, generated: new Date(0).toISOString(), version: 'bench' }),
+  );
   const json = await stage('json', () => resultsJson(results));
-  console.log(`           results.json ${(json.length / MiB).toFixed(1)} MiB; ${results.comparisons.length} comparisons, ${results.curves.length} curves`);
+  console.log(
+    `           results.json ${(json.length / MiB).toFixed(1)} MiB; ${results.comparisons.length} comparisons, ${results.curves.length} curves`,
+  );
   if (values.html) {
-    const html = await stage('html', () => renderReport(results, readFileSync(DEFAULT_NOTEBOOK, 'utf8'), 'templates/notebook.md'));
+    const html = await stage('html', () =>
+      renderReport(results, readFileSync(DEFAULT_NOTEBOOK, 'utf8'), 'templates/notebook.md'),
+    );
     console.log(`           report.html ${(html.length / MiB).toFixed(1)} MiB`);
   }
 }

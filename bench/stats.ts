@@ -34,18 +34,23 @@ function time<T>(runs: number, work: () => T): { ms: number[]; last: T } {
 
 const median = (sorted: readonly number[]): number => {
   const mid = sorted.length >> 1;
-  return sorted.length % 2 === 1 ? (sorted[mid] as number) : ((sorted[mid - 1] as number) + (sorted[mid] as number)) / 2;
+  return sorted.length % 2 === 1
+    ? (sorted[mid] as number)
+    : ((sorted[mid - 1] as number) + (sorted[mid] as number)) / 2;
 };
 
 function report(label: string, ms: readonly number[], detail: string): void {
   const f = (v: number): string => v.toFixed(1);
-  console.log(`${label}: median ${f(median(ms))} ms (min ${f(ms[0] as number)}, max ${f(ms[ms.length - 1] as number)}, ${ms.length} runs)  ${detail}`);
+  console.log(
+    `${label}: median ${f(median(ms))} ms (min ${f(ms[0] as number)}, max ${f(ms[ms.length - 1] as number)}, ${ms.length} runs)  ${detail}`,
+  );
 }
 
 function main(argv: readonly string[]): void {
   const { values } = parseArgs({ args: [...argv], options: { runs: { type: 'string', default: '9' } } });
   const runs = Number(values.runs);
-  if (!Number.isInteger(runs) || runs < 1) throw new RangeError(`--runs: expected a positive integer, got ${values.runs}`);
+  if (!Number.isInteger(runs) || runs < 1)
+    throw new RangeError(`--runs: expected a positive integer, got ${values.runs}`);
   const data = createRandom(2024);
   const x = arm(data, 10, 71.5);
   const y = arm(data, 10, 70);
@@ -53,11 +58,19 @@ function main(argv: readonly string[]): void {
 
   const bca = time(runs, () => bootstrapMeanDifference(x, y, createRandom(1), { method: 'bca', resamples: 10_000 }));
   const b = bca.last;
-  report('BCa interval, 10 v 10, 10,000 resamples', bca.ms, `[${b.low.toFixed(3)}, ${b.high.toFixed(3)}] for difference ${b.estimate.toFixed(3)}`);
+  report(
+    'BCa interval, 10 v 10, 10,000 resamples',
+    bca.ms,
+    `[${b.low.toFixed(3)}, ${b.high.toFixed(3)}] for difference ${b.estimate.toFixed(3)}`,
+  );
 
   const permutation = time(runs, () => permutationTest(x, y, createRandom(1)));
   const p = permutation.last;
-  report('exact permutation test, 10 v 10', permutation.ms, `${p.splits.toLocaleString('en')} splits, exact ${p.exact}, p = ${p.p.toPrecision(4)}`);
+  report(
+    'exact permutation test, 10 v 10',
+    permutation.ms,
+    `${p.splits.toLocaleString('en')} splits, exact ${p.exact}, p = ${p.p.toPrecision(4)}`,
+  );
 }
 
 main(process.argv.slice(2));

@@ -29,12 +29,28 @@ export function checkTargets(results: readonly SizeResult[]): TargetCheck[] {
     const own = summarize(medium.seedsift);
     const peer = summarize(medium.peer);
     const speedUp = peer.wall / own.wall;
-    checks.push({ target: 'medium: seedsift at least 3x faster than the peer', measured: `${speedUp.toFixed(2)}x (${own.wall.toFixed(2)} s vs ${peer.wall.toFixed(2)} s median wall)`, met: speedUp >= 3 });
+    checks.push({
+      target: 'medium: seedsift at least 3x faster than the peer',
+      measured: `${speedUp.toFixed(2)}x (${own.wall.toFixed(2)} s vs ${peer.wall.toFixed(2)} s median wall)`,
+      met: speedUp >= 3,
+    });
     const ratio = own.peak / peer.peak;
-    checks.push({ target: 'medium: seedsift peak memory at most half of the peer\'s', measured: `${ratio.toFixed(2)} of the peer's (${own.peak.toFixed(0)} MiB vs ${peer.peak.toFixed(0)} MiB)`, met: ratio <= 0.5 });
+    checks.push({
+      target: "medium: seedsift peak memory at most half of the peer's",
+      measured: `${ratio.toFixed(2)} of the peer's (${own.peak.toFixed(0)} MiB vs ${peer.peak.toFixed(0)} MiB)`,
+      met: ratio <= 0.5,
+    });
   } else {
-    checks.push({ target: 'medium: seedsift at least 3x faster than the peer', measured: 'not run (--sizes medium)', met: null });
-    checks.push({ target: 'medium: seedsift peak memory at most half of the peer\'s', measured: 'not run (--sizes medium)', met: null });
+    checks.push({
+      target: 'medium: seedsift at least 3x faster than the peer',
+      measured: 'not run (--sizes medium)',
+      met: null,
+    });
+    checks.push({
+      target: "medium: seedsift peak memory at most half of the peer's",
+      measured: 'not run (--sizes medium)',
+      met: null,
+    });
   }
 
   const one = find('scaling-1x');
@@ -42,7 +58,11 @@ export function checkTargets(results: readonly SizeResult[]): TargetCheck[] {
   if (one && four) {
     const ratio = summarize(four.seedsift).wall / summarize(one.seedsift).wall;
     const cpu = summarize(four.seedsift).cpu / summarize(one.seedsift).cpu;
-    checks.push({ target: 'scaling: 4x runs within 4.4x the time', measured: `${ratio.toFixed(2)}x wall (${cpu.toFixed(2)}x CPU)`, met: ratio <= 4.4 });
+    checks.push({
+      target: 'scaling: 4x runs within 4.4x the time',
+      measured: `${ratio.toFixed(2)}x wall (${cpu.toFixed(2)}x CPU)`,
+      met: ratio <= 4.4,
+    });
   } else {
     checks.push({ target: 'scaling: 4x runs within 4.4x the time', measured: 'not run (--sizes scaling)', met: null });
   }
@@ -63,5 +83,9 @@ export function checkTargets(results: readonly SizeResult[]): TargetCheck[] {
 
 /** The checks as lines: "MET", "NOT MET" or "not measured", the target, the measurement. */
 export function formatTargets(checks: readonly TargetCheck[]): string {
-  return checks.map((c) => `${(c.met === null ? 'not measured' : c.met ? 'MET' : 'NOT MET').padEnd(12)}  ${c.target}: ${c.measured}`).join('\n');
+  return checks
+    .map(
+      (c) => `${(c.met === null ? 'not measured' : c.met ? 'MET' : 'NOT MET').padEnd(12)}  ${c.target}: ${c.measured}`,
+    )
+    .join('\n');
 }

@@ -57,7 +57,11 @@ function gauss(random: Random): number {
 
 const fmt = (x: number): string => (Number.isFinite(x) ? Number(x.toPrecision(6)).toString() : 'nan');
 
-interface RunPlan { ticks: number; memory: number; seed: number }
+interface RunPlan {
+  ticks: number;
+  memory: number;
+  seed: number;
+}
 
 function writeRun(plan: RunPlan, random: Random): void {
   const { ticks, memory, seed } = plan;
@@ -76,7 +80,9 @@ function writeRun(plan: RunPlan, random: Random): void {
     const progress = 1 - Math.exp(-(step / LAST_STEP) * 4 * speed);
     const acc = 0.1 + (level - 0.1) * progress;
     const gone = diverges && step >= 1400;
-    const trainLoss = gone ? NaN : 2.3 * (1 - progress) + 0.25 - 0.5 * (level - 0.78) + 0.03 * Math.abs(gauss(random)) + jitter;
+    const trainLoss = gone
+      ? NaN
+      : 2.3 * (1 - progress) + 0.25 - 0.5 * (level - 0.78) + 0.03 * Math.abs(gauss(random)) + jitter;
     const cells = [String(step), fmt(trainLoss)];
     if (step % EVAL_EVERY === 0) {
       const valAcc = acc + 0.003 * gauss(random) + jitter;
@@ -102,7 +108,7 @@ function writeRun(plan: RunPlan, random: Random): void {
       for (let again = 1000; again <= 1190; again += TRAIN_EVERY) lines.push(row(again, 0.001));
     }
   }
-  writeFileSync(join(dir, 'metrics.csv'), lines.join('\n') + '\n');
+  writeFileSync(join(dir, 'metrics.csv'), `${lines.join('\n')}\n`);
   if (memory === 4 && (ticks === 8 || ticks === 32)) writeDump(dir, ticks, level, random);
 }
 
@@ -119,13 +125,16 @@ function writeDump(dir: string, ticks: number, level: number, random: Random): v
       const reach = 1 - Math.exp(-(t + 1) / (ticks / 4));
       const solved = solvable && t >= solvedFrom;
       const correct = random.next() < 0.03 ? !solved : solved;
-      const certainty = Math.min(1, Math.max(0, reach * (0.35 + 0.6 * ease) + (solved ? 0.1 : -0.05) + 0.05 * gauss(random)));
+      const certainty = Math.min(
+        1,
+        Math.max(0, reach * (0.35 + 0.6 * ease) + (solved ? 0.1 : -0.05) + 0.05 * gauss(random)),
+      );
       const pCorrect = 0.1 + (level - 0.1) * reach;
       const confidence = Math.min(0.999, Math.max(0.1, pCorrect + 0.25 * (1 - reach) + 0.05 * gauss(random)));
       lines.push(`${s},${t},${correct ? 1 : 0},${fmt(certainty)},${fmt(confidence)},${LAST_STEP}`);
     }
   }
-  writeFileSync(join(dir, 'ticks.csv.gz'), gzipSync(Buffer.from(lines.join('\n') + '\n'), { level: 9 }));
+  writeFileSync(join(dir, 'ticks.csv.gz'), gzipSync(Buffer.from(`${lines.join('\n')}\n`), { level: 9 }));
 }
 
 function main(): void {

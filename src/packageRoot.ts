@@ -14,9 +14,11 @@ export function packageRoot(): string {
   let dir = dirname(fileURLToPath(import.meta.url));
   for (;;) {
     const manifest = join(dir, 'package.json');
-    if (existsSync(manifest) && (JSON.parse(readFileSync(manifest, 'utf8')) as { name?: string }).name === 'seedsift') return (cached = dir);
+    if (existsSync(manifest) && (JSON.parse(readFileSync(manifest, 'utf8')) as { name?: string }).name === 'seedsift')
+      return (cached = dir);
     const parent = dirname(dir);
-    if (parent === dir) throw new Error('seedsift: cannot find its own package.json above ' + fileURLToPath(import.meta.url));
+    if (parent === dir)
+      throw new Error(`seedsift: cannot find its own package.json above ${fileURLToPath(import.meta.url)}`);
     dir = parent;
   }
 }

@@ -47,7 +47,12 @@ export async function reportPipeline(job: ReportJob): Promise<ReportOutputs> {
   // 2. resolve
   const options = resolveOptions(job.report, runSet);
   // 3. analyze
-  const results = analyze(runSet, options, { paths: job.paths, generated: job.generated, version: job.version }, job.hooks?.progress);
+  const results = analyze(
+    runSet,
+    options,
+    { paths: job.paths, generated: job.generated, version: job.version },
+    job.hooks?.progress,
+  );
   // 4. render
   return {
     runSet,
@@ -69,8 +74,11 @@ async function renderHtml(results: Results, notebook: ReportJob['notebook'], pro
 }
 
 /** The report date: SOURCE_DATE_EPOCH (seconds) when set, so builds are reproducible; else now. */
-export function reportDate(env: Readonly<Record<string, string | undefined>>, now: () => Date = () => new Date()): string {
-  const epoch = env['SOURCE_DATE_EPOCH'];
+export function reportDate(
+  env: Readonly<Record<string, string | undefined>>,
+  now: () => Date = () => new Date(),
+): string {
+  const epoch = env.SOURCE_DATE_EPOCH;
   if (epoch === undefined || epoch === '') return now().toISOString();
   const seconds = Number(epoch);
   if (!Number.isInteger(seconds) || seconds < 0) {

@@ -9,41 +9,192 @@
 export type Severity = 'error' | 'warning' | 'note';
 
 export const PROBLEM_CODES = {
-  'file-unreadable': { severity: 'error', means: 'A file could not be opened or parsed at all; none of its rows were used.', action: 'Check the file (permissions, truncated download, wrong format); the report is still written without it.' },
-  'file-empty': { severity: 'warning', means: 'A file has no data rows (empty, or a header only).', action: 'Remove it or re-run the logging; no run is built from it.' },
-  'file-skipped': { severity: 'note', means: 'A file or folder found under a PATH was not read as a log: its name has no log extension, it is hidden, it is not listed in the manifest, or it is a second path (a symbolic link loop or alias) to something read once already.', action: 'Nothing, if it is not a log; otherwise rename it (.csv, .tsv, .txt, .parquet, optionally .gz) or list it in the manifest.' },
-  'no-logs': { severity: 'error', means: 'A path given on the command line holds no log files seedsift can read.', action: 'Check the path and the file extensions (.csv, .tsv, .txt, .parquet, optionally .gz).' },
-  'layout-unmatched': { severity: 'warning', means: 'A file does not match the --layout template, so its config and seed are unknown; it was skipped.', action: 'Fix the template or move the file.' },
-  'seed-missing': { severity: 'warning', means: 'No seed could be found for a file (no seed= segment, layout field, seed column or manifest row); it was given a seed of its own.', action: 'Name the seed with a seed=N folder, --layout, --seed-column or --manifest.' },
-  'run-duplicate': { severity: 'warning', means: 'Two sources claim the same config and seed; their rows were merged in file order (later rows win on repeated steps).', action: 'Check for a copied folder or a mislabelled seed.' },
-  'goal-conflict': { severity: 'warning', means: 'Digests read together (or a digest and the logs read beside it) give a metric different goals (from --metric when each was made); the goal of the first was kept.', action: 'Say --metric NAME:max or NAME:min when reading them; it decides for all.' },
-  'params-mismatch': { severity: 'warning', means: 'A params.json beside a run disagrees with a value taken from its path.', action: 'A mislabelled folder is a real hazard: check which is right; the path value was kept.' },
-  'manifest-file-missing': { severity: 'error', means: 'A manifest row names a file that does not exist.', action: 'Fix the path in the manifest; the other rows are still read.' },
-  'manifest-invalid': { severity: 'error', means: 'The manifest has no file column or cannot be read.', action: 'The manifest needs a header with a file column and a seed column.' },
-  'step-column-missing': { severity: 'error', means: 'No step column was found (none of step, global_step, iteration, iter, epoch, timestep, frame, nor --step).', action: 'Name it with --step NAME, or give headerless files --columns.' },
-  'step-invalid': { severity: 'warning', means: 'Step cells that are empty, not numbers, or not finite; those rows were dropped.', action: 'Check the logging code for the rows listed.' },
-  'steps-duplicated': { severity: 'note', means: 'A run logs the same step more than once (a resumed run); the last row in file order was kept for each step.', action: 'Nothing, if the run was resumed from a checkpoint; otherwise check for two runs writing one file.' },
-  'steps-unsorted': { severity: 'note', means: 'Steps were not in increasing order; they were sorted.', action: 'Nothing; said so that you know.' },
-  'cells-missing': { severity: 'note', means: 'Cells that are empty, nan, inf or not numbers were treated as missing; each metric keeps its own non-missing rows.', action: 'Expected when train and eval rows share a file; otherwise check the logging.' },
-  'row-malformed': { severity: 'warning', means: 'A row could not be parsed (wrong number of fields, unterminated quote); it was rejected and the run keeps its other rows.', action: 'Check the line named.' },
-  'header-drift': { severity: 'note', means: 'Files of one study have different columns (a renamed or extra column); columns were matched by name.', action: 'Check that a renamed column is not the same metric under two names.' },
-  'column-duplicated': { severity: 'warning', means: 'A file has two columns with the same name; the later ones were renamed with a suffix.', action: 'Fix the logging code.' },
-  'column-not-numeric': { severity: 'note', means: 'A column holds no numbers and was not used as a metric.', action: 'Nothing, if it is a label column.' },
-  'aggregate-columns-ignored': { severity: 'note', means: 'In a wide file with one column per seed, columns that look like aggregates (mean, sd, std, min, max) were ignored.', action: 'Nothing; seedsift computes its own aggregates from the seeds.' },
-  'column-unused': { severity: 'note', means: 'In a wide file with one column per seed (--seed-columns), a column matches no pattern and does not look like an aggregate; it was not used.', action: 'Add a NAME:PATTERN for it to --seed-columns if it holds one seed per column.' },
-  'metric-empty': { severity: 'warning', means: 'A metric has no finite value in a run.', action: 'Check the logging of that metric.' },
-  'goal-inferred': { severity: 'note', means: 'Whether higher or lower is better was guessed from the metric name.', action: 'If the guess is wrong, say --metric NAME:max or NAME:min.' },
-  'run-diverged': { severity: 'warning', means: 'A metric went non-finite and stayed so; the run is marked diverged at that step and, by default, excluded from value statistics (counted in every table).', action: 'Use --diverged worst to count diverged runs as the worst value instead.' },
-  'run-short': { severity: 'warning', means: 'A run stopped well before the other runs of its config (below 90% of their last step).', action: 'Check whether the run crashed; comparisons use the common horizon of the runs compared.' },
-  'tick-dump-invalid': { severity: 'warning', means: 'A per-sample tick dump lacks a required column or has inconsistent ticks.', action: 'A dump needs columns sample, tick, correct, certainty (optional confidence, step).' },
-  'score-missing': { severity: 'note', means: 'A score table cell is empty: that run has no value for that metric.', action: 'Nothing, if the evaluation was not run.' },
-  'counterpart-missing': { severity: 'warning', means: 'A config has no counterpart for the --baseline selector, so it is not compared.', action: 'Check the selector, or run the missing config.' },
-  'few-seeds': { severity: 'warning', means: 'A comparison rests on very few seeds; rank and permutation tests cannot reach the significance level.', action: 'Run more seeds (see seedsift seeds).' },
-  'summary-censored': { severity: 'warning', means: 'For --summary reach:VALUE, some runs never reached the value and are censored.', action: 'Read the verdict with that in mind, or choose a reachable value.' },
-  'summary-optimistic': { severity: 'warning', means: 'The best checkpoint summary is optimistic (selection on the evaluation data).', action: 'Prefer final or last:P% for claims.' },
-  'skewed-values': { severity: 'warning', means: 'Per-run values are strongly skewed at a small number of seeds; t-based intervals may under-cover.', action: 'Read the rank and permutation tests beside Welch, or run more seeds.' },
-  'unequal-seeds': { severity: 'note', means: 'The two arms of a comparison have different numbers of seeds.', action: 'Nothing; Welch does not assume equal sizes.' },
-  'tests-disagree': { severity: 'note', means: 'Welch, permutation and Mann-Whitney disagree about significance at alpha.', action: 'Treat the verdict as fragile.' },
+  'file-unreadable': {
+    severity: 'error',
+    means: 'A file could not be opened or parsed at all; none of its rows were used.',
+    action: 'Check the file (permissions, truncated download, wrong format); the report is still written without it.',
+  },
+  'file-empty': {
+    severity: 'warning',
+    means: 'A file has no data rows (empty, or a header only).',
+    action: 'Remove it or re-run the logging; no run is built from it.',
+  },
+  'file-skipped': {
+    severity: 'note',
+    means:
+      'A file or folder found under a PATH was not read as a log: its name has no log extension, it is hidden, it is not listed in the manifest, or it is a second path (a symbolic link loop or alias) to something read once already.',
+    action:
+      'Nothing, if it is not a log; otherwise rename it (.csv, .tsv, .txt, .parquet, optionally .gz) or list it in the manifest.',
+  },
+  'no-logs': {
+    severity: 'error',
+    means: 'A path given on the command line holds no log files seedsift can read.',
+    action: 'Check the path and the file extensions (.csv, .tsv, .txt, .parquet, optionally .gz).',
+  },
+  'layout-unmatched': {
+    severity: 'warning',
+    means: 'A file does not match the --layout template, so its config and seed are unknown; it was skipped.',
+    action: 'Fix the template or move the file.',
+  },
+  'seed-missing': {
+    severity: 'warning',
+    means:
+      'No seed could be found for a file (no seed= segment, layout field, seed column or manifest row); it was given a seed of its own.',
+    action: 'Name the seed with a seed=N folder, --layout, --seed-column or --manifest.',
+  },
+  'run-duplicate': {
+    severity: 'warning',
+    means:
+      'Two sources claim the same config and seed; their rows were merged in file order (later rows win on repeated steps).',
+    action: 'Check for a copied folder or a mislabelled seed.',
+  },
+  'goal-conflict': {
+    severity: 'warning',
+    means:
+      'Digests read together (or a digest and the logs read beside it) give a metric different goals (from --metric when each was made); the goal of the first was kept.',
+    action: 'Say --metric NAME:max or NAME:min when reading them; it decides for all.',
+  },
+  'params-mismatch': {
+    severity: 'warning',
+    means: 'A params.json beside a run disagrees with a value taken from its path.',
+    action: 'A mislabelled folder is a real hazard: check which is right; the path value was kept.',
+  },
+  'manifest-file-missing': {
+    severity: 'error',
+    means: 'A manifest row names a file that does not exist.',
+    action: 'Fix the path in the manifest; the other rows are still read.',
+  },
+  'manifest-invalid': {
+    severity: 'error',
+    means: 'The manifest has no file column or cannot be read.',
+    action: 'The manifest needs a header with a file column and a seed column.',
+  },
+  'step-column-missing': {
+    severity: 'error',
+    means: 'No step column was found (none of step, global_step, iteration, iter, epoch, timestep, frame, nor --step).',
+    action: 'Name it with --step NAME, or give headerless files --columns.',
+  },
+  'step-invalid': {
+    severity: 'warning',
+    means: 'Step cells that are empty, not numbers, or not finite; those rows were dropped.',
+    action: 'Check the logging code for the rows listed.',
+  },
+  'steps-duplicated': {
+    severity: 'note',
+    means:
+      'A run logs the same step more than once (a resumed run); the last row in file order was kept for each step.',
+    action: 'Nothing, if the run was resumed from a checkpoint; otherwise check for two runs writing one file.',
+  },
+  'steps-unsorted': {
+    severity: 'note',
+    means: 'Steps were not in increasing order; they were sorted.',
+    action: 'Nothing; said so that you know.',
+  },
+  'cells-missing': {
+    severity: 'note',
+    means:
+      'Cells that are empty, nan, inf or not numbers were treated as missing; each metric keeps its own non-missing rows.',
+    action: 'Expected when train and eval rows share a file; otherwise check the logging.',
+  },
+  'row-malformed': {
+    severity: 'warning',
+    means:
+      'A row could not be parsed (wrong number of fields, unterminated quote); it was rejected and the run keeps its other rows.',
+    action: 'Check the line named.',
+  },
+  'header-drift': {
+    severity: 'note',
+    means: 'Files of one study have different columns (a renamed or extra column); columns were matched by name.',
+    action: 'Check that a renamed column is not the same metric under two names.',
+  },
+  'column-duplicated': {
+    severity: 'warning',
+    means: 'A file has two columns with the same name; the later ones were renamed with a suffix.',
+    action: 'Fix the logging code.',
+  },
+  'column-not-numeric': {
+    severity: 'note',
+    means: 'A column holds no numbers and was not used as a metric.',
+    action: 'Nothing, if it is a label column.',
+  },
+  'aggregate-columns-ignored': {
+    severity: 'note',
+    means:
+      'In a wide file with one column per seed, columns that look like aggregates (mean, sd, std, min, max) were ignored.',
+    action: 'Nothing; seedsift computes its own aggregates from the seeds.',
+  },
+  'column-unused': {
+    severity: 'note',
+    means:
+      'In a wide file with one column per seed (--seed-columns), a column matches no pattern and does not look like an aggregate; it was not used.',
+    action: 'Add a NAME:PATTERN for it to --seed-columns if it holds one seed per column.',
+  },
+  'metric-empty': {
+    severity: 'warning',
+    means: 'A metric has no finite value in a run.',
+    action: 'Check the logging of that metric.',
+  },
+  'goal-inferred': {
+    severity: 'note',
+    means: 'Whether higher or lower is better was guessed from the metric name.',
+    action: 'If the guess is wrong, say --metric NAME:max or NAME:min.',
+  },
+  'run-diverged': {
+    severity: 'warning',
+    means:
+      'A metric went non-finite and stayed so; the run is marked diverged at that step and, by default, excluded from value statistics (counted in every table).',
+    action: 'Use --diverged worst to count diverged runs as the worst value instead.',
+  },
+  'run-short': {
+    severity: 'warning',
+    means: 'A run stopped well before the other runs of its config (below 90% of their last step).',
+    action: 'Check whether the run crashed; comparisons use the common horizon of the runs compared.',
+  },
+  'tick-dump-invalid': {
+    severity: 'warning',
+    means: 'A per-sample tick dump lacks a required column or has inconsistent ticks.',
+    action: 'A dump needs columns sample, tick, correct, certainty (optional confidence, step).',
+  },
+  'score-missing': {
+    severity: 'note',
+    means: 'A score table cell is empty: that run has no value for that metric.',
+    action: 'Nothing, if the evaluation was not run.',
+  },
+  'counterpart-missing': {
+    severity: 'warning',
+    means: 'A config has no counterpart for the --baseline selector, so it is not compared.',
+    action: 'Check the selector, or run the missing config.',
+  },
+  'few-seeds': {
+    severity: 'warning',
+    means: 'A comparison rests on very few seeds; rank and permutation tests cannot reach the significance level.',
+    action: 'Run more seeds (see seedsift seeds).',
+  },
+  'summary-censored': {
+    severity: 'warning',
+    means: 'For --summary reach:VALUE, some runs never reached the value and are censored.',
+    action: 'Read the verdict with that in mind, or choose a reachable value.',
+  },
+  'summary-optimistic': {
+    severity: 'warning',
+    means: 'The best checkpoint summary is optimistic (selection on the evaluation data).',
+    action: 'Prefer final or last:P% for claims.',
+  },
+  'skewed-values': {
+    severity: 'warning',
+    means: 'Per-run values are strongly skewed at a small number of seeds; t-based intervals may under-cover.',
+    action: 'Read the rank and permutation tests beside Welch, or run more seeds.',
+  },
+  'unequal-seeds': {
+    severity: 'note',
+    means: 'The two arms of a comparison have different numbers of seeds.',
+    action: 'Nothing; Welch does not assume equal sizes.',
+  },
+  'tests-disagree': {
+    severity: 'note',
+    means: 'Welch, permutation and Mann-Whitney disagree about significance at alpha.',
+    action: 'Treat the verdict as fragile.',
+  },
 } as const satisfies Record<string, { severity: Severity; means: string; action: string }>;
 
 export type ProblemCode = keyof typeof PROBLEM_CODES;
@@ -59,7 +210,11 @@ export interface Problem {
 }
 
 /** Build a problem with the severity of its code. */
-export function problem(code: ProblemCode, message: string, where: { file?: string; line?: number; run?: string } = {}): Problem {
+export function problem(
+  code: ProblemCode,
+  message: string,
+  where: { file?: string; line?: number; run?: string } = {},
+): Problem {
   const p: { -readonly [K in keyof Problem]: Problem[K] } = { severity: PROBLEM_CODES[code].severity, code, message };
   if (where.file !== undefined) p.file = where.file;
   if (where.line !== undefined) p.line = where.line;

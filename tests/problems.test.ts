@@ -12,11 +12,19 @@ const rows = [...section.matchAll(/^\| `([a-z-]+)` \| (error|warning|note) \|/gm
 
 describe('problem codes', () => {
   it('are all in the README table with their severity, and the table has no others', () => {
-    expect(Object.fromEntries(rows)).toEqual(Object.fromEntries(Object.entries(PROBLEM_CODES).map(([code, c]) => [code, c.severity])));
+    expect(Object.fromEntries(rows)).toEqual(
+      Object.fromEntries(Object.entries(PROBLEM_CODES).map(([code, c]) => [code, c.severity])),
+    );
   });
 
   it('build records with the severity of their code and only the places given', () => {
-    expect(problem('steps-duplicated', 'm', { file: 'a.csv', line: 3 })).toEqual({ severity: 'note', code: 'steps-duplicated', message: 'm', file: 'a.csv', line: 3 });
+    expect(problem('steps-duplicated', 'm', { file: 'a.csv', line: 3 })).toEqual({
+      severity: 'note',
+      code: 'steps-duplicated',
+      message: 'm',
+      file: 'a.csv',
+      line: 3,
+    });
     expect(Object.keys(problem('run-short', 'm'))).toEqual(['severity', 'code', 'message']);
   });
 

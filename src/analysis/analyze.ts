@@ -23,7 +23,19 @@ import { commonHorizon } from './horizon.js';
 import { inventory, orderRuns } from './inventory.js';
 import type { ResolvedOptions } from './options.js';
 import { pairConfigs, type Pairing } from './pairing.js';
-import type { CalibrationCurve, Comparison, ConfigValue, Curve, HaltingCurve, MetricRecord, Results, RunValue, Settings, TaskAggregate, TickCurve } from './results.js';
+import type {
+  CalibrationCurve,
+  Comparison,
+  ConfigValue,
+  Curve,
+  HaltingCurve,
+  MetricRecord,
+  Results,
+  RunValue,
+  Settings,
+  TaskAggregate,
+  TickCurve,
+} from './results.js';
 import { metricValues } from './runValues.js';
 import { checkSelector, matchesSelector } from './selectors.js';
 import { summaryGoal } from './summarySpec.js';
@@ -46,12 +58,20 @@ export interface AnalyzeMeta {
  * `progress` hears of each metric as its work starts ('comparing', metrics done, metrics).
  * Example: `analyze(runSet, resolveOptions({ baseline: 'memory=4' }), meta).comparisons`.
  */
-export function analyze(runSet: RunSet, options: ResolvedOptions, meta: AnalyzeMeta, progress: ProgressHook = () => undefined): Results {
+export function analyze(
+  runSet: RunSet,
+  options: ResolvedOptions,
+  meta: AnalyzeMeta,
+  progress: ProgressHook = () => undefined,
+): Results {
   // 1. inventory
   const inv = inventory(runSet);
   const runs = orderRuns(runSet);
   if (options.taskKey !== null && !runSet.keys.includes(options.taskKey)) {
-    throw new SeedsiftError('usage', `--task-key: expected one of the config keys (${runSet.keys.join(', ') || 'none'}), got '${options.taskKey}'`);
+    throw new SeedsiftError(
+      'usage',
+      `--task-key: expected one of the config keys (${runSet.keys.join(', ') || 'none'}), got '${options.taskKey}'`,
+    );
   }
   if (options.baseline !== null) checkSelector(options.baseline, inv.configs, runSet.keys, options.taskKey);
 
@@ -60,7 +80,12 @@ export function analyze(runSet: RunSet, options: ResolvedOptions, meta: AnalyzeM
   const problems: Problem[] = [];
   for (const m of pairing.missing) {
     const where = m.task === null ? '' : ` (task ${m.task})`;
-    problems.push(problem('counterpart-missing', `${m.config}${where} has no counterpart ${m.counterpart} for --baseline ${options.baseline?.text ?? ''}; it is not compared`));
+    problems.push(
+      problem(
+        'counterpart-missing',
+        `${m.config}${where} has no counterpart ${m.counterpart} for --baseline ${options.baseline?.text ?? ''}; it is not compared`,
+      ),
+    );
   }
   const compared = new Set<string>();
   for (const p of pairing.pairs) compared.add(p.baselineConfig).add(p.candidateConfig);
@@ -81,12 +106,29 @@ export function analyze(runSet: RunSet, options: ResolvedOptions, meta: AnalyzeM
     const record = inv.metrics[i] as MetricRecord;
     if (info.kind === 'tick') {
       metrics.push(record);
-      ticks.push(...tickCurves(runs, info, { step: options.summary.kind === 'step' ? options.summary.step : null, level: options.level, alpha: options.alpha, baseline: tickBaseline(inv.configs, options) }));
+      ticks.push(
+        ...tickCurves(runs, info, {
+          step: options.summary.kind === 'step' ? options.summary.step : null,
+          level: options.level,
+          alpha: options.alpha,
+          baseline: tickBaseline(inv.configs, options),
+        }),
+      );
       continue;
     }
     const horizon = commonHorizon(horizonRuns, info.name, runSet.mode);
     metrics.push({ ...record, horizon: horizon.step });
-    const mv = metricValues(runs, info.name, info.goal, options.summary, options.summaryText, { horizon: horizon.step, firstStep: horizon.firstStep }, options.diverged, compared, runSet.mode);
+    const mv = metricValues(
+      runs,
+      info.name,
+      info.goal,
+      options.summary,
+      options.summaryText,
+      { horizon: horizon.step, firstStep: horizon.firstStep },
+      options.diverged,
+      compared,
+      runSet.mode,
+    );
     values.push(...mv.values);
     perConfig.push(...configValues(mv.values, options));
     problems.push(...mv.problems);
@@ -133,7 +175,12 @@ export function analyze(runSet: RunSet, options: ResolvedOptions, meta: AnalyzeM
     tool: { name: 'seedsift', version: meta.version },
     generated: meta.generated,
     settings: settingsOf(options),
-    inputs: { paths: meta.paths, mode: runSet.mode, files: runSet.files.length, filesRead: runSet.files.filter((f) => f.status === 'read').length },
+    inputs: {
+      paths: meta.paths,
+      mode: runSet.mode,
+      files: runSet.files.length,
+      filesRead: runSet.files.filter((f) => f.status === 'read').length,
+    },
     configs: inv.configs,
     metrics,
     runs: inv.runs.map((r) => ({ ...r, problems: byRun.get(r.id) ?? [] })),
@@ -181,7 +228,10 @@ function families(pairing: Pairing): Pairing['pairs'][] {
 }
 
 /** The one config the selector picks, for the per-tick comparison (null when it picks several or none). */
-function tickBaseline(configs: readonly { readonly id: string; readonly params: Readonly<Record<string, string>> }[], options: ResolvedOptions): string | null {
+function tickBaseline(
+  configs: readonly { readonly id: string; readonly params: Readonly<Record<string, string>> }[],
+  options: ResolvedOptions,
+): string | null {
   const selector = options.baseline;
   if (selector === null) return null;
   const matching = configs.filter((c) => matchesSelector(c.params, selector));
@@ -208,15 +258,24 @@ function metricTasks(
     scores.push({ task: run.params[taskKey] ?? '', group, value: v.value });
   }
   const baselineOf = new Map<string, string>();
-  if (options.baseline !== null) for (const p of pairing.pairs) if (!baselineOf.has(p.candidate)) baselineOf.set(p.candidate, p.baseline);
+  if (options.baseline !== null)
+    for (const p of pairing.pairs) if (!baselineOf.has(p.candidate)) baselineOf.set(p.candidate, p.baseline);
   return taskAggregates(info.name, summaryGoal(options.summary, info.goal), groups, scores, baselineOf, options);
 }
 
-function dumpAnalyses(runSet: RunSet, options: ResolvedOptions, problems: Problem[]): { halting: HaltingCurve[]; calibration: CalibrationCurve[] } {
+function dumpAnalyses(
+  runSet: RunSet,
+  options: ResolvedOptions,
+  problems: Problem[],
+): { halting: HaltingCurve[]; calibration: CalibrationCurve[] } {
   if (runSet.tickDumps.length === 0) return { halting: [], calibration: [] };
   try {
     return {
-      halting: haltingCurves(runSet.tickDumps, { thresholds: options.haltingThresholds, level: options.level, referenceThreshold: options.haltingReference }),
+      halting: haltingCurves(runSet.tickDumps, {
+        thresholds: options.haltingThresholds,
+        level: options.level,
+        referenceThreshold: options.haltingReference,
+      }),
       calibration: calibrationCurves(runSet.tickDumps, { bins: options.calibrationBins, level: options.level }),
     };
   } catch (error) {

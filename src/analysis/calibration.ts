@@ -75,9 +75,13 @@ function calibrateRun(d: TickDump, confidence: Float64Array, bins: number): RunC
  * (from `calibrationBin`) or a correctness value is not 0 or 1.
  * Example: `calibrationCurves(dumps, { bins: 15, level: 0.95 })`.
  */
-export function calibrationCurves(dumps: readonly TickDump[], opts: { bins: number; level: number }): CalibrationCurve[] {
+export function calibrationCurves(
+  dumps: readonly TickDump[],
+  opts: { bins: number; level: number },
+): CalibrationCurve[] {
   const { bins, level } = opts;
-  if (!Number.isInteger(bins) || bins < 1) throw new RangeError(`calibration bins must be a positive integer, got ${bins}`);
+  if (!Number.isInteger(bins) || bins < 1)
+    throw new RangeError(`calibration bins must be a positive integer, got ${bins}`);
   const byConfig = new Map<string, RunCalibration[]>();
   for (const d of latestDumpPerRun(dumps.filter((x) => x.confidence !== null))) {
     const confidence = d.confidence;

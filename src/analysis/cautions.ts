@@ -28,7 +28,11 @@ export interface CautionFacts {
   /** Runs with no value (censored, missing), not counting diverged ones. */
   readonly noValue: { readonly baseline: number; readonly candidate: number };
   readonly alpha: number;
-  readonly p: { readonly welch: number | null; readonly permutation: number | null; readonly mannWhitney: number | null };
+  readonly p: {
+    readonly welch: number | null;
+    readonly permutation: number | null;
+    readonly mannWhitney: number | null;
+  };
   readonly verdict: Verdict;
   /** Why a test or interval could not run, already in plain words. */
   readonly reasons: readonly string[];
@@ -50,7 +54,7 @@ export function sampleSkewness(x: ArrayLike<number>): number | null {
   }
   m2 /= n;
   m3 /= n;
-  return m2 > 0 ? m3 / Math.pow(m2, 1.5) : null;
+  return m2 > 0 ? m3 / m2 ** 1.5 : null;
 }
 
 /**
@@ -70,7 +74,10 @@ export function skewnessStandardError(n: number): number {
  * Pooling is what makes skew detectable at all with 3 to 10 seeds: one arm of 5 can never show a
  * sample skewness above 1.5, less than twice its standard error.
  */
-export function pooledSkewness(a: ArrayLike<number>, b: ArrayLike<number>): { g1: number; se: number; n: number } | null {
+export function pooledSkewness(
+  a: ArrayLike<number>,
+  b: ArrayLike<number>,
+): { g1: number; se: number; n: number } | null {
   const n = a.length + b.length;
   if (n < 6 || a.length < 2 || b.length < 2) return null;
   const centred = new Float64Array(n);
@@ -120,33 +127,53 @@ export function comparisonCautions(f: CautionFacts): { lines: string[]; problems
   const nb = f.baselineValues.length;
   const nc = f.candidateValues.length;
 
-  if (f.reachValue !== null) add(`the summary is the step at which ${f.metric} first reaches ${f.reachValue}: fewer steps is better`);
+  if (f.reachValue !== null)
+    add(`the summary is the step at which ${f.metric} first reaches ${f.reachValue}: fewer steps is better`);
   if (f.goalInferred) {
     const flip = f.goal === 'max' ? 'min' : 'max';
-    add(`${f.goal === 'max' ? 'higher' : 'lower'} is better was inferred from the name '${f.metric}'; say --metric ${f.metric}:${flip} if that is wrong`, 'goal-inferred');
+    add(
+      `${f.goal === 'max' ? 'higher' : 'lower'} is better was inferred from the name '${f.metric}'; say --metric ${f.metric}:${flip} if that is wrong`,
+      'goal-inferred',
+    );
   }
   if (nb >= 1 && nc >= 1) {
     const smallest = smallestTwoSidedP(nc, nb);
     if (smallest >= f.alpha) {
-      add(`with ${nc} v ${nb} seeds no rank or permutation test can reach p < ${f.alpha} (smallest two-sided p = ${formatNumber(smallest)})`, 'few-seeds');
+      add(
+        `with ${nc} v ${nb} seeds no rank or permutation test can reach p < ${f.alpha} (smallest two-sided p = ${formatNumber(smallest)})`,
+        'few-seeds',
+      );
     } else if (Math.min(nb, nc) < 4) {
       const arm = nb < nc ? 'baseline' : 'candidate';
-      add(`only ${Math.min(nb, nc)} seeds in the ${arm} arm: intervals are wide and one more seed can turn the verdict`, 'few-seeds');
+      add(
+        `only ${Math.min(nb, nc)} seeds in the ${arm} arm: intervals are wide and one more seed can turn the verdict`,
+        'few-seeds',
+      );
     }
   }
   const skew = pooledSkewness(f.baselineValues, f.candidateValues);
   if (skew !== null && Math.abs(skew.g1) > 2 * skew.se) {
-    add(`the values are skewed within the arms (sample skewness ${formatNumber(skew.g1)} of the ${skew.n} values centred on their arm means, beyond ${formatNumber(2 * skew.se)}, twice its standard error under normality): t-based intervals may under-cover; read the rank and permutation tests beside Welch`, 'skewed-values');
+    add(
+      `the values are skewed within the arms (sample skewness ${formatNumber(skew.g1)} of the ${skew.n} values centred on their arm means, beyond ${formatNumber(2 * skew.se)}, twice its standard error under normality): t-based intervals may under-cover; read the rank and permutation tests beside Welch`,
+      'skewed-values',
+    );
   }
   if (nb !== nc && nb > 0 && nc > 0) add(`unequal seed counts (${nc} candidate v ${nb} baseline)`, 'unequal-seeds');
   const dv = f.diverged.baseline + f.diverged.candidate;
   if (dv > 0) {
-    const what = f.divergedPolicy === 'exclude' ? 'left out of the tests' : 'counted as the worst value observed in this comparison';
-    add(`${dv} diverged run${dv === 1 ? '' : 's'} ${what} (baseline ${f.diverged.baseline}, candidate ${f.diverged.candidate})`);
+    const what =
+      f.divergedPolicy === 'exclude'
+        ? 'left out of the tests'
+        : 'counted as the worst value observed in this comparison';
+    add(
+      `${dv} diverged run${dv === 1 ? '' : 's'} ${what} (baseline ${f.diverged.baseline}, candidate ${f.diverged.candidate})`,
+    );
   }
   const nv = f.noValue.baseline + f.noValue.candidate;
   if (nv > 0) {
-    add(`${nv} run${nv === 1 ? ' has' : 's have'} no value for this summary and ${nv === 1 ? 'is' : 'are'} left out (baseline ${f.noValue.baseline}, candidate ${f.noValue.candidate})`);
+    add(
+      `${nv} run${nv === 1 ? ' has' : 's have'} no value for this summary and ${nv === 1 ? 'is' : 'are'} left out (baseline ${f.noValue.baseline}, candidate ${f.noValue.candidate})`,
+    );
   }
   for (const reason of f.reasons) add(reason);
   const tests: [string, number | null][] = [

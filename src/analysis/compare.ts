@@ -109,18 +109,30 @@ interface Draft {
  * 200,000 splits, else 100,000 relabelings) dominates, plus 10,000 bootstrap resamples at 20+ runs.
  * Example: `compareFamily([request], settings).comparisons[0].verdict`.
  */
-export function compareFamily(requests: readonly ComparisonRequest[], settings: CompareSettings, cache: PowerCache = new Map()): { comparisons: Comparison[]; problems: Problem[] } {
+export function compareFamily(
+  requests: readonly ComparisonRequest[],
+  settings: CompareSettings,
+  cache: PowerCache = new Map(),
+): { comparisons: Comparison[]; problems: Problem[] } {
   const problems: Problem[] = [];
   const drafts: Draft[] = [];
   for (const request of requests) {
     const draft = draftComparison(request, settings, cache);
     if (draft === null) {
       const where = `${request.metric} (${request.summary}${request.task === null ? '' : `, task ${request.task}`}), ${request.candidate} v ${request.baseline}`;
-      problems.push(problem('few-seeds', `${where}: an arm has no run with a value (diverged, censored or missing); not compared`));
+      problems.push(
+        problem('few-seeds', `${where}: an arm has no run with a value (diverged, censored or missing); not compared`),
+      );
     } else drafts.push(draft);
   }
-  const adjusted = adjustFamily(drafts.map((d) => d.p), settings.correction);
-  const niAdjusted = adjustFamily(drafts.map((d) => d.nonInferiorityP), settings.correction);
+  const adjusted = adjustFamily(
+    drafts.map((d) => d.p),
+    settings.correction,
+  );
+  const niAdjusted = adjustFamily(
+    drafts.map((d) => d.nonInferiorityP),
+    settings.correction,
+  );
   const comparisons = drafts.map((d, i) => {
     const pAdjusted = adjusted[i] ?? null;
     const verdict = decideVerdict(pAdjusted, d.difference.estimate, d.request.goal, settings.alpha);
@@ -162,7 +174,10 @@ export function compareFamily(requests: readonly ComparisonRequest[], settings: 
       p: d.p,
       pAdjusted,
       verdict,
-      nonInferiority: settings.margin === null ? null : { margin: settings.margin, p: niP, holds: niP !== null && niP < settings.alpha },
+      nonInferiority:
+        settings.margin === null
+          ? null
+          : { margin: settings.margin, p: niP, holds: niP !== null && niP < settings.alpha },
       effect: d.effect,
       detectable: d.detectable,
       cautions: cautions.lines,
@@ -186,10 +201,17 @@ function draftComparison(r: ComparisonRequest, s: CompareSettings, cache: PowerC
   const few = nx < 2 || ny < 2;
   const flat = !few && variance(x) === 0 && variance(y) === 0;
   if (few) reasons.push(`no t-test, effect size or interval with fewer than 2 seeds in an arm (${nx} v ${ny})`);
-  if (flat) reasons.push("every run gave the same value within each arm (zero variance in both): Welch's t, Hedges' g and the t-interval are undefined");
+  if (flat)
+    reasons.push(
+      "every run gave the same value within each arm (zero variance in both): Welch's t, Hedges' g and the t-interval are undefined",
+    );
 
   const w = few || flat ? null : attempt(() => welch(x, y, { level: s.level }), "Welch's test", reasons);
-  const perm = attempt(() => permutationTest(x, y, createRandom(deriveSeed(s.seed, label))), 'the permutation test', reasons);
+  const perm = attempt(
+    () => permutationTest(x, y, createRandom(deriveSeed(s.seed, label))),
+    'the permutation test',
+    reasons,
+  );
   const mw = attempt(() => mannWhitney(x, y), 'the Mann-Whitney test', reasons);
   const tests: Mutable<Comparison['tests']> = {
     welch: { statistic: w?.statistic ?? null, df: w?.df ?? null, p: finiteOrNull(w?.p) },
@@ -202,13 +224,29 @@ function draftComparison(r: ComparisonRequest, s: CompareSettings, cache: PowerC
   if (s.paired) {
     const paired = pairedArms(base, cand);
     const canPair = paired.x.length >= 2;
-    if (!canPair) reasons.push(`--paired: only ${paired.x.length} seed${paired.x.length === 1 ? '' : 's'} present in both arms; the paired tests need 2`);
-    const pt = canPair ? attempt(() => pairedT(paired.x, paired.y, { level: s.level }), 'the paired t-test', reasons) : null;
-    const wx = canPair ? attempt(() => wilcoxonSignedRank(paired.x, paired.y), 'the Wilcoxon signed-rank test', reasons) : null;
-    tests.paired = { t: finiteOrNull(pt?.statistic), df: pt?.df ?? null, p: finiteOrNull(pt?.p), wilcoxonP: finiteOrNull(wx?.p), pairs: paired.x.length };
+    if (!canPair)
+      reasons.push(
+        `--paired: only ${paired.x.length} seed${paired.x.length === 1 ? '' : 's'} present in both arms; the paired tests need 2`,
+      );
+    const pt = canPair
+      ? attempt(() => pairedT(paired.x, paired.y, { level: s.level }), 'the paired t-test', reasons)
+      : null;
+    const wx = canPair
+      ? attempt(() => wilcoxonSignedRank(paired.x, paired.y), 'the Wilcoxon signed-rank test', reasons)
+      : null;
+    tests.paired = {
+      t: finiteOrNull(pt?.statistic),
+      df: pt?.df ?? null,
+      p: finiteOrNull(pt?.p),
+      wilcoxonP: finiteOrNull(wx?.p),
+      pairs: paired.x.length,
+    };
     p = tests.paired.p;
     const estimate = paired.x.length > 0 ? mean(paired.x) - mean(paired.y) : mean(x) - mean(y);
-    difference = pt === null ? { estimate, low: null, high: null, level: s.level, method: 'none' } : { estimate: pt.difference, low: pt.low, high: pt.high, level: s.level, method: 't' };
+    difference =
+      pt === null
+        ? { estimate, low: null, high: null, level: s.level, method: 'none' }
+        : { estimate: pt.difference, low: pt.low, high: pt.high, level: s.level, method: 't' };
   } else {
     difference = welchDifference(x, y, w, s, label, reasons);
   }
@@ -216,9 +254,22 @@ function draftComparison(r: ComparisonRequest, s: CompareSettings, cache: PowerC
   let nonInferiorityP: number | null = null;
   if (s.margin !== null && !few && !flat) {
     const margin = s.margin;
-    nonInferiorityP = finiteOrNull(attempt(() => welchNonInferiority(x, y, margin, r.goal), 'the non-inferiority test', reasons)?.p);
+    nonInferiorityP = finiteOrNull(
+      attempt(() => welchNonInferiority(x, y, margin, r.goal), 'the non-inferiority test', reasons)?.p,
+    );
   }
-  return { request: r, base, cand, tests, p, difference, effect: effectOf(x, y, r.goal, s.level, few, flat, reasons), detectable: detectableOf(x, y, difference.estimate, s.alpha, cache), nonInferiorityP, reasons };
+  return {
+    request: r,
+    base,
+    cand,
+    tests,
+    p,
+    difference,
+    effect: effectOf(x, y, r.goal, s.level, few, flat, reasons),
+    detectable: detectableOf(x, y, difference.estimate, s.alpha, cache),
+    nonInferiorityP,
+    reasons,
+  };
 }
 
 /** Welch t-interval below `bootstrapFrom` runs per arm, BCa bootstrap at or above (never at 3 or fewer). */
@@ -233,12 +284,19 @@ function welchDifference(
   const estimate = mean(x) - mean(y);
   const smaller = Math.min(x.length, y.length);
   if (smaller >= 2 && smaller <= 3) {
-    reasons.push(`no resampling interval with ${smaller} seeds in an arm: a percentile bootstrap interval of ${smaller} values covers at most ${formatNumber(100 * (1 - 2 * 0.5 ** smaller))}% (METHODS.md); the interval shown is Welch's t`);
+    reasons.push(
+      `no resampling interval with ${smaller} seeds in an arm: a percentile bootstrap interval of ${smaller} values covers at most ${formatNumber(100 * (1 - 2 * 0.5 ** smaller))}% (METHODS.md); the interval shown is Welch's t`,
+    );
   }
   if (smaller >= s.bootstrapFrom) {
     if (smaller > 3) {
       const boot = attempt(
-        () => bootstrapMeanDifference(x, y, createRandom(deriveSeed(s.seed, `bootstrap|${label}`)), { method: 'bca', resamples: s.resamples, level: s.level }),
+        () =>
+          bootstrapMeanDifference(x, y, createRandom(deriveSeed(s.seed, `bootstrap|${label}`)), {
+            method: 'bca',
+            resamples: s.resamples,
+            level: s.level,
+          }),
         'the BCa bootstrap interval',
         reasons,
       );
@@ -251,7 +309,15 @@ function welchDifference(
   return { estimate, low: w.low, high: w.high, level: s.level, method: 'welch-t' };
 }
 
-function effectOf(x: Float64Array, y: Float64Array, goal: Goal, level: number, few: boolean, flat: boolean, reasons: string[]): Comparison['effect'] {
+function effectOf(
+  x: Float64Array,
+  y: Float64Array,
+  goal: Goal,
+  level: number,
+  few: boolean,
+  flat: boolean,
+  reasons: string[],
+): Comparison['effect'] {
   const g = few || flat ? null : attempt(() => hedgesG(x, y, level), "Hedges' g", reasons);
   const [better, worse] = goal === 'max' ? [x, y] : [y, x];
   const c = few ? null : attempt(() => cliffsDelta(better, worse, level), "Cliff's delta", reasons);
@@ -267,7 +333,13 @@ function effectOf(x: Float64Array, y: Float64Array, goal: Goal, level: number, f
 }
 
 /** Pooled sd, minimum detectable difference at 80% power, seeds per arm for the observed difference. */
-function detectableOf(x: Float64Array, y: Float64Array, estimate: number, alpha: number, cache: PowerCache): Comparison['detectable'] {
+function detectableOf(
+  x: Float64Array,
+  y: Float64Array,
+  estimate: number,
+  alpha: number,
+  cache: PowerCache,
+): Comparison['detectable'] {
   const df = x.length + y.length - 2;
   if (df < 1) return { sd: null, minimumEffect: null, seedsFor80: null };
   const ss = (x.length > 1 ? (x.length - 1) * variance(x) : 0) + (y.length > 1 ? (y.length - 1) * variance(y) : 0);

@@ -31,7 +31,18 @@ export function configValues(values: readonly RunValue[], settings: ConfigValueS
     const present = Float64Array.from(list.filter((v) => v.value !== null).map((v) => v.value as number));
     const random = createRandom(deriveSeed(settings.seed, `values|${first.metric}|${first.summary}|${config}`));
     const band = binBand(present, settings, freshDraws(random, settings.bandResamples));
-    out.push({ metric: first.metric, summary: first.summary, config, n: present.length, missing: list.length - present.length, mean: band.mean, low: band.low, high: band.high, level: settings.level, method: band.method });
+    out.push({
+      metric: first.metric,
+      summary: first.summary,
+      config,
+      n: present.length,
+      missing: list.length - present.length,
+      mean: band.mean,
+      low: band.low,
+      high: band.high,
+      level: settings.level,
+      method: band.method,
+    });
   }
   return out;
 }

@@ -103,7 +103,8 @@ export function learningCurves(runs: readonly Run[], metric: string, settings: C
     group.series.push(seriesOf[j] as Series);
   }
   const curves: Curve[] = [];
-  for (const [config, group] of byConfig) curves.push(configCurve(group.runs, group.series, metric, config, grid, settings));
+  for (const [config, group] of byConfig)
+    curves.push(configCurve(group.runs, group.series, metric, config, grid, settings));
   return curves;
 }
 
@@ -113,7 +114,14 @@ export function learningCurves(runs: readonly Run[], metric: string, settings: C
  * reaches code it has not run yet, and runs several times slower in between on a first report.
  */
 
-function configCurve(runs: readonly Run[], series: readonly Series[], metric: string, config: string, grid: StepGrid, settings: CurveSettings): Curve {
+function configCurve(
+  runs: readonly Run[],
+  series: readonly Series[],
+  metric: string,
+  config: string,
+  grid: StepGrid,
+  settings: CurveSettings,
+): Curve {
   const k = grid.bins;
   const r = runs.length;
   // Work buffers, allocated once per curve: runs x bins matrix (NaN = no value), per-bin sums, a column.
@@ -131,12 +139,39 @@ function configCurve(runs: readonly Run[], series: readonly Series[], metric: st
   }
   const counted = runs.map((run) => settings.diverged === 'worst' || !isDiverged(run, metric));
   const random = createRandom(deriveSeed(settings.seed, `curve|${metric}|${config}`));
-  const { mean, low, high, n, bandByBin } = binBands(matrix, r, k, counted, settings, sharedDraws(random, settings.bandResamples));
-  return { metric, config, steps: grid.centres, mean, low, high, n, band: mainMethod(bandByBin), bandByBin, level: settings.level, runs: perRun };
+  const { mean, low, high, n, bandByBin } = binBands(
+    matrix,
+    r,
+    k,
+    counted,
+    settings,
+    sharedDraws(random, settings.bandResamples),
+  );
+  return {
+    metric,
+    config,
+    steps: grid.centres,
+    mean,
+    low,
+    high,
+    n,
+    band: mainMethod(bandByBin),
+    bandByBin,
+    level: settings.level,
+    runs: perRun,
+  };
 }
 
 /** Add each point's value to its bin's sum and count, in point order (the bin is `binOf`'s, inlined). */
-function accumulate(steps: Float64Array, values: Float64Array, first: number, width: number, bins: number, sums: Float64Array, counts: Float64Array): void {
+function accumulate(
+  steps: Float64Array,
+  values: Float64Array,
+  first: number,
+  width: number,
+  bins: number,
+  sums: Float64Array,
+  counts: Float64Array,
+): void {
   const n = steps.length;
   for (let i = 0; i < n; i++) {
     const b = width === 0 ? 0 : Math.min(bins - 1, Math.max(0, Math.floor(((steps[i] as number) - first) / width)));
@@ -232,7 +267,8 @@ export function binBand(x: Float64Array, settings: Pick<CurveSettings, 'level' |
   if (m >= settings.bootstrapFrom) {
     try {
       const boot = bootstrapMeanFromCounts(x, draws(m), { method: 'bca', level: settings.level });
-      if (Number.isFinite(boot.low) && Number.isFinite(boot.high)) return { mean: t.estimate, low: boot.low, high: boot.high, method: 'bca' };
+      if (Number.isFinite(boot.low) && Number.isFinite(boot.high))
+        return { mean: t.estimate, low: boot.low, high: boot.high, method: 'bca' };
     } catch (error) {
       if (!(error instanceof RangeError)) throw error;
     }

@@ -48,11 +48,16 @@ export function latestDumpPerRun(dumps: readonly TickDump[]): TickDump[] {
 
 function checkDump(d: TickDump): void {
   const cells = d.samples * d.ticks;
-  if (d.correct.length !== cells || d.certainty.length !== cells || (d.confidence !== null && d.confidence.length !== cells)) {
+  if (
+    d.correct.length !== cells ||
+    d.certainty.length !== cells ||
+    (d.confidence !== null && d.confidence.length !== cells)
+  ) {
     throw new RangeError(`tick dump of run ${d.run}: arrays must hold samples x ticks = ${cells} cells`);
   }
   for (let i = 0; i < cells; i++) {
-    if ((d.correct[i] as number) > 1) throw new RangeError(`tick dump of run ${d.run}: correct must be 0 or 1, got ${d.correct[i]}`);
+    if ((d.correct[i] as number) > 1)
+      throw new RangeError(`tick dump of run ${d.run}: correct must be 0 or 1, got ${d.correct[i]}`);
   }
 }
 
@@ -138,8 +143,14 @@ export function haltingCurves(
     const perThreshold = opts.thresholds.map((tau) => {
       const j = position(tau);
       return {
-        accuracy: seedMeanInterval(results.map((r) => r.accuracy[j] as number), opts.level),
-        exitTick: seedMeanInterval(results.map((r) => r.meanExit[j] as number), opts.level),
+        accuracy: seedMeanInterval(
+          results.map((r) => r.accuracy[j] as number),
+          opts.level,
+        ),
+        exitTick: seedMeanInterval(
+          results.map((r) => r.meanExit[j] as number),
+          opts.level,
+        ),
       };
     });
     curves.push({

@@ -45,7 +45,14 @@ export function inventory(runSet: RunSet): Inventory {
     problemsByRun.set(p.run, list);
   }
   return {
-    configs: [...configs].map(([id, c]) => ({ id, params: c.params, seeds: c.seeds, runs: c.seeds.length, diverged: c.diverged, short: c.short })),
+    configs: [...configs].map(([id, c]) => ({
+      id,
+      params: c.params,
+      seeds: c.seeds,
+      runs: c.seeds.length,
+      diverged: c.diverged,
+      short: c.short,
+    })),
     runs: runs.map((r) => ({
       id: r.id,
       config: r.config,
@@ -61,12 +68,25 @@ export function inventory(runSet: RunSet): Inventory {
     })),
     metrics: runSet.metrics.map((m) => {
       const range = stepRange(runs, m.name, m.kind);
-      return { name: m.name, goal: m.goal, goalSource: m.goalSource, kind: m.kind, ticks: m.ticks, horizon: null, firstStep: range?.first ?? null, lastStep: range?.last ?? null };
+      return {
+        name: m.name,
+        goal: m.goal,
+        goalSource: m.goalSource,
+        kind: m.kind,
+        ticks: m.ticks,
+        horizon: null,
+        firstStep: range?.first ?? null,
+        lastStep: range?.last ?? null,
+      };
     }),
   };
 }
 
-function stepRange(runs: readonly Run[], metric: string, kind: 'scalar' | 'tick'): { first: number; last: number } | null {
+function stepRange(
+  runs: readonly Run[],
+  metric: string,
+  kind: 'scalar' | 'tick',
+): { first: number; last: number } | null {
   let first = Infinity;
   let last = -Infinity;
   for (const run of runs) {

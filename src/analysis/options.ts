@@ -85,7 +85,9 @@ export const DEFAULT_OPTIONS = {
   bandResamples: 2000,
   bins: 400,
   bootstrapFrom: 20,
-  haltingThresholds: [0.05, 0.1, 0.15, 0.2, 0.25, 0.3, 0.35, 0.4, 0.45, 0.5, 0.55, 0.6, 0.65, 0.7, 0.75, 0.8, 0.85, 0.9, 0.95, 0.99],
+  haltingThresholds: [
+    0.05, 0.1, 0.15, 0.2, 0.25, 0.3, 0.35, 0.4, 0.45, 0.5, 0.55, 0.6, 0.65, 0.7, 0.75, 0.8, 0.85, 0.9, 0.95, 0.99,
+  ],
   haltingReference: 0.8,
   calibrationBins: 15,
 } as const;
@@ -112,10 +114,16 @@ export function resolveOptions(input: ReportOptions, runSet?: RunSet): ResolvedO
     summaryText,
     baseline,
     taskKey,
-    margin: input.margin === undefined || input.margin === null || input.margin === '' ? d.margin : numberIn('--margin', input.margin, 0, Infinity, 'closed-low'),
+    margin:
+      input.margin === undefined || input.margin === null || input.margin === ''
+        ? d.margin
+        : numberIn('--margin', input.margin, 0, Infinity, 'closed-low'),
     paired: booleanOf('--paired', input.paired ?? d.paired),
     diverged: oneOf('--diverged', input.diverged ?? d.diverged, ['exclude', 'worst'] as const),
-    failOn: blankToNull(input.failOn) === null ? d.failOn : oneOf('--fail-on', input.failOn as string, ['worse', 'not-better'] as const),
+    failOn:
+      blankToNull(input.failOn) === null
+        ? d.failOn
+        : oneOf('--fail-on', input.failOn as string, ['worse', 'not-better'] as const),
     level: numberIn('--level', input.level ?? d.level, 0, 1, 'open'),
     resamples: integerIn('--resamples', input.resamples ?? d.resamples, 100, 10_000_000),
     bandResamples: integerIn('--band-resamples', input.bandResamples ?? d.bandResamples, 100, 10_000_000),
@@ -131,9 +139,13 @@ export function resolveOptions(input: ReportOptions, runSet?: RunSet): ResolvedO
 
 function checkAgainst(options: ResolvedOptions, runSet: RunSet): void {
   if (options.taskKey !== null && !runSet.keys.includes(options.taskKey)) {
-    throw new SeedsiftError('usage', `--task-key: expected one of the config keys (${runSet.keys.join(', ') || 'none'}), got '${options.taskKey}'`);
+    throw new SeedsiftError(
+      'usage',
+      `--task-key: expected one of the config keys (${runSet.keys.join(', ') || 'none'}), got '${options.taskKey}'`,
+    );
   }
-  if (options.baseline !== null) checkSelector(options.baseline, inventory(runSet).configs, runSet.keys, options.taskKey);
+  if (options.baseline !== null)
+    checkSelector(options.baseline, inventory(runSet).configs, runSet.keys, options.taskKey);
 }
 
 function blankToNull(v: string | null | undefined): string | null {
@@ -145,9 +157,17 @@ function toNumber(v: string | number): number {
   return v.trim() === '' ? NaN : Number(v);
 }
 
-function numberIn(option: string, raw: string | number, low: number, high: number, ends: 'open' | 'closed' | 'closed-low'): number {
+function numberIn(
+  option: string,
+  raw: string | number,
+  low: number,
+  high: number,
+  ends: 'open' | 'closed' | 'closed-low',
+): number {
   const v = toNumber(raw);
-  const ok = Number.isFinite(v) && (ends === 'open' ? v > low && v < high : ends === 'closed' ? v >= low && v <= high : v >= low && v < high);
+  const ok =
+    Number.isFinite(v) &&
+    (ends === 'open' ? v > low && v < high : ends === 'closed' ? v >= low && v <= high : v >= low && v < high);
   if (!ok) {
     const range = ends === 'open' ? `in (${low}, ${high})` : ends === 'closed' ? `in [${low}, ${high}]` : `>= ${low}`;
     throw new SeedsiftError('usage', `${option}: expected a number ${range}, got ${String(raw)}`);
@@ -182,6 +202,7 @@ function thresholds(option: string, raw: string | readonly (number | string)[]):
   const parts = typeof raw === 'string' ? raw.split(',') : raw;
   const values = parts.map((p) => toNumber(typeof p === 'string' ? p.trim() : p));
   const bad = values.length === 0 || values.some((v) => !Number.isFinite(v) || v < 0 || v > 1);
-  if (bad) throw new SeedsiftError('usage', `${option}: expected comma-separated numbers in [0, 1], got '${String(raw)}'`);
+  if (bad)
+    throw new SeedsiftError('usage', `${option}: expected comma-separated numbers in [0, 1], got '${String(raw)}'`);
   return [...new Set(values)].sort((a, b) => a - b);
 }

@@ -45,7 +45,11 @@ export interface Pairing {
 }
 
 /** The group id of a config: its `key=value` pairs in key order, without the task key. */
-export function groupId(params: Readonly<Record<string, string>>, keys: readonly string[], taskKey: string | null): string {
+export function groupId(
+  params: Readonly<Record<string, string>>,
+  keys: readonly string[],
+  taskKey: string | null,
+): string {
   const parts: string[] = [];
   for (const key of keys) {
     const v = params[key];
@@ -59,8 +63,14 @@ export function groupId(params: Readonly<Record<string, string>>, keys: readonly
  * Example: configs memory=4, memory=8, memory=12 with selector memory=4 give pairs
  * (memory=4, memory=8) and (memory=4, memory=12).
  */
-export function pairConfigs(configs: readonly ConfigLike[], keys: readonly string[], selector: Selector | null, taskKey: string | null): Pairing {
-  const tasks = taskKey === null ? [null] : [...new Set(configs.map((c) => c.params[taskKey] ?? ''))].sort(naturalCompare);
+export function pairConfigs(
+  configs: readonly ConfigLike[],
+  keys: readonly string[],
+  selector: Selector | null,
+  taskKey: string | null,
+): Pairing {
+  const tasks =
+    taskKey === null ? [null] : [...new Set(configs.map((c) => c.params[taskKey] ?? ''))].sort(naturalCompare);
   const pairs: Pair[] = [];
   const missing: MissingCounterpart[] = [];
   const groupKeys = keys.filter((k) => k !== taskKey);
@@ -72,7 +82,13 @@ export function pairConfigs(configs: readonly ConfigLike[], keys: readonly strin
         for (let j = i + 1; j < groups.length; j++) {
           const a = groups[i] as (typeof groups)[number];
           const b = groups[j] as (typeof groups)[number];
-          pairs.push({ task, baseline: a.id, candidate: b.id, baselineConfig: a.config.id, candidateConfig: b.config.id });
+          pairs.push({
+            task,
+            baseline: a.id,
+            candidate: b.id,
+            baselineConfig: a.config.id,
+            candidateConfig: b.config.id,
+          });
         }
       }
       continue;
@@ -87,15 +103,32 @@ export function pairConfigs(configs: readonly ConfigLike[], keys: readonly strin
       for (const p of selector.pairs) wanted[p.key] = p.value;
       const found = groups.find((h) => sameParams(h.config.params, wanted, groupKeys));
       if (found === undefined) {
-        missing.push({ task, config: g.id, counterpart: groupKeys.filter((k) => wanted[k] !== undefined).map((k) => `${k}=${wanted[k]}`).join(',') });
+        missing.push({
+          task,
+          config: g.id,
+          counterpart: groupKeys
+            .filter((k) => wanted[k] !== undefined)
+            .map((k) => `${k}=${wanted[k]}`)
+            .join(','),
+        });
       } else {
-        pairs.push({ task, baseline: found.id, candidate: g.id, baselineConfig: found.config.id, candidateConfig: g.config.id });
+        pairs.push({
+          task,
+          baseline: found.id,
+          candidate: g.id,
+          baselineConfig: found.config.id,
+          candidateConfig: g.config.id,
+        });
       }
     }
   }
   return { pairs, missing, tasks };
 }
 
-function sameParams(params: Readonly<Record<string, string>>, wanted: Readonly<Record<string, string>>, keys: readonly string[]): boolean {
+function sameParams(
+  params: Readonly<Record<string, string>>,
+  wanted: Readonly<Record<string, string>>,
+  keys: readonly string[],
+): boolean {
   return keys.every((k) => params[k] === wanted[k]);
 }

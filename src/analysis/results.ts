@@ -135,7 +135,13 @@ export interface Comparison {
     readonly permutation: { readonly p: number | null; readonly exact: boolean };
     readonly mannWhitney: { readonly u: number | null; readonly p: number | null; readonly exact: boolean };
     /** Under --paired: paired t and Wilcoxon signed-rank on seeds present in both arms. */
-    readonly paired?: { readonly t: number | null; readonly df: number | null; readonly p: number | null; readonly wilcoxonP: number | null; readonly pairs: number };
+    readonly paired?: {
+      readonly t: number | null;
+      readonly df: number | null;
+      readonly p: number | null;
+      readonly wilcoxonP: number | null;
+      readonly pairs: number;
+    };
   };
   /** The primary test's p (Welch, or paired t under --paired) and its adjusted value. */
   readonly p: number | null;
@@ -182,7 +188,11 @@ export interface Curve {
   readonly bandByBin?: readonly IntervalMethod[];
   readonly level: number;
   /** Per-run binned values (for thin per-seed lines): run id → values per bin. */
-  readonly runs: readonly { readonly run: string; readonly seed: string; readonly values: readonly (number | null)[] }[];
+  readonly runs: readonly {
+    readonly run: string;
+    readonly seed: string;
+    readonly values: readonly (number | null)[];
+  }[];
 }
 
 /** Aggregates across tasks (--task-key), Agarwal et al. 2021. */
@@ -214,9 +224,21 @@ export interface TickCurve {
   /** Between-example half-width sqrt(p(1-p)/m) per tick when the number of evaluated examples m is known. */
   readonly exampleHalfWidth: readonly (number | null)[] | null;
   /** Earliest tick within the tolerance of the best tick, with its spread across seeds. */
-  readonly earliestGood: { readonly tick: number; readonly low: number | null; readonly high: number | null; readonly tolerance: number } | null;
+  readonly earliestGood: {
+    readonly tick: number;
+    readonly low: number | null;
+    readonly high: number | null;
+    readonly tolerance: number;
+  } | null;
   /** Per-tick comparison against the baseline config (Holm across ticks), null for the baseline. */
-  readonly versusBaseline: readonly { readonly tick: number; readonly difference: number | null; readonly pAdjusted: number | null; readonly verdict: Verdict }[] | null;
+  readonly versusBaseline:
+    | readonly {
+        readonly tick: number;
+        readonly difference: number | null;
+        readonly pAdjusted: number | null;
+        readonly verdict: Verdict;
+      }[]
+    | null;
   /** Runs of this config left out because they diverged (status `diverged`); `n` counts the runs used. Always set by `tickCurves`. */
   readonly diverged?: number;
 }
@@ -225,9 +247,17 @@ export interface HaltingCurve {
   readonly config: string;
   readonly thresholds: readonly number[];
   /** Per threshold: mean across seeds of accuracy at exit, and interval. */
-  readonly accuracy: readonly { readonly mean: number | null; readonly low: number | null; readonly high: number | null }[];
+  readonly accuracy: readonly {
+    readonly mean: number | null;
+    readonly low: number | null;
+    readonly high: number | null;
+  }[];
   /** Per threshold: mean across seeds of the mean exit tick, and interval. */
-  readonly exitTick: readonly { readonly mean: number | null; readonly low: number | null; readonly high: number | null }[];
+  readonly exitTick: readonly {
+    readonly mean: number | null;
+    readonly low: number | null;
+    readonly high: number | null;
+  }[];
   readonly seeds: number;
   readonly samples: number;
   readonly ticks: number;
@@ -241,9 +271,20 @@ export interface CalibrationCurve {
   /** Runs (one dump each, with a confidence column) behind the curve. Always set by `calibrationCurves`. */
   readonly seeds?: number;
   /** Expected calibration error per tick: mean across seeds and interval. */
-  readonly ece: readonly { readonly tick: number; readonly mean: number | null; readonly low: number | null; readonly high: number | null }[];
+  readonly ece: readonly {
+    readonly tick: number;
+    readonly mean: number | null;
+    readonly low: number | null;
+    readonly high: number | null;
+  }[];
   /** Reliability diagram at the last tick: per bin, mean confidence, accuracy, count (summed over seeds). */
-  readonly reliability: readonly { readonly low: number; readonly high: number; readonly confidence: number | null; readonly accuracy: number | null; readonly count: number }[];
+  readonly reliability: readonly {
+    readonly low: number;
+    readonly high: number;
+    readonly confidence: number | null;
+    readonly accuracy: number | null;
+    readonly count: number;
+  }[];
 }
 
 export interface Results {
@@ -253,7 +294,12 @@ export interface Results {
   /** ISO date of the report (from SOURCE_DATE_EPOCH when set). */
   readonly generated: string;
   readonly settings: Settings;
-  readonly inputs: { readonly paths: readonly string[]; readonly mode: 'logs' | 'scores'; readonly files: number; readonly filesRead: number };
+  readonly inputs: {
+    readonly paths: readonly string[];
+    readonly mode: 'logs' | 'scores';
+    readonly files: number;
+    readonly filesRead: number;
+  };
   readonly configs: readonly ConfigRecord[];
   readonly metrics: readonly MetricRecord[];
   readonly runs: readonly RunRecord[];

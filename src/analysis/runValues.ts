@@ -46,14 +46,22 @@ export function metricValues(
     const inComparison = compared.has(run.config);
     const base = { metric, summary, run: run.id, config: run.config, seed: run.seed };
     if (series === undefined || series.steps.length === 0) {
-      values.push({ ...base, value: null, note: mode === 'scores' ? 'no score (empty cell)' : 'no finite value for this metric', usedInTests: false });
+      values.push({
+        ...base,
+        value: null,
+        note: mode === 'scores' ? 'no score (empty cell)' : 'no finite value for this metric',
+        usedInTests: false,
+      });
       byRun.set(run.id, { value: null, diverged: false });
       continue;
     }
     if (mode === 'logs' && isDiverged(run, metric)) {
       const at = series.divergedAt ?? run.divergedAt;
       const where = at === null ? 'diverged' : `diverged at step ${at}`;
-      const note = policy === 'exclude' ? `${where}: left out of the tests` : `${where}: counted as the worst value of each comparison`;
+      const note =
+        policy === 'exclude'
+          ? `${where}: left out of the tests`
+          : `${where}: counted as the worst value of each comparison`;
       values.push({ ...base, value: null, note, usedInTests: inComparison && policy === 'worst' });
       byRun.set(run.id, { value: null, diverged: true });
       continue;
@@ -66,10 +74,20 @@ export function metricValues(
   }
   const problems: Problem[] = [];
   if (mode === 'logs' && spec.kind === 'reach' && censored > 0) {
-    problems.push(problem('summary-censored', `${metric} (${summary}): ${censored} of ${summarised} runs never reached ${spec.value} by the horizon (step ${window.horizon}); they are censored and left out of the tests, which favours configs that fail more often`));
+    problems.push(
+      problem(
+        'summary-censored',
+        `${metric} (${summary}): ${censored} of ${summarised} runs never reached ${spec.value} by the horizon (step ${window.horizon}); they are censored and left out of the tests, which favours configs that fail more often`,
+      ),
+    );
   }
   if (mode === 'logs' && spec.kind === 'best' && summarised > 0) {
-    problems.push(problem('summary-optimistic', `${metric} (best): the best checkpoint is chosen on the same evaluation it is scored on, so it is optimistic; prefer final or last:P% for claims`));
+    problems.push(
+      problem(
+        'summary-optimistic',
+        `${metric} (best): the best checkpoint is chosen on the same evaluation it is scored on, so it is optimistic; prefer final or last:P% for claims`,
+      ),
+    );
   }
   return { values, byRun, problems };
 }

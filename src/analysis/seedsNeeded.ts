@@ -17,9 +17,27 @@ import { mean, variance, type Numbers } from '../stats/moments.js';
 import { seedsPerArm, welchPower } from '../stats/power.js';
 
 export type SeedsQuestion =
-  | { readonly kind: 'pilot'; readonly baseline: Numbers; readonly candidate: Numbers; readonly alpha: number; readonly power: number }
-  | { readonly kind: 'pilot-one'; readonly values: Numbers; readonly effect: number; readonly alpha: number; readonly power: number }
-  | { readonly kind: 'figures'; readonly sd: number; readonly effect: number; readonly alpha: number; readonly power: number };
+  | {
+      readonly kind: 'pilot';
+      readonly baseline: Numbers;
+      readonly candidate: Numbers;
+      readonly alpha: number;
+      readonly power: number;
+    }
+  | {
+      readonly kind: 'pilot-one';
+      readonly values: Numbers;
+      readonly effect: number;
+      readonly alpha: number;
+      readonly power: number;
+    }
+  | {
+      readonly kind: 'figures';
+      readonly sd: number;
+      readonly effect: number;
+      readonly alpha: number;
+      readonly power: number;
+    };
 
 export interface SeedsAnswer {
   readonly method: 'noncentral-t';
@@ -52,8 +70,10 @@ export const POWER_TABLE_SEEDS = [3, 5, 10, 20, 50] as const;
  * Example: `seedsNeeded({ kind: 'figures', sd: 1, effect: 0.5, alpha: 0.05, power: 0.8 }).seedsPerArm` is 64.
  */
 export function seedsNeeded(q: SeedsQuestion): SeedsAnswer {
-  if (!(q.alpha > 0 && q.alpha < 1)) throw new SeedsiftError('usage', `--alpha: expected a number in (0, 1), got ${q.alpha}`);
-  if (!(q.power > q.alpha && q.power < 1)) throw new SeedsiftError('usage', `--power: expected a number in (alpha, 1), got ${q.power}`);
+  if (!(q.alpha > 0 && q.alpha < 1))
+    throw new SeedsiftError('usage', `--alpha: expected a number in (0, 1), got ${q.alpha}`);
+  if (!(q.power > q.alpha && q.power < 1))
+    throw new SeedsiftError('usage', `--power: expected a number in (alpha, 1), got ${q.power}`);
   const notes: string[] = [];
   let sd: number;
   let sdFrom: string;
@@ -63,11 +83,15 @@ export function seedsNeeded(q: SeedsQuestion): SeedsAnswer {
     pilotArm(q.baseline, 'baseline');
     pilotArm(q.candidate, 'candidate');
     const df = q.baseline.length + q.candidate.length - 2;
-    sd = Math.sqrt(((q.baseline.length - 1) * variance(q.baseline) + (q.candidate.length - 1) * variance(q.candidate)) / df);
+    sd = Math.sqrt(
+      ((q.baseline.length - 1) * variance(q.baseline) + (q.candidate.length - 1) * variance(q.candidate)) / df,
+    );
     sdFrom = `pooled sd of ${q.baseline.length} + ${q.candidate.length} pilot runs`;
     effect = mean(q.candidate) - mean(q.baseline);
     effectFrom = 'observed';
-    notes.push('the observed pilot difference is itself noisy: a larger pilot difference than the true one makes this count too small');
+    notes.push(
+      'the observed pilot difference is itself noisy: a larger pilot difference than the true one makes this count too small',
+    );
   } else if (q.kind === 'pilot-one') {
     pilotArm(q.values, 'pilot');
     sd = Math.sqrt(variance(q.values));
@@ -75,14 +99,22 @@ export function seedsNeeded(q: SeedsQuestion): SeedsAnswer {
     effect = checkEffect(q.effect);
     effectFrom = 'given';
   } else {
-    if (!(Number.isFinite(q.sd) && q.sd > 0)) throw new SeedsiftError('usage', `--sd: expected a positive number, got ${q.sd}`);
+    if (!(Number.isFinite(q.sd) && q.sd > 0))
+      throw new SeedsiftError('usage', `--sd: expected a positive number, got ${q.sd}`);
     sd = q.sd;
     sdFrom = 'given';
     effect = checkEffect(q.effect);
     effectFrom = 'given';
   }
-  if (!(sd > 0)) throw new SeedsiftError('input', 'pilot: every pilot run gave the same value (sd 0); seeds cannot be planned from it');
-  if (q.kind !== 'figures') notes.push(`the sd comes from a pilot; with few pilot runs it is uncertain (relative standard error about 1/sqrt(2(n-1)))`);
+  if (!(sd > 0))
+    throw new SeedsiftError(
+      'input',
+      'pilot: every pilot run gave the same value (sd 0); seeds cannot be planned from it',
+    );
+  if (q.kind !== 'figures')
+    notes.push(
+      `the sd comes from a pilot; with few pilot runs it is uncertain (relative standard error about 1/sqrt(2(n-1)))`,
+    );
   const d = Math.abs(effect) / sd;
   let seeds: number | null = null;
   if (d === 0) notes.push('a difference of 0 cannot be detected with any number of seeds');
@@ -95,14 +127,29 @@ export function seedsNeeded(q: SeedsQuestion): SeedsAnswer {
     }
   }
   const powerAt = POWER_TABLE_SEEDS.map((n) => ({ seeds: n, power: welchPower(d, n, n, q.alpha) }));
-  return { method: 'noncentral-t', kind: q.kind, sd, sdFrom, effect, effectFrom, standardized: d, alpha: q.alpha, power: q.power, seedsPerArm: seeds, powerAt, notes };
+  return {
+    method: 'noncentral-t',
+    kind: q.kind,
+    sd,
+    sdFrom,
+    effect,
+    effectFrom,
+    standardized: d,
+    alpha: q.alpha,
+    power: q.power,
+    seedsPerArm: seeds,
+    powerAt,
+    notes,
+  };
 }
 
 function pilotArm(x: Numbers, name: string): void {
-  if (x.length < 2) throw new SeedsiftError('input', `${name}: expected at least 2 pilot runs with a value, got ${x.length}`);
+  if (x.length < 2)
+    throw new SeedsiftError('input', `${name}: expected at least 2 pilot runs with a value, got ${x.length}`);
 }
 
 function checkEffect(effect: number): number {
-  if (!Number.isFinite(effect)) throw new SeedsiftError('usage', `--effect: expected a number (a difference in metric units), got ${effect}`);
+  if (!Number.isFinite(effect))
+    throw new SeedsiftError('usage', `--effect: expected a number (a difference in metric units), got ${effect}`);
   return effect;
 }

@@ -27,9 +27,15 @@ export function parseSelector(text: string, option = '--baseline'): Selector {
     const eq = part.indexOf('=');
     const key = eq < 0 ? '' : part.slice(0, eq).trim();
     const value = eq < 0 ? '' : part.slice(eq + 1).trim();
-    if (key === '' || value === '') throw new SeedsiftError('usage', `${expected}, got '${text}' ('${part.trim()}' is not key=value)`);
-    if (key === 'seed') throw new SeedsiftError('usage', `${option}: the seed is not part of a config; name config keys only, got '${text}'`);
-    if (pairs.some((p) => p.key === key)) throw new SeedsiftError('usage', `${expected}, got '${text}' (key '${key}' named twice)`);
+    if (key === '' || value === '')
+      throw new SeedsiftError('usage', `${expected}, got '${text}' ('${part.trim()}' is not key=value)`);
+    if (key === 'seed')
+      throw new SeedsiftError(
+        'usage',
+        `${option}: the seed is not part of a config; name config keys only, got '${text}'`,
+      );
+    if (pairs.some((p) => p.key === key))
+      throw new SeedsiftError('usage', `${expected}, got '${text}' (key '${key}' named twice)`);
     pairs.push({ key, value });
   }
   return { text, pairs };
@@ -55,11 +61,17 @@ export function checkSelector(
 ): void {
   for (const { key } of selector.pairs) {
     if (key === taskKey) {
-      throw new SeedsiftError('usage', `${option}: '${key}' is the task key (--task-key); comparisons already run per task, name other keys, got '${selector.text}'`);
+      throw new SeedsiftError(
+        'usage',
+        `${option}: '${key}' is the task key (--task-key); comparisons already run per task, name other keys, got '${selector.text}'`,
+      );
     }
     if (!keys.includes(key)) {
       const available = keys.filter((k) => k !== taskKey);
-      throw new SeedsiftError('usage', `${option}: no config key '${key}'; keys are ${available.length === 0 ? '(none)' : available.join(', ')}`);
+      throw new SeedsiftError(
+        'usage',
+        `${option}: no config key '${key}'; keys are ${available.length === 0 ? '(none)' : available.join(', ')}`,
+      );
     }
   }
   if (configs.some((c) => matchesSelector(c.params, selector))) return;
@@ -68,7 +80,10 @@ export function checkSelector(
 }
 
 /** The distinct values of one key across configs, in natural order. */
-export function valuesOf(configs: readonly { readonly params: Readonly<Record<string, string>> }[], key: string): string[] {
+export function valuesOf(
+  configs: readonly { readonly params: Readonly<Record<string, string>> }[],
+  key: string,
+): string[] {
   const seen = new Set<string>();
   for (const c of configs) {
     const v = c.params[key];

@@ -50,7 +50,11 @@ export function summarizeSeries(series: Series, spec: SummarySpec, goal: Goal, w
     const i = lastIndexAtOrBefore(steps, spec.step);
     if (i < 0) return none(`no value logged at or before step ${spec.step} (first step ${steps[0]})`);
     const last = steps[n - 1] as number;
-    return { value: values[i] as number, note: last < spec.step ? `run ends at step ${last}, before step ${spec.step}` : null, censored: false };
+    return {
+      value: values[i] as number,
+      note: last < spec.step ? `run ends at step ${last}, before step ${spec.step}` : null,
+      censored: false,
+    };
   }
   const end = lastIndexAtOrBefore(steps, horizon);
   if (end < 0) return none(`no value logged at or before the horizon (step ${horizon})`);
@@ -107,7 +111,8 @@ function averageHeight(steps: Float64Array, values: Float64Array, end: number, h
   if (horizon <= start) return values[0] as number;
   let area = 0;
   for (let i = 1; i <= end; i++) {
-    area += (((values[i - 1] as number) + (values[i] as number)) / 2) * ((steps[i] as number) - (steps[i - 1] as number));
+    area +=
+      (((values[i - 1] as number) + (values[i] as number)) / 2) * ((steps[i] as number) - (steps[i - 1] as number));
   }
   const lastStep = steps[end] as number;
   if (lastStep < horizon && end + 1 < steps.length) {
@@ -120,7 +125,14 @@ function averageHeight(steps: Float64Array, values: Float64Array, end: number, h
   return area / (lastStep - start || 1);
 }
 
-function lastPercent(steps: Float64Array, values: Float64Array, end: number, horizon: number, first: number, percent: number): SummaryValue {
+function lastPercent(
+  steps: Float64Array,
+  values: Float64Array,
+  end: number,
+  horizon: number,
+  first: number,
+  percent: number,
+): SummaryValue {
   const from = horizon - (percent / 100) * (horizon - first);
   let total = 0;
   let count = 0;
@@ -129,7 +141,11 @@ function lastPercent(steps: Float64Array, values: Float64Array, end: number, hor
     count++;
   }
   if (count === 0) {
-    return { value: values[end] as number, note: `no step logged in the last ${percent}% (from step ${from}); used the last value before the horizon`, censored: false };
+    return {
+      value: values[end] as number,
+      note: `no step logged in the last ${percent}% (from step ${from}); used the last value before the horizon`,
+      censored: false,
+    };
   }
   return ok(total / count);
 }

@@ -23,7 +23,8 @@ const GRAMMAR = 'final, last:P%, best, auc, reach:VALUE or step:N';
  */
 export function parseSummary(text: string, option = '--summary'): SummarySpec {
   const t = text.trim();
-  const bad = (why = ''): SeedsiftError => new SeedsiftError('usage', `${option}: expected ${GRAMMAR}${why}, got '${text}'`);
+  const bad = (why = ''): SeedsiftError =>
+    new SeedsiftError('usage', `${option}: expected ${GRAMMAR}${why}, got '${text}'`);
   if (t === 'final' || t === 'best' || t === 'auc') return { kind: t };
   const colon = t.indexOf(':');
   if (colon < 0) throw bad();

@@ -74,7 +74,10 @@ export function taskAggregates(
     if (all.length >= 2) {
       const random = createRandom(deriveSeed(settings.seed, `tasks|${metric}|${group}`));
       try {
-        const boot = stratifiedBootstrap(strata, (resampled) => interquartileMean(concat(resampled)), random, { resamples: settings.resamples, level: settings.level });
+        const boot = stratifiedBootstrap(strata, (resampled) => interquartileMean(concat(resampled)), random, {
+          resamples: settings.resamples,
+          level: settings.level,
+        });
         low = boot.low;
         high = boot.high;
       } catch (error) {
@@ -128,7 +131,11 @@ export function probabilityOfImprovement(x: ArrayLike<number>, y: ArrayLike<numb
   return score / (x.length * y.length);
 }
 
-function averageImprovement(tasks: ReadonlyMap<string, number[]>, baseline: ReadonlyMap<string, number[]> | undefined, goal: Goal): number | null {
+function averageImprovement(
+  tasks: ReadonlyMap<string, number[]>,
+  baseline: ReadonlyMap<string, number[]> | undefined,
+  goal: Goal,
+): number | null {
   if (baseline === undefined) return null;
   let total = 0;
   let count = 0;

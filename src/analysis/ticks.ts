@@ -62,7 +62,10 @@ function summaryIndex(series: TickSeries, step: number | null): number {
 }
 
 function groupByConfig(runs: readonly Run[], metric: string, step: number | null): ConfigTicks[] {
-  const groups = new Map<string, { config: string; ticks: number; runs: { values: Float64Array; step: number }[]; diverged: number }>();
+  const groups = new Map<
+    string,
+    { config: string; ticks: number; runs: { values: Float64Array; step: number }[]; diverged: number }
+  >();
   for (const run of runs) {
     const series = run.tickMetrics[metric];
     if (series === undefined) continue;
@@ -78,7 +81,10 @@ function groupByConfig(runs: readonly Run[], metric: string, step: number | null
     }
     const i = summaryIndex(series, step);
     if (i < 0) continue;
-    g.runs.push({ values: Float64Array.from(series.values, (tick) => tick[i] as number), step: series.steps[i] as number });
+    g.runs.push({
+      values: Float64Array.from(series.values, (tick) => tick[i] as number),
+      step: series.steps[i] as number,
+    });
   }
   return [...groups.values()];
 }
@@ -102,21 +108,35 @@ function earliestWithin(values: readonly (number | null)[], goal: 'max' | 'min',
   return values.findIndex((v) => v !== null && (goal === 'max' ? v >= bar - tolerance : v <= bar + tolerance));
 }
 
-function earliestGood(g: ConfigTicks, means: readonly (number | null)[], goal: 'max' | 'min', level: number, tolerance: number | undefined): TickCurve['earliestGood'] {
+function earliestGood(
+  g: ConfigTicks,
+  means: readonly (number | null)[],
+  goal: 'max' | 'min',
+  level: number,
+  tolerance: number | undefined,
+): TickCurve['earliestGood'] {
   const present = means.filter((m): m is number => m !== null);
   if (present.length === 0) return null;
   const tol = tolerance ?? 0.01 * (Math.max(...present) - Math.min(...present));
   const tick = earliestWithin(means, goal, tol);
   const perRun: number[] = [];
   for (const r of g.runs) {
-    const k = earliestWithin(Array.from(r.values, (v) => (Number.isFinite(v) ? v : null)), goal, tol);
+    const k = earliestWithin(
+      Array.from(r.values, (v) => (Number.isFinite(v) ? v : null)),
+      goal,
+      tol,
+    );
     if (k >= 0) perRun.push(k);
   }
   const spread = seedMeanInterval(perRun, level);
   return { tick, low: spread.low, high: spread.high, tolerance: tol };
 }
 
-function exampleNoise(g: ConfigTicks, means: readonly (number | null)[], examples: number | null | undefined): (number | null)[] | null {
+function exampleNoise(
+  g: ConfigTicks,
+  means: readonly (number | null)[],
+  examples: number | null | undefined,
+): (number | null)[] | null {
   if (examples === null || examples === undefined) return null;
   let any = false;
   for (const r of g.runs) {
@@ -130,7 +150,12 @@ function exampleNoise(g: ConfigTicks, means: readonly (number | null)[], example
   return means.map((m) => (m === null ? null : binomialHalfWidth(m, examples)));
 }
 
-function versusBaseline(g: ConfigTicks, base: ConfigTicks, goal: 'max' | 'min', alpha: number): NonNullable<TickCurve['versusBaseline']> {
+function versusBaseline(
+  g: ConfigTicks,
+  base: ConfigTicks,
+  goal: 'max' | 'min',
+  alpha: number,
+): NonNullable<TickCurve['versusBaseline']> {
   const ticks = Math.max(g.ticks, base.ticks);
   const rows: { tick: number; difference: number | null; p: number | null }[] = [];
   for (let k = 0; k < ticks; k++) {
@@ -147,7 +172,7 @@ function versusBaseline(g: ConfigTicks, base: ConfigTicks, goal: 'max' | 'min', 
     const pAdjusted = adjustedOf.get(r.tick) ?? null;
     let verdict: Verdict = 'inconclusive';
     if (pAdjusted !== null && r.difference !== null && pAdjusted < alpha && r.difference !== 0) {
-      verdict = (r.difference > 0) === (goal === 'max') ? 'better' : 'worse';
+      verdict = r.difference > 0 === (goal === 'max') ? 'better' : 'worse';
     }
     return { tick: r.tick, difference: r.difference, pAdjusted, verdict };
   });
@@ -160,7 +185,8 @@ function versusBaseline(g: ConfigTicks, base: ConfigTicks, goal: 'max' | 'min', 
  * Example: `tickCurves(runs, valAcc, { step: null, level: 0.95, alpha: 0.05, baseline: 'ticks=8' })`.
  */
 export function tickCurves(runs: readonly Run[], metric: MetricInfo, opts: TickCurveOptions): TickCurve[] {
-  if (!(opts.alpha > 0 && opts.alpha < 1)) throw new RangeError(`tickCurves: alpha must lie in (0, 1), got ${opts.alpha}`);
+  if (!(opts.alpha > 0 && opts.alpha < 1))
+    throw new RangeError(`tickCurves: alpha must lie in (0, 1), got ${opts.alpha}`);
   if (opts.tolerance !== undefined && !(opts.tolerance >= 0 && Number.isFinite(opts.tolerance))) {
     throw new RangeError(`tickCurves: tolerance must be a finite number >= 0, got ${opts.tolerance}`);
   }

@@ -29,7 +29,8 @@ export function adjustFamily(p: readonly (number | null)[], correction: Correcti
  * Example: `decideVerdict(0.01, -0.3, 'min', 0.05)` is `'better'` (lower is better and it went down).
  */
 export function decideVerdict(pAdjusted: number | null, difference: number, goal: Goal, alpha: number): Verdict {
-  if (pAdjusted === null || !(pAdjusted < alpha) || difference === 0 || !Number.isFinite(difference)) return 'inconclusive';
+  if (pAdjusted === null || !(pAdjusted < alpha) || difference === 0 || !Number.isFinite(difference))
+    return 'inconclusive';
   const up = difference > 0;
   return up === (goal === 'max') ? 'better' : 'worse';
 }

@@ -25,19 +25,27 @@ function mebibytes(bytes: number): string {
 /** The `digest` command (see the module comment); `done` receives the exit code. */
 export function digestCommand(io: Io, done: (code: number) => void): Command {
   const command = new Command('digest')
-    .description('read runs where they live and save them exactly as one Parquet digest, for report or scan to read later (e.g. one digest per shard of a cluster job array)')
+    .description(
+      'read runs where they live and save them exactly as one Parquet digest, for report or scan to read later (e.g. one digest per shard of a cluster job array)',
+    )
     .argument('[paths...]', 'folders or files of run logs (none with --scores)')
     .requiredOption('--out <file>', 'the digest to write (a name ending in .parquet)')
     .option('--quiet', 'print nothing but errors');
   addIngestOptions(command);
   command.action(async (paths: string[], raw: RawIngestOptions & { out: string; quiet?: boolean }) => {
-    if (!/\.parquet$/i.test(raw.out)) throw new SeedsiftError('usage', `--out: expected a file name ending in .parquet (so that report and scan find it), got '${raw.out}'`);
+    if (!/\.parquet$/i.test(raw.out))
+      throw new SeedsiftError(
+        'usage',
+        `--out: expected a file name ending in .parquet (so that report and scan find it), got '${raw.out}'`,
+      );
     const options = resolveIngestOptions(raw);
-    if (paths.length === 0 && options.scores === null) throw new SeedsiftError('usage', 'digest: expected PATH... (folders or files of run logs) or --scores FILE');
+    if (paths.length === 0 && options.scores === null)
+      throw new SeedsiftError('usage', 'digest: expected PATH... (folders or files of run logs) or --scores FILE');
     const progress = progressDisplay(io, raw.quiet === true);
     const runSet = await ingest(paths, options, progress.hooks).finally(() => progress.done());
     const target = identity(raw.out);
-    if (inputFiles(runSet, [options.manifest, options.scores]).some((f) => identity(f) === target)) throw new SeedsiftError('output', `refusing to write over an input file: ${raw.out}`);
+    if (inputFiles(runSet, [options.manifest, options.scores]).some((f) => identity(f) === target))
+      throw new SeedsiftError('output', `refusing to write over an input file: ${raw.out}`);
     const temp = join(dirname(target), `.${basename(target)}.${process.pid}.tmp.parquet`);
     try {
       await writeDigest(runSet, temp);
@@ -48,7 +56,9 @@ export function digestCommand(io: Io, done: (code: number) => void): Command {
     }
     if (raw.quiet !== true) {
       const read = runSet.files.filter((f) => f.status === 'read').length;
-      io.stdout(`${runSet.runs.length} runs from ${read} files read, ${runSet.problems.length} problems\nwrote ${raw.out} (${mebibytes(statSync(target).size)})\n`);
+      io.stdout(
+        `${runSet.runs.length} runs from ${read} files read, ${runSet.problems.length} problems\nwrote ${raw.out} (${mebibytes(statSync(target).size)})\n`,
+      );
     }
     done(0);
   });

@@ -8,9 +8,14 @@ import type { Results } from '../analysis/results.js';
 export function failedGate(results: Results): string | null {
   const gate = results.settings.failOn;
   if (gate === null) return null;
-  const failing = results.comparisons.filter((c) => (gate === 'worse' ? c.verdict === 'worse' : c.verdict !== 'better'));
+  const failing = results.comparisons.filter((c) =>
+    gate === 'worse' ? c.verdict === 'worse' : c.verdict !== 'better',
+  );
   if (failing.length === 0) return null;
   const first = failing[0];
-  const which = first === undefined ? '' : ` (first: ${first.metric}, ${first.candidate} vs ${first.baseline}${first.task === null ? '' : `, task ${first.task}`}: ${first.verdict})`;
+  const which =
+    first === undefined
+      ? ''
+      : ` (first: ${first.metric}, ${first.candidate} vs ${first.baseline}${first.task === null ? '' : `, task ${first.task}`}: ${first.verdict})`;
   return `${failing.length} of ${results.comparisons.length} comparisons are ${gate === 'worse' ? 'worse' : 'not better'}${which}`;
 }

@@ -24,11 +24,17 @@ const collect = (value: string, previous: string[] = []): string[] => [...previo
 /** Declare the shared ingest options on a command. */
 export function addIngestOptions(command: Command): Command {
   return command
-    .option('--layout <template>', "path template with {field} captures, * and ** (e.g. '{model}/{task}_{seed}/eval.csv')")
+    .option(
+      '--layout <template>',
+      "path template with {field} captures, * and ** (e.g. '{model}/{task}_{seed}/eval.csv')",
+    )
     .option('--seed-column <name>', 'a column inside each file that holds the seed (one file, many seeds)')
     .option('--seed-columns <pattern>', "one column per seed in a wide file, e.g. 'acc:seed_{seed}_*'")
     .option('--manifest <file>', 'a table with one row per log file: file, seed, and config columns')
-    .option('--step <name>', 'the step column (default: first of step, global_step, iteration, iter, epoch, timestep, frame)')
+    .option(
+      '--step <name>',
+      'the step column (default: first of step, global_step, iteration, iter, epoch, timestep, frame)',
+    )
     .option('--columns <a,b,c>', 'column names for headerless files')
     .option('--scores <file>', 'a score table (one row per run, final numbers only) instead of per-step logs')
     .option('--by <a,b>', 'config columns of a score table (when they hold numbers)')
@@ -36,7 +42,12 @@ export function addIngestOptions(command: Command): Command {
 }
 
 const list = (value: string | undefined): string[] | null =>
-  value === undefined ? null : value.split(',').map((s) => s.trim()).filter((s) => s !== '');
+  value === undefined
+    ? null
+    : value
+        .split(',')
+        .map((s) => s.trim())
+        .filter((s) => s !== '');
 
 /** Resolve raw ingest options; throws SeedsiftError('usage') naming the option on a bad value. */
 export function resolveIngestOptions(raw: RawIngestOptions): IngestOptions {
@@ -55,10 +66,14 @@ export function resolveIngestOptions(raw: RawIngestOptions): IngestOptions {
     throw new SeedsiftError('usage', '--seed-column, --seed-columns and --manifest: expected at most one of them');
   }
   if (raw.seedColumns !== undefined && !raw.seedColumns.includes('{seed}')) {
-    throw new SeedsiftError('usage', `--seed-columns: expected a pattern with a {seed} capture, got '${raw.seedColumns}'`);
+    throw new SeedsiftError(
+      'usage',
+      `--seed-columns: expected a pattern with a {seed} capture, got '${raw.seedColumns}'`,
+    );
   }
   const columns = list(raw.columns);
-  if (columns !== null && columns.length === 0) throw new SeedsiftError('usage', '--columns: expected a comma-separated list of names');
+  if (columns !== null && columns.length === 0)
+    throw new SeedsiftError('usage', '--columns: expected a comma-separated list of names');
   return {
     layout: raw.layout ?? null,
     seedColumn: raw.seedColumn ?? null,

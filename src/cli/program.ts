@@ -21,17 +21,31 @@ import { EXIT_DONE, EXIT_INTERNAL, EXIT_USAGE } from './exitCodes.js';
  * you mean --y?) (see seedsift report --help)`): commander puts its suggestion on a second line.
  */
 function oneLine(command: string): (text: string, write: (text: string) => void) => void {
-  return (text, write) => write(`seedsift: ${text.trim().replace(/^error: /, '').replace(/\s*\n\s*/g, ' ')} (see seedsift ${command}--help)\n`);
+  return (text, write) =>
+    write(
+      `seedsift: ${text
+        .trim()
+        .replace(/^error: /, '')
+        .replace(/\s*\n\s*/g, ' ')} (see seedsift ${command}--help)\n`,
+    );
 }
 
 export function buildProgram(io: Io, done: (code: number) => void): Command {
   const program = new Command('seedsift')
-    .description('Does a change beat seed noise? Reads many runs\' per-step logs, tests configurations against each other, and writes a self-contained report.')
+    .description(
+      "Does a change beat seed noise? Reads many runs' per-step logs, tests configurations against each other, and writes a self-contained report.",
+    )
     .version(version(), '-V, --version')
     .option('--debug', 'show the stack trace of an error')
     .configureOutput({ writeOut: io.stdout, writeErr: io.stderr, outputError: oneLine('') })
     .exitOverride();
-  for (const command of [scanCommand(io, done), reportCommand(io, done), digestCommand(io, done), notebookCommand(io, done), seedsCommand(io, done)]) {
+  for (const command of [
+    scanCommand(io, done),
+    reportCommand(io, done),
+    digestCommand(io, done),
+    notebookCommand(io, done),
+    seedsCommand(io, done),
+  ]) {
     // Nested commands too (notebook new): without exitOverride commander would call process.exit(1).
     const configure = (c: Command, path: string): void => {
       c.configureOutput({ writeOut: io.stdout, writeErr: io.stderr, outputError: oneLine(path) }).exitOverride();
@@ -40,14 +54,17 @@ export function buildProgram(io: Io, done: (code: number) => void): Command {
     configure(command, `${command.name()} `);
     program.addCommand(command);
   }
-  program.addHelpText('after', `
+  program.addHelpText(
+    'after',
+    `
 Examples:
   seedsift scan sample-runs
   seedsift report sample-runs --baseline ticks=8,memory=4 -o report.html --json results.json --markdown summary.md
   seedsift report runs/ --baseline memory=4 --summary last:10% --fail-on worse
   seedsift digest runs/shard-3 --out digests/3.parquet && seedsift report digests/*.parquet
   seedsift notebook new study.md
-  seedsift seeds --sd 0.01 --effect 0.005`);
+  seedsift seeds --sd 0.01 --effect 0.005`,
+  );
   return program;
 }
 
@@ -66,12 +83,12 @@ export async function run(argv: readonly string[], io: Io): Promise<number> {
     }
     if (error instanceof SeedsiftError) {
       io.stderr(`seedsift: ${error.message}\n`);
-      if (debug && error.stack !== undefined) io.stderr(error.stack + '\n');
+      if (debug && error.stack !== undefined) io.stderr(`${error.stack}\n`);
       return EXIT_USAGE;
     }
     const message = error instanceof Error ? error.message : String(error);
     io.stderr(`seedsift: internal error: ${message} (this is a bug in seedsift; --debug shows the stack)\n`);
-    if (debug && error instanceof Error && error.stack !== undefined) io.stderr(error.stack + '\n');
+    if (debug && error instanceof Error && error.stack !== undefined) io.stderr(`${error.stack}\n`);
     return EXIT_INTERNAL;
   }
 }

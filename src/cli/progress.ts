@@ -12,10 +12,15 @@ export interface Progress {
   done(): void;
 }
 
-const WORDS: Record<ProgressStage, string> = { headers: 'looking at files', reading: 'reading files', comparing: 'comparing metrics', drawing: 'drawing charts' };
+const WORDS: Record<ProgressStage, string> = {
+  headers: 'looking at files',
+  reading: 'reading files',
+  comparing: 'comparing metrics',
+  drawing: 'drawing charts',
+};
 
 export function progressDisplay(io: Io, quiet: boolean, now: () => number = Date.now): Progress {
-  if (quiet || !io.stderrIsTTY || io.env['CI'] !== undefined) return { hooks: {}, done: () => undefined };
+  if (quiet || !io.stderrIsTTY || io.env.CI !== undefined) return { hooks: {}, done: () => undefined };
   let last = 0;
   let shown = false;
   return {

@@ -41,7 +41,7 @@ interface RawReportOptions extends RawIngestOptions {
 export function reportCommand(io: Io, done: (code: number) => void): Command {
   const command = new Command('report')
     .description('the whole job: compare configurations and write report.html (and/or --json, --markdown)')
-    .argument('[paths...]', 'folders or files of run logs (default: the notebook\'s runs:)')
+    .argument('[paths...]', "folders or files of run logs (default: the notebook's runs:)")
     .option('-o, --out <file>', 'write the HTML report to FILE')
     .option('--json <file>', 'write results.json (the machine-readable results) to FILE')
     .option('--markdown <file>', 'write a Markdown verdict summary (for a pull request) to FILE')
@@ -65,13 +65,20 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
     const scores = raw.scores ?? front.scores;
     const runPaths = paths.length > 0 || scores !== undefined ? paths : notebookRuns(front, notebookFile);
     const named = { html: raw.out, json: raw.json, markdown: raw.markdown };
-    const outputs = named.html === undefined && named.json === undefined && named.markdown === undefined ? { ...named, html: 'report.html' } : named;
+    const outputs =
+      named.html === undefined && named.json === undefined && named.markdown === undefined
+        ? { ...named, html: 'report.html' }
+        : named;
     // Heavy modules (DuckDB, Vega) load only when the command runs, so --help starts fast.
     const { reportDate, reportPipeline } = await import('../pipeline.js');
     const ingestOptions = resolveIngestOptions(mergeIngest(front, raw));
     const files = [outputs.html, outputs.json, outputs.markdown].filter((f): f is string => f !== undefined);
     const twice = files.find((f, k) => files.findIndex((g) => resolve(g) === resolve(f)) !== k);
-    if (twice !== undefined) throw new SeedsiftError('usage', `-o, --json, --markdown: expected a different file for each, got ${twice} twice`);
+    if (twice !== undefined)
+      throw new SeedsiftError(
+        'usage',
+        `-o, --json, --markdown: expected a different file for each, got ${twice} twice`,
+      );
     const progress = progressDisplay(io, raw.quiet === true);
     const result = await reportPipeline({
       hooks: progress.hooks,
@@ -81,11 +88,19 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
       notebook: { source: notebookSource, file: raw.notebook ?? 'templates/notebook.md' },
       generated: reportDate(io.env),
       version: version(),
-      outputs: { html: outputs.html !== undefined, json: outputs.json !== undefined, markdown: outputs.markdown !== undefined },
+      outputs: {
+        html: outputs.html !== undefined,
+        json: outputs.json !== undefined,
+        markdown: outputs.markdown !== undefined,
+      },
     }).finally(() => progress.done());
     const inputs = inputFiles(result.runSet, [ingestOptions.manifest, ingestOptions.scores, notebookFile]);
     const written: string[] = [];
-    for (const [file, text] of [[outputs.html, result.html], [outputs.json, result.json], [outputs.markdown, result.markdown]] as const) {
+    for (const [file, text] of [
+      [outputs.html, result.html],
+      [outputs.json, result.json],
+      [outputs.markdown, result.markdown],
+    ] as const) {
       if (file === undefined || text === null) continue;
       writeOutput(file, text, inputs);
       written.push(file);
@@ -104,14 +119,20 @@ function readNotebook(file: string): string {
   try {
     return readFileSync(file, 'utf8');
   } catch (error) {
-    throw new SeedsiftError('usage', `--notebook: cannot read ${file}: ${(error as NodeJS.ErrnoException).code ?? (error as Error).message}`);
+    throw new SeedsiftError(
+      'usage',
+      `--notebook: cannot read ${file}: ${(error as NodeJS.ErrnoException).code ?? (error as Error).message}`,
+    );
   }
 }
 
 /** Paths from the notebook's `runs:`, relative to the notebook's folder. */
 function notebookRuns(front: NotebookOptions, notebookFile: string): string[] {
   if (front.runs === undefined || front.runs.length === 0) {
-    throw new SeedsiftError('usage', 'report: expected PATH... on the command line or runs: in the notebook front matter');
+    throw new SeedsiftError(
+      'usage',
+      'report: expected PATH... on the command line or runs: in the notebook front matter',
+    );
   }
   const base = dirname(notebookFile);
   return front.runs.map((p) => (isAbsolute(p) ? p : relative('.', join(base, p)) || '.'));
@@ -128,7 +149,8 @@ function mergeIngest(front: NotebookOptions, raw: RawReportOptions): RawIngestOp
   }
   // Goals: the command line's --metric wins per metric name.
   const goals = new Map<string, string>();
-  for (const spec of [...(front.metric ?? []), ...(raw.metric ?? [])]) goals.set(spec.slice(0, spec.lastIndexOf(':')), spec);
+  for (const spec of [...(front.metric ?? []), ...(raw.metric ?? [])])
+    goals.set(spec.slice(0, spec.lastIndexOf(':')), spec);
   if (goals.size > 0) merged.metric = [...goals.values()];
   return merged;
 }

@@ -23,14 +23,16 @@ export function scanCommand(io: Io, done: (code: number) => void): Command {
       import('../report/scanText.js'),
     ]);
     const options = resolveIngestOptions(raw);
-    if (paths.length === 0 && options.scores === null) throw new SeedsiftError('usage', 'scan: expected PATH... (folders or files of run logs) or --scores FILE');
+    if (paths.length === 0 && options.scores === null)
+      throw new SeedsiftError('usage', 'scan: expected PATH... (folders or files of run logs) or --scores FILE');
     const progress = progressDisplay(io, raw.quiet === true);
     const runSet = await ingest(paths, options, progress.hooks).finally(() => progress.done());
     const inv = inventory(runSet);
     if (raw.json === '-') io.stdout(scanJson(runSet, inv));
     else {
       io.stdout(scanText(runSet, inv));
-      if (raw.json !== undefined) writeOutput(raw.json, scanJson(runSet, inv), inputFiles(runSet, [options.manifest, options.scores]));
+      if (raw.json !== undefined)
+        writeOutput(raw.json, scanJson(runSet, inv), inputFiles(runSet, [options.manifest, options.scores]));
     }
     done(0);
   });

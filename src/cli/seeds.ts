@@ -26,7 +26,8 @@ interface RawSeedsOptions extends RawIngestOptions {
 const number = (text: string | undefined, option: string, fallback: number | null): number | null => {
   if (text === undefined) return fallback;
   const value = Number(text);
-  if (text.trim() === '' || !Number.isFinite(value)) throw new SeedsiftError('usage', `${option}: expected a number, got '${text}'`);
+  if (text.trim() === '' || !Number.isFinite(value))
+    throw new SeedsiftError('usage', `${option}: expected a number, got '${text}'`);
   return value;
 };
 
@@ -47,9 +48,10 @@ export function seedsCommand(io: Io, done: (code: number) => void): Command {
   command.action(async (paths: string[], raw: RawSeedsOptions) => {
     const alpha = number(raw.alpha, '--alpha', 0.05) as number;
     const power = number(raw.power, '--power', 0.8) as number;
-    const question: SeedsQuestion = paths.length === 0 ? figures(raw, alpha, power) : await pilot(paths, raw, alpha, power);
+    const question: SeedsQuestion =
+      paths.length === 0 ? figures(raw, alpha, power) : await pilot(paths, raw, alpha, power);
     const answer = seedsNeeded(question);
-    io.stdout(raw.json === true ? JSON.stringify(answer, null, 2) + '\n' : seedsText(answer));
+    io.stdout(raw.json === true ? `${JSON.stringify(answer, null, 2)}\n` : seedsText(answer));
     done(0);
   });
   return command;
@@ -59,33 +61,55 @@ function figures(raw: RawSeedsOptions, alpha: number, power: number): SeedsQuest
   const sd = number(raw.sd, '--sd', null);
   const effect = number(raw.effect, '--effect', null);
   if (sd === null || effect === null) {
-    throw new SeedsiftError('usage', 'seeds: expected --sd and --effect, or pilot runs (PATH... --for METRIC --baseline SEL [--candidate SEL | --effect X])');
+    throw new SeedsiftError(
+      'usage',
+      'seeds: expected --sd and --effect, or pilot runs (PATH... --for METRIC --baseline SEL [--candidate SEL | --effect X])',
+    );
   }
   return { kind: 'figures', sd, effect, alpha, power };
 }
 
-async function pilot(paths: readonly string[], raw: RawSeedsOptions, alpha: number, power: number): Promise<SeedsQuestion> {
+async function pilot(
+  paths: readonly string[],
+  raw: RawSeedsOptions,
+  alpha: number,
+  power: number,
+): Promise<SeedsQuestion> {
   if (raw.for === undefined || raw.baseline === undefined) {
     throw new SeedsiftError('usage', 'seeds: with pilot runs, expected --for METRIC and --baseline SELECTOR');
   }
-  const [{ ingest }, { analyze }] = await Promise.all([import('../ingest/ingest.js'), import('../analysis/analyze.js')]);
+  const [{ ingest }, { analyze }] = await Promise.all([
+    import('../ingest/ingest.js'),
+    import('../analysis/analyze.js'),
+  ]);
   const runSet = await ingest(paths, resolveIngestOptions(raw));
   if (!runSet.metrics.some((m) => m.name === raw.for && m.kind === 'scalar')) {
-    throw new SeedsiftError('usage', `--for: expected one of the metrics (${runSet.metrics.filter((m) => m.kind === 'scalar').map((m) => m.name).join(', ')}), got '${raw.for}'`);
+    throw new SeedsiftError(
+      'usage',
+      `--for: expected one of the metrics (${runSet.metrics
+        .filter((m) => m.kind === 'scalar')
+        .map((m) => m.name)
+        .join(', ')}), got '${raw.for}'`,
+    );
   }
   const options = resolveOptions({ summary: raw.summary, seed: 1 }, runSet);
   const results = analyze(runSet, options, { paths, generated: new Date(0).toISOString(), version: version() });
   const paramsOf = new Map(results.configs.map((c) => [c.id, c.params]));
   const armValues = (selectorText: string, option: string): number[] => {
     const selector = parseSelector(selectorText, option);
-    const values = results.values.filter((v) => v.metric === raw.for && v.value !== null && matchesSelector(paramsOf.get(v.config) ?? {}, selector));
-    if (values.length === 0) throw new SeedsiftError('usage', `${option}: no run with a value of ${raw.for} matches '${selectorText}'`);
+    const values = results.values.filter(
+      (v) => v.metric === raw.for && v.value !== null && matchesSelector(paramsOf.get(v.config) ?? {}, selector),
+    );
+    if (values.length === 0)
+      throw new SeedsiftError('usage', `${option}: no run with a value of ${raw.for} matches '${selectorText}'`);
     return values.map((v) => v.value as number);
   };
   const baseline = armValues(raw.baseline, '--baseline');
-  if (raw.candidate !== undefined) return { kind: 'pilot', baseline, candidate: armValues(raw.candidate, '--candidate'), alpha, power };
+  if (raw.candidate !== undefined)
+    return { kind: 'pilot', baseline, candidate: armValues(raw.candidate, '--candidate'), alpha, power };
   const effect = number(raw.effect, '--effect', null);
-  if (effect === null) throw new SeedsiftError('usage', 'seeds: expected --candidate SELECTOR or --effect X with pilot runs');
+  if (effect === null)
+    throw new SeedsiftError('usage', 'seeds: expected --candidate SELECTOR or --effect X with pilot runs');
   return { kind: 'pilot-one', values: baseline, effect, alpha, power };
 }
 
@@ -99,5 +123,5 @@ function seedsText(a: SeedsAnswer): string {
     `  power with this difference at n seeds per arm: ${a.powerAt.map((p) => `${p.seeds}: ${p.power.toFixed(2)}`).join(', ')}`,
     ...a.notes.map((n) => `  note: ${n}`),
   ];
-  return lines.join('\n') + '\n';
+  return `${lines.join('\n')}\n`;
 }

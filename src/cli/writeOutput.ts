@@ -36,7 +36,14 @@ export function writeOutput(path: string, text: string, inputs: readonly string[
   } catch (error) {
     rmSync(temp, { force: true });
     const e = error as NodeJS.ErrnoException;
-    const why = e.code === 'ENOENT' ? `no folder ${dirname(path)}` : e.code === 'EACCES' || e.code === 'EPERM' ? 'permission denied' : e.code === 'EISDIR' ? 'it is a folder' : (e.code ?? e.message);
+    const why =
+      e.code === 'ENOENT'
+        ? `no folder ${dirname(path)}`
+        : e.code === 'EACCES' || e.code === 'EPERM'
+          ? 'permission denied'
+          : e.code === 'EISDIR'
+            ? 'it is a folder'
+            : (e.code ?? e.message);
     throw new SeedsiftError('output', `cannot write ${path}: ${why}`);
   }
 }

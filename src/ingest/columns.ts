@@ -25,7 +25,20 @@ export const STEP_NAMES = ['step', 'global_step', 'iteration', 'iter', 'epoch', 
  * Words that mark an aggregate column in a wide per-seed file (ours, from the common spellings:
  * mean, average, standard deviation, standard error, extremes, median).
  */
-export const AGGREGATE_WORDS = ['mean', 'avg', 'average', 'sd', 'std', 'stdev', 'stderr', 'sem', 'se', 'min', 'max', 'median'] as const;
+export const AGGREGATE_WORDS = [
+  'mean',
+  'avg',
+  'average',
+  'sd',
+  'std',
+  'stdev',
+  'stderr',
+  'sem',
+  'se',
+  'min',
+  'max',
+  'median',
+] as const;
 
 /** A wide per-tick column `base@tick`. */
 export interface WideTick {
@@ -94,12 +107,22 @@ export function seedColumns(option: string): SeedPattern[] {
     const colon = part.indexOf(':');
     const text = colon >= 0 ? part.slice(colon + 1) : part;
     const count = text.split('{seed}').length - 1;
-    if (count !== 1) throw new SeedsiftError('usage', `--seed-columns: expected a pattern with one {seed} capture, got '${part}'`);
-    const derived = text.replace('{seed}', '').replaceAll('*', '').replace(/^[^A-Za-z0-9]+|[^A-Za-z0-9]+$/g, '').replace(/[_\-. ]{2,}/g, '_');
+    if (count !== 1)
+      throw new SeedsiftError('usage', `--seed-columns: expected a pattern with one {seed} capture, got '${part}'`);
+    const derived = text
+      .replace('{seed}', '')
+      .replaceAll('*', '')
+      .replace(/^[^A-Za-z0-9]+|[^A-Za-z0-9]+$/g, '')
+      .replace(/[_\-. ]{2,}/g, '_');
     const metric = colon >= 0 ? part.slice(0, colon).trim() : derived === '' ? 'value' : derived;
     const source = text
       .split('{seed}')
-      .map((piece) => piece.split('*').map((lit) => lit.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')).join('.*'))
+      .map((piece) =>
+        piece
+          .split('*')
+          .map((lit) => lit.replace(/[.*+?^${}()|[\]\\]/g, '\\$&'))
+          .join('.*'),
+      )
       .join('(.+?)');
     return { metric, text, regex: new RegExp(`^${source}$`) };
   });
@@ -130,7 +153,10 @@ function uniqueNames(names: readonly string[]): { names: string[]; duplicated: s
  * Throws SeedsiftError('usage') for a malformed `--seed-columns` pattern.
  * Example: `planColumns(['step', 'loss', 'acc@0', 'acc@1'], opts).wideTicks.length` is 2.
  */
-export function planColumns(rawNames: readonly string[], options: Pick<IngestOptions, 'step' | 'seedColumn' | 'seedColumns'>): ColumnPlan {
+export function planColumns(
+  rawNames: readonly string[],
+  options: Pick<IngestOptions, 'step' | 'seedColumn' | 'seedColumns'>,
+): ColumnPlan {
   const { names, duplicated } = uniqueNames(rawNames);
   const find = (name: string): number | null => {
     const k = names.indexOf(name);

@@ -18,7 +18,9 @@ const blobText = (value: unknown): string => Buffer.from((value as DuckDBBlobVal
 /** Marker values by file, for the files among `files` that have the marker (one query for all). */
 async function markers(engine: Engine, files: readonly string[]): Promise<Map<string, string>> {
   const list = `[${files.map(sqlPath).join(', ')}]`;
-  const result = await engine.connection.runAndReadAll(`SELECT file_name, value FROM parquet_kv_metadata(${list}) WHERE key = encode(${sqlString(DIGEST_KEY)})`);
+  const result = await engine.connection.runAndReadAll(
+    `SELECT file_name, value FROM parquet_kv_metadata(${list}) WHERE key = encode(${sqlString(DIGEST_KEY)})`,
+  );
   return new Map(result.getRows().map((row) => [String(row[0]), blobText(row[1])]));
 }
 
@@ -46,7 +48,8 @@ export async function findDigests(engine: Engine, files: readonly string[]): Pro
   }
 }
 
-const bad = (file: string, what: string): SeedsiftError => new SeedsiftError('input', `${file}: not a usable seedsift digest: ${what}`, { file });
+const bad = (file: string, what: string): SeedsiftError =>
+  new SeedsiftError('input', `${file}: not a usable seedsift digest: ${what}`, { file });
 
 /** The header of a digest, checked against the marker and the format version. */
 async function readHeader(engine: Engine, file: string): Promise<DigestHeader> {
@@ -56,19 +59,41 @@ async function readHeader(engine: Engine, file: string): Promise<DigestHeader> {
   } catch (error) {
     throw bad(file, `cannot read it as Parquet (${(error as Error).message})`);
   }
-  if (marker === undefined) throw bad(file, `expected the key ${DIGEST_KEY} in its Parquet metadata, got none (it is an ordinary Parquet file, which seedsift reads as a log)`);
-  if (marker !== String(DIGEST_VERSION)) throw bad(file, `expected format version ${DIGEST_VERSION}, got ${JSON.stringify(marker)} (make the digest again with this seedsift)`);
+  if (marker === undefined)
+    throw bad(
+      file,
+      `expected the key ${DIGEST_KEY} in its Parquet metadata, got none (it is an ordinary Parquet file, which seedsift reads as a log)`,
+    );
+  if (marker !== String(DIGEST_VERSION))
+    throw bad(
+      file,
+      `expected format version ${DIGEST_VERSION}, got ${JSON.stringify(marker)} (make the digest again with this seedsift)`,
+    );
   let header: DigestHeader;
   try {
-    const rows = (await engine.connection.runAndReadAll(`SELECT text FROM read_parquet(${sqlPath(file)}, hive_partitioning = false) WHERE kind = ${DIGEST_KIND.header}`)).getRows();
+    const rows = (
+      await engine.connection.runAndReadAll(
+        `SELECT text FROM read_parquet(${sqlPath(file)}, hive_partitioning = false) WHERE kind = ${DIGEST_KIND.header}`,
+      )
+    ).getRows();
     if (rows.length !== 1) throw new Error(`expected one header row, got ${rows.length}`);
     header = JSON.parse(String(rows[0]?.[0])) as DigestHeader;
   } catch (error) {
     throw bad(file, `its header cannot be read (${(error as Error).message})`);
   }
   const arrays = ['keys', 'runs', 'metrics', 'tickDumps', 'files', 'problems'] as const;
-  if (header === null || typeof header !== 'object' || header.format !== DIGEST_KEY || header.version !== DIGEST_VERSION || arrays.some((k) => !Array.isArray(header[k])) || typeof header.points !== 'number') {
-    throw bad(file, `expected a ${DIGEST_KEY} version ${DIGEST_VERSION} header, got ${JSON.stringify(header).slice(0, 80)}`);
+  if (
+    header === null ||
+    typeof header !== 'object' ||
+    header.format !== DIGEST_KEY ||
+    header.version !== DIGEST_VERSION ||
+    arrays.some((k) => !Array.isArray(header[k])) ||
+    typeof header.points !== 'number'
+  ) {
+    throw bad(
+      file,
+      `expected a ${DIGEST_KEY} version ${DIGEST_VERSION} header, got ${JSON.stringify(header).slice(0, 80)}`,
+    );
   }
   return header;
 }
@@ -93,7 +118,8 @@ class Cursor {
   take(n: number, pool: Float64Array[] | null): { steps: Float64Array; values: Float64Array } {
     const from = this.at;
     this.at += n;
-    if (this.at > this.steps.length) throw new RangeError(`expected at least ${this.at} rows, got ${this.steps.length}`);
+    if (this.at > this.steps.length)
+      throw new RangeError(`expected at least ${this.at} rows, got ${this.steps.length}`);
     const values = this.values.subarray(from, this.at);
     const steps = this.steps.subarray(from, this.at);
     if (pool === null) return { steps, values };
@@ -172,32 +198,77 @@ export async function readDigest(engine: Engine, file: string): Promise<RunSet> 
     const pools = header.runs.map((): Float64Array[] => []);
     const metrics = header.runs.map((r, i) => {
       const out: Record<string, Series> = {};
-      for (const m of r.metrics) out[m.name] = { ...cursor.take(m.points, pools[i] as Float64Array[]), divergedAt: m.divergedAt, missing: m.missing };
+      for (const m of r.metrics)
+        out[m.name] = {
+          ...cursor.take(m.points, pools[i] as Float64Array[]),
+          divergedAt: m.divergedAt,
+          missing: m.missing,
+        };
       return out;
     });
     const ticks = header.runs.map((r, i) => {
       const out: Record<string, TickSeries> = {};
       for (const t of r.tickMetrics) {
-        const blocks = Array.from({ length: Math.max(1, t.ticks) }, () => cursor.take(t.steps, pools[i] as Float64Array[]));
-        out[t.name] = { steps: (blocks[0] as { steps: Float64Array }).steps, values: t.ticks === 0 ? [] : blocks.map((b) => b.values) };
+        const blocks = Array.from({ length: Math.max(1, t.ticks) }, () =>
+          cursor.take(t.steps, pools[i] as Float64Array[]),
+        );
+        out[t.name] = {
+          steps: (blocks[0] as { steps: Float64Array }).steps,
+          values: t.ticks === 0 ? [] : blocks.map((b) => b.values),
+        };
       }
       return out;
     });
     const runs: Run[] = header.runs.map((r, i) => ({
-      id: r.id, config: r.config, params: r.params, seed: r.seed, info: r.info, files: r.files, identity: r.identity,
-      metrics: metrics[i] as Record<string, Series>, tickMetrics: ticks[i] as Record<string, TickSeries>,
-      status: r.status, lastStep: r.lastStep, divergedAt: r.divergedAt,
+      id: r.id,
+      config: r.config,
+      params: r.params,
+      seed: r.seed,
+      info: r.info,
+      files: r.files,
+      identity: r.identity,
+      metrics: metrics[i] as Record<string, Series>,
+      tickMetrics: ticks[i] as Record<string, TickSeries>,
+      status: r.status,
+      lastStep: r.lastStep,
+      divergedAt: r.divergedAt,
     }));
     const tickDumps: TickDump[] = header.tickDumps.map((d) => {
       const size = d.samples * d.ticks;
       const correct = cursor.dump(new Uint8Array(size), d.samples, d.ticks);
       const certainty = cursor.dump(new Float64Array(size), d.samples, d.ticks);
       const confidence = d.confidence ? cursor.dump(new Float64Array(size), d.samples, d.ticks) : null;
-      return { run: d.run, config: d.config, seed: d.seed, file: d.file, step: d.step, samples: d.samples, ticks: d.ticks, correct, certainty, confidence };
+      return {
+        run: d.run,
+        config: d.config,
+        seed: d.seed,
+        file: d.file,
+        step: d.step,
+        samples: d.samples,
+        ticks: d.ticks,
+        correct,
+        certainty,
+        confidence,
+      };
     });
     if (cursor.position !== steps.length) throw new RangeError(`expected ${cursor.position} rows, got ${steps.length}`);
-    const own: FileRecord = { file, status: 'read', rows: steps.length, rejectedRows: 0, runs: runs.map((r) => r.id), kind: 'log' };
-    return { mode: header.mode, keys: header.keys, runs, metrics: header.metrics, tickDumps, files: [own, ...header.files], problems: header.problems };
+    const own: FileRecord = {
+      file,
+      status: 'read',
+      rows: steps.length,
+      rejectedRows: 0,
+      runs: runs.map((r) => r.id),
+      kind: 'log',
+    };
+    return {
+      mode: header.mode,
+      keys: header.keys,
+      runs,
+      metrics: header.metrics,
+      tickDumps,
+      files: [own, ...header.files],
+      problems: header.problems,
+    };
   } catch (error) {
     throw bad(file, `its header and rows do not fit together (${(error as Error).message})`);
   }

@@ -60,7 +60,12 @@ export interface DigestRun {
   readonly lastStep: number;
   readonly divergedAt: number | null;
   /** Scalar metrics in the run's key order: name, number of points, divergence, missing cells. */
-  readonly metrics: readonly { readonly name: string; readonly points: number; readonly divergedAt: number | null; readonly missing: number }[];
+  readonly metrics: readonly {
+    readonly name: string;
+    readonly points: number;
+    readonly divergedAt: number | null;
+    readonly missing: number;
+  }[];
   /** Tick metrics in the run's key order: name, number of steps, number of ticks. */
   readonly tickMetrics: readonly { readonly name: string; readonly steps: number; readonly ticks: number }[];
 }
@@ -108,13 +113,46 @@ export function digestHeader(runSet: RunSet): DigestHeader {
       points += t.steps.length * Math.max(1, t.values.length);
       return { name, steps: t.steps.length, ticks: t.values.length };
     });
-    return { id: r.id, config: r.config, params: r.params, seed: r.seed, info: r.info, files: r.files, identity: r.identity, status: r.status, lastStep: r.lastStep, divergedAt: r.divergedAt, metrics, tickMetrics };
+    return {
+      id: r.id,
+      config: r.config,
+      params: r.params,
+      seed: r.seed,
+      info: r.info,
+      files: r.files,
+      identity: r.identity,
+      status: r.status,
+      lastStep: r.lastStep,
+      divergedAt: r.divergedAt,
+      metrics,
+      tickMetrics,
+    };
   });
   const tickDumps = runSet.tickDumps.map((d): DigestDump => {
     points += d.samples * d.ticks * (d.confidence === null ? 2 : 3);
-    return { run: d.run, config: d.config, seed: d.seed, file: d.file, step: d.step, samples: d.samples, ticks: d.ticks, confidence: d.confidence !== null };
+    return {
+      run: d.run,
+      config: d.config,
+      seed: d.seed,
+      file: d.file,
+      step: d.step,
+      samples: d.samples,
+      ticks: d.ticks,
+      confidence: d.confidence !== null,
+    };
   });
-  return { format: DIGEST_KEY, version: DIGEST_VERSION, mode: runSet.mode, keys: runSet.keys, runs, metrics: runSet.metrics, tickDumps, files: runSet.files, problems: runSet.problems, points };
+  return {
+    format: DIGEST_KEY,
+    version: DIGEST_VERSION,
+    mode: runSet.mode,
+    keys: runSet.keys,
+    runs,
+    metrics: runSet.metrics,
+    tickDumps,
+    files: runSet.files,
+    problems: runSet.problems,
+    points,
+  };
 }
 
 /**
@@ -153,12 +191,23 @@ function* pieces(runSet: RunSet, header: DigestHeader): Generator<Piece> {
   const nan = Float64Array.of(NaN);
   yield { kind: DIGEST_KIND.header, run: -1, item: -1, tick: 0, steps: nan, values: nan, text: JSON.stringify(header) };
   for (const [i, r] of runSet.runs.entries()) {
-    for (const [j, s] of Object.values(r.metrics).entries()) yield { kind: DIGEST_KIND.metric, run: i, item: j, tick: 0, steps: s.steps, values: s.values, text: null };
+    for (const [j, s] of Object.values(r.metrics).entries())
+      yield { kind: DIGEST_KIND.metric, run: i, item: j, tick: 0, steps: s.steps, values: s.values, text: null };
   }
   for (const [i, r] of runSet.runs.entries()) {
     for (const [j, t] of Object.values(r.tickMetrics).entries()) {
-      if (t.values.length === 0) yield { kind: DIGEST_KIND.tick, run: i, item: j, tick: -1, steps: t.steps, values: new Float64Array(t.steps.length).fill(NaN), text: null };
-      for (const [k, v] of t.values.entries()) yield { kind: DIGEST_KIND.tick, run: i, item: j, tick: k, steps: t.steps, values: v, text: null };
+      if (t.values.length === 0)
+        yield {
+          kind: DIGEST_KIND.tick,
+          run: i,
+          item: j,
+          tick: -1,
+          steps: t.steps,
+          values: new Float64Array(t.steps.length).fill(NaN),
+          text: null,
+        };
+      for (const [k, v] of t.values.entries())
+        yield { kind: DIGEST_KIND.tick, run: i, item: j, tick: k, steps: t.steps, values: v, text: null };
     }
   }
   const runIndex = new Map(runSet.runs.map((r, i) => [r.id, i]));
@@ -167,12 +216,20 @@ function* pieces(runSet: RunSet, header: DigestHeader): Generator<Piece> {
     yield* dumpPieces(DIGEST_KIND.correct, run, j, d.samples, d.ticks, (k) => d.correct[k] as number);
     yield* dumpPieces(DIGEST_KIND.certainty, run, j, d.samples, d.ticks, (k) => d.certainty[k] as number);
     const confidence = d.confidence;
-    if (confidence !== null) yield* dumpPieces(DIGEST_KIND.confidence, run, j, d.samples, d.ticks, (k) => confidence[k] as number);
+    if (confidence !== null)
+      yield* dumpPieces(DIGEST_KIND.confidence, run, j, d.samples, d.ticks, (k) => confidence[k] as number);
   }
 }
 
 /** One array of a dump (sample-major, `samples x ticks`) as per-tick pieces: sample index, value. */
-function* dumpPieces(kind: number, run: number, item: number, samples: number, ticks: number, cell: (k: number) => number): Generator<Piece> {
+function* dumpPieces(
+  kind: number,
+  run: number,
+  item: number,
+  samples: number,
+  ticks: number,
+  cell: (k: number) => number,
+): Generator<Piece> {
   const index = new Float64Array(samples);
   for (let s = 0; s < samples; s++) index[s] = s;
   for (let t = 0; t < ticks; t++) {

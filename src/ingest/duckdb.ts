@@ -149,6 +149,7 @@ function copyDoubles(vector: bindings.Vector, count: number, out: Float64Array, 
   for (let byte = 0; byte * 8 < count; byte++) {
     const bits = validity[byte] as number;
     if (bits === 0xff) continue;
-    for (let i = byte * 8; i < Math.min(count, byte * 8 + 8); i++) if (((bits >> (i & 7)) & 1) === 0) out[offset + i] = NaN;
+    for (let i = byte * 8; i < Math.min(count, byte * 8 + 8); i++)
+      if (((bits >> (i & 7)) & 1) === 0) out[offset + i] = NaN;
   }
 }

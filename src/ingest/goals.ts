@@ -27,7 +27,12 @@ export function inferGoal(name: string): Goal {
  * The goal of a metric and where it came from: the `--metric` option, else the name.
  * Pure. Example: `metricGoal('val_acc', { metricGoals: { val_acc: 'min' } })` is `{ goal: 'min', goalSource: 'option' }`.
  */
-export function metricGoal(name: string, options: Pick<IngestOptions, 'metricGoals'>): { goal: Goal; goalSource: 'option' | 'inferred' } {
+export function metricGoal(
+  name: string,
+  options: Pick<IngestOptions, 'metricGoals'>,
+): { goal: Goal; goalSource: 'option' | 'inferred' } {
   const given = Object.hasOwn(options.metricGoals, name) ? options.metricGoals[name] : undefined;
-  return given === undefined ? { goal: inferGoal(name), goalSource: 'inferred' } : { goal: given, goalSource: 'option' };
+  return given === undefined
+    ? { goal: inferGoal(name), goalSource: 'inferred' }
+    : { goal: given, goalSource: 'option' };
 }

@@ -36,12 +36,16 @@ import type { FileRecord, IngestOptions, MetricInfo, Run, RunSet, RunSource } fr
  * may be both), with their goals; a `goal-inferred` note for each name whose goal was guessed.
  * Pure. Example: runs with `val_loss` give `{ name: 'val_loss', goal: 'min', goalSource: 'inferred', kind: 'scalar', ticks: 0 }`.
  */
-export function metricInfos(runs: readonly Run[], options: Pick<IngestOptions, 'metricGoals'>): { metrics: MetricInfo[]; problems: Problem[] } {
+export function metricInfos(
+  runs: readonly Run[],
+  options: Pick<IngestOptions, 'metricGoals'>,
+): { metrics: MetricInfo[]; problems: Problem[] } {
   const scalars = new Set<string>();
   const ticks = new Map<string, number>();
   for (const run of runs) {
     for (const name of Object.keys(run.metrics)) scalars.add(name);
-    for (const [name, t] of Object.entries(run.tickMetrics)) ticks.set(name, Math.max(ticks.get(name) ?? 0, t.values.length));
+    for (const [name, t] of Object.entries(run.tickMetrics))
+      ticks.set(name, Math.max(ticks.get(name) ?? 0, t.values.length));
   }
   const metrics: MetricInfo[] = [
     ...[...scalars].map((name) => ({ name, ...metricGoal(name, options), kind: 'scalar' as const, ticks: 0 })),
@@ -50,32 +54,54 @@ export function metricInfos(runs: readonly Run[], options: Pick<IngestOptions, '
   const inferred = [...new Set(metrics.filter((m) => m.goalSource === 'inferred').map((m) => m.name))];
   const problems = inferred.map((name) => {
     const goal = (metrics.find((m) => m.name === name) as MetricInfo).goal;
-    return problem('goal-inferred', `${name}: ${goal === 'min' ? 'lower' : 'higher'} is taken to be better (from its name); say --metric ${name}:${goal === 'min' ? 'max' : 'min'} if that is wrong`);
+    return problem(
+      'goal-inferred',
+      `${name}: ${goal === 'min' ? 'lower' : 'higher'} is taken to be better (from its name); say --metric ${name}:${goal === 'min' ? 'max' : 'min'} if that is wrong`,
+    );
   });
   return { metrics, problems };
 }
 
 /** Step 6: read the digests and merge them with the runs read from logs, parts in the order their first file was found. */
-async function withDigests(engine: Engine, found: Located, logs: RunSet, digests: ReadonlyMap<string, string>, options: IngestOptions): Promise<RunSet> {
+async function withDigests(
+  engine: Engine,
+  found: Located,
+  logs: RunSet,
+  digests: ReadonlyMap<string, string>,
+  options: IngestOptions,
+): Promise<RunSet> {
   const order = new Map(found.sources.map((s, k) => [s.file, k]));
-  const parts: { at: number; part: RunSetPart }[] = [{ at: found.sources.findIndex((s) => !digests.has(s.file)), part: { digest: null, runSet: logs } }];
-  for (const file of digests.keys()) parts.push({ at: order.get(file) ?? -1, part: { digest: file, runSet: await readDigest(engine, file) } });
+  const parts: { at: number; part: RunSetPart }[] = [
+    { at: found.sources.findIndex((s) => !digests.has(s.file)), part: { digest: null, runSet: logs } },
+  ];
+  for (const file of digests.keys())
+    parts.push({ at: order.get(file) ?? -1, part: { digest: file, runSet: await readDigest(engine, file) } });
   parts.sort((a, b) => a.at - b.at);
-  return await mergeRunSets(parts.map((p) => p.part), options);
+  return await mergeRunSets(
+    parts.map((p) => p.part),
+    options,
+  );
 }
 
 /** Files whose heads are read at the same time (text files; Parquet ones go one by one through the one DuckDB connection). */
 const HEAD_READS = 8;
 
 /** Step 2's reading: every source's header, in source order. */
-async function readHeaders(sources: readonly RunSource[], options: IngestOptions, engine: Engine, progress: (stage: 'headers', done: number, total: number) => void): Promise<HeaderResult[]> {
+async function readHeaders(
+  sources: readonly RunSource[],
+  options: IngestOptions,
+  engine: Engine,
+  progress: (stage: 'headers', done: number, total: number) => void,
+): Promise<HeaderResult[]> {
   let done = 0;
   const read = async (source: RunSource): Promise<HeaderResult> => {
     const header = await readHeader(source, options.columns, engine);
     progress('headers', ++done, sources.length);
     return header;
   };
-  const text = await mapPool(sources, HEAD_READS, async (source) => (source.format === 'parquet' ? null : await read(source)));
+  const text = await mapPool(sources, HEAD_READS, async (source) =>
+    source.format === 'parquet' ? null : await read(source),
+  );
   const out: HeaderResult[] = [];
   for (const [i, source] of sources.entries()) out.push(text[i] ?? (await read(source)));
   return out;
@@ -84,7 +110,15 @@ async function readHeaders(sources: readonly RunSource[], options: IngestOptions
 async function ingestScores(engine: Engine, options: IngestOptions): Promise<RunSet> {
   const table = await readScores(engine, options);
   const { metrics, problems } = metricInfos(table.runs, options);
-  return { mode: 'scores', keys: table.keys, runs: table.runs, metrics, tickDumps: [], files: table.files, problems: [...(await finishDrafts(table.drafts)), ...problems] };
+  return {
+    mode: 'scores',
+    keys: table.keys,
+    runs: table.runs,
+    metrics,
+    tickDumps: [],
+    files: table.files,
+    problems: [...(await finishDrafts(table.drafts)), ...problems],
+  };
 }
 
 /**
@@ -102,15 +136,29 @@ export interface IngestHooks {
   readonly progress?: ProgressHook;
 }
 
-export async function ingest(paths: readonly string[], options: IngestOptions, hooks: IngestHooks = {}): Promise<RunSet> {
+export async function ingest(
+  paths: readonly string[],
+  options: IngestOptions,
+  hooks: IngestHooks = {},
+): Promise<RunSet> {
   const progress = hooks.progress ?? ((): void => undefined);
   const engine = await openEngine();
   try {
     if (options.scores !== null) return await ingestScores(engine, options);
     // 1. locate (digests are set aside for step 6)
     const found = await locate(paths, options);
-    const digests = await findDigests(engine, found.sources.filter((s) => s.format === 'parquet' && !s.gzip).map((s) => s.file));
-    const located: Located = digests.size === 0 ? found : { sources: found.sources.filter((s) => !digests.has(s.file)), files: found.files, problems: found.problems.filter((p) => p.file === undefined || !digests.has(p.file)) };
+    const digests = await findDigests(
+      engine,
+      found.sources.filter((s) => s.format === 'parquet' && !s.gzip).map((s) => s.file),
+    );
+    const located: Located =
+      digests.size === 0
+        ? found
+        : {
+            sources: found.sources.filter((s) => !digests.has(s.file)),
+            files: found.files,
+            problems: found.problems.filter((p) => p.file === undefined || !digests.has(p.file)),
+          };
     const drafts: Draft[] = [];
     const records: FileRecord[] = [...located.files];
     const failed: RunSource[] = [];
@@ -123,15 +171,32 @@ export async function ingest(paths: readonly string[], options: IngestOptions, h
     for (const [i, source] of located.sources.entries()) {
       const header = headers[i] as HeaderResult;
       if (!header.ok) {
-        drafts.push(draft(header.code, header.code === 'file-empty' ? `${header.reason}; no run is built from it` : `cannot be read: ${header.reason}`, { file: source.file }));
+        drafts.push(
+          draft(
+            header.code,
+            header.code === 'file-empty'
+              ? `${header.reason}; no run is built from it`
+              : `cannot be read: ${header.reason}`,
+            { file: source.file },
+          ),
+        );
         record(source, header.code === 'file-empty' ? 'skipped' : 'unreadable', 'unknown');
         if (header.code === 'file-unreadable') failed.push(source);
         continue;
       }
       const plan: ColumnPlan = planColumns(header.header.names, options);
       if (plan.kind === 'log' && plan.step === null) {
-        const wanted = options.step === null ? 'none of step, global_step, iteration, iter, epoch, timestep, frame' : `no column ${options.step}`;
-        drafts.push(draft('step-column-missing', `no step column (${wanted}; columns: ${plan.names.join(', ')}); the file was skipped`, { file: source.file }));
+        const wanted =
+          options.step === null
+            ? 'none of step, global_step, iteration, iter, epoch, timestep, frame'
+            : `no column ${options.step}`;
+        drafts.push(
+          draft(
+            'step-column-missing',
+            `no step column (${wanted}; columns: ${plan.names.join(', ')}); the file was skipped`,
+            { file: source.file },
+          ),
+        );
         record(source, 'skipped', 'log');
         failed.push(source);
         continue;
@@ -152,18 +217,42 @@ export async function ingest(paths: readonly string[], options: IngestOptions, h
     const { numeric, notNumeric } = numericNames(used);
     drafts.push(...notNumericDrafts(notNumeric));
     // 4. runs
-    const assembly = assembleRuns({ sources: located.sources, data: used, failed, numeric, dumpStep: options.step ?? 'step' });
+    const assembly = assembleRuns({
+      sources: located.sources,
+      data: used,
+      failed,
+      numeric,
+      dumpStep: options.step ?? 'step',
+    });
     drafts.push(...assembly.drafts);
     for (const d of loaded.data) {
       const rejectedRows = d.rejects.length + d.malformed.length;
-      records.push({ file: d.header.source.file, status: 'read', rows: d.rows, rejectedRows, runs: assembly.fileRuns.get(d.header.source.file) ?? [], kind: d.plan.kind });
+      records.push({
+        file: d.header.source.file,
+        status: 'read',
+        rows: d.rows,
+        rejectedRows,
+        runs: assembly.fileRuns.get(d.header.source.file) ?? [],
+        kind: d.plan.kind,
+      });
     }
     // 5. report
     const { metrics, problems } = metricInfos(assembly.runs, options);
     const lineProblems = await finishDrafts(drafts);
     const order = new Map(located.sources.map((s, k) => [s.file, k]));
-    const files = [...located.files, ...records.slice(located.files.length).sort((a, b) => (order.get(a.file) ?? 0) - (order.get(b.file) ?? 0))];
-    const logs: RunSet = { mode: 'logs', keys: assembly.keys, runs: assembly.runs, metrics, tickDumps: assembly.dumps, files, problems: [...located.problems, ...lineProblems, ...problems] };
+    const files = [
+      ...located.files,
+      ...records.slice(located.files.length).sort((a, b) => (order.get(a.file) ?? 0) - (order.get(b.file) ?? 0)),
+    ];
+    const logs: RunSet = {
+      mode: 'logs',
+      keys: assembly.keys,
+      runs: assembly.runs,
+      metrics,
+      tickDumps: assembly.dumps,
+      files,
+      problems: [...located.problems, ...lineProblems, ...problems],
+    };
     // 6. digests
     return digests.size === 0 ? logs : await withDigests(engine, found, logs, digests, options);
   } finally {

@@ -52,9 +52,12 @@ function escapeRegExp(text: string): string {
  */
 export function compileLayout(template: string): Layout {
   const body = template.startsWith('./') ? template.slice(2) : template;
-  if (body === '') throw usage(template, 'expected a path template such as {model}/seed_{seed}/log.csv, got an empty one');
-  if (body.startsWith('/')) throw usage(template, 'expected a path relative to the PATH given, got one starting with /');
-  if (body.split('/').includes('')) throw usage(template, 'expected non-empty path segments, got an empty one (// or a trailing /)');
+  if (body === '')
+    throw usage(template, 'expected a path template such as {model}/seed_{seed}/log.csv, got an empty one');
+  if (body.startsWith('/'))
+    throw usage(template, 'expected a path relative to the PATH given, got one starting with /');
+  if (body.split('/').includes(''))
+    throw usage(template, 'expected non-empty path segments, got an empty one (// or a trailing /)');
 
   const fields: string[] = [];
   let source = '';
@@ -69,7 +72,10 @@ export function compileLayout(template: string): Layout {
       }
       const name = body.slice(i + 1, close);
       if (!NAME.test(name)) {
-        throw usage(template, `expected a field name (a letter or _, then letters, digits, _ - .) inside {}, got '{${name}}'`);
+        throw usage(
+          template,
+          `expected a field name (a letter or _, then letters, digits, _ - .) inside {}, got '{${name}}'`,
+        );
       }
       if (fields.includes(name)) throw usage(template, `the field {${name}} appears twice; each field may appear once`);
       fields.push(name);
@@ -79,7 +85,8 @@ export function compileLayout(template: string): Layout {
       throw usage(template, `unbalanced braces: the '}' at character ${i + 1} has no matching '{'`);
     } else if (c === '*' && body[i + 1] === '*') {
       const wholeSegment = (i === 0 || body[i - 1] === '/') && (i + 2 === body.length || body[i + 2] === '/');
-      if (!wholeSegment) throw usage(template, `'**' must be a whole path segment (as in runs/**/log.csv), found at character ${i + 1}`);
+      if (!wholeSegment)
+        throw usage(template, `'**' must be a whole path segment (as in runs/**/log.csv), found at character ${i + 1}`);
       if (i + 2 === body.length) {
         source += '.+';
         i += 2;

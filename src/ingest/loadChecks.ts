@@ -22,13 +22,62 @@ export function fileDrafts(data: FileData): Draft[] {
   const file = data.header.source.file;
   const drafts: Draft[] = [];
   const malformed = data.rejects.length + data.malformed.length;
-  data.rejects.slice(0, LISTED_MALFORMED).forEach((r) => drafts.push(draft('row-malformed', `row rejected, the run keeps its other rows: ${r.type.toLowerCase()}: ${r.message}${r.column === null ? '' : ` (column ${data.header.names[r.column] ?? r.column})`}`, { file, rows: [{ data, kind: 'record', n: r.record }] })));
-  data.malformed.slice(0, Math.max(0, LISTED_MALFORMED - data.rejects.length)).forEach((n) => drafts.push(draft('row-malformed', `row rejected, the run keeps its other rows: expected ${data.header.names.length} whitespace-separated fields`, { file, rows: [{ data, kind: 'dataRow', n }] })));
-  if (malformed > LISTED_MALFORMED) drafts.push(draft('row-malformed', `${malformed - LISTED_MALFORMED} more malformed row(s) were rejected (${malformed} in all)`, { file }));
-  if (data.rows === 0 && malformed === 0) drafts.push(draft('file-empty', 'the file has a header but no data rows; no run is built from it', { file }));
-  if (data.plan.duplicated.length > 0) drafts.push(draft('column-duplicated', `duplicate column name(s) ${data.plan.duplicated.join(', ')}; the later ones were renamed with a suffix (_2, _3, ...)`, { file }));
-  if (data.plan.aggregates.length > 0) drafts.push(draft('aggregate-columns-ignored', `columns that look like aggregates were ignored: ${data.plan.aggregates.join(', ')}`, { file }));
-  if (data.plan.unmatched.length > 0) drafts.push(draft('column-unused', `columns matching no --seed-columns pattern were not used: ${data.plan.unmatched.join(', ')}`, { file }));
+  data.rejects
+    .slice(0, LISTED_MALFORMED)
+    .forEach((r) =>
+      drafts.push(
+        draft(
+          'row-malformed',
+          `row rejected, the run keeps its other rows: ${r.type.toLowerCase()}: ${r.message}${r.column === null ? '' : ` (column ${data.header.names[r.column] ?? r.column})`}`,
+          { file, rows: [{ data, kind: 'record', n: r.record }] },
+        ),
+      ),
+    );
+  data.malformed
+    .slice(0, Math.max(0, LISTED_MALFORMED - data.rejects.length))
+    .forEach((n) =>
+      drafts.push(
+        draft(
+          'row-malformed',
+          `row rejected, the run keeps its other rows: expected ${data.header.names.length} whitespace-separated fields`,
+          { file, rows: [{ data, kind: 'dataRow', n }] },
+        ),
+      ),
+    );
+  if (malformed > LISTED_MALFORMED)
+    drafts.push(
+      draft(
+        'row-malformed',
+        `${malformed - LISTED_MALFORMED} more malformed row(s) were rejected (${malformed} in all)`,
+        { file },
+      ),
+    );
+  if (data.rows === 0 && malformed === 0)
+    drafts.push(draft('file-empty', 'the file has a header but no data rows; no run is built from it', { file }));
+  if (data.plan.duplicated.length > 0)
+    drafts.push(
+      draft(
+        'column-duplicated',
+        `duplicate column name(s) ${data.plan.duplicated.join(', ')}; the later ones were renamed with a suffix (_2, _3, ...)`,
+        { file },
+      ),
+    );
+  if (data.plan.aggregates.length > 0)
+    drafts.push(
+      draft(
+        'aggregate-columns-ignored',
+        `columns that look like aggregates were ignored: ${data.plan.aggregates.join(', ')}`,
+        { file },
+      ),
+    );
+  if (data.plan.unmatched.length > 0)
+    drafts.push(
+      draft(
+        'column-unused',
+        `columns matching no --seed-columns pattern were not used: ${data.plan.unmatched.join(', ')}`,
+        { file },
+      ),
+    );
   return drafts;
 }
 
@@ -39,7 +88,11 @@ export function fileDrafts(data: FileData): Draft[] {
 export function notNumericDrafts(notNumeric: ReadonlyMap<string, readonly string[]>): Draft[] {
   return [...notNumeric].map(([name, files]) => {
     const more = files.length > 3 ? ` and ${files.length - 3} more` : '';
-    return draft('column-not-numeric', `column ${name} holds no numbers in any file and is not a metric (${files.slice(0, 3).join(', ')}${more})`, files.length === 1 ? { file: files[0] as string } : {});
+    return draft(
+      'column-not-numeric',
+      `column ${name} holds no numbers in any file and is not a metric (${files.slice(0, 3).join(', ')}${more})`,
+      files.length === 1 ? { file: files[0] as string } : {},
+    );
   });
 }
 
@@ -67,7 +120,16 @@ export function headerDrift(items: readonly FileToRead[]): Draft[] {
     .map((g) => {
       const missing = main.names.filter((n) => !g.names.includes(n));
       const extra = g.names.filter((n) => !main.names.includes(n));
-      const diff = [missing.length > 0 ? `missing: ${missing.join(', ')}` : '', extra.length > 0 ? `extra: ${extra.join(', ')}` : ''].filter((s) => s !== '').join('; ');
-      return draft('header-drift', `${g.files.length} file(s) have other columns than the ${main.files.length} file(s) like ${main.files[0] as string} (${diff}); columns were matched by name`, { file: g.files[0] as string });
+      const diff = [
+        missing.length > 0 ? `missing: ${missing.join(', ')}` : '',
+        extra.length > 0 ? `extra: ${extra.join(', ')}` : '',
+      ]
+        .filter((s) => s !== '')
+        .join('; ');
+      return draft(
+        'header-drift',
+        `${g.files.length} file(s) have other columns than the ${main.files.length} file(s) like ${main.files[0] as string} (${diff}); columns were matched by name`,
+        { file: g.files[0] as string },
+      );
     });
 }

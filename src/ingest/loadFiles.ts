@@ -76,7 +76,15 @@ export function columnsToRead(plan: ColumnPlan): number[] {
 
 function shapeKey(item: FileToRead): string {
   const h = item.header;
-  return JSON.stringify([h.text === null, h.source.gzip, h.text?.delimiter ?? null, h.text?.header ?? null, h.text?.skip ?? 0, h.names, h.parquetTypes]);
+  return JSON.stringify([
+    h.text === null,
+    h.source.gzip,
+    h.text?.delimiter ?? null,
+    h.text?.header ?? null,
+    h.text?.skip ?? 0,
+    h.names,
+    h.parquetTypes,
+  ]);
 }
 
 function weight(h: FileHeader): number {
@@ -100,7 +108,12 @@ async function readRejects(connection: DuckDBConnection): Promise<Map<string, Re
   for (const [file, line, columnName, type, message] of rows) {
     const list = out.get(String(file)) ?? [];
     const named = /^c(\d+)$/.exec(String(columnName));
-    list.push({ record: Number(line), message: String(message).split('\n')[0] as string, type: String(type), column: named === null ? null : Number(named[1]) });
+    list.push({
+      record: Number(line),
+      message: String(message).split('\n')[0] as string,
+      type: String(type),
+      column: named === null ? null : Number(named[1]),
+    });
     out.set(String(file), list);
   }
   return out;
@@ -141,13 +154,19 @@ function keep(column: Float64Array, rows: Int32Array): Float64Array {
 }
 
 /** Read one batch; files with CAST rejects are named in `cast` with the columns at fault. */
-async function readBatch(connection: DuckDBConnection, items: readonly FileToRead[], doubles: ReadonlySet<number>): Promise<{ data: FileData[]; cast: Map<number, Set<number>> }> {
+async function readBatch(
+  connection: DuckDBConnection,
+  items: readonly FileToRead[],
+  doubles: ReadonlySet<number>,
+): Promise<{ data: FileData[]; cast: Map<number, Set<number>> }> {
   const first = items[0] as FileToRead;
   const headers = items.map((i) => i.header);
   const columns = columnsToRead(first.plan);
   let seed: { index: number; values: string[] } | null = null;
   if (first.plan.seed !== null) {
-    const values = (await connection.runAndReadAll(seedValuesSql(headers, first.plan.seed))).getRowsJS().map((r) => String(r[0]));
+    const values = (await connection.runAndReadAll(seedValuesSql(headers, first.plan.seed)))
+      .getRowsJS()
+      .map((r) => String(r[0]));
     seed = { index: first.plan.seed, values };
   }
   await dropRejects(connection);
@@ -229,7 +248,12 @@ function firstLine(error: unknown): string {
  * `onBatch` is told how many files are read so far after each batch (for a progress display).
  * Example: `await loadFiles(engine, [{ header, plan }])`.
  */
-export async function loadFiles(engine: Engine, items: readonly FileToRead[], budget: number = BATCH_BYTES, onBatch: (filesDone: number) => void = () => undefined): Promise<LoadedFiles> {
+export async function loadFiles(
+  engine: Engine,
+  items: readonly FileToRead[],
+  budget: number = BATCH_BYTES,
+  onBatch: (filesDone: number) => void = () => undefined,
+): Promise<LoadedFiles> {
   const groups = new Map<string, FileToRead[]>();
   for (const item of items) {
     const key = shapeKey(item);
@@ -256,7 +280,11 @@ export async function loadFiles(engine: Engine, items: readonly FileToRead[], bu
   }
   const byFile = new Map<FileToRead, FileData>();
   const failed: { header: FileHeader; reason: string }[] = [];
-  const readSafely = async (connection: DuckDBConnection, batch: readonly FileToRead[], doubles: Set<number>): Promise<void> => {
+  const readSafely = async (
+    connection: DuckDBConnection,
+    batch: readonly FileToRead[],
+    doubles: Set<number>,
+  ): Promise<void> => {
     let pending = batch;
     try {
       while (pending.length > 0) {

@@ -123,17 +123,26 @@ function nameColumns(names: readonly string[]): string[] {
  * comma, `tsv` tab, `txt` sniffed). Returns null when there is no line that is not blank.
  * Example: `textHeader(['step;loss', '1;0.5'], 'txt', null)` gives names `['step', 'loss']`, delimiter `;`.
  */
-export function textHeader(lines: readonly string[], format: 'csv' | 'tsv' | 'txt', columns: readonly string[] | null): { names: string[]; text: TextFormat; textLike: number[] } | null {
+export function textHeader(
+  lines: readonly string[],
+  format: 'csv' | 'tsv' | 'txt',
+  columns: readonly string[] | null,
+): { names: string[]; text: TextFormat; textLike: number[] } | null {
   const nonBlank = lines.filter((l) => l.trim().length > 0);
   if (nonBlank.length === 0) return null;
   const delimiter = format === 'csv' ? ',' : format === 'tsv' ? '\t' : sniffDelimiter(nonBlank.slice(0, 50)).char;
-  const split = (line: string): string[] => (delimiter === null ? whitespaceFields(line) : splitFields(line, delimiter));
+  const split = (line: string): string[] =>
+    delimiter === null ? whitespaceFields(line) : splitFields(line, delimiter);
   const skip = lines.findIndex((l) => l.trim().length > 0);
   const fields = split(lines[skip] as string);
-  const header = columns === null || (fields.length === columns.length && fields.every((f, k) => f.trim() === columns[k]));
+  const header =
+    columns === null || (fields.length === columns.length && fields.every((f, k) => f.trim() === columns[k]));
   const names = columns === null ? nameColumns(fields) : [...columns];
   const textLike = new Set<number>();
-  for (const line of lines.slice(header ? skip + 1 : skip).filter((l) => l.trim().length > 0).slice(0, 50)) {
+  for (const line of lines
+    .slice(header ? skip + 1 : skip)
+    .filter((l) => l.trim().length > 0)
+    .slice(0, 50)) {
     split(line).forEach((cell, k) => {
       if (k < names.length && cell.trim() !== '' && !NUMBER.test(cell)) textLike.add(k);
     });
@@ -148,7 +157,11 @@ export function textHeader(lines: readonly string[], format: 'csv' | 'tsv' | 'tx
  * streamed decompression of a gzipped one.
  * Example: for `runs/seed=1/log.csv` starting `step,loss` the names are `['step', 'loss']`.
  */
-export async function readHeader(source: RunSource, columns: readonly string[] | null, engine: Engine): Promise<HeaderResult> {
+export async function readHeader(
+  source: RunSource,
+  columns: readonly string[] | null,
+  engine: Engine,
+): Promise<HeaderResult> {
   let bytes: number;
   try {
     bytes = (await stat(source.file)).size;
@@ -157,10 +170,15 @@ export async function readHeader(source: RunSource, columns: readonly string[] |
   }
   if (source.format === 'parquet') {
     try {
-      const reader = await engine.connection.runAndReadAll(`DESCRIBE SELECT * FROM read_parquet(${sqlPath(source.file)}, hive_partitioning=false)`);
+      const reader = await engine.connection.runAndReadAll(
+        `DESCRIBE SELECT * FROM read_parquet(${sqlPath(source.file)}, hive_partitioning=false)`,
+      );
       const rows = reader.getRowsJS();
       const names = nameColumns(rows.map((r) => String(r[0])));
-      return { ok: true, header: { source, names, parquetTypes: rows.map((r) => String(r[1])), text: null, bytes, textLike: [] } };
+      return {
+        ok: true,
+        header: { source, names, parquetTypes: rows.map((r) => String(r[1])), text: null, bytes, textLike: [] },
+      };
     } catch (error) {
       return { ok: false, code: 'file-unreadable', reason: reasonOf(error) };
     }
@@ -174,15 +192,28 @@ export async function readHeader(source: RunSource, columns: readonly string[] |
   const text = head.text.startsWith('\uFEFF') ? head.text.slice(1) : head.text;
   const lines = text.split(/\r\n|\n|\r/);
   if (!head.complete && lines.length > 1) lines.pop();
-  if ((lines[0] as string).includes('\u0000')) return { ok: false, code: 'file-unreadable', reason: 'binary data (a NUL byte on the first line), not a text log' };
+  if ((lines[0] as string).includes('\u0000'))
+    return { ok: false, code: 'file-unreadable', reason: 'binary data (a NUL byte on the first line), not a text log' };
   const parsed = textHeader(lines, source.format, columns);
-  if (parsed === null) return { ok: false, code: 'file-empty', reason: bytes === 0 ? 'the file is empty (0 bytes)' : 'the file has only blank lines' };
+  if (parsed === null)
+    return {
+      ok: false,
+      code: 'file-empty',
+      reason: bytes === 0 ? 'the file is empty (0 bytes)' : 'the file has only blank lines',
+    };
   if (parsed.names.length > MAX_COLUMNS) {
-    return { ok: false, code: 'file-unreadable', reason: `its first line has ${parsed.names.length} fields (more than ${MAX_COLUMNS}), so it is not read as a per-step log (rows written without line breaks?)` };
+    return {
+      ok: false,
+      code: 'file-unreadable',
+      reason: `its first line has ${parsed.names.length} fields (more than ${MAX_COLUMNS}), so it is not read as a per-step log (rows written without line breaks?)`,
+    };
   }
   if (source.gzip) {
     const damage = await gzipDamage(source.file);
     if (damage !== null) return { ok: false, code: 'file-unreadable', reason: damage };
   }
-  return { ok: true, header: { source, names: parsed.names, parquetTypes: null, text: parsed.text, bytes, textLike: parsed.textLike } };
+  return {
+    ok: true,
+    header: { source, names: parsed.names, parquetTypes: null, text: parsed.text, bytes, textLike: parsed.textLike },
+  };
 }

@@ -50,21 +50,41 @@ export function splitParts(data: FileData): { parts: Part[]; drafts: Draft[] } {
     }
     const parts = [...byCode.entries()]
       .sort((a, b) => (a[1][0] as number) - (b[1][0] as number))
-      .map(([code, rows]) => ({ data, seed: data.seedValues[code - 1] as string, rows: Int32Array.from(rows), perSeed: [] }));
+      .map(([code, rows]) => ({
+        data,
+        seed: data.seedValues[code - 1] as string,
+        rows: Int32Array.from(rows),
+        perSeed: [],
+      }));
     const drafts =
       empty.length === 0
         ? []
-        : [draft('seed-missing', `${empty.length} row(s) have an empty ${plan.names[plan.seed as number] as string} cell, so they belong to no run and were not used`, { file, rows: empty.slice(0, LISTED_ROWS).map((n): RowRef => ({ data, kind: 'row', n })) })];
+        : [
+            draft(
+              'seed-missing',
+              `${empty.length} row(s) have an empty ${plan.names[plan.seed as number] as string} cell, so they belong to no run and were not used`,
+              { file, rows: empty.slice(0, LISTED_ROWS).map((n): RowRef => ({ data, kind: 'row', n })) },
+            ),
+          ];
     return { parts, drafts };
   }
   if (plan.perSeed.length > 0) {
     const seeds = [...new Set(plan.perSeed.map((c) => c.seed))];
-    return { parts: seeds.map((seed) => ({ data, seed, rows: null, perSeed: plan.perSeed.filter((c) => c.seed === seed) })), drafts: [] };
+    return {
+      parts: seeds.map((seed) => ({ data, seed, rows: null, perSeed: plan.perSeed.filter((c) => c.seed === seed) })),
+      drafts: [],
+    };
   }
   if (source.seed !== null) return { parts: [{ data, seed: source.seed, rows: null, perSeed: [] }], drafts: [] };
-  const fromPath = source.info['seed'];
+  const fromPath = source.info.seed;
   const seed = fromPath ?? `auto:${source.relPath}`;
   const wanted = source.identity === 'seed-columns' ? 'no column matches --seed-columns' : 'it has no seed column';
-  const drafts = [draft('seed-missing', `the seed was to come from inside the file, but ${wanted}; ${fromPath === undefined ? 'given a seed of its own' : 'the seed its path names was used'}: ${seed}`, { file })];
+  const drafts = [
+    draft(
+      'seed-missing',
+      `the seed was to come from inside the file, but ${wanted}; ${fromPath === undefined ? 'given a seed of its own' : 'the seed its path names was used'}: ${seed}`,
+      { file },
+    ),
+  ];
   return { parts: [{ data, seed, rows: null, perSeed: [] }], drafts };
 }

@@ -35,15 +35,18 @@ export const REJECTS_SCAN = 'seedsift_scans';
 /** A delimiter that never occurs in a text log (ASCII unit separator): whitespace files are read one line per row. */
 const LINE_DELIMITER = '\u001f';
 
-const NUMERIC_TYPES = /^(TINYINT|SMALLINT|INTEGER|BIGINT|HUGEINT|UTINYINT|USMALLINT|UINTEGER|UBIGINT|UHUGEINT|FLOAT|DOUBLE|DECIMAL.*)$/;
+const NUMERIC_TYPES =
+  /^(TINYINT|SMALLINT|INTEGER|BIGINT|HUGEINT|UTINYINT|USMALLINT|UINTEGER|UBIGINT|UHUGEINT|FLOAT|DOUBLE|DECIMAL.*)$/;
 
 /**
  * SQL for one cell encoded as in the module comment. `type` is the DuckDB type of the expression
  * (`VARCHAR` for text files). Pure. Example: `cellSql('"loss"', 'DOUBLE')` encodes a Parquet double column.
  */
 export function cellSql(expr: string, type: string): string {
-  if (NUMERIC_TYPES.test(type)) return `CASE WHEN ${expr} IS NULL THEN 'nan'::DOUBLE WHEN isfinite(${expr}::DOUBLE) THEN ${expr}::DOUBLE ELSE 'inf'::DOUBLE END`;
-  if (type === 'BOOLEAN') return `CASE WHEN ${expr} IS NULL THEN 'nan'::DOUBLE WHEN ${expr} THEN 1::DOUBLE ELSE 0::DOUBLE END`;
+  if (NUMERIC_TYPES.test(type))
+    return `CASE WHEN ${expr} IS NULL THEN 'nan'::DOUBLE WHEN isfinite(${expr}::DOUBLE) THEN ${expr}::DOUBLE ELSE 'inf'::DOUBLE END`;
+  if (type === 'BOOLEAN')
+    return `CASE WHEN ${expr} IS NULL THEN 'nan'::DOUBLE WHEN ${expr} THEN 1::DOUBLE ELSE 0::DOUBLE END`;
   if (type !== 'VARCHAR') return `CASE WHEN ${expr} IS NULL THEN 'nan'::DOUBLE ELSE '-inf'::DOUBLE END`;
   const num = `TRY_CAST(${expr} AS DOUBLE)`;
   return (
@@ -76,7 +79,9 @@ function readCall(headers: readonly FileHeader[], doubles: ReadonlySet<number>):
   const first = headers[0] as FileHeader;
   if (first.text === null) return `read_parquet(${fileList(headers)}, hive_partitioning=false)`;
   const whitespace = first.text.delimiter === null;
-  const columns = whitespace ? `{'line': 'VARCHAR'}` : `{${first.names.map((_, k) => `'c${k}': '${doubles.has(k) ? 'DOUBLE' : 'VARCHAR'}'`).join(', ')}}`;
+  const columns = whitespace
+    ? `{'line': 'VARCHAR'}`
+    : `{${first.names.map((_, k) => `'c${k}': '${doubles.has(k) ? 'DOUBLE' : 'VARCHAR'}'`).join(', ')}}`;
   const delimiter = whitespace ? LINE_DELIMITER : (first.text.delimiter as string);
   const quote = whitespace ? `quote='', escape=''` : `quote='"', escape='"'`;
   return (
@@ -88,7 +93,8 @@ function readCall(headers: readonly FileHeader[], doubles: ReadonlySet<number>):
 
 /** The expression for column k of the batch and its type. */
 function column(first: FileHeader, k: number, doubles: ReadonlySet<number> = NONE): { expr: string; type: string } {
-  if (first.text === null) return { expr: sqlIdent(first.names[k] as string), type: (first.parquetTypes as readonly string[])[k] as string };
+  if (first.text === null)
+    return { expr: sqlIdent(first.names[k] as string), type: (first.parquetTypes as readonly string[])[k] as string };
   if (first.text.delimiter === null) return { expr: `p[${k + 1}]`, type: 'VARCHAR' };
   return { expr: `c${k}`, type: doubles.has(k) ? 'DOUBLE' : 'VARCHAR' };
 }
@@ -109,7 +115,9 @@ export function batchSql(spec: BatchSpec): string {
   if (spec.seed !== null) {
     const c = column(first, spec.seed.index);
     const text = c.type === 'VARCHAR' ? c.expr : `${c.expr}::VARCHAR`;
-    select.push(`COALESCE(list_position([${spec.seed.values.map(sqlString).join(', ')}]::VARCHAR[], trim(${text})), 0)::DOUBLE`);
+    select.push(
+      `COALESCE(list_position([${spec.seed.values.map(sqlString).join(', ')}]::VARCHAR[], trim(${text})), 0)::DOUBLE`,
+    );
   }
   const whitespace = first.text !== null && first.text.delimiter === null;
   if (whitespace) {

@@ -33,7 +33,11 @@ export interface Draft {
 }
 
 /** Build a draft; `where` may name a file, a run and rows. Pure. */
-export function draft(code: ProblemCode, message: string, where: { file?: string; run?: string; rows?: readonly RowRef[] } = {}): Draft {
+export function draft(
+  code: ProblemCode,
+  message: string,
+  where: { file?: string; run?: string; rows?: readonly RowRef[] } = {},
+): Draft {
   const d: { -readonly [K in keyof Draft]: Draft[K] } = { code, message };
   if (where.file !== undefined) d.file = where.file;
   if (where.run !== undefined) d.run = where.run;
@@ -56,7 +60,11 @@ async function lineMap(data: FileData): Promise<LineMap | null> {
     const whitespace = text.delimiter === null;
     const records = scanRecords(bytes, { quoted: !whitespace, whitespace });
     const rejected = new Set(data.rejects.map((r) => r.record));
-    return { dataRow: dataRowLines(records, text.header, rejected, text.skip), record: records.start, recordEnd: records.end };
+    return {
+      dataRow: dataRowLines(records, text.header, rejected, text.skip),
+      record: records.start,
+      recordEnd: records.end,
+    };
   } catch {
     return null; // the file changed or vanished since it was read: fall back to row numbers
   }
@@ -80,16 +88,20 @@ export async function finishDrafts(drafts: readonly Draft[]): Promise<Problem[]>
     const place = rows.map((r) => {
       const map = maps.get(r.data) ?? null;
       const line = map === null ? undefined : r.kind === 'record' ? map.record[r.n - 1] : map.dataRow[dataRowOf(r)];
-      return line === undefined ? { line: undefined, text: r.kind === 'record' ? `record ${r.n}` : `row ${dataRowOf(r) + 1}` } : { line, text: String(line) };
+      return line === undefined
+        ? { line: undefined, text: r.kind === 'record' ? `record ${r.n}` : `row ${dataRowOf(r) + 1}` }
+        : { line, text: String(line) };
     });
     let message = d.message;
     const lines = place.every((p) => p.line !== undefined);
-    if (place.length > 1 || (place.length === 1 && !lines)) message += ` (${lines ? 'lines ' : ''}${place.map((p) => p.text).join(', ')})`;
+    if (place.length > 1 || (place.length === 1 && !lines))
+      message += ` (${lines ? 'lines ' : ''}${place.map((p) => p.text).join(', ')})`;
     // A rejected record that spans lines (a quote never closed swallows the lines after it): say so.
     const only = rows.length === 1 ? (rows[0] as RowRef) : null;
     const start = only?.kind === 'record' ? maps.get(only.data)?.record[only.n - 1] : undefined;
     const end = only?.kind === 'record' ? maps.get(only.data)?.recordEnd[only.n - 1] : undefined;
-    if (start !== undefined && end !== undefined && end > start) message += ` (the rejected row spans lines ${start} to ${end})`;
+    if (start !== undefined && end !== undefined && end > start)
+      message += ` (the rejected row spans lines ${start} to ${end})`;
     const where: { file?: string; line?: number; run?: string } = {};
     if (d.file !== undefined) where.file = d.file;
     else if (rows.length > 0) where.file = (rows[0] as RowRef).data.header.source.file;

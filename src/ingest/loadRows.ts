@@ -50,7 +50,10 @@ export function refOf(rows: RunRows, i: number): RowRef {
 }
 
 /** The columns of one part by metric name. */
-function partColumns(part: Part, numeric: ReadonlySet<string>): { metrics: Map<string, number>; wide: Map<string, Map<number, number>> } {
+function partColumns(
+  part: Part,
+  numeric: ReadonlySet<string>,
+): { metrics: Map<string, number>; wide: Map<string, Map<number, number>> } {
   const plan = part.data.plan;
   const metrics = new Map<string, number>();
   const wide = new Map<string, Map<number, number>>();
@@ -71,7 +74,11 @@ function partColumns(part: Part, numeric: ReadonlySet<string>): { metrics: Map<s
   return { metrics, wide };
 }
 
-function gather(parts: readonly Part[], offsets: Int32Array, column: (part: Part, p: number) => number | null): Float64Array {
+function gather(
+  parts: readonly Part[],
+  offsets: Int32Array,
+  column: (part: Part, p: number) => number | null,
+): Float64Array {
   const out = new Float64Array(offsets[parts.length] as number).fill(NaN);
   parts.forEach((part, p) => {
     const k = column(part, p);
@@ -109,14 +116,20 @@ export function runRows(parts: readonly Part[], numeric: ReadonlySet<string>): {
   };
   let steps = column((part) => part.data.plan.step);
   const metricNames = [...new Set(columns.flatMap((c) => [...c.metrics.keys()]))];
-  const metrics = new Map(metricNames.map((name) => [name, column((_, p) => (columns[p] as (typeof columns)[number]).metrics.get(name) ?? null)] as const));
+  const metrics = new Map(
+    metricNames.map(
+      (name) => [name, column((_, p) => (columns[p] as (typeof columns)[number]).metrics.get(name) ?? null)] as const,
+    ),
+  );
   const wideNames = [...new Set(columns.flatMap((c) => [...c.wide.keys()]))];
   const wide = new Map(
     wideNames.map((base) => {
       const count = Math.max(...columns.map((c) => Math.max(-1, ...(c.wide.get(base)?.keys() ?? [])))) + 1;
       const list = Array.from({ length: count }, (_, t) => {
         const present = columns.some((c) => c.wide.get(base)?.has(t) === true);
-        return present ? column((_, p) => (columns[p] as (typeof columns)[number]).wide.get(base)?.get(t) ?? null) : undefined;
+        return present
+          ? column((_, p) => (columns[p] as (typeof columns)[number]).wide.get(base)?.get(t) ?? null)
+          : undefined;
       });
       return [base, list] as const;
     }),
@@ -144,11 +157,21 @@ export function runRows(parts: readonly Part[], numeric: ReadonlySet<string>): {
     }
     for (const [data, refs] of byFile) {
       const stepName = data.plan.names[data.plan.step as number] as string;
-      drafts.push(draft('step-invalid', `${refs.length} row(s) have a ${stepName} cell that is empty, not a number or not finite; those rows were dropped${refs.length > LISTED_ROWS ? `; the first ${LISTED_ROWS}` : ''}`, { file: data.header.source.file, rows: refs.slice(0, LISTED_ROWS) }));
+      drafts.push(
+        draft(
+          'step-invalid',
+          `${refs.length} row(s) have a ${stepName} cell that is empty, not a number or not finite; those rows were dropped${refs.length > LISTED_ROWS ? `; the first ${LISTED_ROWS}` : ''}`,
+          { file: data.header.source.file, rows: refs.slice(0, LISTED_ROWS) },
+        ),
+      );
     }
     steps = compact(steps, k);
     for (const [name, col] of metrics) metrics.set(name, compact(col, k));
-    for (const [base, list] of wide) wide.set(base, list.map((c) => (c === undefined ? undefined : compact(c, k))));
+    for (const [base, list] of wide)
+      wide.set(
+        base,
+        list.map((c) => (c === undefined ? undefined : compact(c, k))),
+      );
     if (ticks !== null) ticks = compact(ticks, k);
   }
   return { rows: { steps, metrics, wide, ticks, parts, offsets, kept }, drafts };
@@ -192,6 +215,8 @@ export function numericNames(data: readonly FileData[]): { numeric: Set<string>;
       return keyed;
     });
   const notNumeric = new Map<string, string[]>();
-  for (const keyed of columns) for (const c of keyed) if (!numeric.has(c.key) && !notNumeric.has(c.name)) notNumeric.set(c.name, filesOf.get(c.name) ?? []);
+  for (const keyed of columns)
+    for (const c of keyed)
+      if (!numeric.has(c.key) && !notNumeric.has(c.name)) notNumeric.set(c.name, filesOf.get(c.name) ?? []);
   return { numeric, notNumeric };
 }

@@ -51,17 +51,32 @@ type SeedOrigin = 'hive' | 'layout' | 'params' | null;
 
 function checkOptions(options: IngestOptions): void {
   const given = (['layout', 'seedColumn', 'seedColumns', 'manifest'] as const).filter((k) => options[k] !== null);
-  const flag = { layout: '--layout', seedColumn: '--seed-column', seedColumns: '--seed-columns', manifest: '--manifest' } as const;
+  const flag = {
+    layout: '--layout',
+    seedColumn: '--seed-column',
+    seedColumns: '--seed-columns',
+    manifest: '--manifest',
+  } as const;
   if (options.seedColumn !== null && options.seedColumns !== null) {
     throw new SeedsiftError('usage', 'options: expected at most one of --seed-column and --seed-columns, got both');
   }
   if (options.manifest !== null && given.length > 1) {
-    throw new SeedsiftError('usage', `options: --manifest names every file's seed and params, so it cannot be combined with ${given.filter((k) => k !== 'manifest').map((k) => flag[k]).join(', ')}`);
+    throw new SeedsiftError(
+      'usage',
+      `options: --manifest names every file's seed and params, so it cannot be combined with ${given
+        .filter((k) => k !== 'manifest')
+        .map((k) => flag[k])
+        .join(', ')}`,
+    );
   }
 }
 
 /** Identity of a walked file from its path (hive segments, then layout fields). */
-function pathIdentity(f: WalkedFile, layoutFields: Readonly<Record<string, string>>, layout: Layout | null): { identity: Identity; seedFrom: SeedOrigin } {
+function pathIdentity(
+  f: WalkedFile,
+  layoutFields: Readonly<Record<string, string>>,
+  layout: Layout | null,
+): { identity: Identity; seedFrom: SeedOrigin } {
   const params: Record<string, string> = {};
   const info: Record<string, string> = {};
   let seed: string | null = null;
@@ -93,7 +108,8 @@ function pathIdentity(f: WalkedFile, layoutFields: Readonly<Record<string, strin
 export async function locate(paths: readonly string[], options: IngestOptions): Promise<Located> {
   checkOptions(options);
   const layout = options.layout === null ? null : compileLayout(options.layout);
-  const seedInFile: IdentitySource | null = options.seedColumn !== null ? 'seed-column' : options.seedColumns !== null ? 'seed-columns' : null;
+  const seedInFile: IdentitySource | null =
+    options.seedColumn !== null ? 'seed-column' : options.seedColumns !== null ? 'seed-columns' : null;
   const manifest = options.manifest === null ? null : await readManifest(options.manifest);
   const walked = await walk(paths);
 
@@ -123,7 +139,10 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
     const kind = fileFormat(row.file);
     if (kind === null) continue;
     const identity = await withSidecar(row.file, { params: row.params, info: row.info, seed: row.seed }, 'manifest');
-    pending.push({ source: { file: row.file, relPath: row.relPath, ...kind, ...identity, identity: 'manifest' }, line: row.line });
+    pending.push({
+      source: { file: row.file, relPath: row.relPath, ...kind, ...identity, identity: 'manifest' },
+      line: row.line,
+    });
   }
   const listed = new Set((manifest?.rows ?? []).map((r) => r.realPath));
   const manifestReal = options.manifest === null ? null : await realpath(options.manifest);
@@ -135,26 +154,42 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
     const kind = fileFormat(baseName);
     if (kind === null) {
       files.push(skippedFile(f.file, 'skipped'));
-      if (f.file !== paths[f.root]) problems.push(problem('file-skipped', 'not a log file (expected .csv, .tsv, .txt or .parquet, optionally .gz); not read', { file: f.file }));
+      if (f.file !== paths[f.root])
+        problems.push(
+          problem('file-skipped', 'not a log file (expected .csv, .tsv, .txt or .parquet, optionally .gz); not read', {
+            file: f.file,
+          }),
+        );
       continue;
     }
     logsPerRoot[f.root] = (logsPerRoot[f.root] ?? 0) + 1;
     if (manifest !== null) {
       if (!listed.has(f.realPath)) {
         files.push(skippedFile(f.file, 'skipped'));
-        problems.push(problem('file-skipped', `log file not listed in the manifest ${options.manifest as string}; not read`, { file: f.file }));
+        problems.push(
+          problem('file-skipped', `log file not listed in the manifest ${options.manifest as string}; not read`, {
+            file: f.file,
+          }),
+        );
       }
       continue;
     }
     const fields = layout === null ? {} : layout.match(f.relPath);
     if (layout !== null && fields === null) {
       files.push(skippedFile(f.file, 'skipped'));
-      problems.push(problem('layout-unmatched', `${f.relPath} does not match --layout '${layout.template}' (matched against the whole path below ${paths[f.root] as string}, file name included; end the template with /* or /** to accept any file name)`, { file: f.file }));
+      problems.push(
+        problem(
+          'layout-unmatched',
+          `${f.relPath} does not match --layout '${layout.template}' (matched against the whole path below ${paths[f.root] as string}, file name included; end the template with /* or /** to accept any file name)`,
+          { file: f.file },
+        ),
+      );
       continue;
     }
     const fromPath = pathIdentity(f, fields ?? {}, layout);
     let identity = fromPath.identity;
-    if (seedInFile !== null && identity.seed !== null) identity = { ...identity, info: { seed: identity.seed, ...identity.info }, seed: null };
+    if (seedInFile !== null && identity.seed !== null)
+      identity = { ...identity, info: { seed: identity.seed, ...identity.info }, seed: null };
     const merged = await withSidecar(f.file, identity, 'path');
     const seedFrom: SeedOrigin = fromPath.seedFrom ?? (merged.seed !== null ? 'params' : null);
     const configFrom: IdentitySource = layout !== null ? 'layout' : hivePairs(f.file).length > 0 ? 'hive' : 'none';
@@ -164,7 +199,11 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
   walked.roots.forEach((kind, k) => {
     if (kind !== 'repeated' && logsPerRoot[k] === 0) {
       const what = kind === 'file' ? 'is not a log file' : 'holds no log files';
-      problems.push(problem('no-logs', `${paths[k] as string} ${what} (expected .csv, .tsv, .txt or .parquet, optionally .gz)`, { file: paths[k] as string }));
+      problems.push(
+        problem('no-logs', `${paths[k] as string} ${what} (expected .csv, .tsv, .txt or .parquet, optionally .gz)`, {
+          file: paths[k] as string,
+        }),
+      );
     }
   });
 
@@ -173,7 +212,13 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
     if (source.seed !== null || seedInFile !== null) return source;
     const seed = `auto-${++auto}`;
     const where = line === undefined ? { file: source.file } : { file: options.manifest as string, line };
-    problems.push(problem('seed-missing', `no seed found for ${source.file} (no seed= segment, layout field, seed column, manifest seed or params.json seed); given the seed ${seed}`, where));
+    problems.push(
+      problem(
+        'seed-missing',
+        `no seed found for ${source.file} (no seed= segment, layout field, seed column, manifest seed or params.json seed); given the seed ${seed}`,
+        where,
+      ),
+    );
     return { ...source, seed };
   });
   const seen = new Set<string>();

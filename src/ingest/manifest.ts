@@ -48,7 +48,9 @@ function toSlashes(p: string): string {
  * column, or has an empty or repeated column name.
  * Example: a manifest `file,seed,ticks` / `a.csv,1,8` gives one row `{ relPath: 'a.csv', seed: '1', params: { ticks: '8' } }`.
  */
-export async function readManifest(manifest: string): Promise<{ rows: ManifestRow[]; skipped: FileRecord[]; problems: Problem[] }> {
+export async function readManifest(
+  manifest: string,
+): Promise<{ rows: ManifestRow[]; skipped: FileRecord[]; problems: Problem[] }> {
   let text: string;
   try {
     text = await readFile(manifest, 'utf8');
@@ -60,24 +62,43 @@ export async function readManifest(manifest: string): Promise<{ rows: ManifestRo
   let parsed: Parsed[];
   try {
     parsed = parse(text, {
-      bom: true, delimiter: manifest.toLowerCase().endsWith('.tsv') ? '\t' : ',', info: true,
-      relax_column_count: true, skip_empty_lines: true, trim: true,
+      bom: true,
+      delimiter: manifest.toLowerCase().endsWith('.tsv') ? '\t' : ',',
+      info: true,
+      relax_column_count: true,
+      skip_empty_lines: true,
+      trim: true,
     }) as unknown as Parsed[];
   } catch (error) {
     const line = (error as { lines?: number }).lines;
-    throw new SeedsiftError('input', `manifest: not a readable CSV table (${(error as Error).message})`, line === undefined ? { file: manifest } : { file: manifest, line });
+    throw new SeedsiftError(
+      'input',
+      `manifest: not a readable CSV table (${(error as Error).message})`,
+      line === undefined ? { file: manifest } : { file: manifest, line },
+    );
   }
   const header = parsed[0];
-  if (header === undefined) throw new SeedsiftError('input', 'manifest: expected a header row with a file column, got an empty file', { file: manifest, line: 1 });
+  if (header === undefined)
+    throw new SeedsiftError('input', 'manifest: expected a header row with a file column, got an empty file', {
+      file: manifest,
+      line: 1,
+    });
   const names = header.record;
   const where = { file: manifest, line: header.info.lines };
   names.forEach((name, k) => {
-    if (name === '') throw new SeedsiftError('input', `manifest: expected a name for every column, got an empty name for column ${k + 1}`, where);
-    if (names.indexOf(name) !== k) throw new SeedsiftError('input', `manifest: expected each column once, got ${name} twice`, where);
+    if (name === '')
+      throw new SeedsiftError(
+        'input',
+        `manifest: expected a name for every column, got an empty name for column ${k + 1}`,
+        where,
+      );
+    if (names.indexOf(name) !== k)
+      throw new SeedsiftError('input', `manifest: expected each column once, got ${name} twice`, where);
   });
   const fileColumn = names.findIndex((n) => n.toLowerCase() === 'file');
   const seedColumn = names.findIndex((n) => n.toLowerCase() === 'seed');
-  if (fileColumn < 0) throw new SeedsiftError('input', `manifest: expected a column named file, got columns ${names.join(', ')}`, where);
+  if (fileColumn < 0)
+    throw new SeedsiftError('input', `manifest: expected a column named file, got columns ${names.join(', ')}`, where);
 
   const folder = dirname(manifest);
   const rows: ManifestRow[] = [];
@@ -86,12 +107,23 @@ export async function readManifest(manifest: string): Promise<{ rows: ManifestRo
   for (const { record, info } of parsed.slice(1)) {
     const line = info.lines;
     if (record.length !== names.length) {
-      problems.push(problem('manifest-invalid', `manifest row: expected ${names.length} cells, got ${record.length}; row not used`, { file: manifest, line }));
+      problems.push(
+        problem(
+          'manifest-invalid',
+          `manifest row: expected ${names.length} cells, got ${record.length}; row not used`,
+          { file: manifest, line },
+        ),
+      );
       continue;
     }
     const cell = record[fileColumn] as string;
     if (cell === '') {
-      problems.push(problem('manifest-invalid', 'manifest row: expected a file name, got an empty file cell; row not used', { file: manifest, line }));
+      problems.push(
+        problem('manifest-invalid', 'manifest row: expected a file name, got an empty file cell; row not used', {
+          file: manifest,
+          line,
+        }),
+      );
       continue;
     }
     const file = isAbsolute(cell) ? cell : join(folder, cell);
@@ -104,12 +136,23 @@ export async function readManifest(manifest: string): Promise<{ rows: ManifestRo
     }
     if (!isFile) {
       skipped.push(skippedFile(file, 'unreadable'));
-      problems.push(problem('manifest-file-missing', `manifest names ${cell}, but there is no such file (looked for ${file})`, { file: manifest, line }));
+      problems.push(
+        problem('manifest-file-missing', `manifest names ${cell}, but there is no such file (looked for ${file})`, {
+          file: manifest,
+          line,
+        }),
+      );
       continue;
     }
     if (fileFormat(file) === null) {
       skipped.push(skippedFile(file, 'skipped'));
-      problems.push(problem('file-skipped', `manifest names ${cell}, which is not a log file (.csv, .tsv, .txt, .parquet, optionally .gz); not read`, { file: manifest, line }));
+      problems.push(
+        problem(
+          'file-skipped',
+          `manifest names ${cell}, which is not a log file (.csv, .tsv, .txt, .parquet, optionally .gz); not read`,
+          { file: manifest, line },
+        ),
+      );
       continue;
     }
     const params: Record<string, string> = {};
@@ -121,7 +164,15 @@ export async function readManifest(manifest: string): Promise<{ rows: ManifestRo
       else params[name] = value;
     });
     const seedCell = seedColumn < 0 ? '' : (record[seedColumn] as string);
-    rows.push({ file, relPath, realPath: await realpath(file), line, seed: seedCell === '' ? null : seedCell, params, info: infoFields });
+    rows.push({
+      file,
+      relPath,
+      realPath: await realpath(file),
+      line,
+      seed: seedCell === '' ? null : seedCell,
+      params,
+      info: infoFields,
+    });
   }
   return { rows, skipped, problems };
 }

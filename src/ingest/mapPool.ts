@@ -7,7 +7,11 @@
  * Throws what `fn` throws (the first rejection; calls already started still run to their end).
  * Example: `await mapPool([1, 2, 3], 2, async (x) => x * 2)` is `[2, 4, 6]`.
  */
-export async function mapPool<T, R>(items: readonly T[], limit: number, fn: (item: T, index: number) => Promise<R>): Promise<R[]> {
+export async function mapPool<T, R>(
+  items: readonly T[],
+  limit: number,
+  fn: (item: T, index: number) => Promise<R>,
+): Promise<R[]> {
   if (!(limit >= 1)) throw new RangeError(`mapPool: limit must be at least 1, got ${limit}`);
   const out = new Array<R>(items.length);
   let next = 0;

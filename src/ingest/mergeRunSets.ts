@@ -26,7 +26,18 @@
 import { problem, SeedsiftError, type Problem } from '../problems.js';
 import { finishDrafts, type Draft } from './loadRefs.js';
 import { configId, markShort, runId } from './runs.js';
-import type { FileRecord, Goal, IngestOptions, MetricInfo, Run, RunSet, RunStatus, Series, TickDump, TickSeries } from './types.js';
+import type {
+  FileRecord,
+  Goal,
+  IngestOptions,
+  MetricInfo,
+  Run,
+  RunSet,
+  RunStatus,
+  Series,
+  TickDump,
+  TickSeries,
+} from './types.js';
 
 /** One source of runs: a digest file, or the logs read directly (`digest` null). */
 export interface RunSetPart {
@@ -102,7 +113,11 @@ function mergeTicks(a: TickSeries, b: TickSeries): TickSeries {
   return { steps, values };
 }
 
-function mergeRecords<T>(a: Readonly<Record<string, T>>, b: Readonly<Record<string, T>>, both: (x: T, y: T) => T): Record<string, T> {
+function mergeRecords<T>(
+  a: Readonly<Record<string, T>>,
+  b: Readonly<Record<string, T>>,
+  both: (x: T, y: T) => T,
+): Record<string, T> {
   const out: Record<string, T> = { ...a };
   for (const [name, y] of Object.entries(b)) {
     const x = out[name];
@@ -128,14 +143,26 @@ function mergeRun(a: MergedRun, b: Run): MergedRun {
   const metrics = mergeRecords(a.metrics, b.metrics, mergeSeries);
   const tickMetrics = mergeRecords(a.tickMetrics, b.tickMetrics, mergeTicks);
   let divergedAt: number | null = null;
-  for (const s of Object.values(metrics)) if (s.divergedAt !== null && (divergedAt === null || s.divergedAt < divergedAt)) divergedAt = s.divergedAt;
+  for (const s of Object.values(metrics))
+    if (s.divergedAt !== null && (divergedAt === null || s.divergedAt < divergedAt)) divergedAt = s.divergedAt;
   const last = lastFinite({ metrics, tickMetrics });
   const status: RunStatus = divergedAt !== null ? 'diverged' : last === null ? 'rejected' : 'ok';
-  return { ...a, files: [...new Set([...a.files, ...b.files])], metrics, tickMetrics, status, lastStep: last ?? 0, divergedAt };
+  return {
+    ...a,
+    files: [...new Set([...a.files, ...b.files])],
+    metrics,
+    tickMetrics,
+    status,
+    lastStep: last ?? 0,
+    divergedAt,
+  };
 }
 
 /** Metric infos merged by name (see the module comment), with `goal-conflict` problems. */
-function mergeMetrics(parts: readonly RunSetPart[], options: Pick<IngestOptions, 'metricGoals'>): { metrics: MetricInfo[]; problems: Problem[] } {
+function mergeMetrics(
+  parts: readonly RunSetPart[],
+  options: Pick<IngestOptions, 'metricGoals'>,
+): { metrics: MetricInfo[]; problems: Problem[] } {
   const first = new Map<string, { info: MetricInfo; part: RunSetPart }>();
   const conflicted = new Set<string>();
   const problems: Problem[] = [];
@@ -146,9 +173,19 @@ function mergeMetrics(parts: readonly RunSetPart[], options: Pick<IngestOptions,
     for (const info of part.runSet.metrics) {
       const kept = first.get(info.name);
       if (kept === undefined) first.set(info.name, { info, part });
-      else if (kept.info.goal !== info.goal && !Object.hasOwn(options.metricGoals, info.name) && !conflicted.has(info.name)) {
+      else if (
+        kept.info.goal !== info.goal &&
+        !Object.hasOwn(options.metricGoals, info.name) &&
+        !conflicted.has(info.name)
+      ) {
         conflicted.add(info.name);
-        problems.push(problem('goal-conflict', `${info.name}: ${says(kept.info.goal, kept.part)}, ${says(info.goal, part)}; the first was kept (say --metric ${info.name}:max or ${info.name}:min to choose)`, part.digest === null ? {} : { file: part.digest }));
+        problems.push(
+          problem(
+            'goal-conflict',
+            `${info.name}: ${says(kept.info.goal, kept.part)}, ${says(info.goal, part)}; the first was kept (say --metric ${info.name}:max or ${info.name}:min to choose)`,
+            part.digest === null ? {} : { file: part.digest },
+          ),
+        );
       }
       const table = info.kind === 'scalar' ? scalars : ticks;
       const seen = table.get(info.name);
@@ -159,7 +196,9 @@ function mergeMetrics(parts: readonly RunSetPart[], options: Pick<IngestOptions,
   const goalOf = (name: string): Pick<MetricInfo, 'goal' | 'goalSource'> => {
     const given = Object.hasOwn(options.metricGoals, name) ? options.metricGoals[name] : undefined;
     const kept = (first.get(name) as { info: MetricInfo }).info;
-    return given === undefined ? { goal: kept.goal, goalSource: kept.goalSource } : { goal: given, goalSource: 'option' };
+    return given === undefined
+      ? { goal: kept.goal, goalSource: kept.goalSource }
+      : { goal: given, goalSource: 'option' };
   };
   const metrics = [...scalars.values(), ...ticks.values()].map((m) => ({ ...m, ...goalOf(m.name) }));
   return { metrics, problems };
@@ -183,12 +222,18 @@ function guessedGoals(parts: readonly RunSetPart[], metrics: readonly MetricInfo
  * Example: digests of `ticks=8` and of `ticks=16` merge into one RunSet with both configs, as
  * `ingest(['ticks=8', 'ticks=16'])` gives.
  */
-export async function mergeRunSets(parts: readonly RunSetPart[], options: Pick<IngestOptions, 'metricGoals'>): Promise<RunSet> {
+export async function mergeRunSets(
+  parts: readonly RunSetPart[],
+  options: Pick<IngestOptions, 'metricGoals'>,
+): Promise<RunSet> {
   const withRuns = parts.filter((p) => p.runSet.runs.length > 0);
   const mode = withRuns[0]?.runSet.mode ?? 'logs';
   const other = withRuns.find((p) => p.runSet.mode !== mode);
   if (other !== undefined) {
-    throw new SeedsiftError('input', `${label(other)}: holds ${other.runSet.mode === 'scores' ? 'a score table' : 'per-step logs'}, ${label(withRuns[0] as RunSetPart)} holds ${mode === 'scores' ? 'a score table' : 'per-step logs'}; they cannot be read together`);
+    throw new SeedsiftError(
+      'input',
+      `${label(other)}: holds ${other.runSet.mode === 'scores' ? 'a score table' : 'per-step logs'}, ${label(withRuns[0] as RunSetPart)} holds ${mode === 'scores' ? 'a score table' : 'per-step logs'}; they cannot be read together`,
+    );
   }
   const keys: string[] = [];
   for (const p of parts) for (const k of p.runSet.keys) if (!keys.includes(k)) keys.push(k);
@@ -219,7 +264,13 @@ export async function mergeRunSets(parts: readonly RunSetPart[], options: Pick<I
   const duplicates: Problem[] = [];
   for (const [id, from] of origin) {
     if (from.length < 2) continue;
-    duplicates.push(problem('run-duplicate', `${from.length} sources claim this config and seed: ${from.join(', ')}; their series were merged in that order (later values win on repeated steps)`, { run: id, file: from[1] as string }));
+    duplicates.push(
+      problem(
+        'run-duplicate',
+        `${from.length} sources claim this config and seed: ${from.join(', ')}; their series were merged in that order (later values win on repeated steps)`,
+        { run: id, file: from[1] as string },
+      ),
+    );
   }
   const merged = [...runs.values()];
   const drafts: Draft[] = [];

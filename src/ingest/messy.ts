@@ -103,7 +103,8 @@ export function cleanSeries(steps: Float64Array, cells: Float64Array, order: Int
   const duplicateSteps: number[] = [];
   let firstDuplicateRow = -1;
   if (order === null) {
-    for (let i = 0; i < n; i++) if ((cells[i] as number) === (cells[i] as number) && cells[i] !== -Infinity) winners.push(i);
+    for (let i = 0; i < n; i++)
+      if ((cells[i] as number) === (cells[i] as number) && cells[i] !== -Infinity) winners.push(i);
   } else {
     let k = 0;
     while (k < n) {
@@ -153,6 +154,11 @@ export function cleanSeries(steps: Float64Array, cells: Float64Array, order: Int
     outValues[j] = c;
     j++;
   }
-  const series: Series = { steps: outSteps, values: outValues, divergedAt: divergedRow < 0 ? null : (steps[divergedRow] as number), missing };
+  const series: Series = {
+    steps: outSteps,
+    values: outValues,
+    divergedAt: divergedRow < 0 ? null : (steps[divergedRow] as number),
+    missing,
+  };
   return { series, ...counts, duplicateSteps, firstDuplicateRow, firstUnsortedRow, divergedRow };
 }

@@ -63,7 +63,10 @@ export function configKeys(sources: readonly { readonly params: Readonly<Record<
  * Example: `configId({ memory: '4', ticks: '8' }, ['ticks', 'memory'])` is `'ticks=8,memory=4'`.
  */
 export function configId(params: Readonly<Record<string, string>>, keys: readonly string[]): string {
-  return keys.filter((k) => Object.hasOwn(params, k)).map((k) => `${k}=${params[k] as string}`).join(',');
+  return keys
+    .filter((k) => Object.hasOwn(params, k))
+    .map((k) => `${k}=${params[k] as string}`)
+    .join(',');
 }
 
 /** Run id from config id and seed. Example: `runId('ticks=8', '3')` is `'ticks=8,seed=3'`. */
@@ -91,7 +94,11 @@ interface Found {
 function missingText(name: string, c: { empty: number; nonFinite: number; text: number }): string | null {
   const total = c.empty + c.nonFinite + c.text;
   if (total === 0) return null;
-  const kinds = [c.empty > 0 ? `${c.empty} empty` : '', c.nonFinite > 0 ? `${c.nonFinite} nan/inf` : '', c.text > 0 ? `${c.text} not a number` : ''].filter((s) => s !== '');
+  const kinds = [
+    c.empty > 0 ? `${c.empty} empty` : '',
+    c.nonFinite > 0 ? `${c.nonFinite} nan/inf` : '',
+    c.text > 0 ? `${c.text} not a number` : '',
+  ].filter((s) => s !== '');
   return `${name} ${total} (${kinds.join(', ')})`;
 }
 
@@ -101,7 +108,15 @@ function earlier(a: RowRef | null, rows: RunRows, row: number): RowRef | null {
 }
 
 /** Apply the policies to one table of a run's rows; fill metrics/ticks and what was found. */
-function clean(rows: RunRows, long: boolean, found: Found, metrics: Record<string, Series>, tickMetrics: Record<string, TickSeries>, drafts: Draft[], run: string): void {
+function clean(
+  rows: RunRows,
+  long: boolean,
+  found: Found,
+  metrics: Record<string, Series>,
+  tickMetrics: Record<string, TickSeries>,
+  drafts: Draft[],
+  run: string,
+): void {
   const order = stepOrder(rows.steps);
   const noteTicks = (name: string, t: CleanedTicks): void => {
     tickMetrics[name] = t.series;
@@ -119,7 +134,14 @@ function clean(rows: RunRows, long: boolean, found: Found, metrics: Record<strin
       invalid = t.invalidTickRows;
       noteTicks(name, t);
     }
-    if (invalid.length > 0) drafts.push(draft('step-invalid', `${invalid.length} row(s) have a tick cell that is not a whole number >= 0; those rows were not used`, { run, rows: invalid.slice(0, LISTED_ROWS).map((i) => refOf(rows, i)) }));
+    if (invalid.length > 0)
+      drafts.push(
+        draft(
+          'step-invalid',
+          `${invalid.length} row(s) have a tick cell that is not a whole number >= 0; those rows were not used`,
+          { run, rows: invalid.slice(0, LISTED_ROWS).map((i) => refOf(rows, i)) },
+        ),
+      );
     return;
   }
   for (const [name, cells] of rows.metrics) {
@@ -130,7 +152,8 @@ function clean(rows: RunRows, long: boolean, found: Found, metrics: Record<strin
     for (const s of c.duplicateSteps) found.duplicateSteps.add(s);
     found.firstDuplicate = earlier(found.firstDuplicate, rows, c.firstDuplicateRow);
     found.firstUnsorted = earlier(found.firstUnsorted, rows, c.firstUnsortedRow);
-    if (c.series.divergedAt !== null) found.diverged.push({ name, step: c.series.divergedAt, ref: refOf(rows, c.divergedRow) });
+    if (c.series.divergedAt !== null)
+      found.diverged.push({ name, step: c.series.divergedAt, ref: refOf(rows, c.divergedRow) });
     else if (c.series.values.length === 0) found.empty.push(name);
   }
   for (const [base, columns] of rows.wide) noteTicks(base, wideTickSeries(rows.steps, order, columns));
@@ -138,7 +161,8 @@ function clean(rows: RunRows, long: boolean, found: Found, metrics: Record<strin
 
 function lastFinite(metrics: Record<string, Series>, ticks: Record<string, TickSeries>): number | null {
   let last: number | null = null;
-  for (const s of Object.values(metrics)) if (s.steps.length > 0) last = Math.max(last ?? -Infinity, s.steps[s.steps.length - 1] as number);
+  for (const s of Object.values(metrics))
+    if (s.steps.length > 0) last = Math.max(last ?? -Infinity, s.steps[s.steps.length - 1] as number);
   for (const t of Object.values(ticks)) {
     for (let i = t.steps.length - 1; i >= 0; i--) {
       if (t.values.some((v) => Number.isFinite(v[i] as number))) {
@@ -161,10 +185,23 @@ function dumpCells(part: Part): (k: number) => Float64Array {
 }
 
 /** Build one run from its group; problems go to `drafts`. */
-function buildRun(group: Group, id: string, config: string, numeric: ReadonlySet<string>, drafts: Draft[]): Omit<Run, 'status'> & { status: RunStatus } {
+function buildRun(
+  group: Group,
+  id: string,
+  config: string,
+  numeric: ReadonlySet<string>,
+  drafts: Draft[],
+): Omit<Run, 'status'> & { status: RunStatus } {
   const metrics: Record<string, Series> = {};
   const tickMetrics: Record<string, TickSeries> = {};
-  const found: Found = { missing: [], duplicateSteps: new Set(), firstDuplicate: null, firstUnsorted: null, diverged: [], empty: [] };
+  const found: Found = {
+    missing: [],
+    duplicateSteps: new Set(),
+    firstDuplicate: null,
+    firstUnsorted: null,
+    diverged: [],
+    empty: [],
+  };
   const files = [...new Set([...group.logs.map((p) => p.data.header.source.file), ...group.failed])];
   const oneFile = files.length === 1 ? { file: files[0] as string } : {};
   for (const long of [false, true]) {
@@ -175,26 +212,74 @@ function buildRun(group: Group, id: string, config: string, numeric: ReadonlySet
     clean(built.rows, long, found, metrics, tickMetrics, drafts, id);
   }
   const logFiles = [...new Set(group.logs.map((p) => p.data.header.source.file))];
-  if (logFiles.length > 1) drafts.push(draft('run-duplicate', `${logFiles.length} files claim this config and seed: ${logFiles.join(', ')}; their rows were merged in that order (later rows win on repeated steps)`, { run: id, file: logFiles[1] as string }));
+  if (logFiles.length > 1)
+    drafts.push(
+      draft(
+        'run-duplicate',
+        `${logFiles.length} files claim this config and seed: ${logFiles.join(', ')}; their rows were merged in that order (later rows win on repeated steps)`,
+        { run: id, file: logFiles[1] as string },
+      ),
+    );
   if (found.duplicateSteps.size > 0) {
     let first = Infinity;
     for (const s of found.duplicateSteps) first = Math.min(first, s);
-    drafts.push(draft('steps-duplicated', `${found.duplicateSteps.size} step(s) logged more than once (first: step ${first}); the last row in file order was kept for each`, { run: id, ...oneFile, rows: found.firstDuplicate === null ? [] : [found.firstDuplicate] }));
+    drafts.push(
+      draft(
+        'steps-duplicated',
+        `${found.duplicateSteps.size} step(s) logged more than once (first: step ${first}); the last row in file order was kept for each`,
+        { run: id, ...oneFile, rows: found.firstDuplicate === null ? [] : [found.firstDuplicate] },
+      ),
+    );
   }
-  if (found.firstUnsorted !== null) drafts.push(draft('steps-unsorted', 'steps are not in increasing order; they were sorted', { run: id, rows: [found.firstUnsorted] }));
-  if (found.missing.length > 0) drafts.push(draft('cells-missing', `cells treated as missing: ${found.missing.join('; ')}`, { run: id, ...oneFile }));
-  for (const name of found.empty) drafts.push(draft('metric-empty', `${name} has no finite value in this run`, { run: id, ...oneFile }));
+  if (found.firstUnsorted !== null)
+    drafts.push(
+      draft('steps-unsorted', 'steps are not in increasing order; they were sorted', {
+        run: id,
+        rows: [found.firstUnsorted],
+      }),
+    );
+  if (found.missing.length > 0)
+    drafts.push(
+      draft('cells-missing', `cells treated as missing: ${found.missing.join('; ')}`, { run: id, ...oneFile }),
+    );
+  for (const name of found.empty)
+    drafts.push(draft('metric-empty', `${name} has no finite value in this run`, { run: id, ...oneFile }));
   let divergedAt: number | null = null;
   if (found.diverged.length > 0) {
     const first = found.diverged.reduce((a, b) => (b.step < a.step ? b : a));
     divergedAt = first.step;
     const names = found.diverged.map((d) => `${d.name} (step ${d.step})`).join(', ');
-    drafts.push(draft('run-diverged', `went non-finite and stayed so: ${names}; the run is marked diverged at step ${divergedAt}`, { run: id, rows: [first.ref] }));
+    drafts.push(
+      draft(
+        'run-diverged',
+        `went non-finite and stayed so: ${names}; the run is marked diverged at step ${divergedAt}`,
+        { run: id, rows: [first.ref] },
+      ),
+    );
   }
   const last = lastFinite(metrics, tickMetrics);
   const status: RunStatus = divergedAt !== null ? 'diverged' : last === null ? 'rejected' : 'ok';
-  if (status === 'rejected' && group.logs.length > 0) drafts.push(draft('metric-empty', 'no finite metric value was read for this run; it is marked rejected', { run: id, ...oneFile }));
-  return { id, config, params: group.source.params, seed: group.seed, info: group.source.info, files, identity: group.source.identity, metrics, tickMetrics, status, lastStep: last ?? 0, divergedAt };
+  if (status === 'rejected' && group.logs.length > 0)
+    drafts.push(
+      draft('metric-empty', 'no finite metric value was read for this run; it is marked rejected', {
+        run: id,
+        ...oneFile,
+      }),
+    );
+  return {
+    id,
+    config,
+    params: group.source.params,
+    seed: group.seed,
+    info: group.source.info,
+    files,
+    identity: group.source.identity,
+    metrics,
+    tickMetrics,
+    status,
+    lastStep: last ?? 0,
+    divergedAt,
+  };
 }
 
 /**
@@ -205,14 +290,21 @@ function buildRun(group: Group, id: string, config: string, numeric: ReadonlySet
  */
 export function markShort(runs: (Omit<Run, 'status'> & { status: RunStatus })[], drafts: Draft[]): void {
   const longest = new Map<string, number>();
-  for (const r of runs) if (r.status !== 'rejected') longest.set(r.config, Math.max(longest.get(r.config) ?? -Infinity, r.lastStep));
+  for (const r of runs)
+    if (r.status !== 'rejected') longest.set(r.config, Math.max(longest.get(r.config) ?? -Infinity, r.lastStep));
   for (const r of runs) {
     const max = longest.get(r.config);
     // `< max` too: with a negative last step, 0.9 x max lies above max and the longest run itself would be short.
     if (r.status !== 'ok' || max === undefined || !(r.lastStep < max && r.lastStep < 0.9 * max)) continue;
     r.status = 'short';
     const where = r.files.length === 1 ? { run: r.id, file: r.files[0] as string } : { run: r.id };
-    drafts.push(draft('run-short', `the run ends at step ${r.lastStep}, below 90% of the longest run of its config (step ${max})`, where));
+    drafts.push(
+      draft(
+        'run-short',
+        `the run ends at step ${r.lastStep}, below 90% of the longest run of its config (step ${max})`,
+        where,
+      ),
+    );
   }
 }
 
@@ -250,7 +342,12 @@ export function assembleRuns(input: AssemblyInput): Assembly {
     fileRuns.set(data.header.source.file, ids);
     if (data.plan.kind === 'tick-dump') {
       const plan = planDump(data.plan.names, input.dumpStep);
-      if ('missing' in plan) drafts.push(draft('tick-dump-invalid', `a tick dump (it has sample and tick columns) lacks ${plan.missing}; not used`, { file: data.header.source.file }));
+      if ('missing' in plan)
+        drafts.push(
+          draft('tick-dump-invalid', `a tick dump (it has sample and tick columns) lacks ${plan.missing}; not used`, {
+            file: data.header.source.file,
+          }),
+        );
       else dumpPlans.set(data, plan);
     }
   }
@@ -273,7 +370,8 @@ export function assembleRuns(input: AssemblyInput): Assembly {
       const file = part.data.header.source.file;
       if ('invalid' in built) {
         const { row, reason } = built.invalid;
-        const ref: RowRef[] = row < 0 ? [] : [{ data: part.data, kind: 'row', n: part.rows === null ? row : (part.rows[row] as number) }];
+        const ref: RowRef[] =
+          row < 0 ? [] : [{ data: part.data, kind: 'row', n: part.rows === null ? row : (part.rows[row] as number) }];
         drafts.push(draft('tick-dump-invalid', `tick dump not used: ${reason}`, { file, run: id, rows: ref }));
         continue;
       }

@@ -41,7 +41,12 @@ type Role = 'seed' | 'config' | 'metric' | 'unused';
 function roles(data: FileData, options: Pick<IngestOptions, 'by' | 'seedColumn'>, plan: ColumnPlan): Role[] {
   const seedName = options.seedColumn ?? 'seed';
   for (const name of options.by ?? []) {
-    if (!plan.names.includes(name)) throw new SeedsiftError('usage', `--by: expected a column of the score table, got ${name} (columns: ${plan.names.join(', ')})`, { file: data.header.source.file });
+    if (!plan.names.includes(name))
+      throw new SeedsiftError(
+        'usage',
+        `--by: expected a column of the score table, got ${name} (columns: ${plan.names.join(', ')})`,
+        { file: data.header.source.file },
+      );
   }
   return plan.names.map((name, k) => {
     if (name === seedName) return 'seed';
@@ -62,7 +67,10 @@ function roles(data: FileData, options: Pick<IngestOptions, 'by' | 'seedColumn'>
 async function textColumns(engine: Engine, data: FileData, columns: readonly number[]): Promise<(string | null)[][]> {
   try {
     const rows = (await engine.connection.runAndReadAll(textSql(data.header, columns))).getRowsJS();
-    const kept = data.header.text !== null && data.header.text.delimiter === null ? rows.filter((r) => r[r.length - 1] !== true) : rows;
+    const kept =
+      data.header.text !== null && data.header.text.delimiter === null
+        ? rows.filter((r) => r[r.length - 1] !== true)
+        : rows;
     return kept.map((r) => columns.map((_, j) => (r[j] === null || r[j] === undefined ? null : String(r[j]))));
   } finally {
     await engine.connection.run(`DROP TABLE IF EXISTS ${REJECTS_TABLE}`);
@@ -79,21 +87,61 @@ async function textColumns(engine: Engine, data: FileData, columns: readonly num
 export async function readScores(engine: Engine, options: IngestOptions): Promise<ScoreTable> {
   const file = options.scores as string;
   const kind = fileFormat(file);
-  if (kind === null) throw new SeedsiftError('usage', `--scores: expected a .csv, .tsv, .txt or .parquet file (optionally .gz), got ${file}`);
+  if (kind === null)
+    throw new SeedsiftError(
+      'usage',
+      `--scores: expected a .csv, .tsv, .txt or .parquet file (optionally .gz), got ${file}`,
+    );
   try {
     await stat(file);
   } catch {
     throw new SeedsiftError('usage', `--scores: expected an existing file, got ${file}`);
   }
-  const source: RunSource = { file, relPath: basename(file), ...kind, params: {}, info: {}, seed: null, identity: 'scores' };
-  const record = (status: FileRecord['status'], rows: number, rejectedRows: number, runs: readonly string[]): FileRecord => ({ file, status, rows, rejectedRows, runs, kind: 'scores' });
+  const source: RunSource = {
+    file,
+    relPath: basename(file),
+    ...kind,
+    params: {},
+    info: {},
+    seed: null,
+    identity: 'scores',
+  };
+  const record = (
+    status: FileRecord['status'],
+    rows: number,
+    rejectedRows: number,
+    runs: readonly string[],
+  ): FileRecord => ({ file, status, rows, rejectedRows, runs, kind: 'scores' });
   const header = await readHeader(source, options.columns, engine);
-  if (!header.ok) return { keys: [], runs: [], files: [record(header.code === 'file-empty' ? 'skipped' : 'unreadable', 0, 0, [])], drafts: [draft(header.code, `score table: ${header.reason}`, { file })] };
+  if (!header.ok)
+    return {
+      keys: [],
+      runs: [],
+      files: [record(header.code === 'file-empty' ? 'skipped' : 'unreadable', 0, 0, [])],
+      drafts: [draft(header.code, `score table: ${header.reason}`, { file })],
+    };
   const base = planColumns(header.header.names, { step: null, seedColumn: null, seedColumns: null });
-  const plan: ColumnPlan = { ...base, kind: 'log', step: null, seed: null, tick: null, scalars: base.names.map((_, k) => k), wideTicks: [], perSeed: [], aggregates: [], unmatched: [] };
+  const plan: ColumnPlan = {
+    ...base,
+    kind: 'log',
+    step: null,
+    seed: null,
+    tick: null,
+    scalars: base.names.map((_, k) => k),
+    wideTicks: [],
+    perSeed: [],
+    aggregates: [],
+    unmatched: [],
+  };
   const loaded = await loadFiles(engine, [{ header: header.header, plan }]);
   const data = loaded.data[0];
-  if (data === undefined) return { keys: [], runs: [], files: [record('unreadable', 0, 0, [])], drafts: [draft('file-unreadable', `score table: ${loaded.failed[0]?.reason ?? 'could not be read'}`, { file })] };
+  if (data === undefined)
+    return {
+      keys: [],
+      runs: [],
+      files: [record('unreadable', 0, 0, [])],
+      drafts: [draft('file-unreadable', `score table: ${loaded.failed[0]?.reason ?? 'could not be read'}`, { file })],
+    };
   const role = roles(data, options, plan);
   const at = (r: Role): number[] => role.flatMap((x, k) => (x === r ? [k] : []));
   const configCols = at('config');
@@ -104,7 +152,14 @@ export async function readScores(engine: Engine, options: IngestOptions): Promis
   const text = textCols.length === 0 ? [] : await textColumns(engine, data, textCols);
   const keys = configCols.map((k) => plan.names[k] as string);
   const drafts: Draft[] = [];
-  for (const k of at('unused')) drafts.push(draft('column-not-numeric', `score table column ${plan.names[k] as string} ${options.by === null ? 'is empty' : 'holds text and is not named by --by'}; not used`, { file }));
+  for (const k of at('unused'))
+    drafts.push(
+      draft(
+        'column-not-numeric',
+        `score table column ${plan.names[k] as string} ${options.by === null ? 'is empty' : 'holds text and is not named by --by'}; not used`,
+        { file },
+      ),
+    );
   const runs = new Map<string, { run: Run; metrics: Record<string, Series> }>();
   let auto = 0;
   for (let i = 0; i < data.rows; i++) {
@@ -120,19 +175,59 @@ export async function readScores(engine: Engine, options: IngestOptions): Promis
     const config = configId(params, keys);
     const id = runId(config, seed);
     const previous = runs.get(id);
-    if (previous !== undefined) drafts.push(draft('run-duplicate', `score table rows repeat config and seed ${id}; the later row's values win`, { file, run: id, rows: ref }));
+    if (previous !== undefined)
+      drafts.push(
+        draft('run-duplicate', `score table rows repeat config and seed ${id}; the later row's values win`, {
+          file,
+          run: id,
+          rows: ref,
+        }),
+      );
     const metrics: Record<string, Series> = previous?.metrics ?? {};
     for (const k of metricCols) {
       const name = plan.names[k] as string;
       const c = (data.cells.get(k) as Float64Array)[i] as number;
-      if (Number.isFinite(c)) metrics[name] = { steps: Float64Array.of(0), values: Float64Array.of(c), divergedAt: null, missing: 0 };
-      else if (c !== c) drafts.push(draft('score-missing', `${name} is empty for this run`, { file, run: id, rows: ref }));
-      else drafts.push(draft('cells-missing', `${name} is ${c === Infinity ? 'nan or inf' : 'not a number'} for this run; treated as missing`, { file, run: id, rows: ref }));
+      if (Number.isFinite(c))
+        metrics[name] = { steps: Float64Array.of(0), values: Float64Array.of(c), divergedAt: null, missing: 0 };
+      else if (c !== c)
+        drafts.push(draft('score-missing', `${name} is empty for this run`, { file, run: id, rows: ref }));
+      else
+        drafts.push(
+          draft(
+            'cells-missing',
+            `${name} is ${c === Infinity ? 'nan or inf' : 'not a number'} for this run; treated as missing`,
+            { file, run: id, rows: ref },
+          ),
+        );
     }
-    const run: Run = { id, config, params, seed, info: {}, files: [file], identity: 'scores', metrics, tickMetrics: {}, status: 'ok', lastStep: 0, divergedAt: null };
+    const run: Run = {
+      id,
+      config,
+      params,
+      seed,
+      info: {},
+      files: [file],
+      identity: 'scores',
+      metrics,
+      tickMetrics: {},
+      status: 'ok',
+      lastStep: 0,
+      divergedAt: null,
+    };
     runs.set(id, { run, metrics });
   }
-  const out = [...runs.values()].map(({ run, metrics }) => ({ ...run, metrics, status: Object.keys(metrics).length > 0 ? ('ok' as const) : ('rejected' as const) }));
-  const files = [record('read', data.rows, data.rejects.length + data.malformed.length, out.map((r) => r.id))];
+  const out = [...runs.values()].map(({ run, metrics }) => ({
+    ...run,
+    metrics,
+    status: Object.keys(metrics).length > 0 ? ('ok' as const) : ('rejected' as const),
+  }));
+  const files = [
+    record(
+      'read',
+      data.rows,
+      data.rejects.length + data.malformed.length,
+      out.map((r) => r.id),
+    ),
+  ];
   return { keys, runs: out, files, drafts };
 }

@@ -109,7 +109,16 @@ export async function readSidecar(file: string): Promise<{ sidecar: Sidecar | nu
   } catch (error) {
     const code = (error as NodeJS.ErrnoException).code;
     if (code === 'ENOENT' || code === 'ENOTDIR') return { sidecar: null, problems: [] };
-    return { sidecar: null, problems: [problem('file-unreadable', `params.json could not be read (${code ?? String(error)}); its parameters were not used`, { file })] };
+    return {
+      sidecar: null,
+      problems: [
+        problem(
+          'file-unreadable',
+          `params.json could not be read (${code ?? String(error)}); its parameters were not used`,
+          { file },
+        ),
+      ],
+    };
   }
   let parsed: unknown;
   try {
@@ -118,11 +127,25 @@ export async function readSidecar(file: string): Promise<{ sidecar: Sidecar | nu
     const message = (error as Error).message;
     const at = /position (\d+)/.exec(message);
     const where = at === null ? { file } : { file, line: lineAt(text, Number(at[1])) };
-    return { sidecar: null, problems: [problem('file-unreadable', `params.json is not valid JSON (${message}); its parameters were not used`, where)] };
+    return {
+      sidecar: null,
+      problems: [
+        problem('file-unreadable', `params.json is not valid JSON (${message}); its parameters were not used`, where),
+      ],
+    };
   }
   if (parsed === null || typeof parsed !== 'object' || Array.isArray(parsed)) {
     const got = parsed === null ? 'null' : Array.isArray(parsed) ? 'an array' : `a ${typeof parsed}`;
-    return { sidecar: null, problems: [problem('file-unreadable', `params.json: expected a JSON object of parameters, got ${got}; its parameters were not used`, { file })] };
+    return {
+      sidecar: null,
+      problems: [
+        problem(
+          'file-unreadable',
+          `params.json: expected a JSON object of parameters, got ${got}; its parameters were not used`,
+          { file },
+        ),
+      ],
+    };
   }
   const keyLines = topLevelKeyLines(text);
   const values: Record<string, string> = {};
@@ -144,7 +167,12 @@ export async function readSidecar(file: string): Promise<{ sidecar: Sidecar | nu
  * Example: identity `{ params: { ticks: '32' } }` and sidecar `{ ticks: '16', lr: '0.1' }` give
  * params `{ ticks: '32', lr: '0.1' }` and one params-mismatch problem.
  */
-export function mergeSidecar(identity: Identity, sidecar: Sidecar, origin: string, takeSeed: boolean): { identity: Identity; problems: Problem[] } {
+export function mergeSidecar(
+  identity: Identity,
+  sidecar: Sidecar,
+  origin: string,
+  takeSeed: boolean,
+): { identity: Identity; problems: Problem[] } {
   const params: Record<string, string> = { ...identity.params };
   const info: Record<string, string> = { ...identity.info };
   let seed = identity.seed;
@@ -153,7 +181,9 @@ export function mergeSidecar(identity: Identity, sidecar: Sidecar, origin: strin
     if (sameValue(ours, theirs)) return;
     const line = sidecar.lines[key];
     const message = `params.json says ${key}=${theirs} but the ${origin} says ${key}=${ours}; the ${origin}'s value was kept`;
-    problems.push(problem('params-mismatch', message, line === undefined ? { file: sidecar.file } : { file: sidecar.file, line }));
+    problems.push(
+      problem('params-mismatch', message, line === undefined ? { file: sidecar.file } : { file: sidecar.file, line }),
+    );
   };
   for (const [key, value] of Object.entries(sidecar.values)) {
     if (key === 'seed' && takeSeed) {

@@ -63,7 +63,8 @@ export function planDump(names: readonly string[], stepName: string): DumpColumn
   const lacking: string[] = [];
   if (sample === null) lacking.push('sample');
   if (tick === null) lacking.push('tick');
-  if (correct === null && (probabilities.length === 0 || label === null)) lacking.push('correct (or p0..pK with label)');
+  if (correct === null && (probabilities.length === 0 || label === null))
+    lacking.push('correct (or p0..pK with label)');
   if (certainty === null && probabilities.length === 0) lacking.push('certainty (or p0..pK)');
   if (lacking.length > 0 || sample === null || tick === null) return { missing: lacking.join(', ') };
   return { sample, tick, step: at(stepName), correct, certainty, confidence: at('confidence'), label, probabilities };
@@ -75,7 +76,9 @@ export function planDump(names: readonly string[], stepName: string): DumpColumn
  * finite, the sum is not positive, or C < 2.
  * Example: `fromProbabilities([0.5, 0.5])` is `{ certainty: 0, confidence: 0.5, predicted: 0 }`.
  */
-export function fromProbabilities(p: ArrayLike<number>): { certainty: number; confidence: number; predicted: number } | null {
+export function fromProbabilities(
+  p: ArrayLike<number>,
+): { certainty: number; confidence: number; predicted: number } | null {
   const c = p.length;
   if (c < 2) return null;
   let sum = 0;
@@ -107,7 +110,11 @@ interface RowValues {
 
 /** Check every row and compute its values; the first invalid row stops with its reason. */
 function readRows(cells: Cells, rows: number, cols: DumpColumns): RowValues | { row: number; reason: string } {
-  const out: RowValues = { correct: new Float64Array(rows), certainty: new Float64Array(rows), confidence: new Float64Array(rows).fill(NaN) };
+  const out: RowValues = {
+    correct: new Float64Array(rows),
+    certainty: new Float64Array(rows),
+    confidence: new Float64Array(rows).fill(NaN),
+  };
   const sample = cells(cols.sample);
   const tick = cells(cols.tick);
   const probs = cols.probabilities.map((k) => cells(k));
@@ -118,19 +125,24 @@ function readRows(cells: Cells, rows: number, cols: DumpColumns): RowValues | { 
     if (!Number.isInteger(t) || t < 0) return { row: i, reason: 'tick is not a whole number >= 0' };
     for (let c = 0; c < probs.length; c++) p[c] = (probs[c] as Float64Array)[i] as number;
     const derived = probs.length === 0 ? null : fromProbabilities(p);
-    if (probs.length > 0 && derived === null && (cols.certainty === null || cols.correct === null)) return { row: i, reason: 'class probabilities are not non-negative numbers with a positive sum' };
+    if (probs.length > 0 && derived === null && (cols.certainty === null || cols.correct === null))
+      return { row: i, reason: 'class probabilities are not non-negative numbers with a positive sum' };
     let correct: number;
     if (cols.correct !== null) correct = cells(cols.correct)[i] as number;
     else {
       const label = cells(cols.label as number)[i] as number;
-      if (!Number.isInteger(label) || label < 0 || label >= probs.length) return { row: i, reason: `label is not a class number 0..${probs.length - 1}` };
+      if (!Number.isInteger(label) || label < 0 || label >= probs.length)
+        return { row: i, reason: `label is not a class number 0..${probs.length - 1}` };
       correct = (derived as { predicted: number }).predicted === label ? 1 : 0;
     }
     if (correct !== 0 && correct !== 1) return { row: i, reason: 'correct is not 0 or 1' };
-    const certainty = cols.certainty !== null ? (cells(cols.certainty)[i] as number) : (derived as { certainty: number }).certainty;
+    const certainty =
+      cols.certainty !== null ? (cells(cols.certainty)[i] as number) : (derived as { certainty: number }).certainty;
     if (!(certainty >= 0 && certainty <= 1)) return { row: i, reason: 'certainty is not a number in [0, 1]' };
-    const confidence = cols.confidence !== null ? (cells(cols.confidence)[i] as number) : derived === null ? NaN : derived.confidence;
-    if (cols.confidence !== null && !(confidence >= 0 && confidence <= 1)) return { row: i, reason: 'confidence is not a number in [0, 1]' };
+    const confidence =
+      cols.confidence !== null ? (cells(cols.confidence)[i] as number) : derived === null ? NaN : derived.confidence;
+    if (cols.confidence !== null && !(confidence >= 0 && confidence <= 1))
+      return { row: i, reason: 'confidence is not a number in [0, 1]' };
     out.correct[i] = correct;
     out.certainty[i] = certainty;
     out.confidence[i] = confidence;
@@ -145,9 +157,15 @@ function readRows(cells: Cells, rows: number, cols: DumpColumns): RowValues | { 
  * row is to blame) and no dumps.
  * Example: rows (sample 0, tick 0, correct 1, certainty 0.4), (0, 1, 1, 0.9) give one dump, 1 sample x 2 ticks.
  */
-export function buildDumps(cells: Cells, rows: number, cols: DumpColumns): { dumps: DumpGrid[] } | { invalid: { row: number; reason: string } } {
+export function buildDumps(
+  cells: Cells,
+  rows: number,
+  cols: DumpColumns,
+): { dumps: DumpGrid[] } | { invalid: { row: number; reason: string } } {
   const stepCells = cols.step === null ? null : cells(cols.step);
-  if (stepCells !== null) for (let i = 0; i < rows; i++) if (!Number.isFinite(stepCells[i] as number)) return { invalid: { row: i, reason: 'step is not a number' } };
+  if (stepCells !== null)
+    for (let i = 0; i < rows; i++)
+      if (!Number.isFinite(stepCells[i] as number)) return { invalid: { row: i, reason: 'step is not a number' } };
   const values = readRows(cells, rows, cols);
   if ('reason' in values) return { invalid: values };
   const sample = cells(cols.sample);
@@ -157,7 +175,8 @@ export function buildDumps(cells: Cells, rows: number, cols: DumpColumns): { dum
   const dumps: DumpGrid[] = [];
   for (let from = 0; from < rows; ) {
     let to = from + 1;
-    if (stepCells !== null) while (to < rows && stepCells[order[to] as number] === stepCells[order[from] as number]) to++;
+    if (stepCells !== null)
+      while (to < rows && stepCells[order[to] as number] === stepCells[order[from] as number]) to++;
     else to = rows;
     const group = order.subarray(from, to);
     const ids = Float64Array.from(group, (i) => sample[i] as number).sort();
@@ -172,15 +191,29 @@ export function buildDumps(cells: Cells, rows: number, cols: DumpColumns): { dum
     const seen = new Uint8Array(size);
     for (const i of group) {
       const at = (index.get(sample[i] as number) as number) * ticks + (tick[i] as number);
-      if (seen[at] === 1) return { invalid: { row: i, reason: `sample ${sample[i] as number} has tick ${tick[i] as number} twice` } };
+      if (seen[at] === 1)
+        return { invalid: { row: i, reason: `sample ${sample[i] as number} has tick ${tick[i] as number} twice` } };
       seen[at] = 1;
       correct[at] = values.correct[i] as number;
       certainty[at] = values.certainty[i] as number;
       if (confidence !== null) confidence[at] = values.confidence[i] as number;
     }
     const hole = seen.indexOf(0);
-    if (hole >= 0) return { invalid: { row: -1, reason: `sample ${[...index.keys()][Math.floor(hole / ticks)] as number} lacks tick ${hole % ticks} (every sample needs ticks 0..${ticks - 1})` } };
-    dumps.push({ step: stepCells === null ? null : (stepCells[group[0] as number] as number), samples: index.size, ticks, correct, certainty, confidence });
+    if (hole >= 0)
+      return {
+        invalid: {
+          row: -1,
+          reason: `sample ${[...index.keys()][Math.floor(hole / ticks)] as number} lacks tick ${hole % ticks} (every sample needs ticks 0..${ticks - 1})`,
+        },
+      };
+    dumps.push({
+      step: stepCells === null ? null : (stepCells[group[0] as number] as number),
+      samples: index.size,
+      ticks,
+      correct,
+      certainty,
+      confidence,
+    });
     from = to;
   }
   return { dumps };

@@ -26,14 +26,21 @@ export interface CleanedTicks {
 }
 
 /** Where the cells of a per-tick metric are: one column per tick (wide), or a tick column and a cell column (long). */
-type TickCells = { readonly wide: readonly (Float64Array | undefined)[] } | { readonly ticks: Float64Array; readonly cells: Float64Array };
+type TickCells =
+  | { readonly wide: readonly (Float64Array | undefined)[] }
+  | { readonly ticks: Float64Array; readonly cells: Float64Array };
 
 /**
  * Build a TickSeries: rows are visited in step order (`visit`); per step and tick the last
  * logged cell in file order wins. Shared by the wide and long forms; plain indexed loops (this
  * runs over rows x ticks cells).
  */
-function build(steps: Float64Array, visit: Int32Array, ticks: number, source: TickCells): Omit<CleanedTicks, 'invalidTickRows'> {
+function build(
+  steps: Float64Array,
+  visit: Int32Array,
+  ticks: number,
+  source: TickCells,
+): Omit<CleanedTicks, 'invalidTickRows'> {
   const n = visit.length;
   const lastRow = new Int32Array(ticks);
   const lastCell = new Float64Array(ticks);
@@ -58,7 +65,7 @@ function build(steps: Float64Array, visit: Int32Array, ticks: number, source: Ti
     for (; k < n && steps[visit[k] as number] === step; k++) {
       const row = visit[k] as number;
       // Each row gives (tick, cell) pairs: every tick column (wide), or its tick (long).
-      const first = wide === null ? (tickOf as Float64Array)[row] as number : 0;
+      const first = wide === null ? ((tickOf as Float64Array)[row] as number) : 0;
       const last = wide === null ? first : ticks - 1;
       if (wide === null && !(Number.isInteger(first) && first >= 0)) continue;
       for (let t = first; t <= last; t++) {
@@ -105,7 +112,15 @@ function build(steps: Float64Array, visit: Int32Array, ticks: number, source: Ti
     out++;
   }
   const series: TickSeries = { steps: outSteps.slice(0, out), values: outValues.map((v) => v.slice(0, out)) };
-  return { series, empty, nonFinite, text, duplicateSteps, firstDuplicateRow, firstUnsortedRow: firstBackwardRow(steps, kept) };
+  return {
+    series,
+    empty,
+    nonFinite,
+    text,
+    duplicateSteps,
+    firstDuplicateRow,
+    firstUnsortedRow: firstBackwardRow(steps, kept),
+  };
 }
 
 function identity(n: number): Int32Array {
@@ -133,7 +148,16 @@ function increasingWide(steps: Float64Array, columns: readonly (Float64Array | u
     return compactColumn(col, logged, count);
   });
   const { empty, nonFinite, text } = tally;
-  return { series: { steps: outSteps, values }, empty, nonFinite, text, duplicateSteps: [], firstDuplicateRow: -1, firstUnsortedRow: -1, invalidTickRows: [] };
+  return {
+    series: { steps: outSteps, values },
+    empty,
+    nonFinite,
+    text,
+    duplicateSteps: [],
+    firstDuplicateRow: -1,
+    firstUnsortedRow: -1,
+    invalidTickRows: [],
+  };
 }
 
 interface Tally {
@@ -191,7 +215,11 @@ function compactColumn(col: Float64Array, logged: Uint8Array, count: number): Fl
  * cells are all finite (no copy, as `cleanSeries` does); otherwise it owns new arrays.
  * Example: steps [1, 2], columns [[0.1, 0.2], [0.3, 0.4]] give steps [1, 2], values [[0.1, 0.2], [0.3, 0.4]].
  */
-export function wideTickSeries(steps: Float64Array, order: Int32Array | null, columns: readonly (Float64Array | undefined)[]): CleanedTicks {
+export function wideTickSeries(
+  steps: Float64Array,
+  order: Int32Array | null,
+  columns: readonly (Float64Array | undefined)[],
+): CleanedTicks {
   if (order === null) return increasingWide(steps, columns);
   const visit = order;
   const built = build(steps, visit, columns.length, { wide: columns });
@@ -204,7 +232,12 @@ export function wideTickSeries(steps: Float64Array, order: Int32Array | null, co
  * `order` is `stepOrder(steps)`. Pure, O(rows log rows). The number of ticks is the largest tick + 1.
  * Example: steps [5, 5], ticks [0, 1], cells [0.2, 0.4] give steps [5], values [[0.2], [0.4]].
  */
-export function longTickSeries(steps: Float64Array, ticks: Float64Array, order: Int32Array | null, cells: Float64Array): CleanedTicks {
+export function longTickSeries(
+  steps: Float64Array,
+  ticks: Float64Array,
+  order: Int32Array | null,
+  cells: Float64Array,
+): CleanedTicks {
   const invalidTickRows: number[] = [];
   let count = 0;
   for (let i = 0; i < ticks.length; i++) {

@@ -103,10 +103,18 @@ export async function walk(roots: readonly string[]): Promise<WalkResult> {
     problems.push(p);
   };
 
-  const searchFolder = async (dir: string, relPath: string, root: number, viaLink: boolean, real: string): Promise<boolean> => {
+  const searchFolder = async (
+    dir: string,
+    relPath: string,
+    root: number,
+    viaLink: boolean,
+    real: string,
+  ): Promise<boolean> => {
     const earlier = searched.get(real);
     if (earlier !== undefined) {
-      problems.push(problem('file-skipped', `folder not searched again: it was already searched as ${earlier}`, { file: dir }));
+      problems.push(
+        problem('file-skipped', `folder not searched again: it was already searched as ${earlier}`, { file: dir }),
+      );
       return false;
     }
     searched.set(real, dir);
@@ -114,7 +122,11 @@ export async function walk(roots: readonly string[]): Promise<WalkResult> {
     try {
       entries = await readdir(dir, { withFileTypes: true });
     } catch (error) {
-      problems.push(problem('file-unreadable', `folder could not be listed (${errnoCode(error)}); files in it were not read`, { file: dir }));
+      problems.push(
+        problem('file-unreadable', `folder could not be listed (${errnoCode(error)}); files in it were not read`, {
+          file: dir,
+        }),
+      );
       return true;
     }
     entries.sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0));
@@ -136,14 +148,24 @@ export async function walk(roots: readonly string[]): Promise<WalkResult> {
           continue;
         }
         if (target.isDirectory()) links.push({ file, relPath: rel, root, holder: real });
-        else if (target.isFile()) found.push({ file, relPath: rel, root, realPath: await realpath(file), viaLink: true });
-        else skip(file, 'skipped', problem('file-skipped', 'not a regular file or folder (a device, socket or pipe); not read', { file }));
+        else if (target.isFile())
+          found.push({ file, relPath: rel, root, realPath: await realpath(file), viaLink: true });
+        else
+          skip(
+            file,
+            'skipped',
+            problem('file-skipped', 'not a regular file or folder (a device, socket or pipe); not read', { file }),
+          );
       } else if (entry.isDirectory()) {
         await searchFolder(file, rel, root, viaLink, childReal);
       } else if (entry.isFile()) {
         found.push({ file, relPath: rel, root, realPath: childReal, viaLink });
       } else {
-        skip(file, 'skipped', problem('file-skipped', 'not a regular file or folder (a device, socket or pipe); not read', { file }));
+        skip(
+          file,
+          'skipped',
+          problem('file-skipped', 'not a regular file or folder (a device, socket or pipe); not read', { file }),
+        );
       }
     }
     return true;
@@ -168,7 +190,10 @@ export async function walk(roots: readonly string[]): Promise<WalkResult> {
     } else if (info.isFile()) {
       kinds.push('file');
       found.push({ file: root, relPath: basename(root), root: index, realPath: real, viaLink: link.isSymbolicLink() });
-    } else throw new SeedsiftError('usage', 'PATH: expected a log file or a folder of logs, got a device, socket or pipe', { file: root });
+    } else
+      throw new SeedsiftError('usage', 'PATH: expected a log file or a folder of logs, got a device, socket or pipe', {
+        file: root,
+      });
   }
 
   // Pass 2: links to folders, each real folder searched once.
@@ -178,11 +203,21 @@ export async function walk(roots: readonly string[]): Promise<WalkResult> {
     try {
       real = await realpath(link.file);
     } catch (error) {
-      problems.push(problem('file-unreadable', `symbolic link could not be resolved (${errnoCode(error)}); not followed`, { file: link.file }));
+      problems.push(
+        problem('file-unreadable', `symbolic link could not be resolved (${errnoCode(error)}); not followed`, {
+          file: link.file,
+        }),
+      );
       continue;
     }
     if (link.holder === real || link.holder.startsWith(real + sep)) {
-      problems.push(problem('file-skipped', `symbolic link loop: it points back to a folder that contains it (${searched.get(real) ?? real}); not followed`, { file: link.file }));
+      problems.push(
+        problem(
+          'file-skipped',
+          `symbolic link loop: it points back to a folder that contains it (${searched.get(real) ?? real}); not followed`,
+          { file: link.file },
+        ),
+      );
       continue;
     }
     await searchFolder(link.file, link.relPath, link.root, true, real);
@@ -199,7 +234,14 @@ export async function walk(roots: readonly string[]): Promise<WalkResult> {
   for (const f of found) {
     const keep = kept.get(f.realPath) as WalkedFile;
     if (keep === f) files.push(f);
-    else skip(f.file, 'skipped', problem('file-skipped', `same file as ${keep.file} (reached by a second path); taken once, under that path`, { file: f.file }));
+    else
+      skip(
+        f.file,
+        'skipped',
+        problem('file-skipped', `same file as ${keep.file} (reached by a second path); taken once, under that path`, {
+          file: f.file,
+        }),
+      );
   }
   return { files, roots: kinds, skipped, problems };
 }

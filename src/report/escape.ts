@@ -58,7 +58,8 @@ export function jsonForScript(value: unknown): string {
 }
 
 /** Characters that are invisible or change text direction (Unicode bidi controls, zero-width marks, controls). */
-const HIDDEN = /[\u0000-\u0008\u000b-\u001f\u007f-\u009f\u061c\u200b-\u200f\u202a-\u202e\u2060-\u2064\u2066-\u2069\ufeff]/g;
+const HIDDEN =
+  /[\u0000-\u0008\u000b-\u001f\u007f-\u009f\u061c\u200b-\u200f\u202a-\u202e\u2060-\u2064\u2066-\u2069\ufeff]/g;
 
 /**
  * Make hidden characters visible (`‹U+202E›`), turn tabs and newlines into spaces, and cut the text
@@ -68,7 +69,9 @@ const HIDDEN = /[\u0000-\u0008\u000b-\u001f\u007f-\u009f\u061c\u200b-\u200f\u202
  * Example: `visibleText('a\u202Eb')` → `'a‹U+202E›b'`.
  */
 export function visibleText(text: string, limit = Infinity): string {
-  const shown = text.replace(/[\t\n\r]/g, ' ').replace(HIDDEN, (c) => `‹U+${c.charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}›`);
+  const shown = text
+    .replace(/[\t\n\r]/g, ' ')
+    .replace(HIDDEN, (c) => `‹U+${c.charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}›`);
   if (shown.length <= limit) return shown;
   return `${shown.slice(0, limit)}… (${text.length} characters)`;
 }

@@ -60,7 +60,8 @@ export function formatP(p: number | null): string {
  */
 export function comparisonDecimals(c: Comparison): number {
   const d = c.difference;
-  if (d.low !== null && d.high !== null && Number.isFinite(d.high - d.low) && d.high > d.low) return decimalsFor((d.high - d.low) / 2);
+  if (d.low !== null && d.high !== null && Number.isFinite(d.high - d.low) && d.high > d.low)
+    return decimalsFor((d.high - d.low) / 2);
   if (c.detectable.sd !== null && c.detectable.sd > 0) return decimalsFor(c.detectable.sd);
   return decimalsFor(Math.abs(d.estimate));
 }

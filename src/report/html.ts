@@ -67,7 +67,9 @@ function cellHtml(cell: TableCell): string {
 export function tableHtml(spec: TableSpec): string {
   const numeric = new Set(spec.numeric ?? []);
   const cls = (i: number): string => (numeric.has(i) ? ' class="num"' : '');
-  const head = spec.head.map((h, i) => `<th scope="col"${cls(i)}>${typeof h === 'string' ? textHtml(h) : h.html}</th>`).join('');
+  const head = spec.head
+    .map((h, i) => `<th scope="col"${cls(i)}>${typeof h === 'string' ? textHtml(h) : h.html}</th>`)
+    .join('');
   const body = spec.rows
     .map((row, r) => {
       const rowClass = spec.rowClasses?.[r];

@@ -31,11 +31,17 @@ export function interpreterScript(moduleText: string): string {
   const imports = moduleText.match(new RegExp(IMPORT.source, 'gm')) ?? [];
   const exports = moduleText.match(new RegExp(EXPORT.source, 'gm')) ?? [];
   if (imports.length !== 1 || exports.length !== 1) {
-    throw new Error(`vega-interpreter: expected one import from 'vega-util' and one export of expressionInterpreter, found ${imports.length} and ${exports.length}`);
+    throw new Error(
+      `vega-interpreter: expected one import from 'vega-util' and one export of expressionInterpreter, found ${imports.length} and ${exports.length}`,
+    );
   }
-  const names = (IMPORT.exec(moduleText)?.[1] ?? '').split(',').map((n) => n.trim()).filter((n) => n !== '');
+  const names = (IMPORT.exec(moduleText)?.[1] ?? '')
+    .split(',')
+    .map((n) => n.trim())
+    .filter((n) => n !== '');
   const bad = names.filter((n) => !IDENTIFIER.test(n));
-  if (names.length === 0 || bad.length > 0) throw new Error(`vega-interpreter: cannot read the imported names (${bad.join(', ') || 'none'})`);
+  if (names.length === 0 || bad.length > 0)
+    throw new Error(`vega-interpreter: cannot read the imported names (${bad.join(', ') || 'none'})`);
   const exported = EXPORT.exec(moduleText)?.[1] ?? '';
   const body = moduleText.replace(IMPORT, '').replace(EXPORT, '').replace(SOURCE_MAP, '');
   const other = /^\s*(import|export)\b/m.exec(body);

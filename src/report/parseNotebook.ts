@@ -112,7 +112,11 @@ export function parseNotebook(source: string, file: string): Notebook {
   const lines = text.split('\n');
   if (!/^---\s*$/.test(lines[0] ?? '')) return { file, options: {}, body: text, bodyLine: 1 };
   const end = lines.findIndex((line, i) => i > 0 && /^(---|\.\.\.)\s*$/.test(line));
-  if (end < 0) throw new SeedsiftError('notebook', 'front matter: expected a closing --- line, got the end of the file', { file, line: 1 });
+  if (end < 0)
+    throw new SeedsiftError('notebook', 'front matter: expected a closing --- line, got the end of the file', {
+      file,
+      line: 1,
+    });
   const yamlText = lines.slice(1, end).join('\n');
   const options = readFrontMatter(yamlText, file, 2);
   return { file, options, body: lines.slice(end + 1).join('\n'), bodyLine: end + 2 };
@@ -121,13 +125,22 @@ export function parseNotebook(source: string, file: string): Notebook {
 function readFrontMatter(yamlText: string, file: string, firstLine: number): NotebookOptions {
   const counter = new LineCounter();
   const doc = parseDocument(yamlText, { lineCounter: counter, prettyErrors: false, uniqueKeys: true });
-  const lineOf = (offset: number | undefined): number => firstLine - 1 + (offset === undefined ? 1 : counter.linePos(offset).line);
+  const lineOf = (offset: number | undefined): number =>
+    firstLine - 1 + (offset === undefined ? 1 : counter.linePos(offset).line);
   const first = doc.errors[0];
   if (first !== undefined) {
-    throw new SeedsiftError('notebook', `front matter: expected YAML, got an error: ${first.message.split('\n')[0] ?? ''}`, { file, line: lineOf(first.pos[0]) });
+    throw new SeedsiftError(
+      'notebook',
+      `front matter: expected YAML, got an error: ${first.message.split('\n')[0] ?? ''}`,
+      { file, line: lineOf(first.pos[0]) },
+    );
   }
   if (doc.contents === null) return {};
-  if (!isMap(doc.contents)) throw new SeedsiftError('notebook', 'front matter: expected key: value lines', { file, line: lineOf(doc.contents.range?.[0]) });
+  if (!isMap(doc.contents))
+    throw new SeedsiftError('notebook', 'front matter: expected key: value lines', {
+      file,
+      line: lineOf(doc.contents.range?.[0]),
+    });
   const out: Record<string, unknown> = {};
   for (const pair of doc.contents.items as Pair<unknown, unknown>[]) {
     const keyNode = pair.key as Node | null;
@@ -136,11 +149,16 @@ function readFrontMatter(yamlText: string, file: string, firstLine: number): Not
     const canonical = Object.hasOwn(KEYS, key) ? key : BY_CAMEL[key];
     const entry = canonical === undefined ? undefined : KEYS[canonical];
     if (entry === undefined) {
-      throw new SeedsiftError('notebook', `front matter: unknown key '${key}'; expected one of ${Object.keys(KEYS).join(', ')}`, { file, line });
+      throw new SeedsiftError(
+        'notebook',
+        `front matter: unknown key '${key}'; expected one of ${Object.keys(KEYS).join(', ')}`,
+        { file, line },
+      );
     }
     const [field, kind] = entry;
     const valueNode = pair.value as Node | null;
-    const lineAt = (node: Node | null | undefined): number => lineOf(node?.range?.[0] ?? valueNode?.range?.[0] ?? keyNode?.range?.[0]);
+    const lineAt = (node: Node | null | undefined): number =>
+      lineOf(node?.range?.[0] ?? valueNode?.range?.[0] ?? keyNode?.range?.[0]);
     out[field] = readValue(canonical ?? key, kind, valueNode, file, lineAt);
   }
   return out as NotebookOptions;
@@ -153,7 +171,13 @@ function scalarOf(node: Node | null): string | number | boolean | null | undefin
   return typeof v === 'string' || typeof v === 'number' || typeof v === 'boolean' || v === null ? v : undefined;
 }
 
-function readValue(key: string, kind: Kind, node: Node | null, file: string, lineAt: (node: Node | null | undefined) => number): unknown {
+function readValue(
+  key: string,
+  kind: Kind,
+  node: Node | null,
+  file: string,
+  lineAt: (node: Node | null | undefined) => number,
+): unknown {
   const fail = (expected: string, at: Node | null | undefined = node): never => {
     throw new SeedsiftError('notebook', `front matter ${key}: expected ${expected}`, { file, line: lineAt(at) });
   };
@@ -162,14 +186,17 @@ function readValue(key: string, kind: Kind, node: Node | null, file: string, lin
     return (node.items as Pair<unknown, unknown>[]).map((p) => {
       const name = scalarOf(p.key as Node | null);
       const goal = scalarOf(p.value as Node | null);
-      if (typeof name !== 'string' && typeof name !== 'number') return fail('metric names as keys', p.key as Node | null);
-      if (goal !== 'max' && goal !== 'min') return fail(`max or min for ${String(name)}, got ${String(goal)}`, p.key as Node | null);
+      if (typeof name !== 'string' && typeof name !== 'number')
+        return fail('metric names as keys', p.key as Node | null);
+      if (goal !== 'max' && goal !== 'min')
+        return fail(`max or min for ${String(name)}, got ${String(goal)}`, p.key as Node | null);
       return `${String(name)}:${goal}`;
     });
   }
   if (kind === 'paths' || kind === 'csv') {
     const items = isSeq(node) ? node.items.map((n) => scalarOf(n as Node | null)) : [scalarOf(node)];
-    if (items.some((v) => typeof v !== 'string' && typeof v !== 'number')) return fail(kind === 'paths' ? 'a path or a list of paths' : 'a list or comma-separated text');
+    if (items.some((v) => typeof v !== 'string' && typeof v !== 'number'))
+      return fail(kind === 'paths' ? 'a path or a list of paths' : 'a list or comma-separated text');
     const texts = items.map((v) => String(v));
     return kind === 'paths' ? texts : texts.join(',');
   }

@@ -56,7 +56,12 @@ export interface RenderedNotebook {
  * rendering errors (a bug, not a user mistake).
  * Example: `await renderNotebook(results, parseNotebook('{{verdicts}}', 'n.md'), 'Study')` → `{ html: '<div class="verdicts-cell">...', charts: 0 }`.
  */
-export async function renderNotebook(results: Results, notebook: Notebook, title: string, progress: ProgressHook = () => undefined): Promise<RenderedNotebook> {
+export async function renderNotebook(
+  results: Results,
+  notebook: Notebook,
+  title: string,
+  progress: ProgressHook = () => undefined,
+): Promise<RenderedNotebook> {
   const slug = createSlugger();
   const state: RenderState = { results, file: notebook.file, bodyLine: notebook.bodyLine, charts: [], cells: [], slug };
   const markdownText = runTemplate(notebook, state, context(results, title));
@@ -69,7 +74,10 @@ export async function renderNotebook(results: Results, notebook: Notebook, title
     figures.push(await chartHtml(spec, i));
   }
   progress('drawing', state.charts.length, state.charts.length);
-  return { html: html.replace(CHART_PLACEHOLDER, (_m: string, i: string) => figures[Number(i)] ?? ''), charts: figures.length };
+  return {
+    html: html.replace(CHART_PLACEHOLDER, (_m: string, i: string) => figures[Number(i)] ?? ''),
+    charts: figures.length,
+  };
 }
 
 function context(results: Results, title: string): NotebookContext {
@@ -100,7 +108,9 @@ function runTemplate(notebook: Notebook, state: RenderState, ctx: NotebookContex
 function notebookError(error: unknown, notebook: Notebook): unknown {
   if (error instanceof SeedsiftError || !(error instanceof Error)) return error;
   const where = (templateLine: number | undefined): { file: string; line?: number } =>
-    templateLine === undefined ? { file: notebook.file } : { file: notebook.file, line: notebook.bodyLine - 1 + templateLine };
+    templateLine === undefined
+      ? { file: notebook.file }
+      : { file: notebook.file, line: notebook.bodyLine - 1 + templateLine };
   const strict = /^"(.*)" not defined in /s.exec(error.message);
   const lineNumber = (error as { lineNumber?: unknown }).lineNumber;
   if (strict !== null) {
@@ -114,9 +124,17 @@ function notebookError(error: unknown, notebook: Notebook): unknown {
   const parse = /^Parse error on line (\d+):[\s\S]*?(Expecting [\s\S]*)$/.exec(error.message);
   if (parse !== null) {
     const expecting = (parse[2] ?? '').replace(/^Expecting /, '').split(', got ');
-    return new SeedsiftError('notebook', `template syntax: expected ${expecting[0] ?? ''}, got ${expecting[1] ?? 'something else'}`, where(Number(parse[1])));
+    return new SeedsiftError(
+      'notebook',
+      `template syntax: expected ${expecting[0] ?? ''}, got ${expecting[1] ?? 'something else'}`,
+      where(Number(parse[1])),
+    );
   }
-  return new SeedsiftError('notebook', `template: ${error.message.split('\n')[0] ?? ''}`, where(typeof lineNumber === 'number' ? lineNumber : undefined));
+  return new SeedsiftError(
+    'notebook',
+    `template: ${error.message.split('\n')[0] ?? ''}`,
+    where(typeof lineNumber === 'number' ? lineNumber : undefined),
+  );
 }
 
 /**
@@ -145,4 +163,3 @@ function prefixIds(svg: string, prefix: string): string {
       .replace(/(\shref=")#([^"]+)"/g, (_m, a: string, id: string) => `${a}#${prefix}${id}"`),
   );
 }
-

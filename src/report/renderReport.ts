@@ -23,7 +23,20 @@ import { tableOfContents } from './tableOfContents.js';
 /** The page title when the notebook's front matter gives none. */
 export const DEFAULT_TITLE = 'seedsift report';
 
-const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
+const MONTHS = [
+  'January',
+  'February',
+  'March',
+  'April',
+  'May',
+  'June',
+  'July',
+  'August',
+  'September',
+  'October',
+  'November',
+  'December',
+];
 
 /**
  * `Results.generated` (ISO 8601) as a date people read: `1 March 2026, 12:00 UTC`; any other text as it is.
@@ -40,7 +53,9 @@ export function readableDate(iso: string): string {
 
 function facts(results: Results): string[] {
   const s = results.settings;
-  const correction = { holm: 'Holm correction', bh: 'Benjamini-Hochberg correction', none: 'no correction' }[s.correction];
+  const correction = { holm: 'Holm correction', bh: 'Benjamini-Hochberg correction', none: 'no correction' }[
+    s.correction
+  ];
   const out = [
     `${results.runs.length} runs in ${results.configs.length} configs`,
     s.baseline === null ? 'every pair of configs compared' : `baseline ${visibleText(s.baseline, 80)}`,
@@ -48,7 +63,8 @@ function facts(results: Results): string[] {
     `alpha ${s.alpha}`,
     correction,
   ];
-  if (results.problems.length > 0) out.push(`${results.problems.length} input problem${results.problems.length === 1 ? '' : 's'}`);
+  if (results.problems.length > 0)
+    out.push(`${results.problems.length} input problem${results.problems.length === 1 ? '' : 's'}`);
   return out;
 }
 
@@ -59,7 +75,12 @@ function facts(results: Results): string[] {
  * (see `parseNotebook` and `renderNotebook`).
  * Example: `await renderReport(results, readFileSync(DEFAULT_NOTEBOOK, 'utf8'), DEFAULT_NOTEBOOK)` → `'<!DOCTYPE html>\n<html lang="en">...'`.
  */
-export async function renderReport(results: Results, notebookSource: string, notebookFile: string, progress?: ProgressHook): Promise<string> {
+export async function renderReport(
+  results: Results,
+  notebookSource: string,
+  notebookFile: string,
+  progress?: ProgressHook,
+): Promise<string> {
   const notebook = parseNotebook(notebookSource, notebookFile);
   const title = notebook.options.title ?? DEFAULT_TITLE;
   const body = await renderNotebook(results, notebook, title, progress);

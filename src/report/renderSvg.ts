@@ -34,10 +34,20 @@ function collectingLogger(warnings: string[], errors: string[]): CollectingLogge
       level = next;
       return logger;
     },
-    error(...args) { errors.push(text(args)); return logger; },
-    warn(...args) { warnings.push(text(args)); return logger; },
-    info() { return logger; },
-    debug() { return logger; },
+    error(...args) {
+      errors.push(text(args));
+      return logger;
+    },
+    warn(...args) {
+      warnings.push(text(args));
+      return logger;
+    },
+    info() {
+      return logger;
+    },
+    debug() {
+      return logger;
+    },
   };
   return logger;
 }
@@ -48,7 +58,10 @@ function collectingLogger(warnings: string[], errors: string[]): CollectingLogge
  * Throws whatever Vega-Lite throws for a spec it cannot compile.
  * Example: `compileVegaWithWarnings(spec).warnings` → `[]` for every seedsift chart.
  */
-export function compileVegaWithWarnings(spec: TopLevelSpec): { readonly spec: VegaSpec; readonly warnings: readonly string[] } {
+export function compileVegaWithWarnings(spec: TopLevelSpec): {
+  readonly spec: VegaSpec;
+  readonly warnings: readonly string[];
+} {
   const warnings: string[] = [];
   const errors: string[] = [];
   const compiled = compile(spec, { logger: collectingLogger(warnings, errors) }).spec as VegaSpec;
@@ -71,11 +84,17 @@ export function compileVega(spec: TopLevelSpec): VegaSpec {
  * Throws an Error naming Vega's message when the dataflow reports an error.
  * Example: `(await renderSvgWithWarnings(spec)).svg.startsWith('<svg')` → `true`.
  */
-export async function renderSvgWithWarnings(spec: TopLevelSpec): Promise<{ readonly svg: string; readonly warnings: readonly string[] }> {
+export async function renderSvgWithWarnings(
+  spec: TopLevelSpec,
+): Promise<{ readonly svg: string; readonly warnings: readonly string[] }> {
   const compiled = compileVegaWithWarnings(spec);
   const warnings = [...compiled.warnings];
   const errors: string[] = [];
-  const view = new View(parse(compiled.spec), { renderer: 'none', logger: collectingLogger(warnings, errors), logLevel: 2 });
+  const view = new View(parse(compiled.spec), {
+    renderer: 'none',
+    logger: collectingLogger(warnings, errors),
+    logLevel: 2,
+  });
   try {
     const raw = await view.toSVG();
     if (errors.length > 0) throw new Error(`vega: ${errors.join('; ')}`);
@@ -123,7 +142,12 @@ function titleText(spec: TopLevelSpec): string {
 }
 
 function escapeXml(text: string): string {
-  return text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
+  return text
+    .replace(/&/g, '&amp;')
+    .replace(/</g, '&lt;')
+    .replace(/>/g, '&gt;')
+    .replace(/"/g, '&quot;')
+    .replace(/'/g, '&#39;');
 }
 
 function accessible(svg: string, title: string, description: string): string {

@@ -23,7 +23,8 @@ export interface ReportAssets {
 
 /** An inline script must not contain `</script` (it would end the element early). */
 function inlineSafe(name: string, text: string): string {
-  if (/<\/script/i.test(text) || /<!--/.test(text)) throw new Error(`${name}: cannot be inlined (contains </script or <!--)`);
+  if (/<\/script/i.test(text) || /<!--/.test(text))
+    throw new Error(`${name}: cannot be inlined (contains </script or <!--)`);
   return text;
 }
 
@@ -44,7 +45,11 @@ export function loadReportAssets(): ReportAssets {
   if (/<\/style/i.test(css)) throw new Error('report.css: cannot be inlined (contains </style)');
   return {
     layout: read('layout.hbs'),
-    partials: { header: read('partials/header.hbs'), toc: read('partials/toc.hbs'), footer: read('partials/footer.hbs') },
+    partials: {
+      header: read('partials/header.hbs'),
+      toc: read('partials/toc.hbs'),
+      footer: read('partials/footer.hbs'),
+    },
     css,
     hydrate: inlineSafe('hydrate.js', read('hydrate.js')),
     vega: inlineSafe('vega.min.js', readFileSync(vegaFile, 'utf8')),

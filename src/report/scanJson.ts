@@ -11,9 +11,17 @@ export function scanJson(runSet: RunSet, inv: Inventory): string {
     configs: inv.configs,
     runs: inv.runs,
     metrics: inv.metrics.map(({ horizon: _horizon, ...m }) => m),
-    tickDumps: runSet.tickDumps.map((d) => ({ run: d.run, config: d.config, seed: d.seed, file: d.file, step: d.step, samples: d.samples, ticks: d.ticks })),
+    tickDumps: runSet.tickDumps.map((d) => ({
+      run: d.run,
+      config: d.config,
+      seed: d.seed,
+      file: d.file,
+      step: d.step,
+      samples: d.samples,
+      ticks: d.ticks,
+    })),
     files: runSet.files,
     problems: runSet.problems,
   };
-  return JSON.stringify(value, null, 2) + '\n';
+  return `${JSON.stringify(value, null, 2)}\n`;
 }

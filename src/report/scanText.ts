@@ -16,15 +16,34 @@ const PLACES_SHOWN = 3;
 export function scanText(runSet: RunSet, inv: Inventory): string {
   const out: string[] = [];
   const read = runSet.files.filter((f) => f.status === 'read').length;
-  out.push(`${inv.runs.length} runs in ${inv.configs.length} configs (keys: ${runSet.keys.join(', ') || 'none'}); ${read} of ${runSet.files.length} files read`);
-  out.push('', ...grid(inv), '', ...metricLines(inv), ...tickDumpLines(runSet.tickDumps), ...runLines(inv), ...fileLines(runSet.files), '', ...problemLines(runSet.problems));
-  return out.join('\n') + '\n';
+  out.push(
+    `${inv.runs.length} runs in ${inv.configs.length} configs (keys: ${runSet.keys.join(', ') || 'none'}); ${read} of ${runSet.files.length} files read`,
+  );
+  out.push(
+    '',
+    ...grid(inv),
+    '',
+    ...metricLines(inv),
+    ...tickDumpLines(runSet.tickDumps),
+    ...runLines(inv),
+    ...fileLines(runSet.files),
+    '',
+    ...problemLines(runSet.problems),
+  );
+  return `${out.join('\n')}\n`;
 }
 
 function table(rows: readonly (readonly string[])[]): string[] {
   const widths: number[] = [];
   for (const row of rows) row.forEach((cell, i) => (widths[i] = Math.max(widths[i] ?? 0, cell.length)));
-  return rows.map((row) => '  ' + row.map((cell, i) => (i === row.length - 1 ? cell : cell.padEnd(widths[i] ?? 0))).join('  ').trimEnd());
+  return rows.map(
+    (row) =>
+      '  ' +
+      row
+        .map((cell, i) => (i === row.length - 1 ? cell : cell.padEnd(widths[i] ?? 0)))
+        .join('  ')
+        .trimEnd(),
+  );
 }
 
 function grid(inv: Inventory): string[] {
@@ -32,10 +51,13 @@ function grid(inv: Inventory): string[] {
   const status = new Map(inv.runs.map((r) => [`${r.config}\u0000${r.seed}`, r.status]));
   const rows = [['config', ...seeds.map((s) => `seed ${s}`)]];
   for (const c of inv.configs) {
-    rows.push([c.id || '(no config keys)', ...seeds.map((s) => {
-      const st = status.get(`${c.id}\u0000${s}`);
-      return st === undefined ? '.' : STATUS_MARK[st];
-    })]);
+    rows.push([
+      c.id || '(no config keys)',
+      ...seeds.map((s) => {
+        const st = status.get(`${c.id}\u0000${s}`);
+        return st === undefined ? '.' : STATUS_MARK[st];
+      }),
+    ]);
   }
   return [`Configs x seeds (o ok, D diverged, S short, x rejected, . none):`, ...table(rows)];
 }
@@ -45,10 +67,24 @@ function metricLines(inv: Inventory): string[] {
   const scalar = inv.metrics.filter((m) => m.kind === 'scalar');
   const ticked = inv.metrics.filter((m) => m.kind === 'tick');
   const out = ['Metrics (goal: max = higher is better):'];
-  out.push(...table([['name', 'goal', 'steps'], ...scalar.map((m) => [m.name, `${m.goal}${m.goalSource === 'inferred' ? ' (guessed from the name)' : ''}`, range(m.firstStep, m.lastStep)])]));
+  out.push(
+    ...table([
+      ['name', 'goal', 'steps'],
+      ...scalar.map((m) => [
+        m.name,
+        `${m.goal}${m.goalSource === 'inferred' ? ' (guessed from the name)' : ''}`,
+        range(m.firstStep, m.lastStep),
+      ]),
+    ]),
+  );
   if (ticked.length > 0) {
     out.push('', 'Tick metrics (one value per internal tick):');
-    out.push(...table([['name', 'ticks', 'goal', 'steps'], ...ticked.map((m) => [m.name, String(m.ticks), m.goal, range(m.firstStep, m.lastStep)])]));
+    out.push(
+      ...table([
+        ['name', 'ticks', 'goal', 'steps'],
+        ...ticked.map((m) => [m.name, String(m.ticks), m.goal, range(m.firstStep, m.lastStep)]),
+      ]),
+    );
   }
   return out;
 }
@@ -57,13 +93,29 @@ function tickDumpLines(dumps: readonly TickDump[]): string[] {
   if (dumps.length === 0) return [];
   const byConfig = new Map<string, TickDump[]>();
   for (const d of dumps) byConfig.set(d.config, [...(byConfig.get(d.config) ?? []), d]);
-  return ['', 'Per-sample tick dumps:', ...table([['config', 'runs', 'samples', 'ticks'], ...[...byConfig].map(([c, ds]) => [c, String(ds.length), String(ds[0]?.samples ?? 0), String(ds[0]?.ticks ?? 0)])])];
+  return [
+    '',
+    'Per-sample tick dumps:',
+    ...table([
+      ['config', 'runs', 'samples', 'ticks'],
+      ...[...byConfig].map(([c, ds]) => [c, String(ds.length), String(ds[0]?.samples ?? 0), String(ds[0]?.ticks ?? 0)]),
+    ]),
+  ];
 }
 
 function runLines(inv: Inventory): string[] {
   const odd = inv.runs.filter((r) => r.status !== 'ok');
   if (odd.length === 0) return [];
-  return ['', 'Runs not ok:', ...table(odd.map((r) => [r.id, r.status === 'diverged' ? `diverged at step ${r.divergedAt}` : `${r.status}, last step ${r.lastStep}`]))];
+  return [
+    '',
+    'Runs not ok:',
+    ...table(
+      odd.map((r) => [
+        r.id,
+        r.status === 'diverged' ? `diverged at step ${r.divergedAt}` : `${r.status}, last step ${r.lastStep}`,
+      ]),
+    ),
+  ];
 }
 
 function fileLines(files: readonly FileRecord[]): string[] {
@@ -73,7 +125,7 @@ function fileLines(files: readonly FileRecord[]): string[] {
 }
 
 function place(p: Problem): string {
-  const where = p.file === undefined ? p.run ?? '' : `${p.file}${p.line === undefined ? '' : `:${p.line}`}`;
+  const where = p.file === undefined ? (p.run ?? '') : `${p.file}${p.line === undefined ? '' : `:${p.line}`}`;
   return where === '' ? p.message : `${where}: ${p.message}`;
 }
 

@@ -7,8 +7,24 @@
  */
 import type { Comparison, Results } from '../analysis/results.js';
 import { escapeMarkdown } from './escape.js';
-import { comparisonDecimals, formatDifference, formatIntervalKind, formatNumber, formatP, formatSeeds } from './format.js';
-import { cautionScope, comparisonGroups, groupCautions, GOAL_WORDS, sharedIntervalKind, standardCaution, VERDICT_LABELS, type ComparisonGroup } from './verdictWords.js';
+import {
+  comparisonDecimals,
+  formatDifference,
+  formatIntervalKind,
+  formatNumber,
+  formatP,
+  formatSeeds,
+} from './format.js';
+import {
+  cautionScope,
+  comparisonGroups,
+  groupCautions,
+  GOAL_WORDS,
+  sharedIntervalKind,
+  standardCaution,
+  VERDICT_LABELS,
+  type ComparisonGroup,
+} from './verdictWords.js';
 
 /** Longest name shown in a table cell (longer names are cut with their length noted). */
 const NAME_LIMIT = 200;
@@ -23,7 +39,11 @@ function row(cells: readonly string[]): string {
 function verdictCell(c: Comparison): string {
   const words = [VERDICT_LABELS[c.verdict]];
   if (c.nonInferiority !== null) {
-    words.push(c.nonInferiority.holds ? `(not worse by ${c.nonInferiority.margin}, p ${formatP(c.nonInferiority.p)})` : `(non-inferiority at margin ${c.nonInferiority.margin} not shown)`);
+    words.push(
+      c.nonInferiority.holds
+        ? `(not worse by ${c.nonInferiority.margin}, p ${formatP(c.nonInferiority.p)})`
+        : `(non-inferiority at margin ${c.nonInferiority.margin} not shown)`,
+    );
   }
   return words.join(' ');
 }
@@ -31,26 +51,56 @@ function verdictCell(c: Comparison): string {
 function groupTable(results: Results, g: ComparisonGroup): string[] {
   const shared = sharedIntervalKind(g.comparisons);
   const withTask = g.task !== null;
-  const head = ['Baseline', 'Candidate', shared === null ? 'Difference [interval]' : `Difference [${shared}]`, `p (${CORRECTION_WORDS[results.settings.correction]})`, 'Verdict', 'Seeds'];
+  const head = [
+    'Baseline',
+    'Candidate',
+    shared === null ? 'Difference [interval]' : `Difference [${shared}]`,
+    `p (${CORRECTION_WORDS[results.settings.correction]})`,
+    'Verdict',
+    'Seeds',
+  ];
   const lines = [row(head), row(head.map(() => '---'))];
   for (const c of g.comparisons) {
     const decimals = comparisonDecimals(c);
-    const difference = formatDifference(c.difference, decimals) + (shared === null ? ` (${formatIntervalKind(c.difference)})` : '');
-    lines.push(row([name(c.baseline), name(c.candidate), difference, formatP(c.pAdjusted), verdictCell(c), formatSeeds(c, results.settings.diverged)]));
+    const difference =
+      formatDifference(c.difference, decimals) + (shared === null ? ` (${formatIntervalKind(c.difference)})` : '');
+    lines.push(
+      row([
+        name(c.baseline),
+        name(c.candidate),
+        difference,
+        formatP(c.pAdjusted),
+        verdictCell(c),
+        formatSeeds(c, results.settings.diverged),
+      ]),
+    );
   }
-  const title = [`### ${name(g.metric)}`, `(${GOAL_WORDS[g.goal]}${g.goalSource === 'inferred' ? ', guessed from the name' : ''}; summary ${name(g.summary)}${withTask ? `; task ${name(g.task ?? '')}` : ''})`];
+  const title = [
+    `### ${name(g.metric)}`,
+    `(${GOAL_WORDS[g.goal]}${g.goalSource === 'inferred' ? ', guessed from the name' : ''}; summary ${name(g.summary)}${withTask ? `; task ${name(g.task ?? '')}` : ''})`,
+  ];
   const cautions = groupCautions(g.comparisons).map((c) => `- ${cautionScope(c, name)}: ${escapeMarkdown(c.line)}`);
   const means = g.comparisons.map((c) => {
     const d = comparisonDecimals(c);
     return `${name(c.candidate)} ${formatNumber(c.mean.candidate, d)} v ${name(c.baseline)} ${formatNumber(c.mean.baseline, d)}`;
   });
-  return [title.join(' '), '', ...lines, '', `Means: ${means.join('; ')}.`, ...(cautions.length > 0 ? ['', 'Cautions:', '', ...cautions] : []), ''];
+  return [
+    title.join(' '),
+    '',
+    ...lines,
+    '',
+    `Means: ${means.join('; ')}.`,
+    ...(cautions.length > 0 ? ['', 'Cautions:', '', ...cautions] : []),
+    '',
+  ];
 }
 
 function problemLine(results: Results): string | null {
   const counts = { error: 0, warning: 0, note: 0 };
   for (const p of results.problems) counts[p.severity] += 1;
-  const parts = (['error', 'warning', 'note'] as const).filter((s) => counts[s] > 0).map((s) => `${counts[s]} ${s}${counts[s] === 1 ? '' : 's'}`);
+  const parts = (['error', 'warning', 'note'] as const)
+    .filter((s) => counts[s] > 0)
+    .map((s) => `${counts[s]} ${s}${counts[s] === 1 ? '' : 's'}`);
   return parts.length === 0 ? null : `Input problems: ${parts.join(', ')} (listed in the report).`;
 }
 
@@ -69,7 +119,8 @@ export function summaryMarkdown(results: Results): string {
     '',
   );
   const groups = comparisonGroups(results);
-  if (groups.length === 0) out.push('No comparisons: the runs hold fewer than two configs to compare, or no metric with values.', '');
+  if (groups.length === 0)
+    out.push('No comparisons: the runs hold fewer than two configs to compare, or no metric with values.', '');
   for (const g of groups) out.push(...groupTable(results, g));
   const problems = problemLine(results);
   if (problems !== null) out.push(problems, '');

@@ -45,7 +45,14 @@ export interface ComparisonGroup {
  */
 export function comparisonGroups(results: Results, metric?: string): ComparisonGroup[] {
   const order = results.metrics.map((m) => m.name);
-  const groups: { key: string; metric: string; summary: string; task: string | null; goal: Goal; items: Comparison[] }[] = [];
+  const groups: {
+    key: string;
+    metric: string;
+    summary: string;
+    task: string | null;
+    goal: Goal;
+    items: Comparison[];
+  }[] = [];
   for (const c of results.comparisons) {
     if (metric !== undefined && c.metric !== metric) continue;
     const key = JSON.stringify([c.metric, c.summary, c.task]);
@@ -97,11 +104,17 @@ export interface GroupedCaution {
 export function groupCautions(comparisons: readonly Comparison[]): GroupedCaution[] {
   const byLine = new Map<string, Comparison[]>();
   for (const c of comparisons) for (const line of c.cautions) byLine.set(line, [...(byLine.get(line) ?? []), c]);
-  return [...byLine].map(([line, list]) => ({ line, comparisons: list, all: list.length === comparisons.length && list.length > 1 }));
+  return [...byLine].map(([line, list]) => ({
+    line,
+    comparisons: list,
+    all: list.length === comparisons.length && list.length > 1,
+  }));
 }
 
 /** "all 5 comparisons" or "b v a; c v a", with names passed through `name` (escaping is the caller's). */
 export function cautionScope(g: GroupedCaution, name: (text: string) => string): string {
   if (g.all) return `all ${g.comparisons.length} comparisons`;
-  return g.comparisons.map((c) => `${name(c.candidate)} v ${name(c.baseline)}${c.task === null ? '' : ` (${name(c.task)})`}`).join('; ');
+  return g.comparisons
+    .map((c) => `${name(c.candidate)} v ${name(c.baseline)}${c.task === null ? '' : ` (${name(c.task)})`}`)
+    .join('; ');
 }

@@ -52,7 +52,12 @@ export interface BootstrapInterval {
 }
 
 /** The interval from bounds given as deviations from the estimate (the resampled statistics are centred). */
-function intervalAround(estimate: number, level: number, method: BootstrapMethod, resamples: number): (bounds: { low: number; high: number }) => BootstrapInterval {
+function intervalAround(
+  estimate: number,
+  level: number,
+  method: BootstrapMethod,
+  resamples: number,
+): (bounds: { low: number; high: number }) => BootstrapInterval {
   return (bounds) => ({ estimate, low: estimate + bounds.low, high: estimate + bounds.high, level, method, resamples });
 }
 
@@ -73,7 +78,8 @@ export function bootstrapMean(x: Numbers, random: Random, opts: BootstrapOptions
   const n = group.values.length;
   const buffer = new Float64Array(n);
   const stats = new Float64Array(resamples);
-  for (let b = 0; b < resamples; b++) stats[b] = resampledStatistic(group.values, buffer, resampleMean(group.values, buffer, random), method);
+  for (let b = 0; b < resamples; b++)
+    stats[b] = resampledStatistic(group.values, buffer, resampleMean(group.values, buffer, random), method);
   return meanInterval(group, stats, method, level, resamples);
 }
 
@@ -88,7 +94,8 @@ export function bootstrapMean(x: Numbers, random: Random, opts: BootstrapOptions
  */
 export function resampleCounts(random: Random, n: number, resamples: number): Float64Array {
   if (!(Number.isInteger(n) && n >= 1)) throw new RangeError(`resampleCounts: n must be a whole number >= 1, got ${n}`);
-  if (!(Number.isInteger(resamples) && resamples >= 1)) throw new RangeError(`resampleCounts: resamples must be a whole number >= 1, got ${resamples}`);
+  if (!(Number.isInteger(resamples) && resamples >= 1))
+    throw new RangeError(`resampleCounts: resamples must be a whole number >= 1, got ${resamples}`);
   const counts = new Float64Array(n * resamples);
   for (let b = 0; b < resamples; b++) {
     const row = b * n;
@@ -109,12 +116,19 @@ export function resampleCounts(random: Random, n: number, resamples: number): Fl
  * `counts` is not a whole number of resamples of x or a row does not sum to n.
  * Example: `bootstrapMeanFromCounts(x, resampleCounts(createRandom(1), x.length, 2000), { method: 'bca' })`.
  */
-export function bootstrapMeanFromCounts(x: Numbers, counts: Float64Array, opts: Omit<BootstrapOptions, 'resamples'> = {}): BootstrapInterval {
+export function bootstrapMeanFromCounts(
+  x: Numbers,
+  counts: Float64Array,
+  opts: Omit<BootstrapOptions, 'resamples'> = {},
+): BootstrapInterval {
   const group = centredGroup(x, 'bootstrapMeanFromCounts', 'x');
   const values = group.values;
   const n = values.length;
   const resamples = counts.length / n;
-  if (!Number.isInteger(resamples) || resamples < 1) throw new RangeError(`bootstrapMeanFromCounts: ${counts.length} counts are not a whole number of resamples of ${n} values`);
+  if (!Number.isInteger(resamples) || resamples < 1)
+    throw new RangeError(
+      `bootstrapMeanFromCounts: ${counts.length} counts are not a whole number of resamples of ${n} values`,
+    );
   const { method, level } = resolveOptions({ ...opts, resamples }, 'bootstrapMeanFromCounts');
   const stats = new Float64Array(resamples);
   // Four resamples at a time: four independent sums keep the processor busy where one waits on
@@ -131,7 +145,8 @@ export function bootstrapMeanFromCounts(x: Numbers, counts: Float64Array, opts: 
       sum += c * (values[j] as number);
     }
     if (drawn !== n) throw new RangeError(`bootstrapMeanFromCounts: resample ${b} draws ${drawn} values, not ${n}`);
-    stats[b] = method === 'bootstrap-t' ? studentized(sum / n, countedSd(values, counts, row, sum / n) / Math.sqrt(n)) : sum / n;
+    stats[b] =
+      method === 'bootstrap-t' ? studentized(sum / n, countedSd(values, counts, row, sum / n) / Math.sqrt(n)) : sum / n;
   }
   return meanInterval(group, stats, method, level, resamples);
 }
@@ -195,7 +210,13 @@ function resampledStatistic(values: Float64Array, buffer: Float64Array, m: numbe
 }
 
 /** The interval of `bootstrapMean` from the resampled statistics (reordered here, in place). */
-function meanInterval(group: CentredGroup, statistics: Float64Array, method: BootstrapMethod, level: number, resamples: number): BootstrapInterval {
+function meanInterval(
+  group: CentredGroup,
+  statistics: Float64Array,
+  method: BootstrapMethod,
+  level: number,
+  resamples: number,
+): BootstrapInterval {
   const n = group.values.length;
   const se = Math.sqrt(group.variance / n);
   const stats = new OrderStatistics(statistics);
@@ -228,7 +249,12 @@ function meanInterval(group: CentredGroup, statistics: Float64Array, method: Boo
  * has fewer than 2 values or a non-finite value, an option is invalid, or BCa cannot be computed.
  * Example: `bootstrapMeanDifference(a, b, createRandom(1), { method: 'percentile' }).estimate` is mean(a) - mean(b).
  */
-export function bootstrapMeanDifference(x: Numbers, y: Numbers, random: Random, opts: BootstrapOptions = {}): BootstrapInterval {
+export function bootstrapMeanDifference(
+  x: Numbers,
+  y: Numbers,
+  random: Random,
+  opts: BootstrapOptions = {},
+): BootstrapInterval {
   const { method, resamples, level } = resolveOptions(opts, 'bootstrapMeanDifference');
   const gx = centredGroup(x, 'bootstrapMeanDifference', 'x');
   const gy = centredGroup(y, 'bootstrapMeanDifference', 'y');
@@ -314,7 +340,13 @@ export function bcaInterval(
   checkLevel(level, 'bcaInterval');
   if (!Number.isFinite(acceleration)) throw new RangeError(`bca: acceleration must be finite, got ${acceleration}`);
   if (!(tieTolerance >= 0)) throw new RangeError(`bca: tieTolerance must be >= 0, got ${tieTolerance}`);
-  return bcaBounds(sortedOrder(sortedStatistics(statistics, 'bcaInterval')), estimate, acceleration, level, tieTolerance);
+  return bcaBounds(
+    sortedOrder(sortedStatistics(statistics, 'bcaInterval')),
+    estimate,
+    acceleration,
+    level,
+    tieTolerance,
+  );
 }
 
 /**
@@ -333,7 +365,8 @@ export function jackknifeAcceleration(jackknife: readonly Numbers[]): number {
   let denominator = 0;
   for (const estimates of jackknife) {
     const n = estimates.length;
-    if (n < 2) throw new RangeError(`jackknifeAcceleration requires at least 2 leave-one-out estimates per sample, got ${n}`);
+    if (n < 2)
+      throw new RangeError(`jackknifeAcceleration requires at least 2 leave-one-out estimates per sample, got ${n}`);
     for (let i = 0; i < n; i++) {
       if (!Number.isFinite(estimates[i])) throw new RangeError(`jackknifeAcceleration: estimate ${i} is not finite`);
     }
@@ -348,19 +381,24 @@ export function jackknifeAcceleration(jackknife: readonly Numbers[]): number {
     numerator += cubes / n ** 3;
     denominator += squares / n ** 2;
   }
-  if (!(denominator > 0)) throw new RangeError('bca: jackknife acceleration is undefined because every leave-one-out estimate is equal');
+  if (!(denominator > 0))
+    throw new RangeError('bca: jackknife acceleration is undefined because every leave-one-out estimate is equal');
   return numerator / (6 * denominator ** 1.5);
 }
 
 // ---------------------------------------------------------------------------------------------
 
-function resolveOptions(opts: BootstrapOptions, who: string): { method: BootstrapMethod; resamples: number; level: number } {
+function resolveOptions(
+  opts: BootstrapOptions,
+  who: string,
+): { method: BootstrapMethod; resamples: number; level: number } {
   const method = opts.method ?? 'bca';
   if (!(BOOTSTRAP_METHODS as readonly string[]).includes(method)) {
     throw new RangeError(`${who}: method must be one of ${BOOTSTRAP_METHODS.join(', ')}, got ${String(method)}`);
   }
   const resamples = opts.resamples ?? 10_000;
-  if (!Number.isInteger(resamples) || resamples < 1) throw new RangeError(`${who}: resamples must be a positive integer, got ${resamples}`);
+  if (!Number.isInteger(resamples) || resamples < 1)
+    throw new RangeError(`${who}: resamples must be a positive integer, got ${resamples}`);
   const level = opts.level ?? 0.95;
   checkLevel(level, who);
   return { method, resamples, level };
@@ -427,7 +465,8 @@ function jackknifeMeanDeviations(centred: Float64Array, sign: 1 | -1): Float64Ar
 function sortedStatistics(statistics: Numbers, who: string): Float64Array {
   const sorted = Float64Array.from(statistics);
   if (sorted.length === 0) throw new RangeError(`${who} requires at least 1 resampled statistic`);
-  for (let i = 0; i < sorted.length; i++) if (Number.isNaN(sorted[i])) throw new RangeError(`${who}: statistic ${i} is NaN`);
+  for (let i = 0; i < sorted.length; i++)
+    if (Number.isNaN(sorted[i])) throw new RangeError(`${who}: statistic ${i} is NaN`);
   return sorted.sort();
 }
 
@@ -482,11 +521,15 @@ function bcaBounds(
     else if (v <= estimate + tolerance) equal++;
   }
   const z0 = normalQuantile((below + equal / 2) / count, 0, 1);
-  if (!Number.isFinite(z0)) throw new RangeError('bca: every resampled statistic lies on one side of the estimate, so the bias correction z0 is infinite');
+  if (!Number.isFinite(z0))
+    throw new RangeError(
+      'bca: every resampled statistic lies on one side of the estimate, so the bias correction z0 is infinite',
+    );
   const tail = (z: number): number => {
     const shifted = z0 + z;
     const scale = 1 - acceleration * shifted;
-    if (!(scale > 0)) throw new RangeError(`bca: acceleration ${acceleration} is too large for level ${level} (1 - a (z0 + z) <= 0)`);
+    if (!(scale > 0))
+      throw new RangeError(`bca: acceleration ${acceleration} is too large for level ${level} (1 - a (z0 + z) <= 0)`);
     return normalCdf(z0 + shifted / scale, 0, 1);
   };
   const zLow = normalQuantile((1 - level) / 2, 0, 1);

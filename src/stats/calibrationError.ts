@@ -39,7 +39,8 @@ export interface CalibrationError {
 }
 
 function checkBins(bins: number): void {
-  if (!Number.isInteger(bins) || bins < 1) throw new RangeError(`calibration bins must be a positive integer, got ${bins}`);
+  if (!Number.isInteger(bins) || bins < 1)
+    throw new RangeError(`calibration bins must be a positive integer, got ${bins}`);
 }
 
 /**
@@ -87,7 +88,9 @@ export function calibrationFromBinSums(sums: CalibrationBinSums): CalibrationErr
   const { count, confidenceSum, correctSum } = sums;
   const bins = count.length;
   if (bins === 0 || confidenceSum.length !== bins || correctSum.length !== bins) {
-    throw new RangeError(`calibrationFromBinSums: expected three non-empty arrays of one length, got ${bins}, ${confidenceSum.length}, ${correctSum.length}`);
+    throw new RangeError(
+      `calibrationFromBinSums: expected three non-empty arrays of one length, got ${bins}, ${confidenceSum.length}, ${correctSum.length}`,
+    );
   }
   let n = 0;
   let gapSum = 0;
@@ -98,7 +101,13 @@ export function calibrationFromBinSums(sums: CalibrationBinSums): CalibrationErr
     const ks = correctSum[b] as number;
     n += m;
     gapSum += Math.abs(ks - cs);
-    out.push({ low: b / bins, high: (b + 1) / bins, count: m, confidence: m > 0 ? cs / m : null, accuracy: m > 0 ? ks / m : null });
+    out.push({
+      low: b / bins,
+      high: (b + 1) / bins,
+      count: m,
+      confidence: m > 0 ? cs / m : null,
+      accuracy: m > 0 ? ks / m : null,
+    });
   }
   if (!(n > 0)) throw new RangeError('expected calibration error requires at least 1 prediction');
   return { ece: gapSum / n, n, bins: out };
@@ -117,7 +126,9 @@ export function expectedCalibrationError(confidence: Numbers, correct: Numbers, 
   const n = confidence.length;
   if (n === 0) throw new RangeError('expectedCalibrationError requires at least 1 prediction');
   if (correct.length !== n) {
-    throw new RangeError(`expectedCalibrationError: confidence and correct differ in length (${n} vs ${correct.length})`);
+    throw new RangeError(
+      `expectedCalibrationError: confidence and correct differ in length (${n} vs ${correct.length})`,
+    );
   }
   const count = new Float64Array(bins);
   const confidenceSum = new Float64Array(bins);

@@ -28,7 +28,9 @@ function positionsOf(name: string, x: Numbers, classes: number): number {
     throw new RangeError(`${name} requires at least 2 classes, got ${classes}`);
   }
   if (x.length === 0 || x.length % classes !== 0) {
-    throw new RangeError(`${name}: expected a non-empty multiple of ${classes} values (positions x classes), got ${x.length}`);
+    throw new RangeError(
+      `${name}: expected a non-empty multiple of ${classes} values (positions x classes), got ${x.length}`,
+    );
   }
   return x.length / classes;
 }
@@ -65,7 +67,8 @@ function logitRow(z: Numbers, start: number, classes: number): { entropy: number
   for (let i = 0; i < classes; i++) {
     const v = z[start + i] as number;
     // -Infinity is allowed (a masked class, probability 0); NaN and +Infinity are not.
-    if (Number.isNaN(v) || v === Infinity) throw new RangeError(`logits must be finite or -Infinity, got ${v} at index ${start + i}`);
+    if (Number.isNaN(v) || v === Infinity)
+      throw new RangeError(`logits must be finite or -Infinity, got ${v} at index ${start + i}`);
     if (v > max) max = v;
   }
   if (max === -Infinity) throw new RangeError(`logits of one position are all -Infinity at index ${start}`);

@@ -82,7 +82,8 @@ export function mannWhitney(x: Numbers, y: Numbers, opts: MannWhitneyOptions = {
   let method: MannWhitneyResult['method'];
   if (requested === 'asymptotic') method = 'asymptotic';
   else if (requested === 'exact') method = hasTies ? 'exact-conditional' : 'exact';
-  else if (!hasTies && ((n1 <= MAX_EXACT_GROUP && n2 <= MAX_EXACT_GROUP) || splits <= MAX_EXACT_SPLITS)) method = 'exact';
+  else if (!hasTies && ((n1 <= MAX_EXACT_GROUP && n2 <= MAX_EXACT_GROUP) || splits <= MAX_EXACT_SPLITS))
+    method = 'exact';
   else if (hasTies && splits <= MAX_EXACT_SPLITS) method = 'exact-conditional';
   else method = 'asymptotic';
 
@@ -164,7 +165,8 @@ function conditionalTails(ranks: Float64Array, n1: number, rankSumX: number): { 
     for (let k = Math.min(i + 1, n1); k >= 1; k--) {
       const row = k * width;
       const below = (k - 1) * width;
-      for (let s = reach; s >= r; s--) counts[row + s] = (counts[row + s] as number) + (counts[below + s - r] as number);
+      for (let s = reach; s >= r; s--)
+        counts[row + s] = (counts[row + s] as number) + (counts[below + s - r] as number);
     }
   }
   const observed = Math.round(2 * rankSumX);
@@ -182,7 +184,14 @@ function conditionalTails(ranks: Float64Array, n1: number, rankSumX: number): { 
 }
 
 /** scipy.stats.mannwhitneyu's normal approximation (tie-corrected, optional continuity correction). */
-function asymptoticP(u: number, n1: number, n2: number, tieTerm: number, alternative: Alternative, continuity: boolean): number {
+function asymptoticP(
+  u: number,
+  n1: number,
+  n2: number,
+  tieTerm: number,
+  alternative: Alternative,
+  continuity: boolean,
+): number {
   const total = n1 + n2;
   const variance = ((n1 * n2) / 12) * (total + 1 - tieTerm / (total * (total - 1)));
   if (!(variance > 0)) return 1; // every value tied: no evidence either way

@@ -50,7 +50,8 @@ const MAX_TERMS = 1_000_000;
  * Example: `noncentralTCdf(0, 10, 1)` is Phi(-1) = 0.15865525393145707.
  */
 export function noncentralTCdf(t: number, df: number, ncp: number): number {
-  if (!(df > 0 && Number.isFinite(df))) throw new RangeError(`noncentralTCdf: df must be a positive finite number, got ${df}`);
+  if (!(df > 0 && Number.isFinite(df)))
+    throw new RangeError(`noncentralTCdf: df must be a positive finite number, got ${df}`);
   if (!Number.isFinite(ncp)) throw new RangeError(`noncentralTCdf: ncp must be finite, got ${ncp}`);
   if (Number.isNaN(t)) throw new RangeError('noncentralTCdf: t is NaN');
   if (t < 0) return 1 - upperSeries(-t, df, -ncp);
@@ -149,7 +150,8 @@ function upperSeries(t: number, df: number, ncp: number): number {
  */
 export function noncentralTNcpInterval(t: number, df: number, level: number): { low: number; high: number } {
   if (!Number.isFinite(t)) throw new RangeError(`noncentralTNcpInterval: t must be finite, got ${t}`);
-  if (!(df > 0 && Number.isFinite(df))) throw new RangeError(`noncentralTNcpInterval: df must be a positive finite number, got ${df}`);
+  if (!(df > 0 && Number.isFinite(df)))
+    throw new RangeError(`noncentralTNcpInterval: df must be a positive finite number, got ${df}`);
   if (!(level > 0 && level < 1)) throw new RangeError(`noncentralTNcpInterval: level must be in (0, 1), got ${level}`);
   return {
     low: solveNcp(t, df, (1 + level) / 2),

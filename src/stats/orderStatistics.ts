@@ -48,7 +48,8 @@ export class OrderStatistics implements Ordered {
   at(k: number): number {
     const a = this.values;
     const n = a.length;
-    if (!(Number.isInteger(k) && k >= 0 && k < n)) throw new RangeError(`OrderStatistics: position ${k} is not in 0..${n - 1}`);
+    if (!(Number.isInteger(k) && k >= 0 && k < n))
+      throw new RangeError(`OrderStatistics: position ${k} is not in 0..${n - 1}`);
     // The nearest positions found on either side bound the search.
     const found = this.found;
     let lo = 0;

@@ -53,18 +53,27 @@ const RELATIVE_TOLERANCE = 1e-9;
  * Example: `permutationTest([71.2, 69.8, 73.1, 70.4, 72.0], [68.9, 70.1, 69.5, 71.0, 67.8, 70.6, 69.2], random)`
  * is { p: 27/792, exact: true, splits: 792, statistic: 1.7142857142857..., atLeast: 27 }.
  */
-export function permutationTest(x: Numbers, y: Numbers, random: Random, opts: PermutationOptions = {}): PermutationResult {
+export function permutationTest(
+  x: Numbers,
+  y: Numbers,
+  random: Random,
+  opts: PermutationOptions = {},
+): PermutationResult {
   const alternative = checkAlternative(opts.alternative ?? 'two-sided', 'permutationTest');
   const maxExact = opts.maxExact ?? 200_000;
   const resamples = opts.resamples ?? 100_000;
   if (!(maxExact >= 0)) throw new RangeError(`permutationTest: maxExact must be >= 0, got ${maxExact}`);
-  if (!Number.isInteger(resamples) || resamples < 1) throw new RangeError(`permutationTest: resamples must be a positive integer, got ${resamples}`);
+  if (!Number.isInteger(resamples) || resamples < 1)
+    throw new RangeError(`permutationTest: resamples must be a positive integer, got ${resamples}`);
   const n1 = x.length;
   const n2 = y.length;
-  if (n1 < 1 || n2 < 1) throw new RangeError(`permutationTest requires at least 1 value per group, got ${n1} and ${n2}`);
+  if (n1 < 1 || n2 < 1)
+    throw new RangeError(`permutationTest requires at least 1 value per group, got ${n1} and ${n2}`);
   const total = n1 + n2;
-  for (let i = 0; i < n1; i++) if (!Number.isFinite(x[i])) throw new RangeError(`permutationTest: x[${i}] is not finite`);
-  for (let j = 0; j < n2; j++) if (!Number.isFinite(y[j])) throw new RangeError(`permutationTest: y[${j}] is not finite`);
+  for (let i = 0; i < n1; i++)
+    if (!Number.isFinite(x[i])) throw new RangeError(`permutationTest: x[${i}] is not finite`);
+  for (let j = 0; j < n2; j++)
+    if (!Number.isFinite(y[j])) throw new RangeError(`permutationTest: y[${j}] is not finite`);
 
   // Centre on the pooled mean so that sums are small and rounding is small.
   const pooledMean = (mean(x) * n1 + mean(y) * n2) / total;
@@ -109,7 +118,13 @@ interface ExtremeSums {
  * Translate "T* at least as extreme as T" (with tolerance) into bounds on the subset sum s,
  * where T* = slope s + offset: t <= tLow or t >= tHigh, then solve for s (slope may be negative).
  */
-function extremeSums(alternative: Alternative, observed: number, tolerance: number, slope: number, offset: number): ExtremeSums {
+function extremeSums(
+  alternative: Alternative,
+  observed: number,
+  tolerance: number,
+  slope: number,
+  offset: number,
+): ExtremeSums {
   let tLow: number;
   let tHigh: number;
   if (alternative === 'greater') {

@@ -58,7 +58,8 @@ export function minimumDetectableEffect(n1: number, n2: number, alpha = 0.05, po
   checkArm(n1, 'minimumDetectableEffect');
   checkArm(n2, 'minimumDetectableEffect');
   checkAlpha(alpha, 'minimumDetectableEffect');
-  if (!(power > alpha && power < 1)) throw new RangeError(`minimumDetectableEffect: power must be in (alpha, 1), got ${power}`);
+  if (!(power > alpha && power < 1))
+    throw new RangeError(`minimumDetectableEffect: power must be in (alpha, 1), got ${power}`);
   let lo = 0;
   let hi = 1;
   while (welchPower(hi, n1, n2, alpha) < power) {

@@ -48,7 +48,8 @@ export function stratifiedBootstrap(
 ): StratifiedBootstrapResult {
   const resamples = opts.resamples ?? 10_000;
   const level = opts.level ?? 0.95;
-  if (!Number.isInteger(resamples) || resamples < 1) throw new RangeError(`stratifiedBootstrap: resamples must be a positive integer, got ${resamples}`);
+  if (!Number.isInteger(resamples) || resamples < 1)
+    throw new RangeError(`stratifiedBootstrap: resamples must be a positive integer, got ${resamples}`);
   if (!(level > 0 && level < 1)) throw new RangeError(`stratifiedBootstrap: level must be in (0, 1), got ${level}`);
   if (strata.length === 0) throw new RangeError('stratifiedBootstrap requires at least 1 stratum');
   const originals = strata.map((stratum, h) => {

@@ -97,7 +97,8 @@ export function welchNonInferiority(x: Numbers, y: Numbers, margin: number, goal
   if (!(Number.isFinite(margin) && margin >= 0)) {
     throw new RangeError(`welchNonInferiority: margin must be a finite number >= 0, got ${margin}`);
   }
-  if (goal !== 'max' && goal !== 'min') throw new RangeError(`welchNonInferiority: goal must be max or min, got ${String(goal)}`);
+  if (goal !== 'max' && goal !== 'min')
+    throw new RangeError(`welchNonInferiority: goal must be max or min, got ${String(goal)}`);
   const { difference, se, df } = welchParts(x, y, 'welchNonInferiority');
   if (goal === 'max') {
     const statistic = (difference + margin) / se;

@@ -41,9 +41,14 @@ const MAX_EXACT_PAIRS = 50;
  * Example: `wilcoxonSignedRank([6, 8, 14, 16, 23, 24, 28, 29, 41, -48, 49, 56, 60, -67, 75], new Array(15).fill(0))`
  * is { statistic: 96, p: 0.041259765625, exact: true, pairs: 15 } (scipy's documentation example).
  */
-export function wilcoxonSignedRank(x: Numbers, y: Numbers, opts: { readonly alternative?: Alternative } = {}): WilcoxonResult {
+export function wilcoxonSignedRank(
+  x: Numbers,
+  y: Numbers,
+  opts: { readonly alternative?: Alternative } = {},
+): WilcoxonResult {
   const alternative = checkAlternative(opts.alternative ?? 'two-sided', 'wilcoxonSignedRank');
-  if (x.length !== y.length) throw new RangeError(`wilcoxonSignedRank: paired samples must have equal length, got ${x.length} and ${y.length}`);
+  if (x.length !== y.length)
+    throw new RangeError(`wilcoxonSignedRank: paired samples must have equal length, got ${x.length} and ${y.length}`);
   const diffs: number[] = [];
   for (let i = 0; i < x.length; i++) {
     const d = (x[i] as number) - (y[i] as number);
@@ -51,7 +56,8 @@ export function wilcoxonSignedRank(x: Numbers, y: Numbers, opts: { readonly alte
     if (d !== 0) diffs.push(d);
   }
   const n = diffs.length;
-  if (n === 0) throw new RangeError(`wilcoxonSignedRank requires at least 1 non-zero difference, got ${x.length} pairs, all zero`);
+  if (n === 0)
+    throw new RangeError(`wilcoxonSignedRank requires at least 1 non-zero difference, got ${x.length} pairs, all zero`);
   const zeros = x.length - n;
   const { ranks, tieTerm, hasTies } = midRanks(diffs.map(Math.abs));
   let wPlus = 0;
@@ -68,7 +74,8 @@ export function wilcoxonSignedRank(x: Numbers, y: Numbers, opts: { readonly alte
     }
     const upper = atLeast / all;
     const lower = atMost / all;
-    const p = alternative === 'greater' ? upper : alternative === 'less' ? lower : Math.min(1, 2 * Math.min(upper, lower));
+    const p =
+      alternative === 'greater' ? upper : alternative === 'less' ? lower : Math.min(1, 2 * Math.min(upper, lower));
     return { statistic: wPlus, p, exact: true, pairs: n };
   }
 
@@ -76,7 +83,11 @@ export function wilcoxonSignedRank(x: Numbers, y: Numbers, opts: { readonly alte
   const variance = (n * (n + 1) * (2 * n + 1)) / 24 - tieTerm / 48;
   const z = (wPlus - mu) / Math.sqrt(variance);
   const p =
-    alternative === 'greater' ? normalCdf(-z, 0, 1) : alternative === 'less' ? normalCdf(z, 0, 1) : Math.min(1, 2 * normalCdf(-Math.abs(z), 0, 1));
+    alternative === 'greater'
+      ? normalCdf(-z, 0, 1)
+      : alternative === 'less'
+        ? normalCdf(z, 0, 1)
+        : Math.min(1, 2 * normalCdf(-Math.abs(z), 0, 1));
   return { statistic: wPlus, p, exact: false, pairs: n };
 }
 

@@ -19,11 +19,19 @@ function scoreExperiment(metrics: number, seed: number, draw: (r: Random) => num
   for (const config of ['base', 'cand']) for (let s = 1; s <= 5; s++) values[`${config}|${s}`] = {};
   for (const name of names) {
     for (const config of ['base', 'cand']) {
-      for (let s = 1; s <= 5; s++) (values[`${config}|${s}`] as Record<string, number>)[name] = draw(random) + (config === 'cand' ? shift : 0);
+      for (let s = 1; s <= 5; s++)
+        (values[`${config}|${s}`] as Record<string, number>)[name] = draw(random) + (config === 'cand' ? shift : 0);
     }
   }
-  for (const config of ['base', 'cand']) for (let s = 1; s <= 5; s++) specs.push({ params: { method: config }, seed: s, metrics: values[`${config}|${s}`] as Record<string, number> });
-  return runSet(['method'], specs, names.map((name) => ({ name, goal: 'max' as const })), 'scores');
+  for (const config of ['base', 'cand'])
+    for (let s = 1; s <= 5; s++)
+      specs.push({ params: { method: config }, seed: s, metrics: values[`${config}|${s}`] as Record<string, number> });
+  return runSet(
+    ['method'],
+    specs,
+    names.map((name) => ({ name, goal: 'max' as const })),
+    'scores',
+  );
 }
 
 const lognormal = (r: Random): number => Math.exp(normal(r));
@@ -72,7 +80,9 @@ describe('analyze: records', () => {
       specs.push({
         params: { ticks: '16', memory },
         seed: s,
-        metrics: { val_acc: { steps: [0, 50, 100], values: [0.1, 0.4 + s / 100, 0.5 + Number(memory) / 100 + s / 100] } },
+        metrics: {
+          val_acc: { steps: [0, 50, 100], values: [0.1, 0.4 + s / 100, 0.5 + Number(memory) / 100 + s / 100] },
+        },
       });
     }
   }
@@ -89,7 +99,13 @@ describe('analyze: records', () => {
       ['ticks=16,memory=4', 'ticks=16,memory=12'],
     ]);
     expect(r.curves).toHaveLength(3);
-    expect(r.settings).toMatchObject({ seed: 7, baseline: 'memory=4', summary: 'final', alpha: 0.05, correction: 'holm' });
+    expect(r.settings).toMatchObject({
+      seed: 7,
+      baseline: 'memory=4',
+      summary: 'final',
+      alpha: 0.05,
+      correction: 'holm',
+    });
     expect(r.format).toBe('seedsift-results');
   });
 
@@ -109,9 +125,17 @@ describe('analyze: records', () => {
     const inferred = { ...set, metrics: set.metrics.map((m) => ({ ...m, goalSource: 'inferred' as const })) };
     const r = analyze(inferred, resolveOptions({ baseline: 'memory=4' }), meta);
     expect(r.problems.filter((p) => p.code === 'goal-inferred')).toHaveLength(1);
-    const told = { ...inferred, problems: [problem('goal-inferred', "val_acc: higher is better, guessed from the name"), problem('steps-unsorted', 'sorted', { run: 'ticks=16,memory=8,seed=2' })] };
+    const told = {
+      ...inferred,
+      problems: [
+        problem('goal-inferred', 'val_acc: higher is better, guessed from the name'),
+        problem('steps-unsorted', 'sorted', { run: 'ticks=16,memory=8,seed=2' }),
+      ],
+    };
     const r2 = analyze(told, resolveOptions({ baseline: 'memory=4' }), meta);
-    expect(r2.problems.filter((p) => p.code === 'goal-inferred').map((p) => p.message)).toEqual(['val_acc: higher is better, guessed from the name']);
+    expect(r2.problems.filter((p) => p.code === 'goal-inferred').map((p) => p.message)).toEqual([
+      'val_acc: higher is better, guessed from the name',
+    ]);
     expect(r2.runs.find((x) => x.id === 'ticks=16,memory=8,seed=2')?.problems).toEqual(['sorted']);
     expect(r2.comparisons[0]?.cautions[0]).toContain("higher is better was inferred from the name 'val_acc'");
   });
@@ -141,7 +165,12 @@ describe('analyze: --task-key', () => {
   const random = createRandom(5);
   for (const task of ['count', 'parity', 'sort']) {
     for (const method of ['base', 'ours']) {
-      for (let s = 1; s <= 5; s++) specs.push({ params: { method, task }, seed: s, metrics: { acc: 0.5 + (method === 'ours' ? 0.05 : 0) + 0.02 * normal(random) } });
+      for (let s = 1; s <= 5; s++)
+        specs.push({
+          params: { method, task },
+          seed: s,
+          metrics: { acc: 0.5 + (method === 'ours' ? 0.05 : 0) + 0.02 * normal(random) },
+        });
     }
   }
   const set = runSet(['method', 'task'], specs, [{ name: 'acc', goal: 'max' }], 'scores');
@@ -164,7 +193,9 @@ describe('analyze: --task-key', () => {
   });
 
   it('rejects a task key that is not a config key', () => {
-    expect(() => resolveOptions({ taskKey: 'dataset' }, set)).toThrow("--task-key: expected one of the config keys (method, task), got 'dataset'");
+    expect(() => resolveOptions({ taskKey: 'dataset' }, set)).toThrow(
+      "--task-key: expected one of the config keys (method, task), got 'dataset'",
+    );
   });
 });
 
@@ -174,11 +205,22 @@ describe('analyze: families, diverged runs, pairing and tick analyses', () => {
   const B = [68.9, 70.1, 69.5, 71.0, 67.8];
   const C = [72, 70, 74, 70, 72];
   const specs: RunSpec[] = [];
-  const curve = (v: number): { steps: number[]; values: number[] } => ({ steps: [0, 100, 200], values: [v / 2, v - 1, v] });
-  B.forEach((v, i) => specs.push({ params: { width: '1' }, seed: i + 1, metrics: { acc: curve(v), loss: curve(10 - v / 10) } }));
-  A.forEach((v, i) => specs.push({ params: { width: '2' }, seed: i + 1, metrics: { acc: curve(v), loss: curve(10 - v / 10) } }));
+  const curve = (v: number): { steps: number[]; values: number[] } => ({
+    steps: [0, 100, 200],
+    values: [v / 2, v - 1, v],
+  });
+  B.forEach((v, i) =>
+    specs.push({ params: { width: '1' }, seed: i + 1, metrics: { acc: curve(v), loss: curve(10 - v / 10) } }),
+  );
+  A.forEach((v, i) =>
+    specs.push({ params: { width: '2' }, seed: i + 1, metrics: { acc: curve(v), loss: curve(10 - v / 10) } }),
+  );
   C.forEach((v, i) => specs.push({ params: { width: '4' }, seed: i + 1, metrics: { acc: curve(v) } }));
-  specs.push({ params: { width: '4' }, seed: 6, metrics: { acc: { steps: [0, 100], values: [30, 40], divergedAt: 150 } } });
+  specs.push({
+    params: { width: '4' },
+    seed: 6,
+    metrics: { acc: { steps: [0, 100], values: [30, 40], divergedAt: 150 } },
+  });
   const set = runSet(['width'], specs, [
     { name: 'acc', goal: 'max' },
     { name: 'loss', goal: 'min' },
@@ -223,12 +265,26 @@ describe('analyze: families, diverged runs, pairing and tick analyses', () => {
 
   it('without a baseline compares every pair', () => {
     const r = analyze(set, resolveOptions({}), meta);
-    expect(r.comparisons.filter((c) => c.metric === 'acc').map((c) => `${c.candidate} v ${c.baseline}`)).toEqual(['width=2 v width=1', 'width=4 v width=1', 'width=4 v width=2']);
+    expect(r.comparisons.filter((c) => c.metric === 'acc').map((c) => `${c.candidate} v ${c.baseline}`)).toEqual([
+      'width=2 v width=1',
+      'width=4 v width=1',
+      'width=4 v width=2',
+    ]);
   });
 
   it('calls the tick analyses for tick metrics and tick dumps', () => {
     const runs = set.runs.map((run) =>
-      run.config === 'width=3' ? run : { ...run, tickMetrics: { tick_acc: { steps: Float64Array.from([100]), values: [Float64Array.from([0.2]), Float64Array.from([0.5 + Number(run.seed) / 100])] } } },
+      run.config === 'width=3'
+        ? run
+        : {
+            ...run,
+            tickMetrics: {
+              tick_acc: {
+                steps: Float64Array.from([100]),
+                values: [Float64Array.from([0.2]), Float64Array.from([0.5 + Number(run.seed) / 100])],
+              },
+            },
+          },
     );
     const dumps = set.runs.slice(0, 4).map((run) => ({
       run: run.id,
@@ -242,7 +298,12 @@ describe('analyze: families, diverged runs, pairing and tick analyses', () => {
       certainty: Float64Array.from([0.3, 0.9, 0.6, 0.95]),
       confidence: Float64Array.from([0.5, 0.92, 0.7, 0.97]),
     }));
-    const withTicks: RunSet = { ...set, runs, tickDumps: dumps, metrics: [...set.metrics, { name: 'tick_acc', goal: 'max', goalSource: 'option', kind: 'tick', ticks: 2 }] };
+    const withTicks: RunSet = {
+      ...set,
+      runs,
+      tickDumps: dumps,
+      metrics: [...set.metrics, { name: 'tick_acc', goal: 'max', goalSource: 'option', kind: 'tick', ticks: 2 }],
+    };
     const r = analyze(withTicks, resolveOptions({ baseline: 'width=1' }), meta);
     expect(r.ticks.map((t) => t.config)).toEqual(['width=1', 'width=2', 'width=4']);
     expect(r.ticks[1]?.versusBaseline).not.toBeNull();

@@ -2,7 +2,13 @@ import { describe, expect, it } from 'vitest';
 import type { TickDump } from '../../src/ingest/types.js';
 import { calibrationCurves } from '../../src/analysis/calibration.js';
 
-function dump(run: string, config: string, confidence: number[][] | null, correct: number[][], step: number | null = 10): TickDump {
+function dump(
+  run: string,
+  config: string,
+  confidence: number[][] | null,
+  correct: number[][],
+  step: number | null = 10,
+): TickDump {
   const ticks = correct[0]?.length ?? 0;
   return {
     run,
@@ -36,8 +42,38 @@ function dump(run: string, config: string, confidence: number[][] | null, correc
  *   tick 0 x = [.15, .25]:  mean .2,     (-0.43531023680873476, 0.8353102368087348)
  *   tick 1 x = [.2, .1875]: mean .19375, (0.1143362203989081, 0.2731637796010919)
  */
-const RUN_1 = dump('r1', 'memory=4', [[0.4, 0.9], [0.6, 0.8], [0.7, 0.6], [0.3, 0.5]], [[0, 1], [1, 1], [0, 0], [1, 0]]);
-const RUN_2 = dump('r2', 'memory=4', [[0.2, 1], [0.9, 0.95], [0.55, 0.7], [Number.NaN, 0.4]], [[0, 1], [1, 1], [1, 1], [0, 0]]);
+const RUN_1 = dump(
+  'r1',
+  'memory=4',
+  [
+    [0.4, 0.9],
+    [0.6, 0.8],
+    [0.7, 0.6],
+    [0.3, 0.5],
+  ],
+  [
+    [0, 1],
+    [1, 1],
+    [0, 0],
+    [1, 0],
+  ],
+);
+const RUN_2 = dump(
+  'r2',
+  'memory=4',
+  [
+    [0.2, 1],
+    [0.9, 0.95],
+    [0.55, 0.7],
+    [Number.NaN, 0.4],
+  ],
+  [
+    [0, 1],
+    [1, 1],
+    [1, 1],
+    [0, 0],
+  ],
+);
 
 describe('calibrationCurves', () => {
   it('reproduces the hand-worked ECE per tick, its t-interval and the pooled reliability bins', () => {
@@ -92,7 +128,18 @@ describe('calibrationCurves', () => {
           correct[s * ticks + t] = t % 2 === 0 ? (s % 4 !== 0 ? 1 : 0) : s % 2;
         }
       }
-      dumps.push({ run: `r${r}`, config: 'big', seed: String(r), file: '', step: 1, samples, ticks, correct, certainty: confidence, confidence });
+      dumps.push({
+        run: `r${r}`,
+        config: 'big',
+        seed: String(r),
+        file: '',
+        step: 1,
+        samples,
+        ticks,
+        correct,
+        certainty: confidence,
+        confidence,
+      });
     }
     const [curve] = calibrationCurves(dumps, { bins: 15, level: 0.95 });
     expect(curve?.seeds).toBe(10);

@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { comparisonCautions, pooledSkewness, formatNumber, sampleSkewness, smallestTwoSidedP, type CautionFacts } from '../../src/analysis/cautions.js';
+import {
+  comparisonCautions,
+  pooledSkewness,
+  formatNumber,
+  sampleSkewness,
+  smallestTwoSidedP,
+  type CautionFacts,
+} from '../../src/analysis/cautions.js';
 
 const base: CautionFacts = {
   metric: 'acc',
@@ -69,13 +76,15 @@ describe('comparisonCautions', () => {
     });
     expect(r.lines).toEqual([
       'only 3 seeds in the baseline arm: intervals are wide and one more seed can turn the verdict',
-      "the values are skewed within the arms (sample skewness 2.06 of the 9 values centred on their arm means, beyond 1.43, twice its standard error under normality): t-based intervals may under-cover; read the rank and permutation tests beside Welch",
+      'the values are skewed within the arms (sample skewness 2.06 of the 9 values centred on their arm means, beyond 1.43, twice its standard error under normality): t-based intervals may under-cover; read the rank and permutation tests beside Welch',
       'unequal seed counts (6 candidate v 3 baseline)',
       'the tests disagree at alpha 0.05 (Welch p = 0.04, the permutation test p = 0.2); treat the verdict as fragile',
       "the 'better' verdict rests on 6 v 3 seeds: fragile; confirm it with more seeds before claiming it",
     ]);
     expect(r.problems.map((p) => p.code)).toEqual(['few-seeds', 'skewed-values', 'unequal-seeds', 'tests-disagree']);
-    expect(r.problems[0]?.message).toBe('acc (final), c v b: only 3 seeds in the baseline arm: intervals are wide and one more seed can turn the verdict');
+    expect(r.problems[0]?.message).toBe(
+      'acc (final), c v b: only 3 seeds in the baseline arm: intervals are wide and one more seed can turn the verdict',
+    );
   });
 
   it('reach summaries, inferred goals, diverged and value-less runs, reasons', () => {
@@ -95,6 +104,8 @@ describe('comparisonCautions', () => {
       '1 run has no value for this summary and is left out (baseline 0, candidate 1)',
       "Welch's test could not run: because",
     ]);
-    expect(r.problems.map((p) => [p.code, p.message])).toEqual([['goal-inferred', "acc: lower is better was inferred from the name 'acc'; say --metric acc:max if that is wrong"]]);
+    expect(r.problems.map((p) => [p.code, p.message])).toEqual([
+      ['goal-inferred', "acc: lower is better was inferred from the name 'acc'; say --metric acc:max if that is wrong"],
+    ]);
   });
 });

@@ -11,7 +11,11 @@ const D = [69, 70, 68, 71, 70, 67, 72];
 const arm = (values: readonly (number | null)[], diverged: readonly number[] = [], seed0 = 1): ArmRun[] =>
   values.map((value, i) => ({ run: `r${seed0 + i}`, seed: String(seed0 + i), value, diverged: diverged.includes(i) }));
 
-function request(candidate: readonly (number | null)[], baseline: readonly (number | null)[], over: Partial<ComparisonRequest> = {}): ComparisonRequest {
+function request(
+  candidate: readonly (number | null)[],
+  baseline: readonly (number | null)[],
+  over: Partial<ComparisonRequest> = {},
+): ComparisonRequest {
   return {
     metric: 'acc',
     goal: 'max',
@@ -90,12 +94,24 @@ describe('compareFamily on METHODS.md check values (candidate A, baseline B)', (
 describe('multiple comparisons within one family', () => {
   it('Holm across the family (Welch p .04418 and .07120 both become .08836, so neither is better)', () => {
     // Holm by hand: sorted p .04418 x 2 = .08836; .07120 x 1 = .07120 -> max with previous = .08836.
-    const { comparisons } = compareFamily([request(A, B, { candidate: 'a' }), request(C, D, { candidate: 'c' })], settings);
-    expect(comparisons.map((x) => x.p)).toEqual([expect.closeTo(0.04418107272139468, 12), expect.closeTo(0.07119723188477407, 12)]);
-    expect(comparisons.map((x) => x.pAdjusted)).toEqual([expect.closeTo(0.08836214544278936, 12), expect.closeTo(0.08836214544278936, 12)]);
+    const { comparisons } = compareFamily(
+      [request(A, B, { candidate: 'a' }), request(C, D, { candidate: 'c' })],
+      settings,
+    );
+    expect(comparisons.map((x) => x.p)).toEqual([
+      expect.closeTo(0.04418107272139468, 12),
+      expect.closeTo(0.07119723188477407, 12),
+    ]);
+    expect(comparisons.map((x) => x.pAdjusted)).toEqual([
+      expect.closeTo(0.08836214544278936, 12),
+      expect.closeTo(0.08836214544278936, 12),
+    ]);
     expect(comparisons.map((x) => x.verdict)).toEqual(['inconclusive', 'inconclusive']);
     const bh = compareFamily([request(A, B), request(C, D)], resolveOptions({ correction: 'bh' })).comparisons;
-    expect(bh.map((x) => x.pAdjusted)).toEqual([expect.closeTo(0.07119723188477407, 12), expect.closeTo(0.07119723188477407, 12)]);
+    expect(bh.map((x) => x.pAdjusted)).toEqual([
+      expect.closeTo(0.07119723188477407, 12),
+      expect.closeTo(0.07119723188477407, 12),
+    ]);
     const none = compareFamily([request(A, B), request(C, D)], resolveOptions({ correction: 'none' })).comparisons;
     expect(none[0]?.verdict).toBe('better');
   });
@@ -128,7 +144,9 @@ describe('diverged runs', () => {
     const c = one(withDiverged, resolveOptions({ diverged: 'worst' }));
     expect(c.n.candidate).toBe(6);
     expect(c.mean.candidate).toBeCloseTo((356.5 + 67.8) / 6, 12); // worst for max = min of A and B = 67.8
-    expect(c.cautions).toContain('1 diverged run counted as the worst value observed in this comparison (baseline 0, candidate 1)');
+    expect(c.cautions).toContain(
+      '1 diverged run counted as the worst value observed in this comparison (baseline 0, candidate 1)',
+    );
     const min = one({ ...withDiverged, goal: 'min' }, resolveOptions({ diverged: 'worst' }));
     expect(min.mean.candidate).toBeCloseTo((356.5 + 73.1) / 6, 12); // worst for min = max = 73.1
   });
@@ -142,14 +160,21 @@ describe('--paired and --margin', () => {
   const P0 = [70.1, 69.9, 71.8, 70.0, 71.1, 70.3];
 
   it('pairs the seeds present in both arms: paired t primary, Wilcoxon beside', () => {
-    const r: ComparisonRequest = { ...request(P1, P0), candidateRuns: [...arm(P1), { run: 'r7', seed: '7', value: 99, diverged: false }] };
+    const r: ComparisonRequest = {
+      ...request(P1, P0),
+      candidateRuns: [...arm(P1), { run: 'r7', seed: '7', value: 99, diverged: false }],
+    };
     const c = one(r, resolveOptions({ paired: true }));
     expect(c.tests.paired?.pairs).toBe(6);
     expect(c.tests.paired?.t).toBeCloseTo(3.362691229906825, 10);
     expect(c.tests.paired?.df).toBe(5);
     expect(c.p).toBeCloseTo(0.020048922016727606, 10);
     expect(c.tests.paired?.wilcoxonP).toBeCloseTo(0.0625, 12);
-    expect(c.difference).toMatchObject({ method: 't', low: expect.closeTo(0.16489071939106448, 10), high: expect.closeTo(1.2351092806089412, 10) });
+    expect(c.difference).toMatchObject({
+      method: 't',
+      low: expect.closeTo(0.16489071939106448, 10),
+      high: expect.closeTo(1.2351092806089412, 10),
+    });
     expect(c.verdict).toBe('better');
     expect(c.n.candidate).toBe(7);
   });
@@ -195,14 +220,18 @@ describe('when tests cannot run: nulls, inconclusive, a caution - never a crash'
 describe('cautions and intervals by seed count', () => {
   it('3 v 3: no rank or permutation test can reach alpha; no resampling interval', () => {
     const c = one(request([3, 4, 5], [1, 2, 3.5]));
-    expect(c.cautions).toContain('with 3 v 3 seeds no rank or permutation test can reach p < 0.05 (smallest two-sided p = 0.1)');
+    expect(c.cautions).toContain(
+      'with 3 v 3 seeds no rank or permutation test can reach p < 0.05 (smallest two-sided p = 0.1)',
+    );
     expect(c.cautions.some((l) => l.startsWith('no resampling interval with 3 seeds in an arm'))).toBe(true);
   });
 
   it("a 'better' verdict on 4 v 4 seeds is called fragile", () => {
     const c = one(request([10, 11, 12, 13], [1, 2, 3, 4]));
     expect(c.verdict).toBe('better');
-    expect(c.cautions).toContain("the 'better' verdict rests on 4 v 4 seeds: fragile; confirm it with more seeds before claiming it");
+    expect(c.cautions).toContain(
+      "the 'better' verdict rests on 4 v 4 seeds: fragile; confirm it with more seeds before claiming it",
+    );
   });
 
   it('the interval switches from Welch t to BCa bootstrap at 20 runs per arm', () => {
@@ -215,8 +244,13 @@ describe('cautions and intervals by seed count', () => {
   });
 
   it('an inferred goal is said in the comparison and recorded as a problem once per metric', () => {
-    const r = compareFamily([request(A, B, { goalInferred: true }), request(C, D, { goalInferred: true, candidate: 'c' })], settings);
-    expect(r.comparisons[0]?.cautions).toContain("higher is better was inferred from the name 'acc'; say --metric acc:min if that is wrong");
+    const r = compareFamily(
+      [request(A, B, { goalInferred: true }), request(C, D, { goalInferred: true, candidate: 'c' })],
+      settings,
+    );
+    expect(r.comparisons[0]?.cautions).toContain(
+      "higher is better was inferred from the name 'acc'; say --metric acc:min if that is wrong",
+    );
     const inferred = r.problems.filter((p) => p.code === 'goal-inferred');
     expect(new Set(inferred.map((p) => p.message)).size).toBe(1);
   });

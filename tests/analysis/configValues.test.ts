@@ -12,7 +12,16 @@ const A = [71.2, 69.8, 73.1, 70.4, 72.0];
 const settings = { level: 0.95, bootstrapFrom: 20, bandResamples: 500, seed: 1 };
 
 function runValues(config: string, values: readonly (number | null)[]): RunValue[] {
-  return values.map((value, i) => ({ metric: 'val_acc', summary: 'final', run: `${config},seed=${i}`, config, seed: String(i), value, note: value === null ? 'diverged: excluded' : null, usedInTests: value !== null }));
+  return values.map((value, i) => ({
+    metric: 'val_acc',
+    summary: 'final',
+    run: `${config},seed=${i}`,
+    config,
+    seed: String(i),
+    value,
+    note: value === null ? 'diverged: excluded' : null,
+    usedInTests: value !== null,
+  }));
 }
 
 describe('configValues', () => {
@@ -29,7 +38,10 @@ describe('configValues', () => {
   it('switches to a BCa bootstrap at 20 runs, and gives no interval for one run', () => {
     const twenty = Array.from({ length: 20 }, (_, i) => 0.8 + 0.001 * ((i * 7) % 20));
     const out = configValues([...runValues('many', twenty), ...runValues('one', [0.5])], settings);
-    expect(out.map((c) => [c.config, c.method])).toEqual([['many', 'bca'], ['one', 'none']]);
+    expect(out.map((c) => [c.config, c.method])).toEqual([
+      ['many', 'bca'],
+      ['one', 'none'],
+    ]);
     expect(out[1]).toMatchObject({ n: 1, mean: 0.5, low: null, high: null });
     const many = out[0];
     expect(many?.low).toBeLessThan(many?.mean as number);

@@ -2,7 +2,14 @@ import { describe, expect, it } from 'vitest';
 import { learningCurves, stepGrid } from '../../src/analysis/curves.js';
 import { runSet, series, type RunSpec } from './runSetBuilder.js';
 
-const settings = { bins: 400, level: 0.95, bootstrapFrom: 20, bandResamples: 2000, seed: 1, diverged: 'exclude' } as const;
+const settings = {
+  bins: 400,
+  level: 0.95,
+  bootstrapFrom: 20,
+  bandResamples: 2000,
+  seed: 1,
+  diverged: 'exclude',
+} as const;
 const steps = (last: number): number[] => Array.from({ length: last / 10 + 1 }, (_, i) => i * 10);
 
 describe('stepGrid', () => {
@@ -22,7 +29,11 @@ describe('learningCurves', () => {
     const set = runSet(
       ['m'],
       [
-        { params: { m: 'a' }, seed: 1, metrics: { acc: { steps: steps(100), values: steps(100).map((s) => s / 100) } } },
+        {
+          params: { m: 'a' },
+          seed: 1,
+          metrics: { acc: { steps: steps(100), values: steps(100).map((s) => s / 100) } },
+        },
         { params: { m: 'a' }, seed: 2, metrics: { acc: { steps: steps(50), values: steps(50).map((s) => s / 50) } } },
       ],
       [{ name: 'acc', goal: 'max' }],
@@ -42,11 +53,17 @@ describe('learningCurves', () => {
     const specs: RunSpec[] = [];
     // 4 runs with these values in one bin; scipy 1.10.1 stats.t.interval(0.95, 3, mean, sem) of
     // [0.61, 0.64, 0.58, 0.66] is (0.5668071896575351, 0.678192810342465) to 1e-14 (tests/reference/analysis_reference.py)
-    [0.61, 0.64, 0.58, 0.66].forEach((v, i) => specs.push({ params: { m: 'small' }, seed: i, metrics: { acc: { steps: [0], values: [v] } } }));
+    [0.61, 0.64, 0.58, 0.66].forEach((v, i) =>
+      specs.push({ params: { m: 'small' }, seed: i, metrics: { acc: { steps: [0], values: [v] } } }),
+    );
     // 20 runs over steps 0 and 10; the 20th stops at step 0, so step 10 has 19 runs
     for (let i = 0; i < 20; i++) {
       const v = [0.5 + i / 100, 0.6 + ((i * 7) % 20) / 100];
-      specs.push({ params: { m: 'big' }, seed: i, metrics: { acc: i === 19 ? { steps: [0], values: [v[0]!] } : { steps: [0, 10], values: v } } });
+      specs.push({
+        params: { m: 'big' },
+        seed: i,
+        metrics: { acc: i === 19 ? { steps: [0], values: [v[0]!] } : { steps: [0, 10], values: v } },
+      });
     }
     const set = runSet(['m'], specs, [{ name: 'acc', goal: 'max' }]);
     const [small, big] = learningCurves(set.runs, 'acc', settings);
@@ -80,7 +97,11 @@ describe('learningCurves', () => {
   });
 
   it('is deterministic for bootstrap bands (seeded per curve)', () => {
-    const specs: RunSpec[] = Array.from({ length: 25 }, (_, i) => ({ params: { m: 'a' }, seed: i, metrics: { acc: { steps: [0], values: [Math.sin(i)] } } }));
+    const specs: RunSpec[] = Array.from({ length: 25 }, (_, i) => ({
+      params: { m: 'a' },
+      seed: i,
+      metrics: { acc: { steps: [0], values: [Math.sin(i)] } },
+    }));
     const set = runSet(['m'], specs, [{ name: 'acc', goal: 'max' }]);
     expect(learningCurves(set.runs, 'acc', settings)).toEqual(learningCurves(set.runs, 'acc', settings));
   });

@@ -4,7 +4,13 @@ import { haltingCurves, latestDumpPerRun } from '../../src/analysis/halting.js';
 import { createRandom } from '../../src/stats/random.js';
 
 /** Build a dump from sample-major rows (rows[s][t]). */
-function dump(run: string, config: string, certainty: number[][], correct: number[][], step: number | null = null): TickDump {
+function dump(
+  run: string,
+  config: string,
+  certainty: number[][],
+  correct: number[][],
+  step: number | null = null,
+): TickDump {
   const ticks = certainty[0]?.length ?? 0;
   return {
     run,
@@ -33,13 +39,47 @@ function dump(run: string, config: string, certainty: number[][], correct: numbe
 const RUN_A = dump(
   'a',
   'ticks=4',
-  [[0.2, 0.6, 0.9, 0.95], [0.7, 0.5, 0.8, 0.4], [0.1, 0.3, 0.4, 0.45]],
-  [[0, 1, 1, 1], [1, 0, 0, 1], [0, 0, 1, 0]],
+  [
+    [0.2, 0.6, 0.9, 0.95],
+    [0.7, 0.5, 0.8, 0.4],
+    [0.1, 0.3, 0.4, 0.45],
+  ],
+  [
+    [0, 1, 1, 1],
+    [1, 0, 0, 1],
+    [0, 0, 1, 0],
+  ],
 );
 // Always certain: every sample exits at tick 0; correct at tick 0: 1, 1, 0 -> accuracy 2/3, exit 0.
-const RUN_B = dump('b', 'ticks=4', [[0.9, 0.9, 0.9, 0.9], [1, 1, 1, 1], [0.95, 0.1, 0.1, 0.1]], [[1, 0, 0, 0], [1, 0, 0, 0], [0, 1, 1, 1]]);
+const RUN_B = dump(
+  'b',
+  'ticks=4',
+  [
+    [0.9, 0.9, 0.9, 0.9],
+    [1, 1, 1, 1],
+    [0.95, 0.1, 0.1, 0.1],
+  ],
+  [
+    [1, 0, 0, 0],
+    [1, 0, 0, 0],
+    [0, 1, 1, 1],
+  ],
+);
 // Never certain: every sample exits at tick 3; correct at tick 3: 1, 1, 1 -> accuracy 1, exit 3.
-const RUN_C = dump('c', 'ticks=4', [[0, 0, 0, 0], [0.1, 0.2, 0.3, 0.4], [0.3, 0.3, 0.3, 0.3]], [[0, 0, 0, 1], [0, 0, 0, 1], [0, 0, 0, 1]]);
+const RUN_C = dump(
+  'c',
+  'ticks=4',
+  [
+    [0, 0, 0, 0],
+    [0.1, 0.2, 0.3, 0.4],
+    [0.3, 0.3, 0.3, 0.3],
+  ],
+  [
+    [0, 0, 0, 1],
+    [0, 0, 0, 1],
+    [0, 0, 0, 1],
+  ],
+);
 
 describe('haltingCurves', () => {
   it('reproduces the hand-worked 3 x 4 dump', () => {
@@ -64,7 +104,11 @@ describe('haltingCurves', () => {
     // (tests/reference/ticks_reference.py).
     //   x = [1/3, 2/3, 1]  -> (-0.16137923725011016, 1.4947125705834434)
     //   x = [4/3, 0, 3]    -> (-2.289421343118291, 5.17831023200718)
-    const [curve] = haltingCurves([RUN_A, RUN_B, RUN_C], { thresholds: [0.5, 0.8], level: 0.95, referenceThreshold: 0.8 });
+    const [curve] = haltingCurves([RUN_A, RUN_B, RUN_C], {
+      thresholds: [0.5, 0.8],
+      level: 0.95,
+      referenceThreshold: 0.8,
+    });
     expect(curve?.seeds).toBe(3);
     expect(curve?.accuracy[1]?.mean).toBeCloseTo(2 / 3, 14);
     expect(curve?.accuracy[1]?.low).toBeCloseTo(-0.16137923725011016, 10);
@@ -91,7 +135,11 @@ describe('haltingCurves', () => {
     const newer = { ...RUN_A, step: 200 };
     expect(latestDumpPerRun([newer, older])).toEqual([newer]);
     expect(latestDumpPerRun([{ ...RUN_C, run: 'a' }, newer])).toEqual([newer]); // a null step is oldest
-    const curves = haltingCurves([older, newer, { ...RUN_B, config: 'ticks=8' }], { thresholds: [0.8], level: 0.95, referenceThreshold: 0.8 });
+    const curves = haltingCurves([older, newer, { ...RUN_B, config: 'ticks=8' }], {
+      thresholds: [0.8],
+      level: 0.95,
+      referenceThreshold: 0.8,
+    });
     expect(curves.map((c) => c.config)).toEqual(['ticks=4', 'ticks=8']);
     expect(curves[0]?.accuracy[0]?.mean).toBeCloseTo(1 / 3, 15);
   });
@@ -102,9 +150,15 @@ describe('haltingCurves', () => {
     const ticks = 9;
     const thresholds = [0.1, 0.35, 0.5, 0.5001, 0.72, 0.9, 0.99];
     const certainty = Array.from({ length: samples }, () => Array.from({ length: ticks }, () => random.next()));
-    const correct = Array.from({ length: samples }, () => Array.from({ length: ticks }, () => (random.next() < 0.6 ? 1 : 0)));
+    const correct = Array.from({ length: samples }, () =>
+      Array.from({ length: ticks }, () => (random.next() < 0.6 ? 1 : 0)),
+    );
     certainty[0]![3] = Number.NaN; // never triggers an exit
-    const [curve] = haltingCurves([dump('r', 'c', certainty, correct)], { thresholds, level: 0.95, referenceThreshold: 0.72 });
+    const [curve] = haltingCurves([dump('r', 'c', certainty, correct)], {
+      thresholds,
+      level: 0.95,
+      referenceThreshold: 0.72,
+    });
     thresholds.forEach((tau, j) => {
       let right = 0;
       let exits = 0;
@@ -133,7 +187,18 @@ describe('haltingCurves', () => {
           correct[s * ticks + t] = (7 * s + t + r) % 3 === 0 ? 1 : 0;
         }
       }
-      dumps.push({ run: `r${r}`, config: 'big', seed: String(r), file: '', step: 1, samples, ticks, correct, certainty, confidence: null });
+      dumps.push({
+        run: `r${r}`,
+        config: 'big',
+        seed: String(r),
+        file: '',
+        step: 1,
+        samples,
+        ticks,
+        correct,
+        certainty,
+        confidence: null,
+      });
     }
     const thresholds = [0.25, 0.5, 0.9];
     const [curve] = haltingCurves(dumps, { thresholds, level: 0.95, referenceThreshold: 0.5 });
@@ -153,10 +218,16 @@ describe('haltingCurves', () => {
 
   it('throws a RangeError on bad options or inconsistent dumps', () => {
     expect(() => haltingCurves([RUN_A], { thresholds: [], level: 0.95, referenceThreshold: 0.5 })).toThrow(RangeError);
-    expect(() => haltingCurves([RUN_A], { thresholds: [Number.NaN], level: 0.95, referenceThreshold: 0.5 })).toThrow(RangeError);
+    expect(() => haltingCurves([RUN_A], { thresholds: [Number.NaN], level: 0.95, referenceThreshold: 0.5 })).toThrow(
+      RangeError,
+    );
     const broken = { ...RUN_A, samples: 4 };
-    expect(() => haltingCurves([broken], { thresholds: [0.5], level: 0.95, referenceThreshold: 0.5 })).toThrow(/samples x ticks/);
+    expect(() => haltingCurves([broken], { thresholds: [0.5], level: 0.95, referenceThreshold: 0.5 })).toThrow(
+      /samples x ticks/,
+    );
     const notBinary = { ...RUN_A, correct: Uint8Array.from(RUN_A.correct, (k) => k * 2) };
-    expect(() => haltingCurves([notBinary], { thresholds: [0.5], level: 0.95, referenceThreshold: 0.5 })).toThrow(/0 or 1/);
+    expect(() => haltingCurves([notBinary], { thresholds: [0.5], level: 0.95, referenceThreshold: 0.5 })).toThrow(
+      /0 or 1/,
+    );
   });
 });

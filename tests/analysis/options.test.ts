@@ -29,7 +29,20 @@ describe('resolveOptions', () => {
   });
 
   it('parses values typed on the command line (strings) and front matter (numbers)', () => {
-    const o = resolveOptions({ alpha: '0.01', seed: '42', correction: 'bh', summary: 'last:10%', baseline: 'memory=4', taskKey: 'task', margin: '0.5', paired: true, diverged: 'worst', failOn: 'not-better', bins: 100, haltingThresholds: '0.9, 0.5,0.9' });
+    const o = resolveOptions({
+      alpha: '0.01',
+      seed: '42',
+      correction: 'bh',
+      summary: 'last:10%',
+      baseline: 'memory=4',
+      taskKey: 'task',
+      margin: '0.5',
+      paired: true,
+      diverged: 'worst',
+      failOn: 'not-better',
+      bins: 100,
+      haltingThresholds: '0.9, 0.5,0.9',
+    });
     expect(o.alpha).toBe(0.01);
     expect(o.seed).toBe(42);
     expect(o.correction).toBe('bh');
@@ -48,8 +61,12 @@ describe('resolveOptions', () => {
     expect(() => resolveOptions({ alpha: 2 })).toThrow('--alpha: expected a number in (0, 1), got 2');
     expect(() => resolveOptions({ alpha: 'x' })).toThrow(SeedsiftError);
     expect(() => resolveOptions({ seed: '1.5' })).toThrow('--seed: expected an integer');
-    expect(() => resolveOptions({ correction: 'bonferroni' })).toThrow("--correction: expected holm, bh, none, got 'bonferroni'");
-    expect(() => resolveOptions({ summary: 'median' })).toThrow('--summary: expected final, last:P%, best, auc, reach:VALUE or step:N');
+    expect(() => resolveOptions({ correction: 'bonferroni' })).toThrow(
+      "--correction: expected holm, bh, none, got 'bonferroni'",
+    );
+    expect(() => resolveOptions({ summary: 'median' })).toThrow(
+      '--summary: expected final, last:P%, best, auc, reach:VALUE or step:N',
+    );
     expect(() => resolveOptions({ diverged: 'drop' })).toThrow('--diverged');
     expect(() => resolveOptions({ failOn: 'better' })).toThrow('--fail-on');
     expect(() => resolveOptions({ margin: -1 })).toThrow('--margin');
@@ -78,8 +95,12 @@ describe('resolveOptions', () => {
       'scores',
     );
     expect(resolveOptions({ baseline: 'memory=4' }, set).baseline?.text).toBe('memory=4');
-    expect(() => resolveOptions({ baseline: 'memory=5' }, set)).toThrow('--baseline: memory=5 matches no config; memory takes 4, 8');
-    expect(() => resolveOptions({ baseline: 'width=5' }, set)).toThrow("--baseline: no config key 'width'; keys are ticks, memory");
+    expect(() => resolveOptions({ baseline: 'memory=5' }, set)).toThrow(
+      '--baseline: memory=5 matches no config; memory takes 4, 8',
+    );
+    expect(() => resolveOptions({ baseline: 'width=5' }, set)).toThrow(
+      "--baseline: no config key 'width'; keys are ticks, memory",
+    );
     expect(() => resolveOptions({ taskKey: 'task' }, set)).toThrow('--task-key');
   });
 });

@@ -3,8 +3,18 @@ import { groupId, pairConfigs } from '../../src/analysis/pairing.js';
 import { parseSelector } from '../../src/analysis/selectors.js';
 
 const keys = ['ticks', 'memory'];
-const config = (ticks: string, memory: string): { id: string; params: Record<string, string> } => ({ id: `ticks=${ticks},memory=${memory}`, params: { ticks, memory } });
-const configs = [config('8', '4'), config('8', '8'), config('8', '12'), config('16', '4'), config('16', '8'), config('32', '8')];
+const config = (ticks: string, memory: string): { id: string; params: Record<string, string> } => ({
+  id: `ticks=${ticks},memory=${memory}`,
+  params: { ticks, memory },
+});
+const configs = [
+  config('8', '4'),
+  config('8', '8'),
+  config('8', '12'),
+  config('16', '4'),
+  config('16', '8'),
+  config('32', '8'),
+];
 const short = (p: { baseline: string; candidate: string }): string => `${p.candidate} v ${p.baseline}`;
 
 describe('pairConfigs (DESIGN.md selector semantics)', () => {
@@ -50,8 +60,20 @@ describe('pairConfigs (DESIGN.md selector semantics)', () => {
     const r = pairConfigs(withTask, ['method', 'task'], parseSelector('method=base'), 'task');
     expect(r.tasks).toEqual(['a', 'b', 'c']);
     expect(r.pairs).toEqual([
-      { task: 'a', baseline: 'method=base', candidate: 'method=ours', baselineConfig: 'method=base,task=a', candidateConfig: 'method=ours,task=a' },
-      { task: 'b', baseline: 'method=base', candidate: 'method=ours', baselineConfig: 'method=base,task=b', candidateConfig: 'method=ours,task=b' },
+      {
+        task: 'a',
+        baseline: 'method=base',
+        candidate: 'method=ours',
+        baselineConfig: 'method=base,task=a',
+        candidateConfig: 'method=ours,task=a',
+      },
+      {
+        task: 'b',
+        baseline: 'method=base',
+        candidate: 'method=ours',
+        baselineConfig: 'method=base,task=b',
+        candidateConfig: 'method=ours,task=b',
+      },
     ]);
     expect(r.missing).toEqual([{ task: 'c', config: 'method=ours', counterpart: 'method=base' }]);
     expect(groupId({ method: 'ours', task: 'a' }, ['method', 'task'], 'task')).toBe('method=ours');

@@ -13,7 +13,10 @@ export function series(steps: readonly number[], values: readonly number[], dive
 }
 
 export function configId(keys: readonly string[], params: Readonly<Record<string, string>>): string {
-  return keys.filter((k) => params[k] !== undefined).map((k) => `${k}=${params[k]}`).join(',');
+  return keys
+    .filter((k) => params[k] !== undefined)
+    .map((k) => `${k}=${params[k]}`)
+    .join(',');
 }
 
 export interface RunSpec {
@@ -58,7 +61,9 @@ export function runSet(
       divergedAt,
     };
   });
-  const infos: MetricInfo[] = metrics.map((x) => ('kind' in x ? x : { name: x.name, goal: x.goal, goalSource: 'option', kind: 'scalar', ticks: 0 }));
+  const infos: MetricInfo[] = metrics.map((x) =>
+    'kind' in x ? x : { name: x.name, goal: x.goal, goalSource: 'option', kind: 'scalar', ticks: 0 },
+  );
   return { mode, keys, runs, metrics: infos, tickDumps: [], files: [], problems: [] };
 }
 

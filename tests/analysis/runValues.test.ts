@@ -18,7 +18,17 @@ const window = { horizon: 20, firstStep: 0 };
 
 describe('metricValues', () => {
   it('counts censored reach runs in one summary-censored problem', () => {
-    const r = metricValues(set.runs, 'acc', 'max', { kind: 'reach', value: 0.65 }, 'reach:0.65', window, 'exclude', compared, 'logs');
+    const r = metricValues(
+      set.runs,
+      'acc',
+      'max',
+      { kind: 'reach', value: 0.65 },
+      'reach:0.65',
+      window,
+      'exclude',
+      compared,
+      'logs',
+    );
     expect(r.values.map((v) => v.value)).toEqual([20, 20, null, null, null]);
     const censored = r.problems.filter((p) => p.code === 'summary-censored');
     expect(censored).toHaveLength(1);
@@ -35,15 +45,33 @@ describe('metricValues', () => {
 
   it('diverged runs: no value of their own; used in tests only under worst', () => {
     const ex = metricValues(set.runs, 'acc', 'max', { kind: 'final' }, 'final', window, 'exclude', compared, 'logs');
-    expect(ex.values[3]).toMatchObject({ value: null, note: 'diverged at step 15: left out of the tests', usedInTests: false });
+    expect(ex.values[3]).toMatchObject({
+      value: null,
+      note: 'diverged at step 15: left out of the tests',
+      usedInTests: false,
+    });
     expect(ex.byRun.get('m=b,seed=1')).toEqual({ value: null, diverged: true });
     const worst = metricValues(set.runs, 'acc', 'max', { kind: 'final' }, 'final', window, 'worst', compared, 'logs');
-    expect(worst.values[3]).toMatchObject({ value: null, note: 'diverged at step 15: counted as the worst value of each comparison', usedInTests: true });
+    expect(worst.values[3]).toMatchObject({
+      value: null,
+      note: 'diverged at step 15: counted as the worst value of each comparison',
+      usedInTests: true,
+    });
     expect(ex.values[4]).toMatchObject({ value: null, note: 'no finite value for this metric', usedInTests: false });
   });
 
   it('runs of configs outside every comparison are not used in tests', () => {
-    const r = metricValues(set.runs, 'acc', 'max', { kind: 'final' }, 'final', window, 'exclude', new Set(['m=b']), 'logs');
+    const r = metricValues(
+      set.runs,
+      'acc',
+      'max',
+      { kind: 'final' },
+      'final',
+      window,
+      'exclude',
+      new Set(['m=b']),
+      'logs',
+    );
     expect(r.values[0]).toMatchObject({ value: 0.9, usedInTests: false });
   });
 });

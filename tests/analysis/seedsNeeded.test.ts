@@ -4,7 +4,9 @@ import { SeedsiftError } from '../../src/problems.js';
 
 describe('seedsNeeded', () => {
   it('from figures: METHODS.md seeds per arm at d = 0.5, 0.8, 1, 1.5, 2, 3 are 64, 26, 17, 9, 6, 4', () => {
-    const got = [0.5, 0.8, 1, 1.5, 2, 3].map((d) => seedsNeeded({ kind: 'figures', sd: 2, effect: 2 * d, alpha: 0.05, power: 0.8 }).seedsPerArm);
+    const got = [0.5, 0.8, 1, 1.5, 2, 3].map(
+      (d) => seedsNeeded({ kind: 'figures', sd: 2, effect: 2 * d, alpha: 0.05, power: 0.8 }).seedsPerArm,
+    );
     expect(got).toEqual([64, 26, 17, 9, 6, 4]);
   });
 
@@ -12,7 +14,9 @@ describe('seedsNeeded', () => {
     // power at d = 0.5 with 3, 5, 10, 20, 50 per arm (scipy noncentral t; digits from scipy 1.17.1):
     // scipy 1.10.1 (tests/reference/analysis_reference.py) agrees within 3e-10
     const r = seedsNeeded({ kind: 'figures', sd: 1, effect: -0.5, alpha: 0.05, power: 0.8 });
-    const expected = [0.0768490499603591, 0.1076859897975559, 0.1850956562911663, 0.33793902892504113, 0.6968934055333837];
+    const expected = [
+      0.0768490499603591, 0.1076859897975559, 0.1850956562911663, 0.33793902892504113, 0.6968934055333837,
+    ];
     r.powerAt.forEach((row, i) => expect(row.power).toBeCloseTo(expected[i] as number, 8));
     expect(r.standardized).toBe(0.5);
     expect(r.effect).toBe(-0.5);
@@ -37,10 +41,16 @@ describe('seedsNeeded', () => {
 
   it('a difference of 0 needs no finite count; bad input is rejected', () => {
     expect(seedsNeeded({ kind: 'figures', sd: 1, effect: 0, alpha: 0.05, power: 0.8 }).seedsPerArm).toBeNull();
-    expect(() => seedsNeeded({ kind: 'figures', sd: 0, effect: 1, alpha: 0.05, power: 0.8 })).toThrow('--sd: expected a positive number');
+    expect(() => seedsNeeded({ kind: 'figures', sd: 0, effect: 1, alpha: 0.05, power: 0.8 })).toThrow(
+      '--sd: expected a positive number',
+    );
     expect(() => seedsNeeded({ kind: 'figures', sd: 1, effect: 1, alpha: 1.5, power: 0.8 })).toThrow('--alpha');
     expect(() => seedsNeeded({ kind: 'figures', sd: 1, effect: 1, alpha: 0.05, power: 0.01 })).toThrow('--power');
-    expect(() => seedsNeeded({ kind: 'pilot', baseline: [1], candidate: [1, 2], alpha: 0.05, power: 0.8 })).toThrow(SeedsiftError);
-    expect(() => seedsNeeded({ kind: 'pilot-one', values: [2, 2, 2], effect: 1, alpha: 0.05, power: 0.8 })).toThrow('sd 0');
+    expect(() => seedsNeeded({ kind: 'pilot', baseline: [1], candidate: [1, 2], alpha: 0.05, power: 0.8 })).toThrow(
+      SeedsiftError,
+    );
+    expect(() => seedsNeeded({ kind: 'pilot-one', values: [2, 2, 2], effect: 1, alpha: 0.05, power: 0.8 })).toThrow(
+      'sd 0',
+    );
   });
 });

@@ -34,10 +34,18 @@ describe('checkSelector', () => {
   });
 
   it('lists the available values when nothing matches, and the keys when a key is unknown', () => {
-    expect(() => checkSelector(parseSelector('memory=5'), configs, ['ticks', 'memory'], null)).toThrow('--baseline: memory=5 matches no config; memory takes 4, 8, 12');
-    expect(() => checkSelector(parseSelector('memory=12,ticks=16'), configs, ['ticks', 'memory'], null)).toThrow('memory takes 4, 8, 12; ticks takes 8, 16');
-    expect(() => checkSelector(parseSelector('width=2'), configs, ['ticks', 'memory'], null)).toThrow("--baseline: no config key 'width'; keys are ticks, memory");
-    expect(() => checkSelector(parseSelector('ticks=8'), configs, ['ticks', 'memory'], 'ticks')).toThrow('is the task key');
+    expect(() => checkSelector(parseSelector('memory=5'), configs, ['ticks', 'memory'], null)).toThrow(
+      '--baseline: memory=5 matches no config; memory takes 4, 8, 12',
+    );
+    expect(() => checkSelector(parseSelector('memory=12,ticks=16'), configs, ['ticks', 'memory'], null)).toThrow(
+      'memory takes 4, 8, 12; ticks takes 8, 16',
+    );
+    expect(() => checkSelector(parseSelector('width=2'), configs, ['ticks', 'memory'], null)).toThrow(
+      "--baseline: no config key 'width'; keys are ticks, memory",
+    );
+    expect(() => checkSelector(parseSelector('ticks=8'), configs, ['ticks', 'memory'], 'ticks')).toThrow(
+      'is the task key',
+    );
   });
 
   it('valuesOf sorts numbers by value', () => {

@@ -33,7 +33,10 @@ describe('summarizeSeries', () => {
     // [0,30]: (0.3*10 + 0.45*10 + 0.55*10) / 30 = 13/30
     expect(summarizeSeries(s, { kind: 'auc' }, 'max', window).value).toBeCloseTo(13 / 30, 14);
     // horizon 35: value at 35 interpolated 0.65; extra area 0.675*5 -> (13 + 3.375) / 35
-    expect(summarizeSeries(s, { kind: 'auc' }, 'max', { horizon: 35, firstStep: 0 }).value).toBeCloseTo(16.375 / 35, 14);
+    expect(summarizeSeries(s, { kind: 'auc' }, 'max', { horizon: 35, firstStep: 0 }).value).toBeCloseTo(
+      16.375 / 35,
+      14,
+    );
   });
 
   it('reach:VALUE: first step reaching the value in the goal direction; censored when never', () => {

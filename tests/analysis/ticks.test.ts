@@ -107,7 +107,11 @@ describe('tickCurves', () => {
     expect(rows[0]?.pAdjusted).toBeCloseTo(WELCH_P[0] as number, 10);
     expect(rows[2]?.difference).toBeCloseTo(0.79625 - 0.705, 12);
     // The same numbers for a metric where lower is better: the candidate is worse.
-    const [, bMin] = tickCurves(RUNS, { ...ACC, goal: 'min' }, { step: null, level: 0.95, alpha: 0.05, baseline: 'ticks=4' });
+    const [, bMin] = tickCurves(
+      RUNS,
+      { ...ACC, goal: 'min' },
+      { step: null, level: 0.95, alpha: 0.05, baseline: 'ticks=4' },
+    );
     expect(bMin?.versusBaseline?.map((r) => r.verdict)).toEqual(['worse', 'worse', 'worse', 'worse']);
     // At alpha = .005 the tick-0 difference (adjusted p .0061) is no longer significant.
     const [, bStrict] = tickCurves(RUNS, ACC, { step: null, level: 0.95, alpha: 0.005, baseline: 'ticks=4' });
@@ -130,7 +134,9 @@ describe('tickCurves', () => {
       { tick: 1, difference: expect.closeTo(0.15, 14) as number, pAdjusted: null, verdict: 'inconclusive' },
     ]);
     // A baseline that has no runs with this metric: nothing to compare with.
-    expect(tickCurves(runs, ACC, { step: null, level: 0.95, alpha: 0.05, baseline: 'other' })[1]?.versusBaseline).toBeNull();
+    expect(
+      tickCurves(runs, ACC, { step: null, level: 0.95, alpha: 0.05, baseline: 'other' })[1]?.versusBaseline,
+    ).toBeNull();
   });
 
   it('finds the earliest good tick with a default and a given tolerance, and its spread across seeds', () => {
@@ -150,7 +156,11 @@ describe('tickCurves', () => {
     const [, b0] = tickCurves(RUNS, ACC, { step: null, level: 0.95, alpha: 0.05, baseline: null, tolerance: 0 });
     expect(b0?.earliestGood).toMatchObject({ tick: 3, tolerance: 0 });
     // For a metric to minimise, the best tick is the smallest mean (tick 0 here).
-    const [, bMin] = tickCurves(RUNS, { ...ACC, goal: 'min' }, { step: null, level: 0.95, alpha: 0.05, baseline: null });
+    const [, bMin] = tickCurves(
+      RUNS,
+      { ...ACC, goal: 'min' },
+      { step: null, level: 0.95, alpha: 0.05, baseline: null },
+    );
     expect(bMin?.earliestGood?.tick).toBe(0);
   });
 
@@ -158,7 +168,10 @@ describe('tickCurves', () => {
     const [, b] = tickCurves(RUNS, ACC, { step: null, level: 0.95, alpha: 0.05, baseline: null, examples: 1000 });
     B_MEAN.forEach((m, k) => expect(b?.exampleHalfWidth?.[k]).toBeCloseTo(Math.sqrt((m * (1 - m)) / 1000), 15));
     const percent = RUNS.map((r) => run(r.config, Number(r.seed), [[50, 60]], r.status, [1]));
-    expect(tickCurves(percent, ACC, { step: null, level: 0.95, alpha: 0.05, baseline: null, examples: 1000 })[0]?.exampleHalfWidth).toBeNull();
+    expect(
+      tickCurves(percent, ACC, { step: null, level: 0.95, alpha: 0.05, baseline: null, examples: 1000 })[0]
+        ?.exampleHalfWidth,
+    ).toBeNull();
   });
 
   it('throws a RangeError on bad options', () => {

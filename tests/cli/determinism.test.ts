@@ -50,12 +50,26 @@ describe('two runs with the same inputs and seed give byte-identical files', () 
     // Invented scores, 25 seeds per arm, drawn once from a seeded generator (the values do not matter).
     const random = createRandom(42);
     let table = 'method,seed,acc\n';
-    for (const [method, centre] of [['base', 0.8], ['cand', 0.805]] as const) {
-      for (let seed = 1; seed <= 25; seed++) table += `${method},${seed},${(centre + (random.next() - 0.5) * 0.04).toFixed(5)}\n`;
+    for (const [method, centre] of [
+      ['base', 0.8],
+      ['cand', 0.805],
+    ] as const) {
+      for (let seed = 1; seed <= 25; seed++)
+        table += `${method},${seed},${(centre + (random.next() - 0.5) * 0.04).toFixed(5)}\n`;
     }
     const scores = join(dir, 'scores.csv');
     writeFileSync(scores, table);
-    const argv = (seed: string): string[] => ['report', '--scores', scores, '--baseline', 'method=base', '--metric', 'acc:max', '--seed', seed];
+    const argv = (seed: string): string[] => [
+      'report',
+      '--scores',
+      scores,
+      '--baseline',
+      'method=base',
+      '--metric',
+      'acc:max',
+      '--seed',
+      seed,
+    ];
     const a = await report('boot-a', argv('3'));
     const b = await report('boot-b', argv('3'));
     const c = await report('boot-c', argv('4'));

@@ -58,8 +58,20 @@ beforeAll(async () => {
     digestOut.push(r.out);
   }
   const baseline = ['--baseline', 'ticks=8,memory=4'];
-  for (const [tag, inputs] of [['1', digests], ['2', ['sample-runs']]] as const) {
-    const r = await cli('report', ...inputs, ...baseline, '--json', at(`r${tag}.json`), '--markdown', at(`m${tag}.md`), '--quiet');
+  for (const [tag, inputs] of [
+    ['1', digests],
+    ['2', ['sample-runs']],
+  ] as const) {
+    const r = await cli(
+      'report',
+      ...inputs,
+      ...baseline,
+      '--json',
+      at(`r${tag}.json`),
+      '--markdown',
+      at(`m${tag}.md`),
+      '--quiet',
+    );
     expect(r.err, 'stderr').toBe('');
     expect(r.code).toBe(0);
     const s = await cli('scan', ...inputs, '--json', at(`s${tag}.json`));
@@ -69,12 +81,18 @@ beforeAll(async () => {
 
 describe('seedsift digest', () => {
   it('writes one Parquet file per shard with the marker, and says what it wrote', async () => {
-    expect(digestOut[0]).toMatch(new RegExp(`^20 runs from \\d+ files read, \\d+ problems\\nwrote ${digests[0]} \\(\\d+\\.\\d (KiB|MiB)\\)\\n$`));
+    expect(digestOut[0]).toMatch(
+      new RegExp(`^20 runs from \\d+ files read, \\d+ problems\\nwrote ${digests[0]} \\(\\d+\\.\\d (KiB|MiB)\\)\\n$`),
+    );
     expect(digestOut[1]).toMatch(/^10 runs from /);
     const engine = await openEngine();
     try {
       for (const file of digests) {
-        const rows = (await engine.connection.runAndReadAll(`SELECT decode(value) FROM parquet_kv_metadata('${file}') WHERE decode(key) = '${DIGEST_KEY}'`)).getRows();
+        const rows = (
+          await engine.connection.runAndReadAll(
+            `SELECT decode(value) FROM parquet_kv_metadata('${file}') WHERE decode(key) = '${DIGEST_KEY}'`,
+          )
+        ).getRows();
         expect(rows).toEqual([['1']]);
         expect(statSync(file).size).toBeGreaterThan(0);
       }
@@ -90,7 +108,8 @@ describe('seedsift digest', () => {
     const { inputs: i2, problems: p2, ...rest2 } = r2;
     expect(rest1).toEqual(rest2);
     // Not vacuous: the study has comparisons, curves, tick analyses, halting and calibration.
-    for (const key of ['comparisons', 'curves', 'ticks', 'halting', 'calibration', 'values', 'configValues'] as const) expect(r1[key].length, key).toBeGreaterThan(0);
+    for (const key of ['comparisons', 'curves', 'ticks', 'halting', 'calibration', 'values', 'configValues'] as const)
+      expect(r1[key].length, key).toBeGreaterThan(0);
     expect(i1.paths).toEqual(digests);
     expect(i2.paths).toEqual(['sample-runs']);
     expect(i1.mode).toBe(i2.mode);
@@ -132,7 +151,9 @@ describe('seedsift digest: errors', () => {
   it('--out must end in .parquet (so that report finds it); a digest never overwrites one of its inputs', async () => {
     const bad = await cli('digest', 'sample-runs/ticks=8', '--out', at('x.csv'));
     expect(bad.code).toBe(2);
-    expect(bad.err).toBe(`seedsift: --out: expected a file name ending in .parquet (so that report and scan find it), got '${at('x.csv')}'\n`);
+    expect(bad.err).toBe(
+      `seedsift: --out: expected a file name ending in .parquet (so that report and scan find it), got '${at('x.csv')}'\n`,
+    );
     const over = await cli('digest', digests[1] as string, '--out', digests[1] as string);
     expect(over.code).toBe(2);
     expect(over.err).toBe(`seedsift: refusing to write over an input file: ${digests[1]}\n`);
@@ -151,12 +172,16 @@ describe('seedsift digest: errors', () => {
     const v9 = at('v9.parquet');
     const engine = await openEngine();
     try {
-      await engine.connection.run(`COPY (SELECT * FROM read_parquet('${digests[1]}')) TO '${v9}' (FORMAT parquet, KV_METADATA {'${DIGEST_KEY}': '9'})`);
+      await engine.connection.run(
+        `COPY (SELECT * FROM read_parquet('${digests[1]}')) TO '${v9}' (FORMAT parquet, KV_METADATA {'${DIGEST_KEY}': '9'})`,
+      );
     } finally {
       closeEngine(engine);
     }
     const r = await cli('report', v9, '--json', at('never.json'));
     expect(r.code).toBe(2);
-    expect(r.err).toBe(`seedsift: ${v9}: not a usable seedsift digest: expected format version 1, got "9" (make the digest again with this seedsift) (${v9})\n`);
+    expect(r.err).toBe(
+      `seedsift: ${v9}: not a usable seedsift digest: expected format version 1, got "9" (make the digest again with this seedsift) (${v9})\n`,
+    );
   });
 });

@@ -12,7 +12,17 @@
  * (common practice, the reason for the temporary file).
  */
 import { execFileSync, spawn } from 'node:child_process';
-import { cpSync, existsSync, lstatSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
+import {
+  existsSync,
+  lstatSync,
+  mkdirSync,
+  mkdtempSync,
+  readdirSync,
+  readFileSync,
+  rmSync,
+  symlinkSync,
+  writeFileSync,
+} from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -34,7 +44,8 @@ function study(root: string): string {
       const folder = join(runs, `lr=${lr}`, `seed=${seed}`);
       mkdirSync(folder, { recursive: true });
       let text = 'step,loss,acc\n';
-      for (let step = 1; step <= 40; step++) text += `${step},${(1 / step + seed * 0.001).toFixed(5)},${(0.5 + step / 100 + (lr === '0.2' ? 0.01 : 0) + seed * 0.002).toFixed(5)}\n`;
+      for (let step = 1; step <= 40; step++)
+        text += `${step},${(1 / step + seed * 0.001).toFixed(5)},${(0.5 + step / 100 + (lr === '0.2' ? 0.01 : 0) + seed * 0.002).toFixed(5)}\n`;
       writeFileSync(join(folder, 'log.csv'), text);
     }
   }
@@ -49,19 +60,42 @@ describe('seedsift refuses to write over its inputs (exit 2, the input unchanged
   const log = join(runs, 'lr=0.1/seed=1/log.csv');
   const before = readFileSync(log);
   writeFileSync(join(runs, 'lr=0.1/seed=1/params.json'), '{ "lr": 0.1 }\n');
-  writeFileSync(join(root, 'manifest.csv'), 'file,seed,lr\nruns/lr=0.1/seed=1/log.csv,1,0.1\nruns/lr=0.2/seed=1/log.csv,1,0.2\n');
+  writeFileSync(
+    join(root, 'manifest.csv'),
+    'file,seed,lr\nruns/lr=0.1/seed=1/log.csv,1,0.1\nruns/lr=0.2/seed=1/log.csv,1,0.2\n',
+  );
   writeFileSync(join(root, 'notebook.md'), readFileSync(join(REPO, 'templates/notebook.md')));
   writeFileSync(join(root, 'scores.csv'), 'method,seed,acc\na,1,0.5\na,2,0.6\nb,1,0.7\nb,2,0.8\n');
   symlinkSync(log, join(root, 'alias.json'));
 
   const cases: [string, string[], string][] = [
-    ['a log read (the issue\'s example: report runs --json runs/x/log.csv)', ['report', runs, '--json', log], log],
-    ['a log, spelled another way', ['report', runs, '--markdown', join(runs, 'lr=0.1/./seed=1/../seed=1/log.csv')], log],
+    ["a log read (the issue's example: report runs --json runs/x/log.csv)", ['report', runs, '--json', log], log],
+    [
+      'a log, spelled another way',
+      ['report', runs, '--markdown', join(runs, 'lr=0.1/./seed=1/../seed=1/log.csv')],
+      log,
+    ],
     ['a log, through a symbolic link', ['report', runs, '--json', join(root, 'alias.json')], log],
-    ['a params.json beside a log', ['report', runs, '--json', join(runs, 'lr=0.1/seed=1/params.json')], join(runs, 'lr=0.1/seed=1/params.json')],
-    ['the --manifest', ['report', runs, '--manifest', join(root, 'manifest.csv'), '--json', join(root, 'manifest.csv')], join(root, 'manifest.csv')],
-    ['the --notebook', ['report', runs, '--notebook', join(root, 'notebook.md'), '-o', join(root, 'notebook.md')], join(root, 'notebook.md')],
-    ['the --scores table', ['report', '--scores', join(root, 'scores.csv'), '--json', join(root, 'scores.csv')], join(root, 'scores.csv')],
+    [
+      'a params.json beside a log',
+      ['report', runs, '--json', join(runs, 'lr=0.1/seed=1/params.json')],
+      join(runs, 'lr=0.1/seed=1/params.json'),
+    ],
+    [
+      'the --manifest',
+      ['report', runs, '--manifest', join(root, 'manifest.csv'), '--json', join(root, 'manifest.csv')],
+      join(root, 'manifest.csv'),
+    ],
+    [
+      'the --notebook',
+      ['report', runs, '--notebook', join(root, 'notebook.md'), '-o', join(root, 'notebook.md')],
+      join(root, 'notebook.md'),
+    ],
+    [
+      'the --scores table',
+      ['report', '--scores', join(root, 'scores.csv'), '--json', join(root, 'scores.csv')],
+      join(root, 'scores.csv'),
+    ],
     ['scan --json over a log', ['scan', runs, '--json', log], log],
   ];
   it.each(cases)('%s', async (_name, argv, input) => {
@@ -99,7 +133,21 @@ describe('a normal run leaves no temporary file behind', () => {
     const out = join(root, 'out');
     mkdirSync(out);
     const io = memoryIo();
-    expect(await run(['report', runs, '-o', join(out, 'report.html'), '--json', join(out, 'results.json'), '--markdown', join(out, 'summary.md')], io)).toBe(0);
+    expect(
+      await run(
+        [
+          'report',
+          runs,
+          '-o',
+          join(out, 'report.html'),
+          '--json',
+          join(out, 'results.json'),
+          '--markdown',
+          join(out, 'summary.md'),
+        ],
+        io,
+      ),
+    ).toBe(0);
     expect(readdirSync(out).sort()).toEqual(['report.html', 'results.json', 'summary.md']);
   });
 
@@ -126,9 +174,16 @@ describe('a normal run leaves no temporary file behind', () => {
 });
 
 /** Run the real command in a child process; resolves when it exits. */
-function child(argv: readonly string[], onStart: (kill: () => void) => void = () => undefined): Promise<{ code: number | null; signal: NodeJS.Signals | null; stderr: string }> {
+function child(
+  argv: readonly string[],
+  onStart: (kill: () => void) => void = () => undefined,
+): Promise<{ code: number | null; signal: NodeJS.Signals | null; stderr: string }> {
   return new Promise((resolve, reject) => {
-    const p = spawn(process.execPath, ['--import', 'tsx', join(REPO, 'src/cli/main.ts'), ...argv], { cwd: REPO, env: { ...process.env, SOURCE_DATE_EPOCH: EPOCH }, stdio: ['ignore', 'ignore', 'pipe'] });
+    const p = spawn(process.execPath, ['--import', 'tsx', join(REPO, 'src/cli/main.ts'), ...argv], {
+      cwd: REPO,
+      env: { ...process.env, SOURCE_DATE_EPOCH: EPOCH },
+      stdio: ['ignore', 'ignore', 'pipe'],
+    });
     let stderr = '';
     p.stderr.on('data', (d: Buffer) => (stderr += d.toString()));
     p.on('error', reject);
@@ -171,7 +226,9 @@ describe('a kill mid-run leaves the earlier report whole', () => {
       if (onTemp) length = Date.now() - t0;
       const now = readFileSync(html);
       const state = now.equals(old) ? 'old' : now.equals(complete) ? 'new' : 'PARTIAL';
-      outcomes.push(`${result.signal ?? `exit ${result.code}`} after ${Date.now() - t0} ms${onTemp ? ' (on the temporary file)' : ''}: ${state}`);
+      outcomes.push(
+        `${result.signal ?? `exit ${result.code}`} after ${Date.now() - t0} ms${onTemp ? ' (on the temporary file)' : ''}: ${state}`,
+      );
       expect(state, outcomes.join('; ')).not.toBe('PARTIAL');
       for (const t of temps(out)) rmSync(join(out, t)); // a killed run may leave its temporary file; the report is what counts
     }

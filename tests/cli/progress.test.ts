@@ -31,18 +31,25 @@ describe('progressDisplay', () => {
     p.hooks.progress?.('headers', 1, 4);
     p.hooks.progress?.('comparing', 2, 3);
     p.hooks.progress?.('drawing', 5, 19);
-    expect(io.err()).toBe('\rseedsift: looking at files 1/4\u001b[K\rseedsift: comparing metrics 2/3\u001b[K\rseedsift: drawing charts 5/19\u001b[K');
+    expect(io.err()).toBe(
+      '\rseedsift: looking at files 1/4\u001b[K\rseedsift: comparing metrics 2/3\u001b[K\rseedsift: drawing charts 5/19\u001b[K',
+    );
   });
 
   it('a report on a terminal goes through every stage in order and ends each at its total, then clears the line', async () => {
     const io = tty({ CI: undefined });
     const dir = mkdtempSync(join(tmpdir(), 'seedsift-progress-'));
     try {
-      expect(await run(['report', 'sample-runs', '--baseline', 'ticks=8,memory=4', '-o', join(dir, 'report.html')], io)).toBe(0);
+      expect(
+        await run(['report', 'sample-runs', '--baseline', 'ticks=8,memory=4', '-o', join(dir, 'report.html')], io),
+      ).toBe(0);
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }
-    const lines = io.err().split('\r').filter((l) => l !== '');
+    const lines = io
+      .err()
+      .split('\r')
+      .filter((l) => l !== '');
     const stages = [...new Set(lines.map((l) => /^seedsift: (\D+) \d/.exec(l)?.[1]).filter((s) => s !== undefined))];
     expect(stages).toEqual(['looking at files', 'reading files', 'comparing metrics', 'drawing charts']);
     for (const stage of stages) {
@@ -54,7 +61,11 @@ describe('progressDisplay', () => {
   });
 
   it('is silent when stderr is not a terminal, in CI, or with --quiet', () => {
-    for (const [io, quiet] of [[memoryIo({ CI: undefined }), false], [tty({ CI: 'true' }), false], [tty({ CI: undefined }), true]] as const) {
+    for (const [io, quiet] of [
+      [memoryIo({ CI: undefined }), false],
+      [tty({ CI: 'true' }), false],
+      [tty({ CI: undefined }), true],
+    ] as const) {
       const p = progressDisplay(io, quiet, () => 1000);
       p.hooks.progress?.('headers', 1, 2);
       p.done();

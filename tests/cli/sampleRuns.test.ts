@@ -24,7 +24,9 @@ async function report(...args: string[]): Promise<Results> {
 }
 
 const verdictsOf = (r: Results, metric: string): Record<string, string> =>
-  Object.fromEntries(r.comparisons.filter((c) => c.metric === metric).map((c) => [`${c.candidate} v ${c.baseline}`, c.verdict]));
+  Object.fromEntries(
+    r.comparisons.filter((c) => c.metric === metric).map((c) => [`${c.candidate} v ${c.baseline}`, c.verdict]),
+  );
 
 describe('the demo study', () => {
   it('finds that more ticks help val_acc against the 8-tick baseline', async () => {
@@ -45,7 +47,11 @@ describe('the demo study', () => {
   it('calls the memory-length comparisons (planted null) inconclusive, each against its counterpart', async () => {
     const r = await report('--baseline', 'memory=4');
     const v = verdictsOf(r, 'val_acc');
-    expect(Object.keys(v)).toEqual(['ticks=8,memory=12 v ticks=8,memory=4', 'ticks=16,memory=12 v ticks=16,memory=4', 'ticks=32,memory=12 v ticks=32,memory=4']);
+    expect(Object.keys(v)).toEqual([
+      'ticks=8,memory=12 v ticks=8,memory=4',
+      'ticks=16,memory=12 v ticks=16,memory=4',
+      'ticks=32,memory=12 v ticks=32,memory=4',
+    ]);
     expect(Object.values(v)).toEqual(['inconclusive', 'inconclusive', 'inconclusive']);
   });
 

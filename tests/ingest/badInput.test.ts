@@ -61,12 +61,32 @@ interface Case {
 }
 
 const CASES: readonly Case[] = [
-  { name: 'empty-file', expect: [{ code: 'file-empty', file: 'seed=1/log.csv', line: null, message: /empty \(0 bytes\)/ }], runs: { 'seed=2': 'ok' } },
-  { name: 'header-only', expect: [{ code: 'file-empty', file: 'seed=1/log.csv', line: null, message: /header but no data rows/ }], runs: { 'seed=2': 'ok' } },
+  {
+    name: 'empty-file',
+    expect: [{ code: 'file-empty', file: 'seed=1/log.csv', line: null, message: /empty \(0 bytes\)/ }],
+    runs: { 'seed=2': 'ok' },
+  },
+  {
+    name: 'header-only',
+    expect: [{ code: 'file-empty', file: 'seed=1/log.csv', line: null, message: /header but no data rows/ }],
+    runs: { 'seed=2': 'ok' },
+  },
   { name: 'blank-lines', expect: [{ code: 'file-empty', file: 'seed=1/log.csv', message: /only blank lines/ }] },
-  { name: 'ragged-short-row', expect: [{ code: 'row-malformed', file: 'seed=1/log.csv', line: 3, message: /missing columns/ }], runs: { 'seed=1': 'ok' } },
-  { name: 'ragged-long-row', expect: [{ code: 'row-malformed', file: 'seed=1/log.csv', line: 4, message: /too many columns/ }] },
-  { name: 'unterminated-quote', expect: [{ code: 'row-malformed', file: 'seed=1/log.csv', line: 3, message: /unterminated quote.*spans lines 3 to 5/ }] },
+  {
+    name: 'ragged-short-row',
+    expect: [{ code: 'row-malformed', file: 'seed=1/log.csv', line: 3, message: /missing columns/ }],
+    runs: { 'seed=1': 'ok' },
+  },
+  {
+    name: 'ragged-long-row',
+    expect: [{ code: 'row-malformed', file: 'seed=1/log.csv', line: 4, message: /too many columns/ }],
+  },
+  {
+    name: 'unterminated-quote',
+    expect: [
+      { code: 'row-malformed', file: 'seed=1/log.csv', line: 3, message: /unterminated quote.*spans lines 3 to 5/ },
+    ],
+  },
   { name: 'bom', expect: [{ code: 'row-malformed', file: 'seed=1/log.csv', line: 4 }], runs: { 'seed=1': 'ok' } },
   { name: 'crlf', expect: [{ code: 'row-malformed', file: 'seed=1/log.csv', line: 4 }] },
   { name: 'cr-only', expect: [{ code: 'row-malformed', file: 'seed=1/log.csv', line: 3 }] },
@@ -77,7 +97,10 @@ const CASES: readonly Case[] = [
   { name: 'duplicate-columns', expect: [{ code: 'column-duplicated', file: 'seed=1/log.csv', message: /loss/ }] },
   { name: 'step-text', expect: [{ code: 'step-invalid', file: 'seed=1/log.csv', line: 3, run: 'seed=1' }] },
   { name: 'step-empty', expect: [{ code: 'step-invalid', file: 'seed=1/log.csv', line: 3 }] },
-  { name: 'step-not-finite', expect: [{ code: 'step-invalid', file: 'seed=1/log.csv', line: 3, message: /^2 row\(s\).*\(lines 3, 4\)$/ }] },
+  {
+    name: 'step-not-finite',
+    expect: [{ code: 'step-invalid', file: 'seed=1/log.csv', line: 3, message: /^2 row\(s\).*\(lines 3, 4\)$/ }],
+  },
   {
     name: 'all-nan-metric',
     expect: [
@@ -87,13 +110,33 @@ const CASES: readonly Case[] = [
     ],
     runs: { 'seed=1': 'ok' },
   },
-  { name: 'all-empty-metric', expect: [{ code: 'column-not-numeric', file: 'seed=1/log.csv', message: /column loss/ }] },
-  { name: 'text-metric-column', expect: [{ code: 'column-not-numeric', file: 'seed=1/log.csv', message: /column phase/ }] },
-  { name: 'text-cells', expect: [{ code: 'cells-missing', file: 'seed=1/log.csv', message: /loss 2 \(2 not a number\)/ }] },
-  { name: 'duplicate-steps', expect: [{ code: 'steps-duplicated', file: 'seed=1/log.csv', line: 5, message: /^2 step\(s\)/ }] },
+  {
+    name: 'all-empty-metric',
+    expect: [{ code: 'column-not-numeric', file: 'seed=1/log.csv', message: /column loss/ }],
+  },
+  {
+    name: 'text-metric-column',
+    expect: [{ code: 'column-not-numeric', file: 'seed=1/log.csv', message: /column phase/ }],
+  },
+  {
+    name: 'text-cells',
+    expect: [{ code: 'cells-missing', file: 'seed=1/log.csv', message: /loss 2 \(2 not a number\)/ }],
+  },
+  {
+    name: 'duplicate-steps',
+    expect: [{ code: 'steps-duplicated', file: 'seed=1/log.csv', line: 5, message: /^2 step\(s\)/ }],
+  },
   { name: 'unsorted-steps', expect: [{ code: 'steps-unsorted', file: 'seed=1/log.csv', line: 4 }] },
-  { name: 'no-step-column', expect: [{ code: 'step-column-missing', file: 'seed=1/log.csv', line: null }], runs: { 'seed=1': 'rejected' } },
-  { name: 'step-only', expect: [{ code: 'metric-empty', file: 'seed=1/log.csv', run: 'seed=1' }], runs: { 'seed=1': 'rejected' } },
+  {
+    name: 'no-step-column',
+    expect: [{ code: 'step-column-missing', file: 'seed=1/log.csv', line: null }],
+    runs: { 'seed=1': 'rejected' },
+  },
+  {
+    name: 'step-only',
+    expect: [{ code: 'metric-empty', file: 'seed=1/log.csv', run: 'seed=1' }],
+    runs: { 'seed=1': 'rejected' },
+  },
   {
     name: 'no-logs',
     expect: [
@@ -102,12 +145,32 @@ const CASES: readonly Case[] = [
       { code: 'file-skipped', file: 'model.pt' },
     ],
   },
-  { name: 'hidden-only', expect: [{ code: 'file-skipped', file: 'seed=1/.log.csv', message: /hidden/ }, { code: 'no-logs', file: '' }] },
-  { name: 'not-gzip', expect: [{ code: 'file-unreadable', file: 'seed=1/log.csv.gz', message: /gzip/ }], runs: { 'seed=1': 'rejected' } },
-  { name: 'whitespace-ragged', expect: [{ code: 'row-malformed', file: 'seed=1/log.txt', line: 3, message: /3 whitespace-separated fields/ }] },
+  {
+    name: 'hidden-only',
+    expect: [
+      { code: 'file-skipped', file: 'seed=1/.log.csv', message: /hidden/ },
+      { code: 'no-logs', file: '' },
+    ],
+  },
+  {
+    name: 'not-gzip',
+    expect: [{ code: 'file-unreadable', file: 'seed=1/log.csv.gz', message: /gzip/ }],
+    runs: { 'seed=1': 'rejected' },
+  },
+  {
+    name: 'whitespace-ragged',
+    expect: [{ code: 'row-malformed', file: 'seed=1/log.txt', line: 3, message: /3 whitespace-separated fields/ }],
+  },
   { name: 'quoted-newline', expect: [{ code: 'row-malformed', file: 'seed=1/log.csv', line: 4 }] },
-  { name: 'bad-params-json', expect: [{ code: 'file-unreadable', file: 'seed=1/params.json', line: 3 }], runs: { 'seed=1': 'ok' } },
-  { name: 'params-mismatch', expect: [{ code: 'params-mismatch', file: 'lr=0.1/seed=1/params.json', line: 1, message: /lr=0\.2.*lr=0\.1/ }] },
+  {
+    name: 'bad-params-json',
+    expect: [{ code: 'file-unreadable', file: 'seed=1/params.json', line: 3 }],
+    runs: { 'seed=1': 'ok' },
+  },
+  {
+    name: 'params-mismatch',
+    expect: [{ code: 'params-mismatch', file: 'lr=0.1/seed=1/params.json', line: 1, message: /lr=0\.2.*lr=0\.1/ }],
+  },
   {
     name: 'layout-matches-nothing',
     args: ['--layout', '{model}-{seed}/log.csv'],
@@ -125,9 +188,23 @@ const CASES: readonly Case[] = [
     ],
     runs: { 'lr=0.1,seed=1': 'ok' },
   },
-  { name: 'seed-column-empty', args: ['--seed-column', 'seed'], expect: [{ code: 'seed-missing', file: 'log.csv', line: 3 }], runs: { 'seed=1': 'ok', 'seed=2': 'ok' } },
-  { name: 'two-files-one-run', expect: [{ code: 'run-duplicate', file: 'seed=1/b.csv', run: 'seed=1' }, { code: 'steps-duplicated', file: 'seed=1/b.csv', line: 2, run: 'seed=1', message: /step 2/ }] },
-  { name: 'tick-dump-incomplete', expect: [{ code: 'tick-dump-invalid', file: 'seed=1/dump.csv', message: /certainty/ }] },
+  {
+    name: 'seed-column-empty',
+    args: ['--seed-column', 'seed'],
+    expect: [{ code: 'seed-missing', file: 'log.csv', line: 3 }],
+    runs: { 'seed=1': 'ok', 'seed=2': 'ok' },
+  },
+  {
+    name: 'two-files-one-run',
+    expect: [
+      { code: 'run-duplicate', file: 'seed=1/b.csv', run: 'seed=1' },
+      { code: 'steps-duplicated', file: 'seed=1/b.csv', line: 2, run: 'seed=1', message: /step 2/ },
+    ],
+  },
+  {
+    name: 'tick-dump-incomplete',
+    expect: [{ code: 'tick-dump-invalid', file: 'seed=1/dump.csv', message: /certainty/ }],
+  },
   // Cases that must read cleanly: no warning or error, the values checked below.
   { name: 'negative-steps', expect: [], runs: { 'seed=1': 'ok' } },
   { name: 'fractional-steps', expect: [], runs: { 'seed=1': 'ok' } },
@@ -135,21 +212,91 @@ const CASES: readonly Case[] = [
   { name: 'long-numbers', expect: [], runs: { 'seed=1': 'ok' } },
   { name: 'hive-name-collision', expect: [], runs: { 'c0=5,seed=1': 'ok', 'file_index=3,seed=1': 'ok' } },
   // Generated by make.ts.
-  { name: 'one-line-5mb', generated: true, expect: [{ code: 'file-unreadable', file: 'seed=1/log.csv', line: null, message: /first line has \d+ fields/ }], runs: { 'seed=1': 'rejected' } },
-  { name: 'long-row-5mb', generated: true, expect: [{ code: 'row-malformed', file: 'seed=1/log.csv', line: 3, message: /line size/ }], runs: { 'seed=1': 'ok' } },
-  { name: 'binary-junk', generated: true, expect: [{ code: 'file-unreadable', file: 'seed=1/log.csv', message: /binary data/ }], runs: { 'seed=1': 'rejected', 'seed=2': 'ok' } },
-  { name: 'truncated-gzip', generated: true, expect: [{ code: 'file-unreadable', file: 'seed=1/log.csv.gz', message: /ends before its end marker/ }], runs: { 'seed=1': 'rejected', 'seed=2': 'ok' } },
-  { name: 'damaged-gzip', generated: true, expect: [{ code: 'file-unreadable', file: 'seed=1/log.csv.gz', message: /gzip/ }], runs: { 'seed=1': 'rejected' } },
-  { name: 'parquet-wrong-schema', generated: true, expect: [{ code: 'step-column-missing', file: 'seed=1/log.parquet', message: /columns: name, loss\)/ }], runs: { 'seed=1': 'rejected' } },
-  { name: 'parquet-step-text', generated: true, expect: [{ code: 'step-invalid', file: 'seed=1/log.parquet', line: null, message: /\(row 1, row 2\)$/ }], runs: { 'seed=1': 'rejected' } },
-  { name: 'parquet-corrupt', generated: true, expect: [{ code: 'file-unreadable', file: 'seed=1/log.parquet' }], runs: { 'seed=1': 'rejected' } },
+  {
+    name: 'one-line-5mb',
+    generated: true,
+    expect: [{ code: 'file-unreadable', file: 'seed=1/log.csv', line: null, message: /first line has \d+ fields/ }],
+    runs: { 'seed=1': 'rejected' },
+  },
+  {
+    name: 'long-row-5mb',
+    generated: true,
+    expect: [{ code: 'row-malformed', file: 'seed=1/log.csv', line: 3, message: /line size/ }],
+    runs: { 'seed=1': 'ok' },
+  },
+  {
+    name: 'binary-junk',
+    generated: true,
+    expect: [{ code: 'file-unreadable', file: 'seed=1/log.csv', message: /binary data/ }],
+    runs: { 'seed=1': 'rejected', 'seed=2': 'ok' },
+  },
+  {
+    name: 'truncated-gzip',
+    generated: true,
+    expect: [{ code: 'file-unreadable', file: 'seed=1/log.csv.gz', message: /ends before its end marker/ }],
+    runs: { 'seed=1': 'rejected', 'seed=2': 'ok' },
+  },
+  {
+    name: 'damaged-gzip',
+    generated: true,
+    expect: [{ code: 'file-unreadable', file: 'seed=1/log.csv.gz', message: /gzip/ }],
+    runs: { 'seed=1': 'rejected' },
+  },
+  {
+    name: 'parquet-wrong-schema',
+    generated: true,
+    expect: [{ code: 'step-column-missing', file: 'seed=1/log.parquet', message: /columns: name, loss\)/ }],
+    runs: { 'seed=1': 'rejected' },
+  },
+  {
+    name: 'parquet-step-text',
+    generated: true,
+    expect: [{ code: 'step-invalid', file: 'seed=1/log.parquet', line: null, message: /\(row 1, row 2\)$/ }],
+    runs: { 'seed=1': 'rejected' },
+  },
+  {
+    name: 'parquet-corrupt',
+    generated: true,
+    expect: [{ code: 'file-unreadable', file: 'seed=1/log.parquet' }],
+    runs: { 'seed=1': 'rejected' },
+  },
   { name: 'parquet-in-hive-folders', generated: true, expect: [], runs: { 'ticks=8,seed=1': 'ok' } },
-  { name: 'glob-characters-in-names', generated: true, expect: [{ code: 'run-duplicate', file: 'seed=1/logX.csv', run: 'seed=1' }], runs: { 'seed=1': 'ok', 'seed=2': 'ok', 'seed=3': 'ok' } },
-  { name: 'symlink-loop', generated: true, expect: [{ code: 'file-skipped', file: 'seed=1/up', message: /symbolic link loop/ }], runs: { 'seed=1': 'ok' } },
-  { name: 'symlink-self', generated: true, expect: [{ code: 'file-unreadable', file: 'seed=1/log.csv', message: /ELOOP/ }], runs: { 'seed=2': 'ok' } },
-  { name: 'symlink-dangling', generated: true, expect: [{ code: 'file-unreadable', file: 'seed=1/log.csv', message: /broken symbolic link/ }], runs: { 'seed=2': 'ok' } },
-  { name: 'fifo', generated: true, expect: [{ code: 'file-skipped', file: 'seed=1/log.csv', message: /pipe/ }], runs: { 'seed=2': 'ok' } },
-  { name: 'unreadable-permissions', generated: true, expect: [{ code: 'file-unreadable', file: 'seed=1/log.csv', message: /EACCES/ }], runs: { 'seed=1': 'rejected', 'seed=2': 'ok' } },
+  {
+    name: 'glob-characters-in-names',
+    generated: true,
+    expect: [{ code: 'run-duplicate', file: 'seed=1/logX.csv', run: 'seed=1' }],
+    runs: { 'seed=1': 'ok', 'seed=2': 'ok', 'seed=3': 'ok' },
+  },
+  {
+    name: 'symlink-loop',
+    generated: true,
+    expect: [{ code: 'file-skipped', file: 'seed=1/up', message: /symbolic link loop/ }],
+    runs: { 'seed=1': 'ok' },
+  },
+  {
+    name: 'symlink-self',
+    generated: true,
+    expect: [{ code: 'file-unreadable', file: 'seed=1/log.csv', message: /ELOOP/ }],
+    runs: { 'seed=2': 'ok' },
+  },
+  {
+    name: 'symlink-dangling',
+    generated: true,
+    expect: [{ code: 'file-unreadable', file: 'seed=1/log.csv', message: /broken symbolic link/ }],
+    runs: { 'seed=2': 'ok' },
+  },
+  {
+    name: 'fifo',
+    generated: true,
+    expect: [{ code: 'file-skipped', file: 'seed=1/log.csv', message: /pipe/ }],
+    runs: { 'seed=2': 'ok' },
+  },
+  {
+    name: 'unreadable-permissions',
+    generated: true,
+    expect: [{ code: 'file-unreadable', file: 'seed=1/log.csv', message: /EACCES/ }],
+    runs: { 'seed=1': 'rejected', 'seed=2': 'ok' },
+  },
 ];
 
 const casePath = (c: Case): string => (c.generated === true ? join(generated, c.name) : join(BAD, c.name));
@@ -168,13 +315,20 @@ function expectProblems(problems: readonly Problem[], c: Case): void {
         (e.run === undefined || p.run === e.run) &&
         (e.message === undefined || e.message.test(p.message)),
     );
-    expect(hit, `${c.name}: expected ${JSON.stringify({ ...e, message: e.message?.source })}\namong ${JSON.stringify(problems, null, 1)}`).toBeDefined();
+    expect(
+      hit,
+      `${c.name}: expected ${JSON.stringify({ ...e, message: e.message?.source })}\namong ${JSON.stringify(problems, null, 1)}`,
+    ).toBeDefined();
   }
 }
 
 /** A clean case lists notes only (goal-inferred and the like), no warning or error. */
 function expectNoWarnings(problems: readonly Problem[], c: Case): void {
-  if (c.expect.length === 0) expect(problems.filter((p) => p.severity !== 'note'), c.name).toEqual([]);
+  if (c.expect.length === 0)
+    expect(
+      problems.filter((p) => p.severity !== 'note'),
+      c.name,
+    ).toEqual([]);
 }
 
 const skipped = (c: Case): boolean => unmade.some((u) => u.name === c.name);
@@ -190,7 +344,8 @@ describe('the bad-input corpus through seedsift scan --json -', () => {
     expectProblems(scan.problems, c);
     expectNoWarnings(scan.problems, c);
     expect(silentLosses(scan), c.name).toEqual([]);
-    for (const [id, status] of Object.entries(c.runs ?? {})) expect(scan.runs.find((r) => r.id === id)?.status, `${c.name}: run ${id}`).toBe(status);
+    for (const [id, status] of Object.entries(c.runs ?? {}))
+      expect(scan.runs.find((r) => r.id === id)?.status, `${c.name}: run ${id}`).toBe(status);
   });
 });
 
@@ -204,8 +359,14 @@ describe('the bad-input corpus through seedsift report --json FILE', () => {
     expect(code).toBe(0);
     const results = JSON.parse(readFileSync(file, 'utf8')) as Results;
     expectProblems(results.problems, c);
-    for (const r of results.runs) if (r.status !== 'ok') expect(r.problems.length + results.problems.filter((p) => p.file !== undefined && r.files.includes(p.file)).length, `${c.name}: run ${r.id}`).toBeGreaterThan(0);
-    for (const [id, status] of Object.entries(c.runs ?? {})) expect(results.runs.find((r) => r.id === id)?.status, `${c.name}: run ${id}`).toBe(status);
+    for (const r of results.runs)
+      if (r.status !== 'ok')
+        expect(
+          r.problems.length + results.problems.filter((p) => p.file !== undefined && r.files.includes(p.file)).length,
+          `${c.name}: run ${r.id}`,
+        ).toBeGreaterThan(0);
+    for (const [id, status] of Object.entries(c.runs ?? {}))
+      expect(results.runs.find((r) => r.id === id)?.status, `${c.name}: run ${id}`).toBe(status);
   });
 });
 
@@ -219,7 +380,12 @@ describe('the whole corpus at once (committed and generated): still a report, no
     expect(scan.files.length).toBeGreaterThan(60);
     const report = memoryIo();
     const html = join(out, 'all.html');
-    expect(await run(['report', BAD, generated, '-o', html, '--json', join(out, 'all.json'), '--markdown', join(out, 'all.md')], report)).toBe(0);
+    expect(
+      await run(
+        ['report', BAD, generated, '-o', html, '--json', join(out, 'all.json'), '--markdown', join(out, 'all.md')],
+        report,
+      ),
+    ).toBe(0);
     expect(report.err()).toBe('');
     expect(readFileSync(html, 'utf8')).toMatch(/<\/html>\s*$/);
   });
@@ -245,33 +411,60 @@ describe('values of the cases that must read cleanly (checked against the fixtur
 
   it('long and extreme numbers equal what parseFloat makes of the same text (correct rounding, -0 kept)', async () => {
     const text = readFileSync(join(BAD, 'long-numbers/seed=1/log.csv'), 'utf8');
-    const expected = text.trim().split('\n').slice(1).map((line) => parseFloat(line.split(',')[1] as string));
+    const expected = text
+      .trim()
+      .split('\n')
+      .slice(1)
+      .map((line) => parseFloat(line.split(',')[1] as string));
     const [, values] = pairs(await series(join(BAD, 'long-numbers')), 'seed=1', 'loss');
     expect(values.length).toBe(expected.length);
     values.forEach((v, k) => expect(Object.is(v, expected[k]), `row ${k + 1}: ${v} vs ${expected[k]}`).toBe(true));
   });
 
   it('a BOM does not hide the step column; CRLF and CR line ends give the same rows', async () => {
-    for (const name of ['bom', 'crlf']) expect(pairs(await series(join(BAD, name)), 'seed=1', 'loss'), name).toEqual([[1, 2, 4], [0.9, 0.8, 0.6]]);
-    expect(pairs(await series(join(BAD, 'cr-only')), 'seed=1', 'loss')).toEqual([[1, 3], [0.9, 0.7]]);
+    for (const name of ['bom', 'crlf'])
+      expect(pairs(await series(join(BAD, name)), 'seed=1', 'loss'), name).toEqual([
+        [1, 2, 4],
+        [0.9, 0.8, 0.6],
+      ]);
+    expect(pairs(await series(join(BAD, 'cr-only')), 'seed=1', 'loss')).toEqual([
+      [1, 3],
+      [0.9, 0.7],
+    ]);
   });
 
-  it('folders named like the reader\'s own columns (c0=5, file_index=3) do not replace a column', async () => {
+  it("folders named like the reader's own columns (c0=5, file_index=3) do not replace a column", async () => {
     const set = await series(join(BAD, 'hive-name-collision'));
-    for (const id of ['c0=5,seed=1', 'file_index=3,seed=1']) expect(pairs(set, id, 'loss'), id).toEqual([[1, 2, 3], [0.9, 0.8, 0.7]]);
+    for (const id of ['c0=5,seed=1', 'file_index=3,seed=1'])
+      expect(pairs(set, id, 'loss'), id).toEqual([
+        [1, 2, 3],
+        [0.9, 0.8, 0.7],
+      ]);
   });
 
   it('a Parquet file under key=value folders gets no extra columns from them', async () => {
     const set = await series(join(generated, 'parquet-in-hive-folders'));
     expect(set.metrics.map((m) => m.name)).toEqual(['loss']);
-    expect(pairs(set, 'ticks=8,seed=1', 'loss')).toEqual([[1, 2, 3], [0.9, 0.8, 0.7]]);
+    expect(pairs(set, 'ticks=8,seed=1', 'loss')).toEqual([
+      [1, 2, 3],
+      [0.9, 0.8, 0.7],
+    ]);
   });
 
   it('file names with glob characters (log?.csv, log[1].csv, log*.csv) are read as themselves', async () => {
     const root = join(generated, 'glob-characters-in-names');
     const set = await series(root);
-    expect(Object.fromEntries(set.files.map((f) => [f.file.slice(root.length + 1), f.rows]))).toEqual({ 'seed=1/log?.csv': 3, 'seed=1/logX.csv': 2, 'seed=2/log[1].csv': 5, 'seed=3/log*.csv': 5 });
-    for (const id of ['seed=1', 'seed=2', 'seed=3']) expect(pairs(set, id, 'loss'), id).toEqual([[1, 2, 3, 4, 5], [0.89, 0.88, 0.87, 0.86, 0.85]]);
+    expect(Object.fromEntries(set.files.map((f) => [f.file.slice(root.length + 1), f.rows]))).toEqual({
+      'seed=1/log?.csv': 3,
+      'seed=1/logX.csv': 2,
+      'seed=2/log[1].csv': 5,
+      'seed=3/log*.csv': 5,
+    });
+    for (const id of ['seed=1', 'seed=2', 'seed=3'])
+      expect(pairs(set, id, 'loss'), id).toEqual([
+        [1, 2, 3, 4, 5],
+        [0.89, 0.88, 0.87, 0.86, 0.85],
+      ]);
   });
 
   it('an intact gzip beside a truncated one is read in full', async () => {
@@ -289,16 +482,44 @@ interface UsageCase {
 }
 
 const USAGE: readonly UsageCase[] = [
-  { name: 'a PATH that does not exist', argv: () => ['scan', join(BAD, 'does-not-exist')], says: /PATH: .*no such file or folder.*does-not-exist/ },
-  { name: 'a malformed --layout', argv: () => ['scan', join(BAD, 'layout-matches-nothing'), '--layout', '{model}_{seed'], says: /--layout '\{model\}_\{seed'/ },
-  { name: 'a manifest with no file column', argv: () => ['scan', join(BAD, 'manifest-no-file-column'), '--manifest', join(BAD, 'manifest-no-file-column/runs.csv')], says: /manifest: expected a column named file.*runs\.csv:1/ },
-  { name: 'a manifest that does not exist', argv: () => ['scan', BAD, '--manifest', join(BAD, 'nope.csv')], says: /--manifest: .*no such file.*nope\.csv/ },
-  { name: 'a score table that does not exist', argv: () => ['report', '--scores', join(BAD, 'nope.csv'), '--json', join(out, 'x.json')], says: /--scores: expected an existing file/ },
+  {
+    name: 'a PATH that does not exist',
+    argv: () => ['scan', join(BAD, 'does-not-exist')],
+    says: /PATH: .*no such file or folder.*does-not-exist/,
+  },
+  {
+    name: 'a malformed --layout',
+    argv: () => ['scan', join(BAD, 'layout-matches-nothing'), '--layout', '{model}_{seed'],
+    says: /--layout '\{model\}_\{seed'/,
+  },
+  {
+    name: 'a manifest with no file column',
+    argv: () => [
+      'scan',
+      join(BAD, 'manifest-no-file-column'),
+      '--manifest',
+      join(BAD, 'manifest-no-file-column/runs.csv'),
+    ],
+    says: /manifest: expected a column named file.*runs\.csv:1/,
+  },
+  {
+    name: 'a manifest that does not exist',
+    argv: () => ['scan', BAD, '--manifest', join(BAD, 'nope.csv')],
+    says: /--manifest: .*no such file.*nope\.csv/,
+  },
+  {
+    name: 'a score table that does not exist',
+    argv: () => ['report', '--scores', join(BAD, 'nope.csv'), '--json', join(out, 'x.json')],
+    says: /--scores: expected an existing file/,
+  },
 ];
 
 describe('input errors: exit 2, one line on stderr, no stack trace', () => {
   it.each(USAGE.map((u) => [u.name, u] as const))('%s', async (_name, u) => {
-    for (const command of [u.argv(), u.argv()[0] === 'scan' ? ['report', ...u.argv().slice(1), '--json', join(out, 'y.json')] : null]) {
+    for (const command of [
+      u.argv(),
+      u.argv()[0] === 'scan' ? ['report', ...u.argv().slice(1), '--json', join(out, 'y.json')] : null,
+    ]) {
       if (command === null) continue;
       const io = memoryIo();
       expect(await run(command, io), command.join(' ')).toBe(2);

@@ -27,7 +27,11 @@ describe('planColumns', () => {
 
   it('a tick column makes a long per-tick log; sample and tick make a tick dump', () => {
     expect(planColumns(['step', 'tick', 'acc'], none)).toMatchObject({ kind: 'log', tick: 1, scalars: [2] });
-    expect(planColumns(['sample', 'tick', 'correct', 'certainty'], none)).toMatchObject({ kind: 'tick-dump', scalars: [], tick: null });
+    expect(planColumns(['sample', 'tick', 'correct', 'certainty'], none)).toMatchObject({
+      kind: 'tick-dump',
+      scalars: [],
+      tick: null,
+    });
   });
 
   it('duplicate names: later ones get _2, _3 (skipping names that exist)', () => {
@@ -37,11 +41,17 @@ describe('planColumns', () => {
   });
 
   it('--seed-column: found by name', () => {
-    expect(planColumns(['step', 'run_seed', 'acc'], { ...none, seedColumn: 'run_seed' })).toMatchObject({ seed: 1, scalars: [2] });
+    expect(planColumns(['step', 'run_seed', 'acc'], { ...none, seedColumn: 'run_seed' })).toMatchObject({
+      seed: 1,
+      scalars: [2],
+    });
   });
 
   it('--seed-columns: per-seed columns, aggregates ignored, others unused', () => {
-    const p = planColumns(['step', 'seed_1_acc', 'seed_2_acc', 'acc_mean', 'acc_std', 'lr'], { ...none, seedColumns: 'acc:seed_{seed}_*' });
+    const p = planColumns(['step', 'seed_1_acc', 'seed_2_acc', 'acc_mean', 'acc_std', 'lr'], {
+      ...none,
+      seedColumns: 'acc:seed_{seed}_*',
+    });
     expect(p.perSeed).toEqual([
       { metric: 'acc', seed: '1', index: 1 },
       { metric: 'acc', seed: '2', index: 2 },

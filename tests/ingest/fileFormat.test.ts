@@ -19,7 +19,18 @@ describe('fileFormat', () => {
     expect(fileFormat(name)).toEqual({ format, gzip });
   });
 
-  it.each(['log.json', 'log.gz', 'log.csv.bak', 'log.csv.zip', 'params.json', '.csv', 'runs/.csv', 'csv', 'README', 'log.csvx'])('%s is not a log file', (name) => {
+  it.each([
+    'log.json',
+    'log.gz',
+    'log.csv.bak',
+    'log.csv.zip',
+    'params.json',
+    '.csv',
+    'runs/.csv',
+    'csv',
+    'README',
+    'log.csvx',
+  ])('%s is not a log file', (name) => {
     expect(fileFormat(name)).toBeNull();
   });
 });

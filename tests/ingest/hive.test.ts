@@ -5,17 +5,31 @@ import { hivePairs } from '../../src/ingest/hive.js';
 // Hive partitioning convention of one key=value per path segment (common practice).
 describe('hivePairs', () => {
   it('reads the DESIGN example in order of appearance', () => {
-    expect(hivePairs('runs/ticks=32/memory=12/seed=3/log.csv')).toEqual([['ticks', '32'], ['memory', '12'], ['seed', '3']]);
+    expect(hivePairs('runs/ticks=32/memory=12/seed=3/log.csv')).toEqual([
+      ['ticks', '32'],
+      ['memory', '12'],
+      ['seed', '3'],
+    ]);
   });
 
   it('reads nested keys at any depth and keeps their order', () => {
-    expect(hivePairs('study/model=ctm/2026-03-01/task=parity/ticks=8/seed=1/train/log.csv.gz'))
-      .toEqual([['model', 'ctm'], ['task', 'parity'], ['ticks', '8'], ['seed', '1']]);
+    expect(hivePairs('study/model=ctm/2026-03-01/task=parity/ticks=8/seed=1/train/log.csv.gz')).toEqual([
+      ['model', 'ctm'],
+      ['task', 'parity'],
+      ['ticks', '8'],
+      ['seed', '1'],
+    ]);
   });
 
   it('reads a pair from the file name without its log extension', () => {
-    expect(hivePairs('runs/ticks=8/seed=3.csv')).toEqual([['ticks', '8'], ['seed', '3']]);
-    expect(hivePairs('runs/ticks=8/seed=3.csv.gz')).toEqual([['ticks', '8'], ['seed', '3']]);
+    expect(hivePairs('runs/ticks=8/seed=3.csv')).toEqual([
+      ['ticks', '8'],
+      ['seed', '3'],
+    ]);
+    expect(hivePairs('runs/ticks=8/seed=3.csv.gz')).toEqual([
+      ['ticks', '8'],
+      ['seed', '3'],
+    ]);
   });
 
   it('keeps everything after the first = as the value', () => {
@@ -28,11 +42,17 @@ describe('hivePairs', () => {
   });
 
   it('keeps the first position and the deepest value of a repeated key', () => {
-    expect(hivePairs('ticks=8/memory=4/ticks=16/log.csv')).toEqual([['ticks', '16'], ['memory', '4']]);
+    expect(hivePairs('ticks=8/memory=4/ticks=16/log.csv')).toEqual([
+      ['ticks', '16'],
+      ['memory', '4'],
+    ]);
   });
 
   it('reads absolute paths and ./ prefixes alike', () => {
-    expect(hivePairs('/data/ticks=8/seed=2/log.csv')).toEqual([['ticks', '8'], ['seed', '2']]);
+    expect(hivePairs('/data/ticks=8/seed=2/log.csv')).toEqual([
+      ['ticks', '8'],
+      ['seed', '2'],
+    ]);
     expect(hivePairs('./ticks=8/log.csv')).toEqual([['ticks', '8']]);
   });
 });

@@ -10,14 +10,22 @@ describe('compileLayout', () => {
     const layout = compileLayout('{model}/{model2}_{task}_{seed}_{_stamp}/eval.csv');
     expect(layout.fields).toEqual(['model', 'model2', 'task', 'seed', '_stamp']);
     expect(layout.match('looped/looped_glyph-count-v2_3_20260301120000/eval.csv')).toEqual({
-      model: 'looped', model2: 'looped', task: 'glyph-count-v2', seed: '3', _stamp: '20260301120000',
+      model: 'looped',
+      model2: 'looped',
+      task: 'glyph-count-v2',
+      seed: '3',
+      _stamp: '20260301120000',
     });
   });
 
   it('gives the DESIGN split for the one-segment template', () => {
     // DESIGN.md: `{model}_{task}_{seed}_{_stamp}` splits this as model looped, task glyph-count-v2, seed 3.
-    expect(compileLayout('{model}_{task}_{seed}_{_stamp}').match('looped_glyph-count-v2_3_20260301120000'))
-      .toEqual({ model: 'looped', task: 'glyph-count-v2', seed: '3', _stamp: '20260301120000' });
+    expect(compileLayout('{model}_{task}_{seed}_{_stamp}').match('looped_glyph-count-v2_3_20260301120000')).toEqual({
+      model: 'looped',
+      task: 'glyph-count-v2',
+      seed: '3',
+      _stamp: '20260301120000',
+    });
   });
 
   it('gives the earlier fields the shortest text and the last field the rest', () => {

@@ -36,7 +36,11 @@ const values = (d: FileData | undefined, k: number): number[] => Array.from(d?.c
 
 describe('loadFiles', () => {
   it('reads same-shaped files in one call and returns them in the order given', async () => {
-    const root = await makeTree({ 'a.csv': 'step,loss\n1,0.5\n2,0.25\n', 'b.csv': 'step,loss\n1,0.75\n', 'c.tsv': 'step\tloss\n3\t1.5\n' });
+    const root = await makeTree({
+      'a.csv': 'step,loss\n1,0.5\n2,0.25\n',
+      'b.csv': 'step,loss\n1,0.75\n',
+      'c.tsv': 'step\tloss\n3\t1.5\n',
+    });
     made.push(root);
     const loaded = await loadFiles(engine, await items(['a.csv', 'c.tsv', 'b.csv'].map((f) => source(root, f))));
     expect(loaded.failed).toEqual([]);
@@ -67,13 +71,28 @@ describe('loadFiles', () => {
 
   it('one corrupt gzip file fails alone; the others of its batch are read', async () => {
     const bad = gz('step,loss\n1,0.5\n2,0.4\n').subarray(0, 30);
-    const root = await makeTree({ 'a.csv.gz': gz('step,loss\n1,0.5\n'), 'b.csv.gz': Buffer.concat([Buffer.from(gz('step,loss\n').subarray(0, 10)), bad]), 'c.csv.gz': gz('step,loss\n2,0.125\n') });
+    const root = await makeTree({
+      'a.csv.gz': gz('step,loss\n1,0.5\n'),
+      'b.csv.gz': Buffer.concat([Buffer.from(gz('step,loss\n').subarray(0, 10)), bad]),
+      'c.csv.gz': gz('step,loss\n2,0.125\n'),
+    });
     made.push(root);
     const list: FileToRead[] = [];
     for (const f of ['a.csv.gz', 'b.csv.gz', 'c.csv.gz']) {
       const h = await readHeader(source(root, f), null, engine);
       if (h.ok) list.push({ header: h.header, plan: planColumns(h.header.names, none) });
-      else list.push({ header: { source: source(root, f), names: ['step', 'loss'], parquetTypes: null, text: { delimiter: ',', header: true, skip: 0 }, bytes: 40, textLike: [] }, plan: planColumns(['step', 'loss'], none) });
+      else
+        list.push({
+          header: {
+            source: source(root, f),
+            names: ['step', 'loss'],
+            parquetTypes: null,
+            text: { delimiter: ',', header: true, skip: 0 },
+            bytes: 40,
+            textLike: [],
+          },
+          plan: planColumns(['step', 'loss'], none),
+        });
     }
     const loaded = await loadFiles(engine, list);
     expect(loaded.data.map((d) => d.header.source.relPath)).toEqual(['a.csv.gz', 'c.csv.gz']);
@@ -83,7 +102,9 @@ describe('loadFiles', () => {
 
   it('columnsToRead: step, tick and metric columns of a log; every column of a dump but the seed', () => {
     expect(columnsToRead(planColumns(['step', 'loss', 'acc@0', 'seed'], none))).toEqual([0, 1, 2]);
-    expect(columnsToRead(planColumns(['sample', 'tick', 'correct', 'run'], { ...none, seedColumn: 'run' }))).toEqual([0, 1, 2]);
+    expect(columnsToRead(planColumns(['sample', 'tick', 'correct', 'run'], { ...none, seedColumn: 'run' }))).toEqual([
+      0, 1, 2,
+    ]);
   });
 });
 
@@ -101,7 +122,16 @@ describe('DuckDB numbers equal csv-parse + parseFloat, exactly', () => {
         const cell = row[k] as string;
         const parsed = parseFloat(cell);
         // Encoding of loadQuery.ts: empty -> NaN, nan/inf -> +Infinity, text -> -Infinity.
-        const want = cell === '' ? NaN : Number.isNaN(parsed) ? (/^[+-]?nan$/i.test(cell) ? Infinity : -Infinity) : Number.isFinite(parsed) ? parsed : Infinity;
+        const want =
+          cell === ''
+            ? NaN
+            : Number.isNaN(parsed)
+              ? /^[+-]?nan$/i.test(cell)
+                ? Infinity
+                : -Infinity
+              : Number.isFinite(parsed)
+                ? parsed
+                : Infinity;
         const got = cells[i] as number;
         if (!Object.is(got, want)) out.push(`${header[k] as string} row ${i}: '${cell}' -> ${got}, expected ${want}`);
       });
@@ -121,9 +151,21 @@ describe('DuckDB numbers equal csv-parse + parseFloat, exactly', () => {
     };
     walk(base);
     expect(dumps.length).toBeGreaterThan(0);
-    const list = await items(dumps.map((file) => ({ file, relPath: file, format: 'csv', gzip: true, params: {}, info: {}, seed: '0', identity: 'hive' })));
+    const list = await items(
+      dumps.map((file) => ({
+        file,
+        relPath: file,
+        format: 'csv',
+        gzip: true,
+        params: {},
+        info: {},
+        seed: '0',
+        identity: 'hive',
+      })),
+    );
     const loaded = await loadFiles(engine, list);
-    for (const d of loaded.data) expect(mismatches(gunzipSync(readFileSync(d.header.source.file)).toString(), d)).toEqual([]);
+    for (const d of loaded.data)
+      expect(mismatches(gunzipSync(readFileSync(d.header.source.file)).toString(), d)).toEqual([]);
   });
 
   it('20,000 random numbers in many spellings (seeded)', async () => {

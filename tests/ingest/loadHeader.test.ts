@@ -21,7 +21,9 @@ beforeAll(async () => {
     'g.csv.gz': 'not gzip at all',
     'h.csv': `${wide.join(',')}\n`,
   });
-  await engine.connection.run(`COPY (SELECT 1::INTEGER AS step, 0.5::FLOAT AS loss, 'x' AS tag) TO '${join(root, 'p.parquet')}' (FORMAT parquet)`);
+  await engine.connection.run(
+    `COPY (SELECT 1::INTEGER AS step, 0.5::FLOAT AS loss, 'x' AS tag) TO '${join(root, 'p.parquet')}' (FORMAT parquet)`,
+  );
 });
 afterAll(async () => {
   closeEngine(engine);
@@ -34,16 +36,30 @@ describe('textHeader', () => {
     expect(textHeader(['a\tb,c'], 'tsv', null)?.names).toEqual(['a', 'b,c']);
   });
   it('--columns: headerless unless the first line is exactly those names', () => {
-    expect(textHeader(['1,2'], 'csv', ['step', 'loss'])).toEqual({ names: ['step', 'loss'], text: { delimiter: ',', header: false, skip: 0 }, textLike: [] });
-    expect(textHeader(['step,loss', '1,2'], 'csv', ['step', 'loss'])).toEqual({ names: ['step', 'loss'], text: { delimiter: ',', header: true, skip: 0 }, textLike: [] });
+    expect(textHeader(['1,2'], 'csv', ['step', 'loss'])).toEqual({
+      names: ['step', 'loss'],
+      text: { delimiter: ',', header: false, skip: 0 },
+      textLike: [],
+    });
+    expect(textHeader(['step,loss', '1,2'], 'csv', ['step', 'loss'])).toEqual({
+      names: ['step', 'loss'],
+      text: { delimiter: ',', header: true, skip: 0 },
+      textLike: [],
+    });
   });
 
   it('blank lines (empty or spaces) before the header are counted to be skipped', () => {
-    expect(textHeader(['', '  ', 'step,loss', '1,2'], 'csv', null)).toEqual({ names: ['step', 'loss'], text: { delimiter: ',', header: true, skip: 2 }, textLike: [] });
+    expect(textHeader(['', '  ', 'step,loss', '1,2'], 'csv', null)).toEqual({
+      names: ['step', 'loss'],
+      text: { delimiter: ',', header: true, skip: 2 },
+      textLike: [],
+    });
   });
 
   it('columns with text among the first lines are hinted (nan, inf, 1e-3, quoted numbers are numbers)', () => {
-    expect(textHeader(['step,phase,loss,note', '1,train,nan,"0.5"', '2,eval,1e-3,', '3,,inf,x'], 'csv', null)?.textLike).toEqual([1, 3]);
+    expect(
+      textHeader(['step,phase,loss,note', '1,train,nan,"0.5"', '2,eval,1e-3,', '3,,inf,x'], 'csv', null)?.textLike,
+    ).toEqual([1, 3]);
   });
   it('nothing but blank lines: null', () => {
     expect(textHeader(['', ' '], 'csv', null)).toBeNull();
@@ -57,7 +73,10 @@ describe('readHeader', () => {
   });
   it('gzipped files (decompressed only as far as needed)', async () => {
     const h = await readHeader(source(root, 'c.tsv.gz'), null, engine);
-    expect(h.ok && [h.header.names, h.header.text]).toEqual([['step', 'loss'], { delimiter: '\t', header: true, skip: 0 }]);
+    expect(h.ok && [h.header.names, h.header.text]).toEqual([
+      ['step', 'loss'],
+      { delimiter: '\t', header: true, skip: 0 },
+    ]);
   });
   it('a .txt file: delimiter sniffed', async () => {
     const h = await readHeader(source(root, 'd.txt'), null, engine);
@@ -69,12 +88,28 @@ describe('readHeader', () => {
   });
   it('Parquet: names and DuckDB types', async () => {
     const h = await readHeader(source(root, 'p.parquet'), null, engine);
-    expect(h.ok && [h.header.names, h.header.parquetTypes, h.header.text]).toEqual([['step', 'loss', 'tag'], ['INTEGER', 'FLOAT', 'VARCHAR'], null]);
+    expect(h.ok && [h.header.names, h.header.parquetTypes, h.header.text]).toEqual([
+      ['step', 'loss', 'tag'],
+      ['INTEGER', 'FLOAT', 'VARCHAR'],
+      null,
+    ]);
   });
   it('empty, blank-only, not gzip, missing: failures with the reason', async () => {
-    expect(await readHeader(source(root, 'e.csv'), null, engine)).toEqual({ ok: false, code: 'file-empty', reason: 'the file is empty (0 bytes)' });
-    expect(await readHeader(source(root, 'f.csv'), null, engine)).toEqual({ ok: false, code: 'file-empty', reason: 'the file has only blank lines' });
-    expect(await readHeader(source(root, 'g.csv.gz'), null, engine)).toEqual({ ok: false, code: 'file-unreadable', reason: 'not a valid gzip file' });
+    expect(await readHeader(source(root, 'e.csv'), null, engine)).toEqual({
+      ok: false,
+      code: 'file-empty',
+      reason: 'the file is empty (0 bytes)',
+    });
+    expect(await readHeader(source(root, 'f.csv'), null, engine)).toEqual({
+      ok: false,
+      code: 'file-empty',
+      reason: 'the file has only blank lines',
+    });
+    expect(await readHeader(source(root, 'g.csv.gz'), null, engine)).toEqual({
+      ok: false,
+      code: 'file-unreadable',
+      reason: 'not a valid gzip file',
+    });
     const missing = await readHeader(source(root, 'nope.csv'), null, engine);
     expect(missing.ok === false && missing.code).toBe('file-unreadable');
   });

@@ -28,7 +28,11 @@ let engine: Engine;
 let root: string;
 beforeAll(async () => {
   engine = await openEngine();
-  root = await makeTree({ 'a/tricky.csv': `${TRICKY}\n`, 'b/tricky.csv': `${TRICKY.replaceAll('\n', '\r\n')}\r\n`, 'c/ws.txt': `${WHITESPACE}\n` });
+  root = await makeTree({
+    'a/tricky.csv': `${TRICKY}\n`,
+    'b/tricky.csv': `${TRICKY.replaceAll('\n', '\r\n')}\r\n`,
+    'c/ws.txt': `${WHITESPACE}\n`,
+  });
 });
 afterAll(async () => {
   closeEngine(engine);
@@ -43,14 +47,17 @@ async function load(rel: string): Promise<FileData> {
 }
 
 describe('scanRecords and dataRowLines against DuckDB', () => {
-  it.each(['a/tricky.csv', 'b/tricky.csv'])('%s: DuckDB rejects record 5, which is line 6; accepted rows are lines 2, 4, 7, 10', async (rel) => {
-    const data = await load(rel);
-    expect(Array.from(data.cells.get(0) as Float64Array)).toEqual([1, 2, 4, 5]);
-    expect(data.rejects.map((r) => [r.record, r.type])).toEqual([[5, 'MISSING COLUMNS']]);
-    const records = scanRecords(await fileBytes(data.header.source.file, false), { quoted: true, whitespace: false });
-    expect(records.start[4]).toBe(6);
-    expect(Array.from(dataRowLines(records, true, new Set([5])))).toEqual([2, 4, 7, 10]);
-  });
+  it.each(['a/tricky.csv', 'b/tricky.csv'])(
+    '%s: DuckDB rejects record 5, which is line 6; accepted rows are lines 2, 4, 7, 10',
+    async (rel) => {
+      const data = await load(rel);
+      expect(Array.from(data.cells.get(0) as Float64Array)).toEqual([1, 2, 4, 5]);
+      expect(data.rejects.map((r) => [r.record, r.type])).toEqual([[5, 'MISSING COLUMNS']]);
+      const records = scanRecords(await fileBytes(data.header.source.file, false), { quoted: true, whitespace: false });
+      expect(records.start[4]).toBe(6);
+      expect(Array.from(dataRowLines(records, true, new Set([5])))).toEqual([2, 4, 7, 10]);
+    },
+  );
 
   it('whitespace mode: blank and space-only lines skipped, a row with a wrong field count flagged', async () => {
     const data = await load('c/ws.txt');

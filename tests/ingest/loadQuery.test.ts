@@ -12,14 +12,48 @@ afterAll(() => closeEngine(engine));
 
 async function encode(values: readonly (string | null)[], type = 'VARCHAR'): Promise<number[]> {
   const list = values.map((v) => (v === null ? 'NULL' : sqlString(v))).join(', ');
-  const result = await engine.connection.run(`SELECT ${cellSql('x', type)} FROM (SELECT unnest([${list}]::${type}[]) AS x, generate_subscripts([${list}]::${type}[], 1) AS i) ORDER BY i`);
+  const result = await engine.connection.run(
+    `SELECT ${cellSql('x', type)} FROM (SELECT unnest([${list}]::${type}[]) AS x, generate_subscripts([${list}]::${type}[], 1) AS i) ORDER BY i`,
+  );
   return Array.from(resultColumns(result)[0] as Float64Array);
 }
 
 describe('cellSql', () => {
   it('VARCHAR cells', async () => {
-    const cells = ['0.5', '', null, '  ', 'nan', 'NaN', 'inf', '-inf', '1e999', 'abc', 'TRUE', 'false', ' 2.5 ', '-0', '1e-320'];
-    expect(await encode(cells)).toEqual([0.5, NaN, NaN, NaN, Infinity, Infinity, Infinity, Infinity, Infinity, -Infinity, 1, 0, 2.5, -0, 1e-320]);
+    const cells = [
+      '0.5',
+      '',
+      null,
+      '  ',
+      'nan',
+      'NaN',
+      'inf',
+      '-inf',
+      '1e999',
+      'abc',
+      'TRUE',
+      'false',
+      ' 2.5 ',
+      '-0',
+      '1e-320',
+    ];
+    expect(await encode(cells)).toEqual([
+      0.5,
+      NaN,
+      NaN,
+      NaN,
+      Infinity,
+      Infinity,
+      Infinity,
+      Infinity,
+      Infinity,
+      -Infinity,
+      1,
+      0,
+      2.5,
+      -0,
+      1e-320,
+    ]);
   });
   it('DOUBLE cells (Parquet, or the CSV fast path)', async () => {
     expect(await encode(['1.5', null, 'nan', '-inf'], 'DOUBLE')).toEqual([1.5, NaN, Infinity, Infinity]);

@@ -18,7 +18,8 @@ beforeAll(async () => {
   const read = async (rel: string): Promise<FileData> => {
     const h = await readHeader(source(root, rel), null, engine);
     if (!h.ok) throw new Error(h.reason);
-    return (await loadFiles(engine, [{ header: h.header, plan: planColumns(h.header.names, none) }])).data[0] as FileData;
+    return (await loadFiles(engine, [{ header: h.header, plan: planColumns(h.header.names, none) }]))
+      .data[0] as FileData;
   };
   csv = await read('a.csv');
   parquet = await read('p.parquet');
@@ -31,13 +32,26 @@ afterAll(async () => {
 describe('finishDrafts', () => {
   it('kept rows, DuckDB records and Parquet rows become lines or row numbers', async () => {
     const problems = await finishDrafts([
-      draft('step-invalid', 'two rows', { run: 'seed=1', rows: [{ data: csv, kind: 'row', n: 0 }, { data: csv, kind: 'row', n: 1 }] }),
+      draft('step-invalid', 'two rows', {
+        run: 'seed=1',
+        rows: [
+          { data: csv, kind: 'row', n: 0 },
+          { data: csv, kind: 'row', n: 1 },
+        ],
+      }),
       draft('row-malformed', 'bad', { rows: [{ data: csv, kind: 'record', n: 4 }] }),
       draft('run-diverged', 'x', { rows: [{ data: parquet, kind: 'row', n: 2 }] }),
       draft('goal-inferred', 'no rows'),
     ]);
     expect(problems).toEqual([
-      { severity: 'warning', code: 'step-invalid', message: 'two rows (lines 2, 5)', file: csv.header.source.file, line: 2, run: 'seed=1' },
+      {
+        severity: 'warning',
+        code: 'step-invalid',
+        message: 'two rows (lines 2, 5)',
+        file: csv.header.source.file,
+        line: 2,
+        run: 'seed=1',
+      },
       { severity: 'warning', code: 'row-malformed', message: 'bad', file: csv.header.source.file, line: 4 },
       { severity: 'warning', code: 'run-diverged', message: 'x (row 3)', file: parquet.header.source.file },
       { severity: 'note', code: 'goal-inferred', message: 'no rows' },

@@ -15,7 +15,17 @@ async function tree(t: Tree): Promise<string> {
   return root;
 }
 
-const none: IngestOptions = { layout: null, seedColumn: null, seedColumns: null, manifest: null, step: null, columns: null, scores: null, by: null, metricGoals: {} };
+const none: IngestOptions = {
+  layout: null,
+  seedColumn: null,
+  seedColumns: null,
+  manifest: null,
+  step: null,
+  columns: null,
+  scores: null,
+  by: null,
+  metricGoals: {},
+};
 const opts = (o: Partial<IngestOptions>): IngestOptions => ({ ...none, ...o });
 const LOG = 'step,acc\n1,0.5\n';
 
@@ -32,9 +42,36 @@ describe('locate: key=value folders', () => {
     expect(problems).toEqual([]);
     expect(files).toEqual([]);
     expect(sources).toEqual([
-      { file: join(root, 'ticks=32/memory=12/seed=10/log.csv.gz'), relPath: 'ticks=32/memory=12/seed=10/log.csv.gz', format: 'csv', gzip: true, params: { ticks: '32', memory: '12' }, info: {}, seed: '10', identity: 'hive' },
-      { file: join(root, 'ticks=32/memory=12/seed=3/log.csv'), relPath: 'ticks=32/memory=12/seed=3/log.csv', format: 'csv', gzip: false, params: { ticks: '32', memory: '12' }, info: {}, seed: '3', identity: 'hive' },
-      { file: join(root, 'ticks=8/memory=4/seed=1/eval.parquet'), relPath: 'ticks=8/memory=4/seed=1/eval.parquet', format: 'parquet', gzip: false, params: { ticks: '8', memory: '4' }, info: {}, seed: '1', identity: 'hive' },
+      {
+        file: join(root, 'ticks=32/memory=12/seed=10/log.csv.gz'),
+        relPath: 'ticks=32/memory=12/seed=10/log.csv.gz',
+        format: 'csv',
+        gzip: true,
+        params: { ticks: '32', memory: '12' },
+        info: {},
+        seed: '10',
+        identity: 'hive',
+      },
+      {
+        file: join(root, 'ticks=32/memory=12/seed=3/log.csv'),
+        relPath: 'ticks=32/memory=12/seed=3/log.csv',
+        format: 'csv',
+        gzip: false,
+        params: { ticks: '32', memory: '12' },
+        info: {},
+        seed: '3',
+        identity: 'hive',
+      },
+      {
+        file: join(root, 'ticks=8/memory=4/seed=1/eval.parquet'),
+        relPath: 'ticks=8/memory=4/seed=1/eval.parquet',
+        format: 'parquet',
+        gzip: false,
+        params: { ticks: '8', memory: '4' },
+        info: {},
+        seed: '1',
+        identity: 'hive',
+      },
     ]);
     expect(Object.keys(sources[0]?.params ?? {})).toEqual(['ticks', 'memory']);
   });
@@ -43,13 +80,19 @@ describe('locate: key=value folders', () => {
     const root = await tree({ 'ticks=8/seed=3.csv': LOG, 'ticks=8/seed=4.tsv.gz': '' });
     const { sources, problems } = await locate([root], none);
     expect(problems).toEqual([]);
-    expect(sources.map((s) => [s.params, s.seed, s.format])).toEqual([[{ ticks: '8' }, '3', 'csv'], [{ ticks: '8' }, '4', 'tsv']]);
+    expect(sources.map((s) => [s.params, s.seed, s.format])).toEqual([
+      [{ ticks: '8' }, '3', 'csv'],
+      [{ ticks: '8' }, '4', 'tsv'],
+    ]);
   });
 
   it("keeps the PATH's own key=value segments", async () => {
     const root = await tree({ 'ticks=32/seed=1/log.csv': LOG, 'ticks=64/seed=1/log.csv': LOG });
     const { sources } = await locate([join(root, 'ticks=32'), join(root, 'ticks=64')], none);
-    expect(sources.map((s) => [s.relPath, s.params.ticks, s.seed])).toEqual([['seed=1/log.csv', '32', '1'], ['seed=1/log.csv', '64', '1']]);
+    expect(sources.map((s) => [s.relPath, s.params.ticks, s.seed])).toEqual([
+      ['seed=1/log.csv', '32', '1'],
+      ['seed=1/log.csv', '64', '1'],
+    ]);
   });
 
   it('keeps a relative PATH relative in files and problems', async () => {
@@ -87,13 +130,18 @@ describe('locate: --layout', () => {
     const { sources, files, problems } = await locate([root], opts({ layout: '{model}_{seed}/log.csv' }));
     expect(sources).toEqual([]);
     expect(files.map((f) => f.status)).toEqual(['skipped', 'skipped']);
-    expect(problems.map((p) => [p.code, p.file])).toEqual([['layout-unmatched', join(root, 'a/1.csv')], ['layout-unmatched', join(root, 'b/2.csv')]]);
+    expect(problems.map((p) => [p.code, p.file])).toEqual([
+      ['layout-unmatched', join(root, 'a/1.csv')],
+      ['layout-unmatched', join(root, 'b/2.csv')],
+    ]);
   });
 
   it('adds key=value segments, keeping their value over a layout field of the same name', async () => {
     const root = await tree({ 'task=parity/ctm_7/log.csv': LOG });
     const { sources } = await locate([root], opts({ layout: '{task}/{model}_{seed}/*.csv' }));
-    expect(sources.map((s) => [s.params, s.seed, s.identity])).toEqual([[{ task: 'parity', model: 'ctm' }, '7', 'layout']]);
+    expect(sources.map((s) => [s.params, s.seed, s.identity])).toEqual([
+      [{ task: 'parity', model: 'ctm' }, '7', 'layout'],
+    ]);
   });
 
   it('throws a usage error for a malformed template', async () => {
@@ -130,7 +178,9 @@ describe('locate: --manifest', () => {
   it('takes sources from the manifest and lists unlisted logs as skipped', async () => {
     const root = await tree({
       'runs.csv': 'file,seed,ticks\nx/log.csv,1,8\ny/log.csv,2,16\nmissing.csv,3,8\n',
-      'x/log.csv': LOG, 'y/log.csv': LOG, 'z/log.csv': LOG,
+      'x/log.csv': LOG,
+      'y/log.csv': LOG,
+      'z/log.csv': LOG,
     });
     const manifest = join(root, 'runs.csv');
     const { sources, files, problems } = await locate([root], opts({ manifest }));
@@ -138,7 +188,10 @@ describe('locate: --manifest', () => {
       [join(root, 'x/log.csv'), 'x/log.csv', { ticks: '8' }, '1', 'manifest'],
       [join(root, 'y/log.csv'), 'y/log.csv', { ticks: '16' }, '2', 'manifest'],
     ]);
-    expect(files.map((f) => [f.file, f.status])).toEqual([[join(root, 'missing.csv'), 'unreadable'], [join(root, 'z/log.csv'), 'skipped']]);
+    expect(files.map((f) => [f.file, f.status])).toEqual([
+      [join(root, 'missing.csv'), 'unreadable'],
+      [join(root, 'z/log.csv'), 'skipped'],
+    ]);
     expect(problems.map((p) => [p.code, p.file, p.line])).toEqual([
       ['manifest-file-missing', manifest, 4],
       ['file-skipped', join(root, 'z/log.csv'), undefined],
@@ -146,7 +199,11 @@ describe('locate: --manifest', () => {
   });
 
   it('works without PATHs, checks params.json against the manifest, and reports a seedless row with its line', async () => {
-    const root = await tree({ 'runs.csv': 'file,seed,ticks\na/log.csv,,8\n', 'a/log.csv': LOG, 'a/params.json': '{"ticks": 16}' });
+    const root = await tree({
+      'runs.csv': 'file,seed,ticks\na/log.csv,,8\n',
+      'a/log.csv': LOG,
+      'a/params.json': '{"ticks": 16}',
+    });
     const manifest = join(root, 'runs.csv');
     const { sources, problems } = await locate([], opts({ manifest }));
     expect(sources.map((s) => [s.params, s.seed])).toEqual([[{ ticks: '8' }, 'auto-1']]);
@@ -158,41 +215,62 @@ describe('locate: --manifest', () => {
 
   it('throws an input error when the manifest has no file column', async () => {
     const root = await tree({ 'runs.csv': 'seed,ticks\n1,8\n' });
-    await expect(locate([root], opts({ manifest: join(root, 'runs.csv') }))).rejects.toMatchObject({ code: 'input', line: 1 });
+    await expect(locate([root], opts({ manifest: join(root, 'runs.csv') }))).rejects.toMatchObject({
+      code: 'input',
+      line: 1,
+    });
   });
 
   it('rejects --manifest with --layout', async () => {
     const root = await tree({ 'runs.csv': 'file,seed\n' });
-    await expect(locate([], opts({ manifest: join(root, 'runs.csv'), layout: '{seed}.csv' }))).rejects.toThrow(/cannot be combined with --layout/);
+    await expect(locate([], opts({ manifest: join(root, 'runs.csv'), layout: '{seed}.csv' }))).rejects.toThrow(
+      /cannot be combined with --layout/,
+    );
   });
 });
 
 describe('locate: params.json', () => {
   it('agrees silently (equal numbers in other spellings) and adds its keys after the path keys', async () => {
-    const root = await tree({ 'ticks=32/lr=1e-4/seed=1/log.csv': LOG, 'ticks=32/lr=1e-4/seed=1/params.json': '{"lr": 0.0001, "ticks": 32, "seed": 1, "width": 256, "_host": "n1"}' });
+    const root = await tree({
+      'ticks=32/lr=1e-4/seed=1/log.csv': LOG,
+      'ticks=32/lr=1e-4/seed=1/params.json': '{"lr": 0.0001, "ticks": 32, "seed": 1, "width": 256, "_host": "n1"}',
+    });
     const { sources, files, problems } = await locate([root], none);
     expect(problems).toEqual([]);
     expect(files).toEqual([]);
-    expect(sources.map((s) => [s.params, s.info, s.seed])).toEqual([[{ ticks: '32', lr: '1e-4', width: '256' }, { _host: 'n1' }, '1']]);
+    expect(sources.map((s) => [s.params, s.info, s.seed])).toEqual([
+      [{ ticks: '32', lr: '1e-4', width: '256' }, { _host: 'n1' }, '1'],
+    ]);
     expect(Object.keys(sources[0]?.params ?? {})).toEqual(['ticks', 'lr', 'width']);
   });
 
   it("reports a disagreement with the params.json line and keeps the path's value", async () => {
-    const root = await tree({ 'ticks=32/seed=1/log.csv': LOG, 'ticks=32/seed=1/eval.csv': LOG, 'ticks=32/seed=1/params.json': '{\n  "seed": 1,\n  "ticks": 16\n}\n' });
+    const root = await tree({
+      'ticks=32/seed=1/log.csv': LOG,
+      'ticks=32/seed=1/eval.csv': LOG,
+      'ticks=32/seed=1/params.json': '{\n  "seed": 1,\n  "ticks": 16\n}\n',
+    });
     const { sources, problems } = await locate([root], none);
     expect(sources.map((s) => s.params.ticks)).toEqual(['32', '32']);
     // One problem for the params.json, not one per log file beside it.
-    expect(problems).toEqual([{
-      severity: 'warning', code: 'params-mismatch', file: join(root, 'ticks=32/seed=1/params.json'), line: 3,
-      message: "params.json says ticks=16 but the path says ticks=32; the path's value was kept",
-    }]);
+    expect(problems).toEqual([
+      {
+        severity: 'warning',
+        code: 'params-mismatch',
+        file: join(root, 'ticks=32/seed=1/params.json'),
+        line: 3,
+        message: "params.json says ticks=16 but the path says ticks=32; the path's value was kept",
+      },
+    ]);
   });
 
   it('reports invalid JSON with its file and keeps the path values', async () => {
     const root = await tree({ 'ticks=8/seed=2/log.csv': LOG, 'ticks=8/seed=2/params.json': '{"ticks": 8,' });
     const { sources, problems } = await locate([root], none);
     expect(sources.map((s) => [s.params, s.seed])).toEqual([[{ ticks: '8' }, '2']]);
-    expect(problems.map((p) => [p.code, p.file])).toEqual([['file-unreadable', join(root, 'ticks=8/seed=2/params.json')]]);
+    expect(problems.map((p) => [p.code, p.file])).toEqual([
+      ['file-unreadable', join(root, 'ticks=8/seed=2/params.json')],
+    ]);
   });
 
   it('supplies the seed when nothing else does', async () => {
@@ -215,24 +293,41 @@ describe('locate: files that are not runs', () => {
     const root = await tree({ 'ticks=8/b/log.csv': LOG, 'ticks=8/a/log.csv': LOG, 'plain.csv': LOG });
     const { sources, problems } = await locate([root], none);
     expect(sources.map((s) => [s.relPath, s.seed, s.identity])).toEqual([
-      ['plain.csv', 'auto-1', 'none'], ['ticks=8/a/log.csv', 'auto-2', 'hive'], ['ticks=8/b/log.csv', 'auto-3', 'hive'],
+      ['plain.csv', 'auto-1', 'none'],
+      ['ticks=8/a/log.csv', 'auto-2', 'hive'],
+      ['ticks=8/b/log.csv', 'auto-3', 'hive'],
     ]);
     expect(problems.map((p) => [p.code, p.file])).toEqual([
-      ['seed-missing', join(root, 'plain.csv')], ['seed-missing', join(root, 'ticks=8/a/log.csv')], ['seed-missing', join(root, 'ticks=8/b/log.csv')],
+      ['seed-missing', join(root, 'plain.csv')],
+      ['seed-missing', join(root, 'ticks=8/a/log.csv')],
+      ['seed-missing', join(root, 'ticks=8/b/log.csv')],
     ]);
     expect(problems[0]?.message).toContain('auto-1');
   });
 
   it('lists files with other extensions as skipped, each with a note', async () => {
-    const root = await tree({ 'seed=1/log.csv': LOG, 'seed=1/model.pt': 'x', 'seed=1/config.yaml': 'x', 'seed=1/params.json': '{}' });
+    const root = await tree({
+      'seed=1/log.csv': LOG,
+      'seed=1/model.pt': 'x',
+      'seed=1/config.yaml': 'x',
+      'seed=1/params.json': '{}',
+    });
     const { sources, files, problems } = await locate([root], none);
     expect(sources.map((s) => s.relPath)).toEqual(['seed=1/log.csv']);
     expect(files).toEqual([
-      { file: join(root, 'seed=1/config.yaml'), status: 'skipped', rows: 0, rejectedRows: 0, runs: [], kind: 'unknown' },
+      {
+        file: join(root, 'seed=1/config.yaml'),
+        status: 'skipped',
+        rows: 0,
+        rejectedRows: 0,
+        runs: [],
+        kind: 'unknown',
+      },
       { file: join(root, 'seed=1/model.pt'), status: 'skipped', rows: 0, rejectedRows: 0, runs: [], kind: 'unknown' },
     ]);
     expect(problems.map((p) => [p.code, p.severity, p.file])).toEqual([
-      ['file-skipped', 'note', join(root, 'seed=1/config.yaml')], ['file-skipped', 'note', join(root, 'seed=1/model.pt')],
+      ['file-skipped', 'note', join(root, 'seed=1/config.yaml')],
+      ['file-skipped', 'note', join(root, 'seed=1/model.pt')],
     ]);
   });
 
@@ -259,7 +354,10 @@ describe('locate: files that are not runs', () => {
   it('throws a usage error naming a PATH that does not exist', async () => {
     const root = await tree({});
     const missing = join(root, 'no-such-runs');
-    const error = await locate([missing], none).then(() => null, (e: unknown) => e);
+    const error = await locate([missing], none).then(
+      () => null,
+      (e: unknown) => e,
+    );
     expect(error).toBeInstanceOf(SeedsiftError);
     expect(error).toMatchObject({ code: 'usage', file: missing });
     expect((error as Error).message).toContain(missing);

@@ -30,15 +30,39 @@ describe('readManifest', () => {
   it('reads rows with the file relative to the manifest folder, seed and params', async () => {
     const root = await tree({
       'study/runs.csv': 'File,Seed,ticks,memory,_note\na/log.csv,1,8,4,first\n"b/log, v2.csv",2,16,,\n',
-      'study/a/log.csv': '', 'study/b/log, v2.csv': '',
+      'study/a/log.csv': '',
+      'study/b/log, v2.csv': '',
     });
     const manifest = join(root, 'study', 'runs.csv');
     const { rows, skipped, problems } = await readManifest(manifest);
     expect(problems).toEqual([]);
     expect(skipped).toEqual([]);
-    expect(rows.map((r) => ({ file: r.file, relPath: r.relPath, line: r.line, seed: r.seed, params: r.params, info: r.info }))).toEqual([
-      { file: join(root, 'study', 'a', 'log.csv'), relPath: 'a/log.csv', line: 2, seed: '1', params: { ticks: '8', memory: '4' }, info: { _note: 'first' } },
-      { file: join(root, 'study', 'b', 'log, v2.csv'), relPath: 'b/log, v2.csv', line: 3, seed: '2', params: { ticks: '16' }, info: {} },
+    expect(
+      rows.map((r) => ({
+        file: r.file,
+        relPath: r.relPath,
+        line: r.line,
+        seed: r.seed,
+        params: r.params,
+        info: r.info,
+      })),
+    ).toEqual([
+      {
+        file: join(root, 'study', 'a', 'log.csv'),
+        relPath: 'a/log.csv',
+        line: 2,
+        seed: '1',
+        params: { ticks: '8', memory: '4' },
+        info: { _note: 'first' },
+      },
+      {
+        file: join(root, 'study', 'b', 'log, v2.csv'),
+        relPath: 'b/log, v2.csv',
+        line: 3,
+        seed: '2',
+        params: { ticks: '16' },
+        info: {},
+      },
     ]);
   });
 
@@ -50,7 +74,9 @@ describe('readManifest', () => {
     expect(problems).toHaveLength(1);
     expect(problems[0]).toMatchObject({ code: 'manifest-file-missing', severity: 'error', file: manifest, line: 4 });
     expect(problems[0]?.message).toContain('gone.csv');
-    expect(skipped).toEqual([{ file: join(root, 'gone.csv'), status: 'unreadable', rows: 0, rejectedRows: 0, runs: [], kind: 'log' }]);
+    expect(skipped).toEqual([
+      { file: join(root, 'gone.csv'), status: 'unreadable', rows: 0, rejectedRows: 0, runs: [], kind: 'log' },
+    ]);
   });
 
   it('throws an input error at line 1 when there is no file column', async () => {
@@ -79,7 +105,9 @@ describe('readManifest', () => {
 
   it('throws for a repeated or empty column name', async () => {
     const root = await tree({ 'a.csv': 'file,seed,ticks,ticks\n', 'b.csv': 'file,seed,\n' });
-    expect((await thrown(readManifest(join(root, 'a.csv')))).message).toMatch(/expected each column once, got ticks twice/);
+    expect((await thrown(readManifest(join(root, 'a.csv')))).message).toMatch(
+      /expected each column once, got ticks twice/,
+    );
     expect((await thrown(readManifest(join(root, 'b.csv')))).message).toMatch(/empty name for column 3/);
   });
 
@@ -87,7 +115,10 @@ describe('readManifest', () => {
     const root = await tree({ 'runs.csv': 'file,seed\na.csv\n,2\na.csv,3\n', 'a.csv': '' });
     const { rows, problems } = await readManifest(join(root, 'runs.csv'));
     expect(rows.map((r) => r.line)).toEqual([4]);
-    expect(problems.map((p) => [p.code, p.line])).toEqual([['manifest-invalid', 2], ['manifest-invalid', 3]]);
+    expect(problems.map((p) => [p.code, p.line])).toEqual([
+      ['manifest-invalid', 2],
+      ['manifest-invalid', 3],
+    ]);
   });
 
   it('leaves the seed null when the seed cell is empty or there is no seed column', async () => {

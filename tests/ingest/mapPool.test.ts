@@ -14,19 +14,25 @@ describe('mapPool', () => {
   it('never has more than `limit` calls in flight, and uses that many', async () => {
     let inFlight = 0;
     let most = 0;
-    await mapPool(Array.from({ length: 20 }, (_, i) => i), 4, async (i) => {
-      inFlight++;
-      most = Math.max(most, inFlight);
-      await tick(i % 3);
-      inFlight--;
-    });
+    await mapPool(
+      Array.from({ length: 20 }, (_, i) => i),
+      4,
+      async (i) => {
+        inFlight++;
+        most = Math.max(most, inFlight);
+        await tick(i % 3);
+        inFlight--;
+      },
+    );
     expect(most).toBe(4);
   });
   it('passes on the first rejection, and handles no items', async () => {
-    await expect(mapPool([1, 2, 3], 2, async (x) => {
-      if (x === 2) throw new Error('boom');
-      return x;
-    })).rejects.toThrow('boom');
+    await expect(
+      mapPool([1, 2, 3], 2, async (x) => {
+        if (x === 2) throw new Error('boom');
+        return x;
+      }),
+    ).rejects.toThrow('boom');
     expect(await mapPool([], 8, async (x: number) => x)).toEqual([]);
   });
   it('refuses a limit below 1', async () => {

@@ -19,7 +19,8 @@ afterAll(async () => {
 /** Write the folders, ingest each alone and all together. */
 async function parts(folders: Record<string, Record<string, string>>): Promise<{ parts: RunSetPart[]; raw: RunSet }> {
   const tree: Record<string, string> = {};
-  for (const [folder, files] of Object.entries(folders)) for (const [rel, text] of Object.entries(files)) tree[`${folder}/${rel}`] = text;
+  for (const [folder, files] of Object.entries(folders))
+    for (const [rel, text] of Object.entries(files)) tree[`${folder}/${rel}`] = text;
   const root = await makeTree(tree);
   made.push(root);
   const paths = Object.keys(folders).map((f) => join(root, f));
@@ -30,14 +31,24 @@ async function parts(folders: Record<string, Record<string, string>>): Promise<{
 
 const series = (set: RunSet, id: string, metric: string): unknown => {
   const s = runById(set, id).metrics[metric];
-  return s === undefined ? null : { steps: Array.from(s.steps), values: Array.from(s.values), divergedAt: s.divergedAt, missing: s.missing };
+  return s === undefined
+    ? null
+    : { steps: Array.from(s.steps), values: Array.from(s.values), divergedAt: s.divergedAt, missing: s.missing };
 };
 
 describe('one run in several parts', () => {
   it('the later part diverges after the earlier one ends: diverged, as raw', async () => {
-    const { parts: p, raw } = await parts({ A: { 'seed=1/log.csv': 'step,loss\n1,0.9\n2,0.8\n3,0.7\n4,0.6\n' }, B: { 'seed=1/log.csv': 'step,loss\n3,0.5\n4,0.4\n5,nan\n6,nan\n' } });
+    const { parts: p, raw } = await parts({
+      A: { 'seed=1/log.csv': 'step,loss\n1,0.9\n2,0.8\n3,0.7\n4,0.6\n' },
+      B: { 'seed=1/log.csv': 'step,loss\n3,0.5\n4,0.4\n5,nan\n6,nan\n' },
+    });
     const merged = await mergeRunSets(p, none);
-    expect(series(merged, 'seed=1', 'loss')).toEqual({ steps: [1, 2, 3, 4], values: [0.9, 0.8, 0.5, 0.4], divergedAt: 5, missing: 2 });
+    expect(series(merged, 'seed=1', 'loss')).toEqual({
+      steps: [1, 2, 3, 4],
+      values: [0.9, 0.8, 0.5, 0.4],
+      divergedAt: 5,
+      missing: 2,
+    });
     expect(series(merged, 'seed=1', 'loss')).toEqual(series(raw, 'seed=1', 'loss'));
     const [m, r] = [runById(merged, 'seed=1'), runById(raw, 'seed=1')];
     expect([m.status, m.divergedAt, m.lastStep]).toEqual([r.status, r.divergedAt, r.lastStep]);
@@ -45,7 +56,10 @@ describe('one run in several parts', () => {
   });
 
   it('the earlier part diverges but the later one goes on with finite values: not diverged, as raw', async () => {
-    const { parts: p, raw } = await parts({ A: { 'seed=1/log.csv': 'step,loss\n1,0.9\n2,0.8\n3,nan\n4,nan\n' }, B: { 'seed=1/log.csv': 'step,loss\n5,0.5\n6,0.4\n' } });
+    const { parts: p, raw } = await parts({
+      A: { 'seed=1/log.csv': 'step,loss\n1,0.9\n2,0.8\n3,nan\n4,nan\n' },
+      B: { 'seed=1/log.csv': 'step,loss\n5,0.5\n6,0.4\n' },
+    });
     const merged = await mergeRunSets(p, none);
     expect(series(merged, 'seed=1', 'loss')).toEqual(series(raw, 'seed=1', 'loss'));
     expect(runById(merged, 'seed=1')).toMatchObject({ status: 'ok', divergedAt: null, lastStep: 6 });
@@ -59,22 +73,35 @@ describe('one run in several parts', () => {
     });
     const merged = await mergeRunSets(p, none);
     const ticks = (set: RunSet): unknown => {
-      const t = runById(set, 'seed=1').tickMetrics['acc'];
+      const t = runById(set, 'seed=1').tickMetrics.acc;
       return { steps: Array.from(t?.steps ?? []), values: (t?.values ?? []).map((v) => Array.from(v)) };
     };
-    expect(ticks(merged)).toEqual({ steps: [1, 2, 3], values: [[0.1, 0.5, 0.8], [0.2, 0.6, 0.9], [NaN, 0.7, 1]] });
+    expect(ticks(merged)).toEqual({
+      steps: [1, 2, 3],
+      values: [
+        [0.1, 0.5, 0.8],
+        [0.2, 0.6, 0.9],
+        [NaN, 0.7, 1],
+      ],
+    });
     expect(ticks(merged)).toEqual(ticks(raw));
     expect(merged.metrics).toEqual(raw.metrics);
   });
 
   it('three parts: one run-duplicate naming all three in order', async () => {
     const log = 'step,loss\n1,0.5\n';
-    const { parts: p } = await parts({ A: { 'seed=1/log.csv': log }, B: { 'seed=1/log.csv': log }, C: { 'seed=1/log.csv': log } });
+    const { parts: p } = await parts({
+      A: { 'seed=1/log.csv': log },
+      B: { 'seed=1/log.csv': log },
+      C: { 'seed=1/log.csv': log },
+    });
     const merged = await mergeRunSets(p, none);
     const dup = withCode(merged, 'run-duplicate');
     expect(dup).toHaveLength(1);
     expect(dup[0]).toMatchObject({ run: 'seed=1', file: p[1]?.digest });
-    expect(dup[0]?.message).toMatch(new RegExp(`^3 sources claim this config and seed: ${p.map((x) => x.digest).join(', ')};`));
+    expect(dup[0]?.message).toMatch(
+      new RegExp(`^3 sources claim this config and seed: ${p.map((x) => x.digest).join(', ')};`),
+    );
   });
 });
 

@@ -36,16 +36,62 @@ import { none } from '../fixtures/ingest/tree.js';
 
 const STEP_COLUMNS = ['step', 'iteration', 'epoch'] as const;
 /** Metric column names: odd on purpose; none is a step, seed, tick or sample name, none is `name@k`. */
-const METRIC_NAMES = ['loss', 'val acc', 'ünï', 'a,b', 'q"uote', ' padded ', 'padded', '123', '', '  ', 'NaN', '-', 'x@y', 'col=1', '📈', 'Loss', 'loss'] as const;
+const METRIC_NAMES = [
+  'loss',
+  'val acc',
+  'ünï',
+  'a,b',
+  'q"uote',
+  ' padded ',
+  'padded',
+  '123',
+  '',
+  '  ',
+  'NaN',
+  '-',
+  'x@y',
+  'col=1',
+  '📈',
+  'Loss',
+  'loss',
+] as const;
 const CONFIG_VALUES = ['a', 'a b', 'ü', 'x,y', 'k=v', '-1', '0.10', '🙂'] as const;
 const SEEDS = ['1', '2', '03'] as const;
 
 const finiteCell = fc
-  .tuple(fc.double({ noNaN: true, noDefaultInfinity: true }), fc.integer({ min: 0, max: 3 }), fc.integer({ min: 1, max: 21 }))
-  .map(([x, how, digits]) => (how === 0 ? String(x) : how === 1 ? x.toExponential(digits - 1) : how === 2 ? x.toPrecision(digits) : x.toFixed(Math.min(digits, 20))));
+  .tuple(
+    fc.double({ noNaN: true, noDefaultInfinity: true }),
+    fc.integer({ min: 0, max: 3 }),
+    fc.integer({ min: 1, max: 21 }),
+  )
+  .map(([x, how, digits]) =>
+    how === 0
+      ? String(x)
+      : how === 1
+        ? x.toExponential(digits - 1)
+        : how === 2
+          ? x.toPrecision(digits)
+          : x.toFixed(Math.min(digits, 20)),
+  );
 const longNumber = fc.stringMatching(/^-?\d{1,40}(\.\d{1,60})?([eE][+-]?\d{1,3})?$/);
 const nonFinite = fc.constantFrom('nan', 'NaN', 'inf', '-inf', 'Infinity', '-INF', '1e400', '-1e999');
-const textCell = fc.constantFrom('abc', 'n/a', '-', '1,5', '1e', '0x10', 'Ø', 'true', 'FALSE', 'null', '"quoted"', '.', '+', 'e5', '1.2.3');
+const textCell = fc.constantFrom(
+  'abc',
+  'n/a',
+  '-',
+  '1,5',
+  '1e',
+  '0x10',
+  'Ø',
+  'true',
+  'FALSE',
+  'null',
+  '"quoted"',
+  '.',
+  '+',
+  'e5',
+  '1.2.3',
+);
 const emptyCell = fc.constantFrom('', ' ', '  ');
 const cell = fc.oneof(
   { arbitrary: finiteCell, weight: 6 },
@@ -61,7 +107,10 @@ const stepCell = fc.oneof(
   { arbitrary: fc.constantFrom('', 'x', 'nan', '1e400', '-inf'), weight: 1 },
 );
 
-type Line = { readonly kind: 'row'; readonly cells: readonly string[] } | { readonly kind: 'blank' } | { readonly kind: 'spaces' };
+type Line =
+  | { readonly kind: 'row'; readonly cells: readonly string[] }
+  | { readonly kind: 'blank' }
+  | { readonly kind: 'spaces' };
 
 interface GenFile {
   readonly cfg: string;
@@ -95,11 +144,32 @@ const genFile: fc.Arbitrary<GenFile> = fc
     const width = g.metrics.length + 1;
     const stepAt = g.stepAt % width;
     const header = [...g.metrics.slice(0, stepAt), g.step, ...g.metrics.slice(stepAt)];
-    const row = fc.tuple(stepCell, fc.array(cell, { minLength: width - 1, maxLength: width - 1 })).map(([s, cs]): Line => ({ kind: 'row', cells: [...cs.slice(0, stepAt), s, ...cs.slice(stepAt)] }));
-    const ragged = fc.array(cell, { minLength: 1, maxLength: width + 2 }).filter((cs) => cs.length !== width).map((cells): Line => ({ kind: 'row', cells }));
-    const line = fc.oneof({ arbitrary: row, weight: 16 }, { arbitrary: ragged, weight: 1 }, { arbitrary: fc.constant<Line>({ kind: 'blank' }), weight: 1 }, { arbitrary: fc.constant<Line>({ kind: 'spaces' }), weight: 1 });
+    const row = fc
+      .tuple(stepCell, fc.array(cell, { minLength: width - 1, maxLength: width - 1 }))
+      .map(([s, cs]): Line => ({ kind: 'row', cells: [...cs.slice(0, stepAt), s, ...cs.slice(stepAt)] }));
+    const ragged = fc
+      .array(cell, { minLength: 1, maxLength: width + 2 })
+      .filter((cs) => cs.length !== width)
+      .map((cells): Line => ({ kind: 'row', cells }));
+    const line = fc.oneof(
+      { arbitrary: row, weight: 16 },
+      { arbitrary: ragged, weight: 1 },
+      { arbitrary: fc.constant<Line>({ kind: 'blank' }), weight: 1 },
+      { arbitrary: fc.constant<Line>({ kind: 'spaces' }), weight: 1 },
+    );
     return fc.array(line, { minLength: g.rowCount, maxLength: g.rowCount }).map(
-      (lines): GenFile => ({ cfg: g.cfg, seed: g.seed, name: g.name, header, stepAt, lines, eol: g.eol, bom: g.bom, finalEol: g.finalEol, quoteAll: g.quoteAll }),
+      (lines): GenFile => ({
+        cfg: g.cfg,
+        seed: g.seed,
+        name: g.name,
+        header,
+        stepAt,
+        lines,
+        eol: g.eol,
+        bom: g.bom,
+        finalEol: g.finalEol,
+        quoteAll: g.quoteAll,
+      }),
     );
   });
 
@@ -122,7 +192,11 @@ function fileText(f: GenFile): string {
 // ---------------------------------------------------------------------------------------------
 // The independent reading
 
-type Cell = { readonly kind: 'finite'; readonly value: number } | { readonly kind: 'nonfinite' } | { readonly kind: 'empty' } | { readonly kind: 'text' };
+type Cell =
+  | { readonly kind: 'finite'; readonly value: number }
+  | { readonly kind: 'nonfinite' }
+  | { readonly kind: 'empty' }
+  | { readonly kind: 'text' };
 
 const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 const NAN_INF = /^[+-]?(nan|inf|infinity)$/i;
@@ -174,7 +248,13 @@ interface RefFile {
 }
 
 function readReference(f: GenFile, path: string): RefFile {
-  const records = parse(fileText(f), { bom: true, relax_column_count: true, skip_empty_lines: true, info: true, record_delimiter: f.eol }) as unknown as { record: string[]; info: { lines: number } }[];
+  const records = parse(fileText(f), {
+    bom: true,
+    relax_column_count: true,
+    skip_empty_lines: true,
+    info: true,
+    record_delimiter: f.eol,
+  }) as unknown as { record: string[]; info: { lines: number } }[];
   const [head, ...data] = records;
   const names = columnNames(head?.record ?? []);
   const stepName = names[f.stepAt] as string;
@@ -206,7 +286,9 @@ interface RefSeries {
 
 /** One metric of one run under the policies of DESIGN.md "Messy logs" (see the module comment). */
 function refSeries(rows: readonly RefRow[], name: string): RefSeries & { winners: Set<RefRow>; losers: Set<RefRow> } {
-  const order = rows.map((r, k) => ({ r, k, step: (r.step as { value: number }).value })).sort((a, b) => a.step - b.step || a.k - b.k);
+  const order = rows
+    .map((r, k) => ({ r, k, step: (r.step as { value: number }).value }))
+    .sort((a, b) => a.step - b.step || a.k - b.k);
   const logs = (r: RefRow): boolean => {
     const c = r.cells.get(name);
     return c !== undefined && (c.kind === 'finite' || c.kind === 'nonfinite');
@@ -229,7 +311,8 @@ function refSeries(rows: readonly RefRow[], name: string): RefSeries & { winners
   while (end > 0 && (winners[end - 1] as RefRow).cells.get(name)?.kind === 'nonfinite') end--;
   // A divergence needs a finite value before the non-finite tail (a never-finite metric is empty).
   const finiteBefore = winners.slice(0, end).some((w) => w.cells.get(name)?.kind === 'finite');
-  const divergedAt = end < winners.length && finiteBefore ? ((winners[end] as RefRow).step as { value: number }).value : null;
+  const divergedAt =
+    end < winners.length && finiteBefore ? ((winners[end] as RefRow).step as { value: number }).value : null;
   const finite = winners.filter((w) => w.cells.get(name)?.kind === 'finite');
   return {
     steps: finite.map((w) => (w.step as { value: number }).value),
@@ -259,7 +342,9 @@ function reference(root: string, study: readonly GenFile[]): { files: RefFile[];
   const used = files.filter((f) => f.rows.length + f.malformedLines.length > 0);
   // Study-wide: a metric is a column holding a number (finite, nan or inf) in some file.
   const numeric = new Set<string>();
-  for (const f of used) for (const r of f.rows) for (const [n, c] of r.cells) if (c.kind === 'finite' || c.kind === 'nonfinite') numeric.add(n);
+  for (const f of used)
+    for (const r of f.rows)
+      for (const [n, c] of r.cells) if (c.kind === 'finite' || c.kind === 'nonfinite') numeric.add(n);
   const groups = new Map<string, { cfg: string; files: RefFile[] }>();
   study.forEach((g, k) => {
     const f = files[k] as RefFile;
@@ -278,7 +363,11 @@ function reference(root: string, study: readonly GenFile[]): { files: RefFile[];
     for (const f of group.files) {
       for (const r of f.rows) {
         if (r.step.kind !== 'finite') invalid.set(f.path, [...(invalid.get(f.path) ?? []), r]);
-        else rows.push({ ...r, cells: new Map(metricNames.map((n) => [n, r.cells.get(n) ?? { kind: 'empty' as const }])) });
+        else
+          rows.push({
+            ...r,
+            cells: new Map(metricNames.map((n) => [n, r.cells.get(n) ?? { kind: 'empty' as const }])),
+          });
       }
     }
     const series = new Map(metricNames.map((n) => [n, refSeries(rows, n)] as const));
@@ -303,7 +392,8 @@ function reference(root: string, study: readonly GenFile[]): { files: RefFile[];
 // ---------------------------------------------------------------------------------------------
 // The comparison
 
-const same = (a: readonly number[], b: readonly number[]): boolean => a.length === b.length && a.every((x, k) => Object.is(x, b[k]));
+const same = (a: readonly number[], b: readonly number[]): boolean =>
+  a.length === b.length && a.every((x, k) => Object.is(x, b[k]));
 
 function compare(set: RunSet, ref: { files: RefFile[]; runs: RefRun[] }): void {
   expect(silentLosses(set)).toEqual([]);
@@ -311,49 +401,82 @@ function compare(set: RunSet, ref: { files: RefFile[]; runs: RefRun[] }): void {
     const rec = set.files.find((r) => r.file === f.path);
     expect(rec, f.path).toBeDefined();
     expect(rec?.status, f.path).toBe('read');
-    expect([rec?.rows, rec?.rejectedRows], `${f.path}: rows kept, rows rejected`).toEqual([f.rows.length, f.malformedLines.length]);
+    expect([rec?.rows, rec?.rejectedRows], `${f.path}: rows kept, rows rejected`).toEqual([
+      f.rows.length,
+      f.malformedLines.length,
+    ]);
     const lines = set.problems.filter((p) => p.code === 'row-malformed' && p.file === f.path).map((p) => p.line);
     expect(lines, `${f.path}: lines of the malformed rows`).toEqual(f.malformedLines);
-    if (f.rows.length + f.malformedLines.length === 0) expect(set.problems.some((p) => p.code === 'file-empty' && p.file === f.path), f.path).toBe(true);
+    if (f.rows.length + f.malformedLines.length === 0)
+      expect(
+        set.problems.some((p) => p.code === 'file-empty' && p.file === f.path),
+        f.path,
+      ).toBe(true);
   }
   expect(set.runs.map((r) => r.id).sort()).toEqual(ref.runs.map((r) => r.id).sort());
   for (const r of ref.runs) {
     const run = set.runs.find((x) => x.id === r.id);
     if (run === undefined) continue;
     const where = `run ${r.id}`;
-    expect([run.status, run.lastStep, run.divergedAt], `${where}: status, lastStep, divergedAt`).toEqual([r.status, r.lastStep ?? 0, r.divergedAt]);
+    expect([run.status, run.lastStep, run.divergedAt], `${where}: status, lastStep, divergedAt`).toEqual([
+      r.status,
+      r.lastStep ?? 0,
+      r.divergedAt,
+    ]);
     expect(Object.keys(run.metrics).sort(), `${where}: metrics`).toEqual([...r.series.keys()].sort());
     const problemsOf = set.problems.filter((p) => p.run === r.id);
     for (const [name, s] of r.series) {
       const got = run.metrics[name];
       expect(got, `${where} ${name}`).toBeDefined();
       if (got === undefined) continue;
-      expect(same(Array.from(got.steps), s.steps), `${where} ${name}: steps ${String(Array.from(got.steps))} vs ${String(s.steps)}`).toBe(true);
-      expect(same(Array.from(got.values), s.values), `${where} ${name}: values ${String(Array.from(got.values))} vs ${String(s.values)}`).toBe(true);
+      expect(
+        same(Array.from(got.steps), s.steps),
+        `${where} ${name}: steps ${String(Array.from(got.steps))} vs ${String(s.steps)}`,
+      ).toBe(true);
+      expect(
+        same(Array.from(got.values), s.values),
+        `${where} ${name}: values ${String(Array.from(got.values))} vs ${String(s.values)}`,
+      ).toBe(true);
       expect([got.missing, got.divergedAt], `${where} ${name}: missing, divergedAt`).toEqual([s.missing, s.divergedAt]);
-      if (s.missing > 0) expect(problemsOf.some((p) => p.code === 'cells-missing' && p.message.includes(`${name} ${s.missing} (`)), `${where} ${name}: cells-missing ${s.missing}`).toBe(true);
+      if (s.missing > 0)
+        expect(
+          problemsOf.some((p) => p.code === 'cells-missing' && p.message.includes(`${name} ${s.missing} (`)),
+          `${where} ${name}: cells-missing ${s.missing}`,
+        ).toBe(true);
     }
-    if (![...r.series.values()].some((s) => s.missing > 0)) expect(problemsOf.some((p) => p.code === 'cells-missing'), `${where}: no cells-missing`).toBe(false);
+    if (![...r.series.values()].some((s) => s.missing > 0))
+      expect(
+        problemsOf.some((p) => p.code === 'cells-missing'),
+        `${where}: no cells-missing`,
+      ).toBe(false);
     // Unusable steps: counted per file, first lines listed.
     for (const [file, rows] of r.invalid) {
       const p = problemsOf.find((q) => q.code === 'step-invalid' && q.file === file);
       expect(p?.message, `${where}: step-invalid in ${file}`).toMatch(new RegExp(`^${rows.length} row\\(s\\)`));
       expect(p?.line, `${where}: first invalid step line`).toBe(rows[0]?.line);
     }
-    expect(problemsOf.filter((q) => q.code === 'step-invalid').length, `${where}: step-invalid problems`).toBe(r.invalid.size);
+    expect(problemsOf.filter((q) => q.code === 'step-invalid').length, `${where}: step-invalid problems`).toBe(
+      r.invalid.size,
+    );
     const duplicated = new Set([...r.series.values()].flatMap((s) => s.duplicateSteps));
     const dup = problemsOf.find((q) => q.code === 'steps-duplicated');
-    if (duplicated.size > 0) expect(dup?.message, `${where}: steps-duplicated`).toMatch(new RegExp(`^${duplicated.size} step\\(s\\)`));
+    if (duplicated.size > 0)
+      expect(dup?.message, `${where}: steps-duplicated`).toMatch(new RegExp(`^${duplicated.size} step\\(s\\)`));
     else expect(dup, `${where}: no steps-duplicated`).toBeUndefined();
     // Every usable row reaches a series or is counted by a problem of its run.
     for (const row of r.rows) {
       const reaches = [...r.series.values()].some((s) => s.winners.has(row));
       if (reaches) continue;
       const lost = [...r.series.values()].some((s) => s.losers.has(row));
-      const counted = (lost && dup !== undefined) || problemsOf.some((q) => q.code === 'cells-missing') || r.series.size === 0;
+      const counted =
+        (lost && dup !== undefined) || problemsOf.some((q) => q.code === 'cells-missing') || r.series.size === 0;
       expect(counted, `${where}: row at line ${row.line} neither used nor counted`).toBe(true);
     }
-    if (r.status !== 'ok') expect(problemsOf.length + set.problems.filter((p) => p.file !== undefined && run.files.includes(p.file)).length, `${where}: ${r.status} without a problem`).toBeGreaterThan(0);
+    if (r.status !== 'ok')
+      expect(
+        problemsOf.length + set.problems.filter((p) => p.file !== undefined && run.files.includes(p.file)).length,
+        `${where}: ${r.status} without a problem`,
+      ).toBeGreaterThan(0);
   }
 }
 

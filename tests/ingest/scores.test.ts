@@ -18,7 +18,10 @@ async function table(name: string, text: string): Promise<string> {
 
 describe('score tables', () => {
   it('text columns are the config; other numeric columns are metrics at step 0', async () => {
-    const file = await table('scores.csv', 'method,task,seed,acc,loss\nours,a,1,0.9,0.2\nours,a,2,0.85,\nbase,a,1,0.8,0.3\n');
+    const file = await table(
+      'scores.csv',
+      'method,task,seed,acc,loss\nours,a,1,0.9,0.2\nours,a,2,0.85,\nbase,a,1,0.8,0.3\n',
+    );
     const set = await ingest([], opts({ scores: file }));
     expect(set.mode).toBe('scores');
     expect(set.keys).toEqual(['method', 'task']);
@@ -28,17 +31,26 @@ describe('score tables', () => {
       ['method=base,task=a,seed=1', 'scores', 0, 'ok'],
     ]);
     const run = runById(set, 'method=ours,task=a,seed=1');
-    expect(Array.from(run.metrics['acc']?.steps ?? [])).toEqual([0]);
-    expect(Array.from(run.metrics['acc']?.values ?? [])).toEqual([0.9]);
+    expect(Array.from(run.metrics.acc?.steps ?? [])).toEqual([0]);
+    expect(Array.from(run.metrics.acc?.values ?? [])).toEqual([0.9]);
     expect(Object.keys(runById(set, 'method=ours,task=a,seed=2').metrics)).toEqual(['acc']);
     expect(set.problems.filter((p) => p.code === 'score-missing')).toEqual([
-      { severity: 'note', code: 'score-missing', message: 'loss is empty for this run', file, line: 3, run: 'method=ours,task=a,seed=2' },
+      {
+        severity: 'note',
+        code: 'score-missing',
+        message: 'loss is empty for this run',
+        file,
+        line: 3,
+        run: 'method=ours,task=a,seed=2',
+      },
     ]);
     expect(set.metrics.map((m) => [m.name, m.goal])).toEqual([
       ['acc', 'max'],
       ['loss', 'min'],
     ]);
-    expect(set.files).toEqual([{ file, status: 'read', rows: 3, rejectedRows: 0, runs: set.runs.map((r) => r.id), kind: 'scores' }]);
+    expect(set.files).toEqual([
+      { file, status: 'read', rows: 3, rejectedRows: 0, runs: set.runs.map((r) => r.id), kind: 'scores' },
+    ]);
   });
 
   it('--by names config columns that hold numbers', async () => {
@@ -52,7 +64,7 @@ describe('score tables', () => {
     const file = await table('s.csv', 'm,seed,acc\na,1,0.5\na,1,0.6\n');
     const set = await ingest([], opts({ scores: file }));
     expect(set.runs).toHaveLength(1);
-    expect(Array.from(runById(set, 'm=a,seed=1').metrics['acc']?.values ?? [])).toEqual([0.6]);
+    expect(Array.from(runById(set, 'm=a,seed=1').metrics.acc?.values ?? [])).toEqual([0.6]);
     expect(set.problems.filter((p) => p.code === 'run-duplicate').map((p) => p.line)).toEqual([3]);
   });
 
@@ -61,7 +73,7 @@ describe('score tables', () => {
     const set = await ingest([], opts({ scores: file }));
     expect(set.runs.map((r) => r.id)).toEqual(['seed=auto-1', 'seed=auto-2']);
     expect(set.problems.filter((p) => p.code === 'seed-missing').map((p) => p.line)).toEqual([2, 3]);
-    expect(Array.from(runById(set, 'seed=auto-2').metrics['b']?.values ?? [])).toEqual([4]);
+    expect(Array.from(runById(set, 'seed=auto-2').metrics.b?.values ?? [])).toEqual([4]);
   });
 
   it('a missing score table is a usage error; --by must name a column', async () => {

@@ -49,7 +49,9 @@ describe('readSidecar', () => {
   });
 
   it('reads top-level keys, stringified, with the line of each key', async () => {
-    const root = await tree({ 'params.json': '{\n  "ticks": 32,\n  "lr": 0.0001,\n  "model": {"ticks": 1, "w": [1, 2]},\n  "name": "ctm"\n}\n' });
+    const root = await tree({
+      'params.json': '{\n  "ticks": 32,\n  "lr": 0.0001,\n  "model": {"ticks": 1, "w": [1, 2]},\n  "name": "ctm"\n}\n',
+    });
     const { sidecar, problems } = await readSidecar(join(root, 'params.json'));
     expect(problems).toEqual([]);
     expect(sidecar?.values).toEqual({ ticks: '32', lr: '0.0001', model: '{"ticks":1,"w":[1,2]}', name: 'ctm' });
@@ -75,18 +77,32 @@ describe('readSidecar', () => {
 });
 
 describe('mergeSidecar', () => {
-  const sidecar: Sidecar = { file: 'runs/a/params.json', values: { ticks: '16', memory: '4', seed: '3', _host: 'gpu1', lr: '0.10' }, lines: { ticks: 2, memory: 3, seed: 4 } };
+  const sidecar: Sidecar = {
+    file: 'runs/a/params.json',
+    values: { ticks: '16', memory: '4', seed: '3', _host: 'gpu1', lr: '0.10' },
+    lines: { ticks: 2, memory: 3, seed: 4 },
+  };
 
   it('adds new keys after the path keys and keeps the path value on disagreement', () => {
-    const { identity, problems } = mergeSidecar({ params: { ticks: '32', lr: '0.1' }, info: {}, seed: '3' }, sidecar, 'path', true);
+    const { identity, problems } = mergeSidecar(
+      { params: { ticks: '32', lr: '0.1' }, info: {}, seed: '3' },
+      sidecar,
+      'path',
+      true,
+    );
     expect(identity.params).toEqual({ ticks: '32', lr: '0.1', memory: '4' });
     expect(Object.keys(identity.params)).toEqual(['ticks', 'lr', 'memory']);
     expect(identity.info).toEqual({ _host: 'gpu1' });
     expect(identity.seed).toBe('3');
-    expect(problems).toEqual([{
-      severity: 'warning', code: 'params-mismatch', file: 'runs/a/params.json', line: 2,
-      message: "params.json says ticks=16 but the path says ticks=32; the path's value was kept",
-    }]);
+    expect(problems).toEqual([
+      {
+        severity: 'warning',
+        code: 'params-mismatch',
+        file: 'runs/a/params.json',
+        line: 2,
+        message: "params.json says ticks=16 but the path says ticks=32; the path's value was kept",
+      },
+    ]);
   });
 
   it('supplies the seed when the path has none, and checks it when it has one', () => {

@@ -24,7 +24,10 @@ describe('fromProbabilities', () => {
     expect(fromProbabilities([0, 1, 0])).toEqual({ certainty: 1, confidence: 1, predicted: 1 });
   });
   it('normalises by the sum (rounding in the file does not matter)', () => {
-    expect(fromProbabilities([1.4, 0.4, 0.2])?.certainty).toBeCloseTo(fromProbabilities([0.7, 0.2, 0.1])?.certainty as number, 15);
+    expect(fromProbabilities([1.4, 0.4, 0.2])?.certainty).toBeCloseTo(
+      fromProbabilities([0.7, 0.2, 0.1])?.certainty as number,
+      15,
+    );
   });
   it('ties go to the first class (as numpy argmax)', () => {
     expect(fromProbabilities([0.4, 0.4, 0.2])?.predicted).toBe(0);
@@ -39,10 +42,24 @@ describe('fromProbabilities', () => {
 
 describe('planDump', () => {
   it('finds the required and optional columns', () => {
-    expect(planDump(['sample', 'tick', 'correct', 'certainty', 'confidence', 'step'], 'step')).toEqual({ sample: 0, tick: 1, correct: 2, certainty: 3, confidence: 4, step: 5, label: null, probabilities: [] });
+    expect(planDump(['sample', 'tick', 'correct', 'certainty', 'confidence', 'step'], 'step')).toEqual({
+      sample: 0,
+      tick: 1,
+      correct: 2,
+      certainty: 3,
+      confidence: 4,
+      step: 5,
+      label: null,
+      probabilities: [],
+    });
   });
   it('accepts p0..pK with label (or target) instead of correct and certainty', () => {
-    expect(planDump(['sample', 'tick', 'target', 'p0', 'p1', 'p2'], 'step')).toMatchObject({ label: 2, probabilities: [3, 4, 5], correct: null, certainty: null });
+    expect(planDump(['sample', 'tick', 'target', 'p0', 'p1', 'p2'], 'step')).toMatchObject({
+      label: 2,
+      probabilities: [3, 4, 5],
+      correct: null,
+      certainty: null,
+    });
   });
   it('names what is missing', () => {
     expect(planDump(['sample', 'tick', 'correct'], 'step')).toEqual({ missing: 'certainty (or p0..pK)' });
@@ -52,13 +69,26 @@ describe('planDump', () => {
 const f64 = (...x: number[]): Float64Array => Float64Array.from(x);
 
 describe('buildDumps', () => {
-  const cols: DumpColumns = { sample: 0, tick: 1, correct: 2, certainty: 3, confidence: null, step: null, label: null, probabilities: [] };
+  const cols: DumpColumns = {
+    sample: 0,
+    tick: 1,
+    correct: 2,
+    certainty: 3,
+    confidence: null,
+    step: null,
+    label: null,
+    probabilities: [],
+  };
   it('fills samples x ticks sample-major, samples ordered by id', () => {
     // rows out of order: sample 7 before sample 3
     const cells = [f64(7, 7, 3, 3), f64(1, 0, 0, 1), f64(1, 0, 0, 1), f64(0.9, 0.2, 0.1, 0.8)];
     const r = buildDumps((k) => cells[k]!, 4, cols);
     expect('dumps' in r).toBe(true);
-    const d = (r as { dumps: { samples: number; ticks: number; correct: Uint8Array; certainty: Float64Array; step: number | null }[] }).dumps[0]!;
+    const d = (
+      r as {
+        dumps: { samples: number; ticks: number; correct: Uint8Array; certainty: Float64Array; step: number | null }[];
+      }
+    ).dumps[0]!;
     expect([d.samples, d.ticks, d.step]).toEqual([2, 2, null]);
     expect(Array.from(d.correct)).toEqual([0, 1, 0, 1]); // sample 3: ticks 0, 1; then sample 7
     expect(Array.from(d.certainty)).toEqual([0.1, 0.8, 0.2, 0.9]);
@@ -66,9 +96,20 @@ describe('buildDumps', () => {
   it('computes certainty, confidence and correct from probabilities and label', () => {
     const e = [Math.exp(2), Math.exp(1), 1];
     const s = e[0]! + e[1]! + e[2]!;
-    const pc = { sample: 0, tick: 1, correct: null, certainty: null, confidence: null, step: null, label: 2, probabilities: [3, 4, 5] };
+    const pc = {
+      sample: 0,
+      tick: 1,
+      correct: null,
+      certainty: null,
+      confidence: null,
+      step: null,
+      label: 2,
+      probabilities: [3, 4, 5],
+    };
     const cells = [f64(0, 0), f64(0, 1), f64(0, 1), f64(e[0]! / s, 0.1), f64(e[1]! / s, 0.8), f64(e[2]! / s, 0.1)];
-    const r = buildDumps((k) => cells[k]!, 2, pc) as { dumps: { correct: Uint8Array; certainty: Float64Array; confidence: Float64Array }[] };
+    const r = buildDumps((k) => cells[k]!, 2, pc) as {
+      dumps: { correct: Uint8Array; certainty: Float64Array; confidence: Float64Array }[];
+    };
     const d = r.dumps[0]!;
     expect(Array.from(d.correct)).toEqual([1, 1]); // argmax 0 = label 0; argmax 1 = label 1
     expect(d.certainty[0]).toBeCloseTo(0.24232088933841778, 14);
@@ -82,12 +123,16 @@ describe('buildDumps', () => {
   });
   it('an incomplete grid, a repeated tick or a bad cell makes the dump invalid', () => {
     const hole = [f64(0, 0, 1), f64(0, 1, 0), f64(1, 1, 1), f64(0.1, 0.2, 0.3)];
-    expect(buildDumps((k) => hole[k]!, 3, cols)).toEqual({ invalid: { row: -1, reason: 'sample 1 lacks tick 1 (every sample needs ticks 0..1)' } });
+    expect(buildDumps((k) => hole[k]!, 3, cols)).toEqual({
+      invalid: { row: -1, reason: 'sample 1 lacks tick 1 (every sample needs ticks 0..1)' },
+    });
     const twice = [f64(0, 0), f64(0, 0), f64(1, 1), f64(0.1, 0.2)];
     expect(buildDumps((k) => twice[k]!, 2, cols)).toEqual({ invalid: { row: 1, reason: 'sample 0 has tick 0 twice' } });
     const bad = [f64(0), f64(0), f64(2), f64(0.1)];
     expect(buildDumps((k) => bad[k]!, 1, cols)).toEqual({ invalid: { row: 0, reason: 'correct is not 0 or 1' } });
     const over = [f64(0), f64(0), f64(1), f64(1.5)];
-    expect(buildDumps((k) => over[k]!, 1, cols)).toEqual({ invalid: { row: 0, reason: 'certainty is not a number in [0, 1]' } });
+    expect(buildDumps((k) => over[k]!, 1, cols)).toEqual({
+      invalid: { row: 0, reason: 'certainty is not a number in [0, 1]' },
+    });
   });
 });

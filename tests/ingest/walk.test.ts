@@ -19,7 +19,15 @@ async function tree(t: Tree): Promise<string> {
 describe('comparePaths', () => {
   it('orders segment by segment, by code units (a folder b before a file b.csv)', () => {
     const paths = ['b.csv', 'a-c/x.csv', 'a/b.csv', 'a/B.csv', 'a/b/c.csv', 'seed=10/x.csv', 'seed=2/x.csv'];
-    expect([...paths].sort(comparePaths)).toEqual(['a/B.csv', 'a/b/c.csv', 'a/b.csv', 'a-c/x.csv', 'b.csv', 'seed=10/x.csv', 'seed=2/x.csv']);
+    expect([...paths].sort(comparePaths)).toEqual([
+      'a/B.csv',
+      'a/b/c.csv',
+      'a/b.csv',
+      'a-c/x.csv',
+      'b.csv',
+      'seed=10/x.csv',
+      'seed=2/x.csv',
+    ]);
   });
 });
 
@@ -61,11 +69,19 @@ describe('walk', () => {
     const result = await walk([root]);
     expect(result.files.map((f) => f.relPath)).toEqual(['a/log.csv']);
     const loops = result.problems.filter((p) => /symbolic link loop/.test(p.message));
-    expect(loops.map((p) => [p.code, p.file])).toEqual([['file-skipped', join(root, 'a', 'back')], ['file-skipped', join(root, 'a', 'self')]]);
+    expect(loops.map((p) => [p.code, p.file])).toEqual([
+      ['file-skipped', join(root, 'a', 'back')],
+      ['file-skipped', join(root, 'a', 'self')],
+    ]);
   });
 
   it('stops at a loop between two folders', async () => {
-    const root = await tree({ 'x/log.csv': '', 'x/to-y': { link: '../y' }, 'y/log.csv': '', 'y/to-x': { link: '../x' } });
+    const root = await tree({
+      'x/log.csv': '',
+      'x/to-y': { link: '../y' },
+      'y/log.csv': '',
+      'y/to-x': { link: '../x' },
+    });
     const result = await walk([root]);
     expect(result.files.map((f) => f.relPath)).toEqual(['x/log.csv', 'y/log.csv']);
     expect(result.problems.map((p) => p.file)).toEqual([join(root, 'x', 'to-y'), join(root, 'y', 'to-x')]);
@@ -80,15 +96,27 @@ describe('walk', () => {
   });
 
   it('reads a file reached by a link and by its own path once, under its own path', async () => {
-    const root = await tree({ 'latest': { link: 'run_2' }, 'run_2/log.csv': '', 'a-link.csv': { link: 'run_2/log.csv' } });
+    const root = await tree({
+      latest: { link: 'run_2' },
+      'run_2/log.csv': '',
+      'a-link.csv': { link: 'run_2/log.csv' },
+    });
     const result = await walk([root]);
     expect(result.files.map((f) => f.relPath)).toEqual(['run_2/log.csv']);
     // The file link is a second path to a file read once: listed as skipped, with a note.
     expect(result.skipped.map((r) => [r.file, r.status])).toEqual([[join(root, 'a-link.csv'), 'skipped']]);
     // The folder link is not followed (its folder is searched already).
     expect(result.problems.map((p) => [p.code, p.file, p.message])).toEqual([
-      ['file-skipped', join(root, 'latest'), `folder not searched again: it was already searched as ${join(root, 'run_2')}`],
-      ['file-skipped', join(root, 'a-link.csv'), `same file as ${join(root, 'run_2', 'log.csv')} (reached by a second path); taken once, under that path`],
+      [
+        'file-skipped',
+        join(root, 'latest'),
+        `folder not searched again: it was already searched as ${join(root, 'run_2')}`,
+      ],
+      [
+        'file-skipped',
+        join(root, 'a-link.csv'),
+        `same file as ${join(root, 'run_2', 'log.csv')} (reached by a second path); taken once, under that path`,
+      ],
     ]);
   });
 
@@ -96,7 +124,9 @@ describe('walk', () => {
     const root = await tree({ '.git/objects/x.csv': '', '._log.csv': '', 'log.csv': '' });
     const result = await walk([root]);
     expect(result.files.map((f) => f.relPath)).toEqual(['log.csv']);
-    expect(result.skipped).toEqual([{ file: join(root, '._log.csv'), status: 'skipped', rows: 0, rejectedRows: 0, runs: [], kind: 'log' }]);
+    expect(result.skipped).toEqual([
+      { file: join(root, '._log.csv'), status: 'skipped', rows: 0, rejectedRows: 0, runs: [], kind: 'log' },
+    ]);
     expect(result.problems.map((p) => [p.code, p.file, p.message])).toEqual([
       ['file-skipped', join(root, '._log.csv'), 'hidden file not read'],
       ['file-skipped', join(root, '.git'), 'hidden folder not searched'],
@@ -104,10 +134,13 @@ describe('walk', () => {
   });
 
   it('records a broken link to a log file as unreadable', async () => {
-    const root = await tree({ 'log.csv': { link: 'gone.csv' }, 'notes': { link: 'gone' } });
+    const root = await tree({ 'log.csv': { link: 'gone.csv' }, notes: { link: 'gone' } });
     const result = await walk([root]);
     expect(result.files).toEqual([]);
-    expect(result.skipped.map((r) => [r.file, r.status, r.kind])).toEqual([[join(root, 'log.csv'), 'unreadable', 'log'], [join(root, 'notes'), 'skipped', 'unknown']]);
+    expect(result.skipped.map((r) => [r.file, r.status, r.kind])).toEqual([
+      [join(root, 'log.csv'), 'unreadable', 'log'],
+      [join(root, 'notes'), 'skipped', 'unknown'],
+    ]);
     expect(result.problems.map((p) => p.code)).toEqual(['file-unreadable', 'file-skipped']);
   });
 

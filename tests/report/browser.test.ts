@@ -20,8 +20,17 @@ import { DEFAULT_NOTEBOOK } from '../../src/report/templatePaths.js';
 import { HOSTILE_NAMES, LONG_NAME } from './hostileNames.js';
 import { SAMPLE_NAMES, sampleResults } from './sampleResults.js';
 
-const CHROMIUM = process.env['CHROMIUM_PATH'] ?? '/usr/bin/chromium';
-const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+const ARGS = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
 const ARTIFACTS = fileURLToPath(new URL('../.artifacts/', import.meta.url));
 const VIEWPORT = { width: 1280, height: 800 };
 const NOTEBOOK = readFileSync(DEFAULT_NOTEBOOK, 'utf8');
@@ -62,8 +71,17 @@ async function hydrateAll(page: Page): Promise<string[]> {
   const charts = page.locator('.chart-view');
   const n = await charts.count();
   for (let i = 0; i < n; i++) await charts.nth(i).scrollIntoViewIfNeeded();
-  await page.waitForFunction(() => [...document.querySelectorAll('.chart-view')].every((v) => ['true', 'failed'].includes(v.getAttribute('data-live') ?? '')), null, { timeout: 60_000 });
-  return page.evaluate(() => [...document.querySelectorAll('.chart-view')].map((v) => v.getAttribute('data-live') ?? ''));
+  await page.waitForFunction(
+    () =>
+      [...document.querySelectorAll('.chart-view')].every((v) =>
+        ['true', 'failed'].includes(v.getAttribute('data-live') ?? ''),
+      ),
+    null,
+    { timeout: 60_000 },
+  );
+  return page.evaluate(() =>
+    [...document.querySelectorAll('.chart-view')].map((v) => v.getAttribute('data-live') ?? ''),
+  );
 }
 
 /** Per chart: the number of drawn marks (paths with a shape, rects, lines, text) in its SVG. */
@@ -81,10 +99,12 @@ async function marksPerChart(page: Page): Promise<number[]> {
 
 const suite = available ? describe : describe.skip;
 
-if (!available && process.env['CI'] !== undefined) {
+if (!available && process.env.CI !== undefined) {
   describe('browser', () => {
     it('needs chromium under CI', () => {
-      throw new Error(`chromium not found at ${CHROMIUM}: install it (apt-get install -y chromium) or set CHROMIUM_PATH`);
+      throw new Error(
+        `chromium not found at ${CHROMIUM}: install it (apt-get install -y chromium) or set CHROMIUM_PATH`,
+      );
     });
   });
 }
@@ -109,8 +129,15 @@ suite('the report in chromium', () => {
     console.info(`report.html: ${statSync(reportFile).size} bytes, load event after ${watch.openMs.toFixed(0)} ms`);
 
     // The policy the page runs under: scripts only by hash, no eval of any kind.
-    const csp = await page.evaluate(() => document.querySelector('meta[http-equiv="Content-Security-Policy"]')?.getAttribute('content') ?? '');
-    const scriptSrc = csp.split('; ').find((d) => d.startsWith('script-src '))?.split(' ').slice(1) ?? [];
+    const csp = await page.evaluate(
+      () => document.querySelector('meta[http-equiv="Content-Security-Policy"]')?.getAttribute('content') ?? '',
+    );
+    const scriptSrc =
+      csp
+        .split('; ')
+        .find((d) => d.startsWith('script-src '))
+        ?.split(' ')
+        .slice(1) ?? [];
     expect(scriptSrc).toHaveLength(3);
     expect(scriptSrc.every((source) => /^'sha256-[A-Za-z0-9+/]+=*'$/.test(source))).toBe(true);
     expect(csp).not.toContain('unsafe-eval');
@@ -152,7 +179,14 @@ suite('the report in chromium', () => {
     const curves = page.locator('figure.chart').nth(0);
     await curves.scrollIntoViewIfNeeded();
     const meanOpacity = (): Promise<Record<string, string>> =>
-      curves.evaluate((f) => Object.fromEntries([...f.querySelectorAll('.mean_marks path')].map((p) => [p.getAttribute('stroke') ?? '', p.getAttribute('opacity') ?? '1'])));
+      curves.evaluate((f) =>
+        Object.fromEntries(
+          [...f.querySelectorAll('.mean_marks path')].map((p) => [
+            p.getAttribute('stroke') ?? '',
+            p.getAttribute('opacity') ?? '1',
+          ]),
+        ),
+      );
     const [c0, c1, c2] = [CONFIG_COLOURS[0] ?? '', CONFIG_COLOURS[1] ?? '', CONFIG_COLOURS[2] ?? ''];
     expect(await meanOpacity()).toEqual({ [c0]: '1', [c1]: '1', [c2]: '1' });
     const label = curves.locator('.role-legend-label text', { hasText: new RegExp(`^${SAMPLE_NAMES.configs[1]}$`) });
@@ -207,7 +241,9 @@ suite('the report in chromium', () => {
       })(),
       images: document.querySelectorAll('img').length,
       handlers: document.querySelectorAll('[onerror], [onload], [onclick]').length,
-      jsLinks: [...document.querySelectorAll('a[href]')].filter((a) => /^\s*javascript:/i.test(a.getAttribute('href') ?? '')).length,
+      jsLinks: [...document.querySelectorAll('a[href]')].filter((a) =>
+        /^\s*javascript:/i.test(a.getAttribute('href') ?? ''),
+      ).length,
       scripts: [...document.querySelectorAll('script')].map((s) => s.getAttribute('type') ?? 'classic'),
       title: document.title,
       width: document.documentElement.scrollWidth,
@@ -219,7 +255,13 @@ suite('the report in chromium', () => {
     expect(dom.jsLinks).toBe(0);
     expect(dom.scripts.filter((t) => t === 'classic')).toHaveLength(3);
     expect(dom.scripts.filter((t) => t !== 'classic' && t !== 'application/json')).toEqual([]);
-    for (const text of ['memory=<script>alert(1)</script>', `memory="'><img src=x onerror=alert(2)>`, '</script><script>alert(3)</script>', '{{verdicts}} [click](javascript:alert(4)) _x_ ‹U+202E›gnp.exe', '<a href="javascript:alert(7)">x</a> {{problems}} ‹U+202E›evil']) {
+    for (const text of [
+      'memory=<script>alert(1)</script>',
+      `memory="'><img src=x onerror=alert(2)>`,
+      '</script><script>alert(3)</script>',
+      '{{verdicts}} [click](javascript:alert(4)) _x_ ‹U+202E›gnp.exe',
+      '<a href="javascript:alert(7)">x</a> {{problems}} ‹U+202E›evil',
+    ]) {
       expect(dom.text).toContain(text);
     }
     expect(dom.pageText).not.toContain('\u202E');

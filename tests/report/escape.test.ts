@@ -23,7 +23,12 @@ const HOSTILE = [
 
 /** Decode the five entities escapeHtml writes (and markdown-it's &quot;). */
 function decode(html: string): string {
-  return html.replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&quot;/g, '"').replace(/&#39;/g, "'").replace(/&amp;/g, '&');
+  return html
+    .replace(/&lt;/g, '<')
+    .replace(/&gt;/g, '>')
+    .replace(/&quot;/g, '"')
+    .replace(/&#39;/g, "'")
+    .replace(/&amp;/g, '&');
 }
 
 describe('escapeHtml', () => {
@@ -52,10 +57,12 @@ describe('jsonForScript', () => {
     expect(JSON.parse(jsonForScript(value))).toEqual(value);
   });
   it('cannot end or change a script element: no <, >, & or line separators appear', () => {
-    fc.assert(fc.property(fc.jsonValue(), (v) => {
-      const text = jsonForScript(v);
-      return !/[<>&\u2028\u2029]/.test(text) && !/<\/script/i.test(text);
-    }));
+    fc.assert(
+      fc.property(fc.jsonValue(), (v) => {
+        const text = jsonForScript(v);
+        return !/[<>&\u2028\u2029]/.test(text) && !/<\/script/i.test(text);
+      }),
+    );
     expect(jsonForScript('</script><!--')).toBe('"\\u003c/script\\u003e\\u003c!--"');
   });
   it('writes NaN and infinities as null, as JSON.stringify does', () => {
@@ -92,7 +99,10 @@ describe('escapeMarkdown, read back by markdown-it', () => {
   });
 
   it('keeps any printable ASCII text literal in a cell (property, 300 cases)', () => {
-    const printable = fc.string({ unit: fc.constantFrom(...Array.from({ length: 95 }, (_, i) => String.fromCharCode(32 + i))), maxLength: 40 });
+    const printable = fc.string({
+      unit: fc.constantFrom(...Array.from({ length: 95 }, (_, i) => String.fromCharCode(32 + i))),
+      maxLength: 40,
+    });
     fc.assert(
       fc.property(printable, (s) => cellText(s) === `y ${s}`.trim()),
       { numRuns: 300, seed: 7 },

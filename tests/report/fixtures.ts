@@ -8,7 +8,17 @@
  * one comparison has no interval (the three verdicts all occur); reliability bins with no samples have null accuracy.
  */
 import type {
-  CalibrationCurve, Comparison, ConfigRecord, Curve, HaltingCurve, MetricRecord, Results, RunRecord, RunValue, TickCurve, Verdict,
+  CalibrationCurve,
+  Comparison,
+  ConfigRecord,
+  Curve,
+  HaltingCurve,
+  MetricRecord,
+  Results,
+  RunRecord,
+  RunValue,
+  TickCurve,
+  Verdict,
 } from '../../src/analysis/results.js';
 
 export interface FixtureNames {
@@ -51,22 +61,50 @@ function curve(metric: string, config: string, k: number): Curve {
   };
 }
 
-function comparison(names: FixtureNames, baseline: string, candidate: string, estimate: number, verdict: Verdict, interval: boolean): Comparison {
+function comparison(
+  names: FixtureNames,
+  baseline: string,
+  candidate: string,
+  estimate: number,
+  verdict: Verdict,
+  interval: boolean,
+): Comparison {
   return {
-    metric: names.metric, goal: 'max', summary: names.summary, task: null, baseline, candidate,
+    metric: names.metric,
+    goal: 'max',
+    summary: names.summary,
+    task: null,
+    baseline,
+    candidate,
     n: { baseline: 3, candidate: 3 },
     mean: { baseline: 0.74, candidate: 0.74 + estimate },
     sd: { baseline: 0.01, candidate: 0.01 },
     diverged: { baseline: 0, candidate: 0 },
-    difference: { estimate, low: interval ? estimate - 0.025 : null, high: interval ? estimate + 0.025 : null, level: 0.95, method: interval ? 'welch-t' : 'none' },
+    difference: {
+      estimate,
+      low: interval ? estimate - 0.025 : null,
+      high: interval ? estimate + 0.025 : null,
+      level: 0.95,
+      method: interval ? 'welch-t' : 'none',
+    },
     tests: {
       welch: { statistic: 2.1, df: 3.9, p: 0.03 },
       permutation: { p: 0.1, exact: true },
       mannWhitney: { u: 9, p: 0.1, exact: true },
     },
-    p: 0.03, pAdjusted: 0.06, verdict,
+    p: 0.03,
+    pAdjusted: 0.06,
+    verdict,
     nonInferiority: { margin: 0.01, p: 0.02, holds: true },
-    effect: { hedgesG: 1.2, hedgesGLow: 0.1, hedgesGHigh: 2.3, probabilityOfImprovement: 0.9, cliffsDelta: 0.8, cliffsDeltaLow: 0.1, cliffsDeltaHigh: 0.95 },
+    effect: {
+      hedgesG: 1.2,
+      hedgesGLow: 0.1,
+      hedgesGHigh: 2.3,
+      probabilityOfImprovement: 0.9,
+      cliffsDelta: 0.8,
+      cliffsDeltaLow: 0.1,
+      cliffsDeltaHigh: 0.95,
+    },
     detectable: { sd: 0.01, minimumEffect: 0.03, seedsFor80: 6 },
     cautions: [],
   };
@@ -75,7 +113,9 @@ function comparison(names: FixtureNames, baseline: string, candidate: string, es
 function tickCurve(names: FixtureNames, config: string, k: number): TickCurve {
   const mean = [0.4, 0.55, 0.63, 0.66].map((v) => v + 0.02 * k);
   return {
-    metric: names.tickMetric, config, step: 400,
+    metric: names.tickMetric,
+    config,
+    step: 400,
     ticks: [0, 1, 2, 3],
     mean,
     low: mean.map((v) => v - 0.02),
@@ -84,27 +124,53 @@ function tickCurve(names: FixtureNames, config: string, k: number): TickCurve {
     band: 't',
     exampleHalfWidth: k === 1 ? mean.map((v) => Math.sqrt((v * (1 - v)) / 500)) : null,
     earliestGood: { tick: 2, low: 2, high: 3, tolerance: 0.01 },
-    versusBaseline: k === 0 ? null : [0, 1, 2, 3].map((tick) => ({ tick, difference: 0.02 * k, pAdjusted: 0.2, verdict: 'inconclusive' as const })),
+    versusBaseline:
+      k === 0
+        ? null
+        : [0, 1, 2, 3].map((tick) => ({
+            tick,
+            difference: 0.02 * k,
+            pAdjusted: 0.2,
+            verdict: 'inconclusive' as const,
+          })),
   };
 }
 
 function halting(config: string, k: number): HaltingCurve {
   const thresholds = [0.5, 0.7, 0.9];
   return {
-    config, thresholds,
-    accuracy: thresholds.map((t) => ({ mean: 0.5 + 0.2 * t + 0.01 * k, low: 0.48 + 0.2 * t + 0.01 * k, high: 0.52 + 0.2 * t + 0.01 * k })),
-    exitTick: thresholds.map((t) => ({ mean: 3 * t + 0.1 * k, low: 3 * t + 0.1 * k - 0.2, high: 3 * t + 0.1 * k + 0.2 })),
-    seeds: 3, samples: 200, ticks: 4,
+    config,
+    thresholds,
+    accuracy: thresholds.map((t) => ({
+      mean: 0.5 + 0.2 * t + 0.01 * k,
+      low: 0.48 + 0.2 * t + 0.01 * k,
+      high: 0.52 + 0.2 * t + 0.01 * k,
+    })),
+    exitTick: thresholds.map((t) => ({
+      mean: 3 * t + 0.1 * k,
+      low: 3 * t + 0.1 * k - 0.2,
+      high: 3 * t + 0.1 * k + 0.2,
+    })),
+    seeds: 3,
+    samples: 200,
+    ticks: 4,
     exitHistogram: { threshold: 0.7, counts: [120, 260, 150, 70] },
   };
 }
 
 function calibration(config: string, k: number): CalibrationCurve {
   return {
-    config, bins: 5,
-    ece: [0, 1, 2, 3].map((tick) => ({ tick, mean: 0.12 - 0.02 * tick + 0.005 * k, low: 0.1 - 0.02 * tick + 0.005 * k, high: 0.14 - 0.02 * tick + 0.005 * k })),
+    config,
+    bins: 5,
+    ece: [0, 1, 2, 3].map((tick) => ({
+      tick,
+      mean: 0.12 - 0.02 * tick + 0.005 * k,
+      low: 0.1 - 0.02 * tick + 0.005 * k,
+      high: 0.14 - 0.02 * tick + 0.005 * k,
+    })),
     reliability: [0, 1, 2, 3, 4].map((b) => ({
-      low: b / 5, high: (b + 1) / 5,
+      low: b / 5,
+      high: (b + 1) / 5,
       confidence: b === 0 ? null : b / 5 + 0.1,
       accuracy: b === 0 ? null : b / 5 + 0.07,
       count: b === 0 ? 0 : 40 * b,
@@ -114,10 +180,35 @@ function calibration(config: string, k: number): CalibrationCurve {
 
 /** Build the fixture, optionally with other (e.g. hostile) config and metric names. */
 export function makeResults(names: FixtureNames = DEFAULT_NAMES): Results {
-  const configs: ConfigRecord[] = names.configs.map((id, k) => ({ id, params: { memory: String(4 * (k + 1)) }, seeds: [...SEEDS], runs: 3, diverged: k === 1 ? 1 : 0, short: 0 }));
+  const configs: ConfigRecord[] = names.configs.map((id, k) => ({
+    id,
+    params: { memory: String(4 * (k + 1)) },
+    seeds: [...SEEDS],
+    runs: 3,
+    diverged: k === 1 ? 1 : 0,
+    short: 0,
+  }));
   const metrics: MetricRecord[] = [
-    { name: names.metric, goal: 'max', goalSource: 'inferred', kind: 'scalar', ticks: 0, horizon: 400, firstStep: 0, lastStep: 400 },
-    { name: names.tickMetric, goal: 'max', goalSource: 'inferred', kind: 'tick', ticks: 4, horizon: 400, firstStep: 0, lastStep: 400 },
+    {
+      name: names.metric,
+      goal: 'max',
+      goalSource: 'inferred',
+      kind: 'scalar',
+      ticks: 0,
+      horizon: 400,
+      firstStep: 0,
+      lastStep: 400,
+    },
+    {
+      name: names.tickMetric,
+      goal: 'max',
+      goalSource: 'inferred',
+      kind: 'tick',
+      ticks: 4,
+      horizon: 400,
+      firstStep: 0,
+      lastStep: 400,
+    },
   ];
   const runs: RunRecord[] = [];
   const values: RunValue[] = [];
@@ -125,10 +216,26 @@ export function makeResults(names: FixtureNames = DEFAULT_NAMES): Results {
     SEEDS.forEach((seed, s) => {
       const id = `${config},seed=${seed}`;
       const diverged = k === 1 && s === 2;
-      runs.push({ id, config, seed, params: { memory: String(4 * (k + 1)) }, info: {}, files: [`runs/${id}/log.csv`], identity: 'hive', status: diverged ? 'diverged' : 'ok', lastStep: 400, divergedAt: diverged ? 300 : null, problems: [] });
+      runs.push({
+        id,
+        config,
+        seed,
+        params: { memory: String(4 * (k + 1)) },
+        info: {},
+        files: [`runs/${id}/log.csv`],
+        identity: 'hive',
+        status: diverged ? 'diverged' : 'ok',
+        lastStep: 400,
+        divergedAt: diverged ? 300 : null,
+        problems: [],
+      });
       const unused = k === 2 && s === 1;
       values.push({
-        metric: names.metric, summary: names.summary, run: id, config, seed,
+        metric: names.metric,
+        summary: names.summary,
+        run: id,
+        config,
+        seed,
         value: diverged ? null : 0.74 + 0.02 * k + 0.01 * (s - 1),
         note: diverged ? 'diverged: excluded' : unused ? 'short run: not used in tests' : null,
         usedInTests: !diverged && !unused,
@@ -140,7 +247,22 @@ export function makeResults(names: FixtureNames = DEFAULT_NAMES): Results {
     version: 1,
     tool: { name: 'seedsift', version: '0.1.0' },
     generated: '2026-01-01T00:00:00.000Z',
-    settings: { alpha: 0.05, seed: 1, correction: 'holm', summary: names.summary, baseline: null, taskKey: null, margin: 0.01, paired: false, diverged: 'exclude', failOn: null, resamples: 10000, bandResamples: 2000, bootstrapFrom: 20, level: 0.95 },
+    settings: {
+      alpha: 0.05,
+      seed: 1,
+      correction: 'holm',
+      summary: names.summary,
+      baseline: null,
+      taskKey: null,
+      margin: 0.01,
+      paired: false,
+      diverged: 'exclude',
+      failOn: null,
+      resamples: 10000,
+      bandResamples: 2000,
+      bootstrapFrom: 20,
+      level: 0.95,
+    },
     inputs: { paths: ['runs'], mode: 'logs', files: 9, filesRead: 9 },
     configs,
     metrics,
@@ -148,8 +270,16 @@ export function makeResults(names: FixtureNames = DEFAULT_NAMES): Results {
     values,
     // Mean across seeds and interval per config, as analysis/configValues.ts would give them.
     configValues: names.configs.map((config, k) => ({
-      metric: names.metric, summary: names.summary, config, n: k === 1 ? 2 : 3, missing: k === 1 ? 1 : 0,
-      mean: 0.74 + 0.03 * k, low: 0.72 + 0.03 * k, high: 0.76 + 0.03 * k, level: 0.95, method: 't' as const,
+      metric: names.metric,
+      summary: names.summary,
+      config,
+      n: k === 1 ? 2 : 3,
+      missing: k === 1 ? 1 : 0,
+      mean: 0.74 + 0.03 * k,
+      low: 0.72 + 0.03 * k,
+      high: 0.76 + 0.03 * k,
+      level: 0.95,
+      method: 't' as const,
     })),
     comparisons: [
       comparison(names, names.configs[0], names.configs[1], 0.03, 'better', true),

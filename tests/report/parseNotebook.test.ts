@@ -32,15 +32,34 @@ function errorOf(source: string): SeedsiftError {
 describe('parseNotebook', () => {
   it("reads DESIGN.md's example notebook", () => {
     const nb = parseNotebook(DESIGN_EXAMPLE, 'study.md');
-    expect(nb.options).toEqual({ title: 'Does a longer activation memory help?', runs: ['./runs'], baseline: 'memory=4', metric: ['val_acc:max', 'train_loss:min'] });
+    expect(nb.options).toEqual({
+      title: 'Does a longer activation memory help?',
+      runs: ['./runs'],
+      baseline: 'memory=4',
+      metric: ['val_acc:max', 'train_loss:min'],
+    });
     expect(nb.body.startsWith('# Memory length study\n')).toBe(true);
     expect(nb.bodyLine).toBe(7);
     expect(DESIGN_EXAMPLE.split('\n')[nb.bodyLine - 1]).toBe('# Memory length study');
   });
 
   it('returns option names in camelCase with values as written, for the command line to merge and check', () => {
-    const nb = parseNotebook('---\nalpha: 0.01\nseed: 7\npaired: true\ncorrection: bh\ntask-key: task\nfail-on: worse\nsummary: last:10%\nby: [model, task]\nruns: [a, b]\nhalting-thresholds: [0.5, 0.9]\n---\nx', 'n.md');
-    expect(nb.options).toEqual({ alpha: 0.01, seed: 7, paired: true, correction: 'bh', taskKey: 'task', failOn: 'worse', summary: 'last:10%', by: 'model,task', runs: ['a', 'b'], haltingThresholds: '0.5,0.9' });
+    const nb = parseNotebook(
+      '---\nalpha: 0.01\nseed: 7\npaired: true\ncorrection: bh\ntask-key: task\nfail-on: worse\nsummary: last:10%\nby: [model, task]\nruns: [a, b]\nhalting-thresholds: [0.5, 0.9]\n---\nx',
+      'n.md',
+    );
+    expect(nb.options).toEqual({
+      alpha: 0.01,
+      seed: 7,
+      paired: true,
+      correction: 'bh',
+      taskKey: 'task',
+      failOn: 'worse',
+      summary: 'last:10%',
+      by: 'model,task',
+      runs: ['a', 'b'],
+      haltingThresholds: '0.5,0.9',
+    });
     expect(parseNotebook('---\ntaskKey: t\n---\n', 'n.md').options).toEqual({ taskKey: 't' });
   });
 

@@ -61,7 +61,15 @@ describe('renderNotebook: a notebook with prose, two metrics and a custom baseli
     expect(charts).toBe(3);
     expect(html).toContain('<h1 id="does-a-longer-memory-help">Does a longer memory help?</h1>');
     expect(html).toContain('<em>several seeds</em>');
-    const order = ['class="verdicts-cell"', 'id="accuracy"', 'id="chart-1"', 'id="chart-2"', 'id="loss"', 'Loss is lower', 'id="chart-3"'].map((s) => html.indexOf(s));
+    const order = [
+      'class="verdicts-cell"',
+      'id="accuracy"',
+      'id="chart-1"',
+      'id="chart-2"',
+      'id="loss"',
+      'Loss is lower',
+      'id="chart-3"',
+    ].map((s) => html.indexOf(s));
     expect(order.every((i) => i >= 0)).toBe(true);
     expect([...order].sort((a, b) => a - b)).toEqual(order);
     // Both metrics in the verdict table; the baseline of Results in every row.
@@ -87,7 +95,9 @@ describe('renderNotebook: mistakes name the notebook line', () => {
     expect(e.code).toBe('notebook');
     expect(e.file).toBe('studies/memory.md');
     expect(e.line).toBe(lineOf(source, '{{compair'));
-    expect(e.message).toMatch(/^unknown cell or field 'compair'; the cells are verdicts, .*\(studies\/memory\.md:16\)$/);
+    expect(e.message).toMatch(
+      /^unknown cell or field 'compair'; the cells are verdicts, .*\(studies\/memory\.md:16\)$/,
+    );
   });
 
   it('a misspelled cell without arguments, and one inside #each', async () => {
@@ -104,15 +114,21 @@ describe('renderNotebook: mistakes name the notebook line', () => {
     const e = await failure(source);
     expect(e.code).toBe('notebook');
     expect(e.line).toBe(lineOf(source, 'train_los"'));
-    expect(e.message).toContain("{{values}}: no metric 'train_los' in these runs; the metrics are 'val_acc', 'train_loss', 'tick_acc'");
+    expect(e.message).toContain(
+      "{{values}}: no metric 'train_los' in these runs; the metrics are 'val_acc', 'train_loss', 'tick_acc'",
+    );
   });
 
   it('wrong arguments, an unknown option, a summary the results do not hold', async () => {
-    expect((await failure('a\n{{curves}}\n')).message).toContain('{{curves}}: expected 1 argument ({{curves "METRIC"}}), got 0');
+    expect((await failure('a\n{{curves}}\n')).message).toContain(
+      '{{curves}}: expected 1 argument ({{curves "METRIC"}}), got 0',
+    );
     expect((await failure('a\n\n{{curves "val_acc" colour="red"}}\n')).line).toBe(3);
     const summary = await failure('{{compare "val_acc" summary="last:10%"}}\n');
     expect(summary.message).toContain("no results for 'val_acc' under summary 'last:10%'; these results hold 'final'");
-    expect((await failure('x\n{{#curves "val_acc"}}y{{/curves}}\n')).message).toContain('curves is a cell, not a block');
+    expect((await failure('x\n{{#curves "val_acc"}}y{{/curves}}\n')).message).toContain(
+      'curves is a cell, not a block',
+    );
   });
 
   it('template syntax errors', async () => {

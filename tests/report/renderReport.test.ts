@@ -36,7 +36,9 @@ describe('renderReport', () => {
     expect(directives.get('connect-src')).toEqual(["'none'"]);
     expect(directives.get('img-src')).toEqual(['data:']);
     expect(directives.get('style-src')).toEqual(["'unsafe-inline'"]);
-    const hashes = inlineScripts(html).map((s) => `'sha256-${createHash('sha256').update(s, 'utf8').digest('base64')}'`);
+    const hashes = inlineScripts(html).map(
+      (s) => `'sha256-${createHash('sha256').update(s, 'utf8').digest('base64')}'`,
+    );
     expect(hashes).toHaveLength(3);
     // Exactly the three hashes: no 'unsafe-eval' (Vega's expressions are interpreted, not compiled), no 'unsafe-inline'.
     expect(directives.get('script-src')).toEqual(hashes);
@@ -51,7 +53,11 @@ describe('renderReport', () => {
     expect(markup).not.toMatch(/@import|<link\b|<iframe\b|<img\b|<object\b|<embed\b/i);
     // Only XML namespace names remain, inside the Vega runtime (they are never fetched).
     const urls = new Set(html.match(/https?:\/\/[^\s"'`<>)]+/g) ?? []);
-    expect([...urls].sort()).toEqual(['http://www.w3.org/1999/xlink', 'http://www.w3.org/2000/svg', 'http://www.w3.org/2000/xmlns/']);
+    expect([...urls].sort()).toEqual([
+      'http://www.w3.org/1999/xlink',
+      'http://www.w3.org/2000/svg',
+      'http://www.w3.org/2000/xmlns/',
+    ]);
     const vega = inlineScripts(html)[0] ?? '';
     for (const url of urls) expect(html.split(url).length - 1).toBe(vega.split(url).length - 1);
   });
@@ -59,7 +65,11 @@ describe('renderReport', () => {
   it('inlines the Vega runtime and its expression interpreter from node_modules, and the interaction script', () => {
     const [vega, interpreter, hydrate] = inlineScripts(html);
     expect(vega).toBe(readFileSync(new URL('../../node_modules/vega/build/vega.min.js', import.meta.url), 'utf8'));
-    expect(interpreter).toBe(interpreterScript(readFileSync(new URL('../../node_modules/vega-interpreter/build/vega-interpreter.js', import.meta.url), 'utf8')));
+    expect(interpreter).toBe(
+      interpreterScript(
+        readFileSync(new URL('../../node_modules/vega-interpreter/build/vega-interpreter.js', import.meta.url), 'utf8'),
+      ),
+    );
     expect(hydrate).toContain('vega.parse(spec, null, { ast: true })');
     expect(hydrate).toContain('expr: vegaInterpreter');
   });
@@ -70,7 +80,8 @@ describe('renderReport', () => {
     for (const [, , inner] of figures) {
       const svg = /<svg[\s\S]*<\/svg>/.exec(inner ?? '')?.[0] ?? '';
       expect(svg).toMatch(/<path|<rect|<line|<circle/);
-      const json = /<script type="application\/json" class="chart-spec">([\s\S]*?)<\/script>/.exec(inner ?? '')?.[1] ?? '';
+      const json =
+        /<script type="application\/json" class="chart-spec">([\s\S]*?)<\/script>/.exec(inner ?? '')?.[1] ?? '';
       const spec = JSON.parse(json) as { marks?: unknown[]; $schema?: string };
       expect(Array.isArray(spec.marks)).toBe(true);
       expect(spec.$schema).toBeUndefined();
@@ -102,14 +113,27 @@ describe('renderReport', () => {
     expect(numbers.length).toBeGreaterThan(1000);
     expect(numbers.filter((x) => !Number.isInteger(x) && Number(x.toPrecision(6)) !== x)).toEqual([]);
     // The fixture's data does carry longer numbers (so the check above is not vacuous).
-    expect(sampleResults().curves.flatMap((c) => c.mean).some((x) => x !== null && Number(x.toPrecision(6)) !== x)).toBe(true);
+    expect(
+      sampleResults()
+        .curves.flatMap((c) => c.mean)
+        .some((x) => x !== null && Number(x.toPrecision(6)) !== x),
+    ).toBe(true);
   });
 
   it('says how to toggle configs beside the charts whose legend does it, and only there', () => {
-    const figures = [...html.matchAll(/<figure class="chart" id="chart-\d+">([\s\S]*?)<\/figure>/g)].map((m) => m[1] ?? '');
+    const figures = [...html.matchAll(/<figure class="chart" id="chart-\d+">([\s\S]*?)<\/figure>/g)].map(
+      (m) => m[1] ?? '',
+    );
     const titled = (title: string): string => figures.find((f) => f.includes(`<title>${title}</title>`)) ?? '';
-    const hint = '<p class="chart-hint">Click a config in the legend to show it alone; shift-click to add or remove one; double-click the plot to show all.</p>';
-    for (const title of ['val_acc: learning curves', 'tick_acc by internal tick', 'Halting: accuracy at exit against exit tick', 'Calibration by internal tick']) expect(titled(title)).toContain(hint);
+    const hint =
+      '<p class="chart-hint">Click a config in the legend to show it alone; shift-click to add or remove one; double-click the plot to show all.</p>';
+    for (const title of [
+      'val_acc: learning curves',
+      'tick_acc by internal tick',
+      'Halting: accuracy at exit against exit tick',
+      'Calibration by internal tick',
+    ])
+      expect(titled(title)).toContain(hint);
     expect(titled('val_acc: one value per seed (final)')).not.toContain('chart-hint');
     expect(figures.filter((f) => f.includes('chart-hint'))).toHaveLength(5); // two metrics' curves, ticks, halting, calibration
     expect(html).toMatch(/\.chart-hint \{ display: none;/);
@@ -120,7 +144,17 @@ describe('renderReport', () => {
     expect(main.indexOf('<table class="verdicts">')).toBeLessThan(main.indexOf('<figure'));
     expect(html).toContain('<p class="kicker">seedsift report · 1 March 2026, 12:00 UTC</p>');
     const toc = /<nav class="toc"[\s\S]*?<\/nav>/.exec(html)?.[0] ?? '';
-    for (const entry of ['Verdicts', 'val_acc', 'train_loss', 'Ticks', 'Halting', 'Calibration', 'Runs', 'Problems', 'Methods']) {
+    for (const entry of [
+      'Verdicts',
+      'val_acc',
+      'train_loss',
+      'Ticks',
+      'Halting',
+      'Calibration',
+      'Runs',
+      'Problems',
+      'Methods',
+    ]) {
       expect(toc).toContain(`>${entry}</a>`);
     }
     for (const [, id] of toc.matchAll(/href="#([^"]+)"/g)) expect(html).toContain(`id="${id}"`);
@@ -146,7 +180,9 @@ describe('the size of a report as large as the demo', () => {
   it('stays under 2 MB (6 configs x 5 seeds, a 200-bin learning curve, ticks, halting, calibration)', async () => {
     const results = demoSizedResults();
     // The fixture has the demo's shape (so the bound speaks for the demo report).
-    expect(results.curves.filter((c) => c.metric === 'train_loss').map((c) => c.steps.length * c.runs.length)).toEqual([1000, 1000, 1000, 1000, 1000, 1000]);
+    expect(results.curves.filter((c) => c.metric === 'train_loss').map((c) => c.steps.length * c.runs.length)).toEqual([
+      1000, 1000, 1000, 1000, 1000, 1000,
+    ]);
     expect(results.ticks.map((t) => t.ticks.length)).toEqual([8, 8, 16, 16, 32, 32, 8, 8, 16, 16, 32, 32]);
     const page = await renderReport(results, NOTEBOOK, 'templates/notebook.md');
     expect([...page.matchAll(/<figure class="chart"/g)]).toHaveLength(17);

@@ -40,7 +40,8 @@ function strict(node: Node): Node {
     out.additionalProperties = false;
   }
   if (node.items !== undefined) out.items = strict(node.items);
-  if (node.definitions !== undefined) out.definitions = Object.fromEntries(Object.entries(node.definitions).map(([k, v]) => [k, strict(v)]));
+  if (node.definitions !== undefined)
+    out.definitions = Object.fromEntries(Object.entries(node.definitions).map(([k, v]) => [k, strict(v)]));
   return out;
 }
 
@@ -58,7 +59,19 @@ function fullResults(): Results {
     ...r,
     comparisons: [paired, ...r.comparisons.slice(1)],
     curves: r.curves.map((c) => ({ ...c, bandByBin: c.steps.map(() => 't' as const) })),
-    tasks: [{ metric: 'val_acc', config: 'memory=8', interquartileMean: 0.7, low: 0.6, high: 0.8, tasks: 3, probabilityOfImprovement: 0.6, baseline: 'memory=4', profile: { thresholds: [0.5, 0.7], fraction: [1, 0.4] } }],
+    tasks: [
+      {
+        metric: 'val_acc',
+        config: 'memory=8',
+        interquartileMean: 0.7,
+        low: 0.6,
+        high: 0.8,
+        tasks: 3,
+        probabilityOfImprovement: 0.6,
+        baseline: 'memory=4',
+        profile: { thresholds: [0.5, 0.7], fraction: [1, 0.4] },
+      },
+    ],
   };
 }
 
@@ -84,14 +97,14 @@ describe('results.schema.json', () => {
     const validate = ajv.compile(SCHEMA);
     const good = JSON.parse(resultsJson(sampleResults())) as Record<string, unknown>;
     const bad1 = { ...good, version: 2 };
-    const bad2 = { ...good, comparisons: [{ ...(good['comparisons'] as object[])[0], verdict: 'maybe' }] };
+    const bad2 = { ...good, comparisons: [{ ...(good.comparisons as object[])[0], verdict: 'maybe' }] };
     const { runs: _runs, ...bad3 } = good;
     for (const bad of [bad1, bad2, bad3]) expect(validate(bad)).toBe(false);
   });
 
   it('accepts every problem code of src/problems.ts, and only code-shaped text', () => {
-    const problems = resolve(SCHEMA.properties?.['problems'])?.items;
-    const validate = ajv.compile(resolve(problems?.properties?.['code']) ?? {});
+    const problems = resolve(SCHEMA.properties?.problems)?.items;
+    const validate = ajv.compile(resolve(problems?.properties?.code) ?? {});
     for (const code of Object.keys(PROBLEM_CODES)) expect(validate(code), code).toBe(true);
     for (const bad of ['', 'Not a code', 'run_diverged', '-x']) expect(validate(bad), bad).toBe(false);
   });
@@ -185,9 +198,16 @@ describe('the schema requires the keys DESIGN.md publishes', () => {
 
   it('allows exactly the values DESIGN.md lists for enumerations', () => {
     const enumerations = keys.filter((k) => k.enumeration !== undefined);
-    expect(enumerations.map((k) => k.path)).toEqual(['runs[].status', 'comparisons[].goal', 'comparisons[].verdict', 'problems[].severity']);
+    expect(enumerations.map((k) => k.path)).toEqual([
+      'runs[].status',
+      'comparisons[].goal',
+      'comparisons[].verdict',
+      'problems[].severity',
+    ]);
     for (const key of enumerations) {
-      const node = resolve(nodeAt(key.path.split('.').slice(0, -1).join('.'))?.properties?.[key.path.split('.').at(-1) ?? '']);
+      const node = resolve(
+        nodeAt(key.path.split('.').slice(0, -1).join('.'))?.properties?.[key.path.split('.').at(-1) ?? ''],
+      );
       expect([...(node?.enum ?? [])].sort(), key.path).toEqual([...(key.enumeration ?? [])].sort());
     }
     expect(nodeAt('format')?.const).toBe('seedsift-results');
@@ -239,7 +259,12 @@ describe('the schema follows the Results type (src/analysis/results.ts)', () => 
       expect(members.length).toBeGreaterThan(1);
       const node = nodeAt(path);
       expect(Object.keys(node?.properties ?? {})).toEqual(members.map(([m]) => m));
-      expect([...(node?.required ?? [])].sort()).toEqual(members.filter(([, optional]) => !optional).map(([m]) => m).sort());
+      expect([...(node?.required ?? [])].sort()).toEqual(
+        members
+          .filter(([, optional]) => !optional)
+          .map(([m]) => m)
+          .sort(),
+      );
     });
   }
 });
@@ -247,12 +272,16 @@ describe('the schema follows the Results type (src/analysis/results.ts)', () => 
 describe('resultsJson', () => {
   it('writes keys in the order of the type, 2-space indentation and a trailing newline', () => {
     const text = resultsJson(sampleResults());
-    expect(text.startsWith('{\n  "format": "seedsift-results",\n  "version": 1,\n  "tool": {\n    "name": "seedsift",')).toBe(true);
+    expect(
+      text.startsWith('{\n  "format": "seedsift-results",\n  "version": 1,\n  "tool": {\n    "name": "seedsift",'),
+    ).toBe(true);
     expect(text.endsWith('}\n')).toBe(true);
     const parsed = JSON.parse(text) as Record<string, unknown>;
     expect(Object.keys(parsed)).toEqual(Object.keys(nodeAt('')?.properties ?? {}));
-    const comparison = (parsed['comparisons'] as Record<string, unknown>[])[0] ?? {};
-    expect(Object.keys(comparison)).toEqual(Object.keys(nodeAt('comparisons[]')?.properties ?? {}).filter((k) => k in comparison));
+    const comparison = (parsed.comparisons as Record<string, unknown>[])[0] ?? {};
+    expect(Object.keys(comparison)).toEqual(
+      Object.keys(nodeAt('comparisons[]')?.properties ?? {}).filter((k) => k in comparison),
+    );
   });
 
   it('orders keys by the type whatever order the value was built in', () => {
@@ -271,10 +300,17 @@ describe('resultsJson', () => {
   it('writes NaN and infinities as null, never NaN', () => {
     const r = sampleResults();
     const c = r.comparisons[0] as Comparison;
-    const broken: Comparison = { ...c, p: NaN, effect: { ...c.effect, hedgesG: Infinity }, detectable: { ...c.detectable, seedsFor80: -Infinity } };
+    const broken: Comparison = {
+      ...c,
+      p: NaN,
+      effect: { ...c.effect, hedgesG: Infinity },
+      detectable: { ...c.detectable, seedsFor80: -Infinity },
+    };
     const text = resultsJson({ ...r, comparisons: [broken] });
     expect(text).not.toMatch(/NaN|Infinity/);
-    const parsed = JSON.parse(text) as { comparisons: { p: unknown; effect: { hedgesG: unknown }; detectable: { seedsFor80: unknown } }[] };
+    const parsed = JSON.parse(text) as {
+      comparisons: { p: unknown; effect: { hedgesG: unknown }; detectable: { seedsFor80: unknown } }[];
+    };
     expect(parsed.comparisons[0]?.p).toBeNull();
     expect(parsed.comparisons[0]?.effect.hedgesG).toBeNull();
     expect(parsed.comparisons[0]?.detectable.seedsFor80).toBeNull();

@@ -14,7 +14,12 @@ import { SAMPLE_NAMES, sampleResults } from './sampleResults.js';
 const md = new MarkdownIt();
 
 function decode(html: string): string {
-  return html.replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&quot;/g, '"').replace(/&#39;/g, "'").replace(/&amp;/g, '&');
+  return html
+    .replace(/&lt;/g, '<')
+    .replace(/&gt;/g, '>')
+    .replace(/&quot;/g, '"')
+    .replace(/&#39;/g, "'")
+    .replace(/&amp;/g, '&');
 }
 
 /** Tables of the rendered Markdown: rows of cell texts (header row first). */
@@ -22,7 +27,9 @@ function tables(markdown: string): string[][][] {
   const html = md.render(markdown);
   return [...html.matchAll(/<table>([\s\S]*?)<\/table>/g)].map((t) =>
     [...(t[1] ?? '').matchAll(/<tr>([\s\S]*?)<\/tr>/g)].map((r) =>
-      [...(r[1] ?? '').matchAll(/<t[hd][^>]*>([\s\S]*?)<\/t[hd]>/g)].map((c) => decode((c[1] ?? '').replace(/<[^>]*>/g, ''))),
+      [...(r[1] ?? '').matchAll(/<t[hd][^>]*>([\s\S]*?)<\/t[hd]>/g)].map((c) =>
+        decode((c[1] ?? '').replace(/<[^>]*>/g, '')),
+      ),
     ),
   );
 }
@@ -33,12 +40,26 @@ describe('summaryMarkdown', () => {
 
   it('renders one GFM table per metric with the verdict columns', () => {
     expect(rendered).toHaveLength(2);
-    expect(rendered[0]?.[0]).toEqual(['Baseline', 'Candidate', 'Difference [95% Welch t-interval]', 'p (Holm-adjusted)', 'Verdict', 'Seeds']);
+    expect(rendered[0]?.[0]).toEqual([
+      'Baseline',
+      'Candidate',
+      'Difference [95% Welch t-interval]',
+      'p (Holm-adjusted)',
+      'Verdict',
+      'Seeds',
+    ]);
     expect(md.render(text)).toContain('<h3>val_acc (higher is better; summary final)</h3>');
   });
 
   it('shows the METHODS.md Welch values for A v B, Holm-adjusted (scipy 1.10.1)', () => {
-    expect(rendered[0]?.[1]).toEqual(['memory=4', 'memory=8', '+1.71 [0.06, 3.37]', '0.088', '● inconclusive', '7 v 5']);
+    expect(rendered[0]?.[1]).toEqual([
+      'memory=4',
+      'memory=8',
+      '+1.71 [0.06, 3.37]',
+      '0.088',
+      '● inconclusive',
+      '7 v 5',
+    ]);
   });
 
   it('notes diverged runs in the seeds column and gives every verdict its word', () => {
@@ -54,7 +75,10 @@ describe('summaryMarkdown', () => {
   });
 
   it('keeps pipes, newlines and markup in names as text in their cells', () => {
-    const names = { ...SAMPLE_NAMES, configs: ['a|b\nc', '<script>alert(1)</script>', '*x* [y](javascript:z) @team #1'] as const };
+    const names = {
+      ...SAMPLE_NAMES,
+      configs: ['a|b\nc', '<script>alert(1)</script>', '*x* [y](javascript:z) @team #1'] as const,
+    };
     const hostile = summaryMarkdown(sampleResults(names));
     const html = md.render(hostile);
     expect(html).not.toContain('<script>');

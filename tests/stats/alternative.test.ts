@@ -5,7 +5,9 @@ describe('checkAlternative', () => {
   it('accepts the three alternatives and rejects anything else with the caller named', () => {
     for (const a of ALTERNATIVES) expect(checkAlternative(a, 'welch')).toBe(a);
     expect(ALTERNATIVES).toEqual(['two-sided', 'greater', 'less']);
-    expect(() => checkAlternative('two.sided', 'welch')).toThrow(/welch: alternative must be one of two-sided, greater, less/);
+    expect(() => checkAlternative('two.sided', 'welch')).toThrow(
+      /welch: alternative must be one of two-sided, greater, less/,
+    );
     expect(() => checkAlternative(undefined, 'pairedT')).toThrow(RangeError);
   });
 });

@@ -11,15 +11,21 @@ const NIST_DIR = fileURLToPath(new URL('../reference/nist-strd-univariate/', imp
 function readStrd(file: string): { name: string; r1: number; data: readonly number[] } {
   const text = readFileSync(NIST_DIR + file, 'utf8');
   const lines = text.split(/\r?\n/);
-  const r1 = /^Sample Autocorrelation Coefficient \(lag 1\)\s+r\(1\):\s*(\S+)/m.exec(text) ?? /^autocorrelationCoefficient\s*=\s*(\S+)/m.exec(text);
+  const r1 =
+    /^Sample Autocorrelation Coefficient \(lag 1\)\s+r\(1\):\s*(\S+)/m.exec(text) ??
+    /^autocorrelationCoefficient\s*=\s*(\S+)/m.exec(text);
   if (r1 === null) throw new Error(`${file}: certified r(1) not found`);
   const range = /Data\s*:\s*lines\s+(\d+)\s+to\s+(\d+)/.exec(text);
   const start = lines.findIndex((l) => /^#\s*Data\s*$/.test(l));
   const data =
     range !== null
       ? lines.slice(Number(range[1]) - 1, Number(range[2])).map((l) => Number(l))
-      : lines.slice(start + 1).filter((l) => l.trim() !== '' && !l.startsWith('#')).map((l) => Number(l));
-  const n = /Number of Observations:\s+(\d+)/.exec(text) ?? /^n\s*=\s*(\d+)/m.exec(text) ?? /(\d+)\s+Observations/.exec(text);
+      : lines
+          .slice(start + 1)
+          .filter((l) => l.trim() !== '' && !l.startsWith('#'))
+          .map((l) => Number(l));
+  const n =
+    /Number of Observations:\s+(\d+)/.exec(text) ?? /^n\s*=\s*(\d+)/m.exec(text) ?? /(\d+)\s+Observations/.exec(text);
   if (n === null || Number(n[1]) !== data.length || data.some((v) => !Number.isFinite(v))) {
     throw new Error(`${file}: data do not match the stated number of observations`);
   }
@@ -35,11 +41,22 @@ function lre(computed: number, certified: number): number {
 // thresholds: 12 on the lower-difficulty sets (and NumAcc2, for which the README gives no figure),
 // 9 on NumAcc3, 8 on NumAcc4.
 const R1_LRE: Readonly<Record<string, number>> = {
-  PiDigits: 12, Lottery: 12, Lew: 12, Mavro: 12, Michelso: 12, NumAcc1: 12, NumAcc2: 12, NumAcc3: 9, NumAcc4: 8,
+  PiDigits: 12,
+  Lottery: 12,
+  Lew: 12,
+  Mavro: 12,
+  Michelso: 12,
+  NumAcc1: 12,
+  NumAcc2: 12,
+  NumAcc3: 9,
+  NumAcc4: 8,
 };
 
 describe('lag1Autocorrelation on NIST StRD univariate data', () => {
-  const datasets = readdirSync(NIST_DIR).filter((f) => f.endsWith('.txt')).sort().map(readStrd);
+  const datasets = readdirSync(NIST_DIR)
+    .filter((f) => f.endsWith('.txt'))
+    .sort()
+    .map(readStrd);
 
   it('reads all nine datasets', () => {
     expect(datasets.map((d) => d.name)).toEqual(Object.keys(R1_LRE).sort());

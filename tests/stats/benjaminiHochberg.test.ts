@@ -5,11 +5,15 @@ import { holm } from '../../src/stats/holm.js';
 
 function expectAllRelative(actual: number[], expected: number[], tolerance = 1e-10): void {
   expect(actual.length).toBe(expected.length);
-  actual.forEach((a, i) => expect(Math.abs(a - (expected[i] as number))).toBeLessThanOrEqual(tolerance * Math.abs(expected[i] as number)));
+  actual.forEach((a, i) =>
+    expect(Math.abs(a - (expected[i] as number))).toBeLessThanOrEqual(tolerance * Math.abs(expected[i] as number)),
+  );
 }
 
 // Benjamini & Hochberg (1995), JRSS B 57:289-300, section 4.1: the 15 p-values of their example.
-const BH_1995 = Object.freeze([0.0001, 0.0004, 0.0019, 0.0095, 0.0201, 0.0278, 0.0298, 0.0344, 0.0459, 0.324, 0.4262, 0.5719, 0.6528, 0.759, 1]);
+const BH_1995 = Object.freeze([
+  0.0001, 0.0004, 0.0019, 0.0095, 0.0201, 0.0278, 0.0298, 0.0344, 0.0459, 0.324, 0.4262, 0.5719, 0.6528, 0.759, 1,
+]);
 
 describe('benjaminiHochberg', () => {
   it('adjusts [.01, .04, .03, .005, .2, .03] to [.03, .048, .045, .03, .2, .045] (METHODS.md; statsmodels 0.13.5 multipletests fdr_bh agrees)', () => {
@@ -22,10 +26,13 @@ describe('benjaminiHochberg', () => {
     expect(q.filter((v) => v <= 0.05).length).toBe(4);
     // Debian python3-statsmodels 0.13.5: multipletests(p, method='fdr_bh'), and the step-up formula written out
     // in numpy (tests/reference/rank_resampling_reference.py); scipy 1.10.1 has no Benjamini-Hochberg function.
-    expectAllRelative(q, [
-      0.0015, 0.003, 0.0095, 0.035625, 0.0603, 0.06385714285714286, 0.06385714285714286, 0.0645, 0.07650000000000001, 0.486,
-      0.5811818181818181, 0.7148749999999999, 0.7532307692307693, 0.8132142857142857, 1,
-    ]);
+    expectAllRelative(
+      q,
+      [
+        0.0015, 0.003, 0.0095, 0.035625, 0.0603, 0.06385714285714286, 0.06385714285714286, 0.0645, 0.07650000000000001,
+        0.486, 0.5811818181818181, 0.7148749999999999, 0.7532307692307693, 0.8132142857142857, 1,
+      ],
+    );
   });
 
   it('is monotone in p, at least p, at most Holm and at most 1 (step-up dominates step-down; definition)', () => {

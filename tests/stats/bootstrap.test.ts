@@ -59,7 +59,8 @@ function studentized(diff: number, se: number): number {
   return diff === 0 ? 0 : diff > 0 ? Infinity : -Infinity;
 }
 
-const tieTolerance = (stats: Float64Array, theta: number): number => 1e-9 * Math.max(...Array.from(stats, (v) => Math.abs(v - theta)));
+const tieTolerance = (stats: Float64Array, theta: number): number =>
+  1e-9 * Math.max(...Array.from(stats, (v) => Math.abs(v - theta)));
 
 describe('ideal bootstrap of mean(A): all 5^5 = 3125 resamples (METHODS.md, scipy 1.10.1 conventions)', () => {
   const stats = idealBootstrapMeans(A);
@@ -103,7 +104,7 @@ describe('two-sample jackknife acceleration', () => {
     expectRelative(jackknifeAcceleration([jx, jy]), 0.013974522533729852);
   });
 
-  it('a shift of one sample\'s estimates does not change a (it depends on deviations only)', () => {
+  it("a shift of one sample's estimates does not change a (it depends on deviations only)", () => {
     const j = leaveOneOutMeans(A);
     expectRelative(jackknifeAcceleration([j.map((v) => v + 1000)]), 0.019456097143550056, 1e-9);
   });
@@ -137,7 +138,7 @@ describe('bootstrapMean: Monte Carlo paths against a naive recomputation of the 
     expect(r).toMatchObject({ estimate: ref.theta, level: 0.95, method: 'percentile', resamples });
   });
 
-  it("expanded percentile: tail Phi(sqrt(5/4) t_{.025,4}) = 0.0009541005518824885 (Hesterberg 2015; scipy 1.10.1)", () => {
+  it('expanded percentile: tail Phi(sqrt(5/4) t_{.025,4}) = 0.0009541005518824885 (Hesterberg 2015; scipy 1.10.1)', () => {
     const tail = normalCdf(Math.sqrt(5 / 4) * tQuantile(0.025, 4), 0, 1);
     expectRelative(tail, 0.0009541005518824885, 1e-9);
     const r = bootstrapMean(A, createRandom(1), { method: 'expanded-percentile', resamples });
@@ -286,7 +287,10 @@ describe('resampleCounts and bootstrapMeanFromCounts', () => {
   for (const method of BOOTSTRAP_METHODS) {
     it(`equals bootstrapMean for ${method} with a generator in the same state, up to rounding`, () => {
       const direct = bootstrapMean(x, createRandom(7), { method, resamples: 999, level: 0.9 });
-      const counted = bootstrapMeanFromCounts(x, resampleCounts(createRandom(7), x.length, 999), { method, level: 0.9 });
+      const counted = bootstrapMeanFromCounts(x, resampleCounts(createRandom(7), x.length, 999), {
+        method,
+        level: 0.9,
+      });
       expect(counted.estimate).toBe(direct.estimate);
       expect(counted.resamples).toBe(999);
       expect(Math.abs(counted.low - direct.low)).toBeLessThan(1e-12 * Math.abs(direct.low));

@@ -60,10 +60,16 @@ describe('expectedCalibrationError', () => {
   });
 
   it('gives the same ECE from per-bin sums of the hand-worked example', () => {
-    const r = calibrationFromBinSums({ count: [1, 1, 2, 3, 3], confidenceSum: [0, 0.3, 1, 2.15, 2.7], correctSum: [0, 0, 1, 2, 2] });
+    const r = calibrationFromBinSums({
+      count: [1, 1, 2, 3, 3],
+      confidenceSum: [0, 0.3, 1, 2.15, 2.7],
+      correctSum: [0, 0, 1, 2, 2],
+    });
     expect(r.ece).toBeCloseTo(0.115, 14);
     expect(r.n).toBe(10);
-    expect(() => calibrationFromBinSums({ count: [0, 0], confidenceSum: [0, 0], correctSum: [0, 0] })).toThrow(/at least 1/);
+    expect(() => calibrationFromBinSums({ count: [0, 0], confidenceSum: [0, 0], correctSum: [0, 0] })).toThrow(
+      /at least 1/,
+    );
     expect(() => calibrationFromBinSums({ count: [1], confidenceSum: [0.5, 0], correctSum: [1] })).toThrow(RangeError);
   });
 

@@ -42,7 +42,10 @@ describe('cliffsDelta', () => {
     fc.assert(
       fc.property(sample, sample, (x, y) => {
         const r = cliffsDelta(x, y);
-        expect(r.probabilityOfImprovement).toBeCloseTo(mannWhitney(x, y, { method: 'asymptotic' }).u / (x.length * y.length), 14);
+        expect(r.probabilityOfImprovement).toBeCloseTo(
+          mannWhitney(x, y, { method: 'asymptotic' }).u / (x.length * y.length),
+          14,
+        );
         expect(r.low).toBeLessThanOrEqual(r.delta + 1e-12);
         expect(r.high).toBeGreaterThanOrEqual(r.delta - 1e-12);
         expect(r.low).toBeGreaterThanOrEqual(-1);
@@ -62,7 +65,13 @@ describe('cliffsDelta', () => {
   });
 
   it('all values tied: delta 0 with a zero-width interval', () => {
-    expect(cliffsDelta([2, 2], [2, 2, 2])).toEqual({ delta: 0, probabilityOfImprovement: 0.5, variance: 0, low: 0, high: 0 });
+    expect(cliffsDelta([2, 2], [2, 2, 2])).toEqual({
+      delta: 0,
+      probabilityOfImprovement: 0.5,
+      variance: 0,
+      low: 0,
+      high: 0,
+    });
   });
 
   it('throws a RangeError with fewer than 2 values per group, NaN, or a bad level', () => {

@@ -4,11 +4,15 @@ import { holm } from '../../src/stats/holm.js';
 
 function expectAllRelative(actual: number[], expected: number[], tolerance = 1e-10): void {
   expect(actual.length).toBe(expected.length);
-  actual.forEach((a, i) => expect(Math.abs(a - (expected[i] as number))).toBeLessThanOrEqual(tolerance * Math.abs(expected[i] as number)));
+  actual.forEach((a, i) =>
+    expect(Math.abs(a - (expected[i] as number))).toBeLessThanOrEqual(tolerance * Math.abs(expected[i] as number)),
+  );
 }
 
 // Benjamini & Hochberg (1995), JRSS B 57:289-300, section 4.1: the 15 p-values of their example.
-const BH_1995 = Object.freeze([0.0001, 0.0004, 0.0019, 0.0095, 0.0201, 0.0278, 0.0298, 0.0344, 0.0459, 0.324, 0.4262, 0.5719, 0.6528, 0.759, 1]);
+const BH_1995 = Object.freeze([
+  0.0001, 0.0004, 0.0019, 0.0095, 0.0201, 0.0278, 0.0298, 0.0344, 0.0459, 0.324, 0.4262, 0.5719, 0.6528, 0.759, 1,
+]);
 
 describe('holm', () => {
   it('adjusts [.01, .04, .03, .005, .2, .03] to [.05, .12, .12, .03, .2, .12] (METHODS.md, scipy 1.10.1 era check)', () => {

@@ -54,7 +54,10 @@ describe('mannWhitney: METHODS.md check values', () => {
     expectRelative(mannWhitney(A, B, { method: 'asymptotic', continuity: false }).p, 0.042357062026854894);
     // scipy 1.10.1, method='asymptotic', alternative='greater', use_continuity True / False
     expectRelative(mannWhitney(A, B, { method: 'asymptotic', alternative: 'greater' }).p, 0.02565995179403558);
-    expectRelative(mannWhitney(A, B, { method: 'asymptotic', alternative: 'greater', continuity: false }).p, 0.021178531013427447);
+    expectRelative(
+      mannWhitney(A, B, { method: 'asymptotic', alternative: 'greater', continuity: false }).p,
+      0.021178531013427447,
+    );
   });
 
   it('C vs D tie-corrected asymptotic with and without continuity correction (scipy 1.10.1 via METHODS.md)', () => {
@@ -131,11 +134,27 @@ describe('mannWhitney: properties and edges', () => {
 
   it('auto uses the normal approximation beyond 200,000 splits with ties, and exact up to 50 per group without', () => {
     const many = Array.from({ length: 30 }, (_, i) => i % 7);
-    expect(mannWhitney(many, many.map((v) => v + 1)).method).toBe('asymptotic');
+    expect(
+      mannWhitney(
+        many,
+        many.map((v) => v + 1),
+      ).method,
+    ).toBe('asymptotic');
     const distinct = Array.from({ length: 40 }, (_, i) => i);
-    expect(mannWhitney(distinct, distinct.map((v) => v + 0.5)).method).toBe('exact');
+    expect(
+      mannWhitney(
+        distinct,
+        distinct.map((v) => v + 0.5),
+      ).method,
+    ).toBe('exact');
     // forced exact with ties counts the conditional distribution even for large samples
-    expect(mannWhitney(many, many.map((v) => v + 1), { method: 'exact' }).method).toBe('exact-conditional');
+    expect(
+      mannWhitney(
+        many,
+        many.map((v) => v + 1),
+        { method: 'exact' },
+      ).method,
+    ).toBe('exact-conditional');
   });
 
   it('all values tied gives p = 1 for every method', () => {

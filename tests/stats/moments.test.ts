@@ -29,9 +29,13 @@ function readStrd(file: string): StrdDataset {
     data = lines.slice(Number(range[1]) - 1, Number(range[2])).map((l) => Number(l));
   } else {
     const start = lines.findIndex((l) => /^#\s*Data\s*$/.test(l));
-    data = lines.slice(start + 1).filter((l) => l.trim() !== '' && !l.startsWith('#')).map((l) => Number(l));
+    data = lines
+      .slice(start + 1)
+      .filter((l) => l.trim() !== '' && !l.startsWith('#'))
+      .map((l) => Number(l));
   }
-  const n = /Number of Observations:\s+(\d+)/.exec(text) ?? /^n\s*=\s*(\d+)/m.exec(text) ?? /(\d+)\s+Observations/.exec(text);
+  const n =
+    /Number of Observations:\s+(\d+)/.exec(text) ?? /^n\s*=\s*(\d+)/m.exec(text) ?? /(\d+)\s+Observations/.exec(text);
   if (n === null || Number(n[1]) !== data.length || data.some((v) => !Number.isFinite(v))) {
     throw new Error(`${file}: data do not match the stated number of observations`);
   }
@@ -52,11 +56,22 @@ function lre(computed: number, certified: number): number {
 // lower-difficulty sets, >= 9 on NumAcc3, >= 8 on NumAcc4. The README gives no sd figure for NumAcc2
 // (average difficulty, values 1.2 +- 0.1 without a large offset); we hold it to 12.
 const SD_LRE: Readonly<Record<string, number>> = {
-  PiDigits: 12, Lottery: 12, Lew: 12, Mavro: 12, Michelso: 12, NumAcc1: 12, NumAcc2: 12, NumAcc3: 9, NumAcc4: 8,
+  PiDigits: 12,
+  Lottery: 12,
+  Lew: 12,
+  Mavro: 12,
+  Michelso: 12,
+  NumAcc1: 12,
+  NumAcc2: 12,
+  NumAcc3: 9,
+  NumAcc4: 8,
 };
 
 describe('moments on NIST StRD univariate data', () => {
-  const datasets = readdirSync(NIST_DIR).filter((f) => f.endsWith('.txt')).sort().map(readStrd);
+  const datasets = readdirSync(NIST_DIR)
+    .filter((f) => f.endsWith('.txt'))
+    .sort()
+    .map(readStrd);
 
   it('reads all nine datasets', () => {
     expect(datasets.map((d) => d.name)).toEqual(Object.keys(SD_LRE).sort());

@@ -171,7 +171,11 @@ describe('noncentralTNcpInterval', () => {
   });
 
   it('puts the observed t at the (1 + level)/2 and (1 - level)/2 quantiles', () => {
-    for (const [tt, df, level] of [[0.4, 3, 0.9], [-2.2, 12, 0.95], [6, 8, 0.99]] as const) {
+    for (const [tt, df, level] of [
+      [0.4, 3, 0.9],
+      [-2.2, 12, 0.95],
+      [6, 8, 0.99],
+    ] as const) {
       const r = noncentralTNcpInterval(tt, df, level);
       expect(noncentralTCdf(tt, df, r.low)).toBeCloseTo((1 + level) / 2, 12);
       expect(noncentralTCdf(tt, df, r.high)).toBeCloseTo((1 - level) / 2, 12);

@@ -50,7 +50,12 @@ describe('OrderStatistics', () => {
       if (sorted.some((v) => !Number.isFinite(v))) continue;
       const order = new OrderStatistics(Float64Array.from(values));
       for (const p of [0, 0.025, 0.05, 0.25, 0.5, 0.75, 0.95, 0.975, 1]) {
-        expect(Object.is(quantileAt(values.length, p, (k) => order.at(k)), quantileSorted(sorted, p))).toBe(true);
+        expect(
+          Object.is(
+            quantileAt(values.length, p, (k) => order.at(k)),
+            quantileSorted(sorted, p),
+          ),
+        ).toBe(true);
       }
     }
   });

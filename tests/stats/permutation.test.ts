@@ -23,7 +23,11 @@ const MICHELSON = Object.freeze(
 const mean = (v: readonly number[]): number => v.reduce((s, x) => s + x, 0) / v.length;
 
 /** Naive reference: list every split as arrays and count with exact integer-scaled sums. */
-function bruteForce(x: readonly number[], y: readonly number[], scale: number): { splits: number; greater: number; less: number; twoSided: number } {
+function bruteForce(
+  x: readonly number[],
+  y: readonly number[],
+  scale: number,
+): { splits: number; greater: number; less: number; twoSided: number } {
   const pooled = [...x, ...y].map((v) => Math.round(v * scale));
   const n1 = x.length;
   const n2 = y.length;
@@ -105,7 +109,11 @@ describe('permutationTest: exact enumeration against exact integer arithmetic', 
   });
 
   it('matches a naive enumeration for random small groups of unequal sizes (either group the smaller)', () => {
-    const group = (min: number, max: number) => fc.array(fc.integer({ min: -20, max: 20 }).map((v) => v / 10), { minLength: min, maxLength: max });
+    const group = (min: number, max: number) =>
+      fc.array(
+        fc.integer({ min: -20, max: 20 }).map((v) => v / 10),
+        { minLength: min, maxLength: max },
+      );
     fc.assert(
       fc.property(group(1, 6), group(1, 8), (x, y) => {
         const ref = bruteForce(x, y, 10);

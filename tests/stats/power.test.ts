@@ -93,7 +93,11 @@ describe('minimumDetectableEffect', () => {
   });
 
   it('is the inverse of welchPower, also for unequal arms and other power targets', () => {
-    for (const [n1, n2, power] of [[3, 3, 0.8], [4, 9, 0.9], [20, 12, 0.5]] as const) {
+    for (const [n1, n2, power] of [
+      [3, 3, 0.8],
+      [4, 9, 0.9],
+      [20, 12, 0.5],
+    ] as const) {
       const d = minimumDetectableEffect(n1, n2, 0.05, power);
       expect(welchPower(d, n1, n2)).toBeCloseTo(power, 10);
     }

@@ -88,13 +88,46 @@ interface Fixture {
   readonly mannWhitney: readonly MannWhitneyCase[];
   readonly wilcoxon: readonly WilcoxonCase[];
   readonly permutation: readonly PermutationCase[];
-  readonly adjustments: { readonly source: string; readonly holm: readonly AdjustmentCase[]; readonly benjaminiHochberg: readonly AdjustmentCase[] };
-  readonly tQuantile: readonly { readonly p: number; readonly df: number; readonly tPpf: number; readonly nctPpf: number; readonly mpmath: string }[];
-  readonly noncentralTCdf: readonly { readonly t: number; readonly df: number; readonly ncp: number; readonly cdf: number; readonly mpmath: string }[];
+  readonly adjustments: {
+    readonly source: string;
+    readonly holm: readonly AdjustmentCase[];
+    readonly benjaminiHochberg: readonly AdjustmentCase[];
+  };
+  readonly tQuantile: readonly {
+    readonly p: number;
+    readonly df: number;
+    readonly tPpf: number;
+    readonly nctPpf: number;
+    readonly mpmath: string;
+  }[];
+  readonly noncentralTCdf: readonly {
+    readonly t: number;
+    readonly df: number;
+    readonly ncp: number;
+    readonly cdf: number;
+    readonly mpmath: string;
+  }[];
   readonly power: {
-    readonly welchPower: readonly { readonly effect: number; readonly n1: number; readonly n2: number; readonly alpha: number; readonly power: number }[];
-    readonly minimumDetectableEffect: readonly { readonly n1: number; readonly n2: number; readonly alpha: number; readonly power: number; readonly effect: number }[];
-    readonly seedsPerArm: readonly { readonly effect: number; readonly alpha: number; readonly power: number; readonly seedsPerArm: number }[];
+    readonly welchPower: readonly {
+      readonly effect: number;
+      readonly n1: number;
+      readonly n2: number;
+      readonly alpha: number;
+      readonly power: number;
+    }[];
+    readonly minimumDetectableEffect: readonly {
+      readonly n1: number;
+      readonly n2: number;
+      readonly alpha: number;
+      readonly power: number;
+      readonly effect: number;
+    }[];
+    readonly seedsPerArm: readonly {
+      readonly effect: number;
+      readonly alpha: number;
+      readonly power: number;
+      readonly seedsPerArm: number;
+    }[];
   };
   readonly hedgesG: readonly HedgesCase[];
 }
@@ -104,10 +137,14 @@ const fixture = JSON.parse(readFileSync(new URL('../reference/scipy-cases.json',
 /** |actual - expected| <= max(rel |expected|, abs): relative tolerance, or absolute for values near 0. */
 function expectClose(actual: number, expected: number, rel: number, abs: number, what: string): void {
   const error = Math.abs(actual - expected);
-  expect(error, `${what}: got ${actual}, reference ${expected}`).toBeLessThanOrEqual(Math.max(rel * Math.abs(expected), abs));
+  expect(error, `${what}: got ${actual}, reference ${expected}`).toBeLessThanOrEqual(
+    Math.max(rel * Math.abs(expected), abs),
+  );
 }
-const expectP = (actual: number, expected: number, what: string): void => expectClose(actual, expected, 1e-9, 1e-12, what);
-const expectStatistic = (actual: number, expected: number, what: string): void => expectClose(actual, expected, 1e-10, 1e-12, what);
+const expectP = (actual: number, expected: number, what: string): void =>
+  expectClose(actual, expected, 1e-9, 1e-12, what);
+const expectStatistic = (actual: number, expected: number, what: string): void =>
+  expectClose(actual, expected, 1e-10, 1e-12, what);
 
 /** Frozen copies: the functions must not mutate their input. */
 function frozen(c: TwoGroups): { x: readonly number[]; y: readonly number[] } {
@@ -120,7 +157,14 @@ const cases = <T>(list: readonly T[]): { i: number; c: T }[] => list.map((c, i) 
 it('the fixture was written by scipy 1.10.1 (Debian python3-scipy), with at least 50 cases per function', () => {
   expect(fixture.scipyVersion).toBe('1.10.1');
   expect(fixture.source).toMatch(/^scipy 1\.10\.1 via Debian python3-scipy/);
-  for (const list of [fixture.welch, fixture.pairedT, fixture.mannWhitney, fixture.wilcoxon, fixture.permutation, fixture.hedgesG]) {
+  for (const list of [
+    fixture.welch,
+    fixture.pairedT,
+    fixture.mannWhitney,
+    fixture.wilcoxon,
+    fixture.permutation,
+    fixture.hedgesG,
+  ]) {
     expect(list.length).toBeGreaterThanOrEqual(50);
   }
   expect(fixture.mannWhitney.filter((c) => c.exact !== undefined).length).toBeGreaterThanOrEqual(20);
@@ -198,10 +242,16 @@ describe('mannWhitney against scipy 1.10.1 mannwhitneyu (and permutation_test fo
     // ties up to 200,000 splits, else the tie-corrected normal approximation with continuity correction.
     const auto = mannWhitney(x, y);
     const expectedMethod = !c.ties
-      ? x.length <= 50 && y.length <= 50 ? 'exact' : 'asymptotic'
-      : c.splits <= 200_000 ? 'exact-conditional' : 'asymptotic';
+      ? x.length <= 50 && y.length <= 50
+        ? 'exact'
+        : 'asymptotic'
+      : c.splits <= 200_000
+        ? 'exact-conditional'
+        : 'asymptotic';
     expect(auto.method).toBe(expectedMethod);
-    const expectedP = { exact: c.exact, 'exact-conditional': c.exactConditional, asymptotic: c.asymptotic }[expectedMethod];
+    const expectedP = { exact: c.exact, 'exact-conditional': c.exactConditional, asymptotic: c.asymptotic }[
+      expectedMethod
+    ];
     if (expectedP !== undefined) expectP(auto.p, expectedP['two-sided'], 'auto two-sided');
   });
 });
@@ -284,16 +334,22 @@ describe('noncentralTCdf within its documented 1e-12 of a 40-digit mpmath integr
 });
 
 describe('power against scipy 1.10.1 nct (Boost; critical value nct.ppf(1 - alpha/2, df, 0)) via Debian python3-scipy', () => {
-  it.each(cases(fixture.power.welchPower))('welchPower case $i: d $c.effect, $c.n1 v $c.n2, alpha $c.alpha', ({ c }) => {
-    expectP(welchPower(c.effect, c.n1, c.n2, c.alpha), c.power, 'power');
-  });
+  it.each(cases(fixture.power.welchPower))(
+    'welchPower case $i: d $c.effect, $c.n1 v $c.n2, alpha $c.alpha',
+    ({ c }) => {
+      expectP(welchPower(c.effect, c.n1, c.n2, c.alpha), c.power, 'power');
+    },
+  );
   it.each(cases(fixture.power.minimumDetectableEffect))('minimumDetectableEffect case $i: $c.n1 v $c.n2', ({ c }) => {
     // scipy brentq on the same power function to 1e-14; both roots are good to about 1e-12.
     expectClose(minimumDetectableEffect(c.n1, c.n2, c.alpha, c.power), c.effect, 1e-9, 0, 'effect');
   });
-  it.each(cases(fixture.power.seedsPerArm))('seedsPerArm case $i: d $c.effect, alpha $c.alpha, power $c.power', ({ c }) => {
-    expect(seedsPerArm(c.effect, c.alpha, c.power)).toBe(c.seedsPerArm);
-  });
+  it.each(cases(fixture.power.seedsPerArm))(
+    'seedsPerArm case $i: d $c.effect, alpha $c.alpha, power $c.power',
+    ({ c }) => {
+      expect(seedsPerArm(c.effect, c.alpha, c.power)).toBe(c.seedsPerArm);
+    },
+  );
 });
 
 describe('hedgesG: d and J are formula checks (numpy, scipy.special.gammaln); the interval is a root of scipy 1.10.1 nct.cdf', () => {

@@ -25,14 +25,17 @@ const PYTHON = '/usr/bin/python3';
 const SCRIPT = fileURLToPath(new URL('../reference/scipy_live.py', import.meta.url));
 const CASES_PER_FUNCTION = 30;
 
-const probe = spawnSync(PYTHON, ['-c', 'import scipy; print(scipy.__version__)'], { encoding: 'utf8', timeout: 30_000 });
+const probe = spawnSync(PYTHON, ['-c', 'import scipy; print(scipy.__version__)'], {
+  encoding: 'utf8',
+  timeout: 30_000,
+});
 const scipyVersion = probe.status === 0 ? probe.stdout.trim() : undefined;
 const unavailable =
   scipyVersion === undefined
     ? `${PYTHON} cannot import scipy (${probe.error?.message ?? probe.stderr.trim().split('\n').pop() ?? 'unknown error'}); ` +
       'install Debian python3-scipy: apt-get install -y python3-scipy'
     : undefined;
-const inCi = Boolean(process.env['CI']);
+const inCi = Boolean(process.env.CI);
 if (unavailable !== undefined && !inCi) {
   console.warn(`NOTICE: scipyLive.test.ts skipped: ${unavailable}`);
 }
@@ -61,8 +64,10 @@ function group(random: Random, n: number, shape: number): number[] {
   const out: number[] = [];
   for (let i = 0; i < n; i++) {
     const z = normal(random);
-    if (shape === 0) out.push(50 + 3 * z); // normal
-    else if (shape === 1) out.push(5 * Math.exp(z)); // lognormal: skewed
+    if (shape === 0)
+      out.push(50 + 3 * z); // normal
+    else if (shape === 1)
+      out.push(5 * Math.exp(z)); // lognormal: skewed
     else out.push(Math.round(3 + 1.5 * z)); // integers: ties
   }
   return out;
@@ -84,7 +89,11 @@ function drawCases(seed: number): LiveCase[] {
       y = group(random, size(random), shape);
     } while (spread(x) + spread(y) === 0);
     cases.push({ fn: 'welch', x, y });
-    cases.push({ fn: 'mannWhitney', x: group(random, size(random), shape), y: group(random, size(random), shape).map((v) => v + shift) });
+    cases.push({
+      fn: 'mannWhitney',
+      x: group(random, size(random), shape),
+      y: group(random, size(random), shape).map((v) => v + shift),
+    });
     const n = size(random);
     const a = group(random, n, shape);
     let b: number[];
@@ -102,53 +111,78 @@ function spread(v: readonly number[]): number {
 }
 
 function askScipy(cases: readonly LiveCase[]): { scipy: string; results: unknown[] } {
-  const run = spawnSync(PYTHON, [SCRIPT], { input: JSON.stringify({ cases }), encoding: 'utf8', timeout: 120_000, maxBuffer: 64 * 1024 * 1024 });
-  if (run.status !== 0) throw new Error(`scipy_live.py failed (status ${run.status}): ${run.error?.message ?? run.stderr}`);
+  const run = spawnSync(PYTHON, [SCRIPT], {
+    input: JSON.stringify({ cases }),
+    encoding: 'utf8',
+    timeout: 120_000,
+    maxBuffer: 64 * 1024 * 1024,
+  });
+  if (run.status !== 0)
+    throw new Error(`scipy_live.py failed (status ${run.status}): ${run.error?.message ?? run.stderr}`);
   return JSON.parse(run.stdout) as { scipy: string; results: unknown[] };
 }
 
 function expectClose(actual: number, expected: number, rel: number, abs: number, what: string): void {
   const error = Math.abs(actual - expected);
-  expect(error, `${what}: got ${actual}, reference ${expected}`).toBeLessThanOrEqual(Math.max(rel * Math.abs(expected), abs));
+  expect(error, `${what}: got ${actual}, reference ${expected}`).toBeLessThanOrEqual(
+    Math.max(rel * Math.abs(expected), abs),
+  );
 }
-const expectP = (actual: number, expected: number, what: string): void => expectClose(actual, expected, 1e-9, 1e-12, what);
+const expectP = (actual: number, expected: number, what: string): void =>
+  expectClose(actual, expected, 1e-9, 1e-12, what);
 
-describe.skipIf(unavailable !== undefined && !inCi)(`src/stats against live scipy ${scipyVersion ?? ''} (Debian python3-scipy, ${PYTHON})`, () => {
-  it('can run scipy (required when CI is set)', () => {
-    expect(unavailable, unavailable).toBeUndefined();
-  });
-
-  it(`agrees on ${CASES_PER_FUNCTION} fresh cases each of Welch, Mann-Whitney (asymptotic), paired t and the noncentral t CDF`, () => {
-    expect(unavailable, unavailable).toBeUndefined();
-    const cases = drawCases(20240611);
-    const { results } = askScipy(cases);
-    expect(results).toHaveLength(cases.length);
-    const counted = { welch: 0, mannWhitney: 0, pairedT: 0, nctCdf: 0 };
-    cases.forEach((c, k) => {
-      const label = `case ${k} (${c.fn})`;
-      counted[c.fn]++;
-      if (c.fn === 'nctCdf') {
-        expectP(noncentralTCdf(c.t, c.df, c.ncp), (results[k] as { cdf: number }).cdf, `${label} cdf(${c.t}, ${c.df}, ${c.ncp})`);
-        return;
-      }
-      if (c.fn === 'mannWhitney') {
-        const answer = results[k] as MannWhitneyAnswer;
-        for (const alternative of ALTERNATIVES) {
-          const r = mannWhitney(c.x, c.y, { alternative, method: 'asymptotic' });
-          expect(r.u, label).toBe(answer.u);
-          expectP(r.p, answer.asymptotic[alternative], `${label} ${alternative}`);
-          expectP(mannWhitney(c.x, c.y, { alternative, method: 'asymptotic', continuity: false }).p, answer.asymptoticNoContinuity[alternative], `${label} ${alternative} without continuity`);
-        }
-        return;
-      }
-      const answer = results[k] as TestAnswer;
-      for (const alternative of ALTERNATIVES) {
-        const r = c.fn === 'welch' ? welch(c.x, c.y, { alternative }) : pairedT(c.x, c.y, { alternative });
-        expectClose(r.statistic, answer.statistic, 1e-10, 1e-12, `${label} t`);
-        expectClose(r.df, answer.df, 1e-10, 0, `${label} df`);
-        expectP(r.p, answer.p[alternative], `${label} p ${alternative}`);
-      }
+describe.skipIf(unavailable !== undefined && !inCi)(
+  `src/stats against live scipy ${scipyVersion ?? ''} (Debian python3-scipy, ${PYTHON})`,
+  () => {
+    it('can run scipy (required when CI is set)', () => {
+      expect(unavailable, unavailable).toBeUndefined();
     });
-    expect(counted).toEqual({ welch: CASES_PER_FUNCTION, mannWhitney: CASES_PER_FUNCTION, pairedT: CASES_PER_FUNCTION, nctCdf: CASES_PER_FUNCTION });
-  });
-});
+
+    it(`agrees on ${CASES_PER_FUNCTION} fresh cases each of Welch, Mann-Whitney (asymptotic), paired t and the noncentral t CDF`, () => {
+      expect(unavailable, unavailable).toBeUndefined();
+      const cases = drawCases(20240611);
+      const { results } = askScipy(cases);
+      expect(results).toHaveLength(cases.length);
+      const counted = { welch: 0, mannWhitney: 0, pairedT: 0, nctCdf: 0 };
+      cases.forEach((c, k) => {
+        const label = `case ${k} (${c.fn})`;
+        counted[c.fn]++;
+        if (c.fn === 'nctCdf') {
+          expectP(
+            noncentralTCdf(c.t, c.df, c.ncp),
+            (results[k] as { cdf: number }).cdf,
+            `${label} cdf(${c.t}, ${c.df}, ${c.ncp})`,
+          );
+          return;
+        }
+        if (c.fn === 'mannWhitney') {
+          const answer = results[k] as MannWhitneyAnswer;
+          for (const alternative of ALTERNATIVES) {
+            const r = mannWhitney(c.x, c.y, { alternative, method: 'asymptotic' });
+            expect(r.u, label).toBe(answer.u);
+            expectP(r.p, answer.asymptotic[alternative], `${label} ${alternative}`);
+            expectP(
+              mannWhitney(c.x, c.y, { alternative, method: 'asymptotic', continuity: false }).p,
+              answer.asymptoticNoContinuity[alternative],
+              `${label} ${alternative} without continuity`,
+            );
+          }
+          return;
+        }
+        const answer = results[k] as TestAnswer;
+        for (const alternative of ALTERNATIVES) {
+          const r = c.fn === 'welch' ? welch(c.x, c.y, { alternative }) : pairedT(c.x, c.y, { alternative });
+          expectClose(r.statistic, answer.statistic, 1e-10, 1e-12, `${label} t`);
+          expectClose(r.df, answer.df, 1e-10, 0, `${label} df`);
+          expectP(r.p, answer.p[alternative], `${label} p ${alternative}`);
+        }
+      });
+      expect(counted).toEqual({
+        welch: CASES_PER_FUNCTION,
+        mannWhitney: CASES_PER_FUNCTION,
+        pairedT: CASES_PER_FUNCTION,
+        nctCdf: CASES_PER_FUNCTION,
+      });
+    });
+  },
+);

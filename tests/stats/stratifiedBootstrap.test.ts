@@ -29,7 +29,11 @@ const concat = (strata: readonly Float64Array[]): Float64Array => {
 
 describe('stratifiedBootstrap', () => {
   it('matches a naive recomputation with the same draws (IQM over all task x run scores)', () => {
-    const strata = Object.freeze([Object.freeze([0.2, 0.5, 0.9]), Object.freeze([0.1, 0.4]), Object.freeze([0.7, 0.8, 0.3, 0.6])]);
+    const strata = Object.freeze([
+      Object.freeze([0.2, 0.5, 0.9]),
+      Object.freeze([0.1, 0.4]),
+      Object.freeze([0.7, 0.8, 0.3, 0.6]),
+    ]);
     const resamples = 1000;
     const result = stratifiedBootstrap(strata, (s) => interquartileMean(concat(s)), createRandom(4), { resamples });
     const random = createRandom(4);
@@ -47,14 +51,20 @@ describe('stratifiedBootstrap', () => {
 
   it('with one stratum and the mean, equals the percentile bootstrap of the mean with the same seed', () => {
     const x = Object.freeze([71.2, 69.8, 73.1, 70.4, 72.0]);
-    const s = stratifiedBootstrap([x], (st) => mean(st[0] as Float64Array), createRandom(9), { resamples: 3000, level: 0.9 });
+    const s = stratifiedBootstrap([x], (st) => mean(st[0] as Float64Array), createRandom(9), {
+      resamples: 3000,
+      level: 0.9,
+    });
     const b = bootstrapMean(x, createRandom(9), { method: 'percentile', resamples: 3000, level: 0.9 });
     expectRelative(s.low, b.low, 1e-12);
     expectRelative(s.high, b.high, 1e-12);
   });
 
   it('resamples within each stratum only, keeping stratum sizes', () => {
-    const strata = [[0, 0, 0], [100, 100]];
+    const strata = [
+      [0, 0, 0],
+      [100, 100],
+    ];
     const r = stratifiedBootstrap(
       strata,
       (s) => {
@@ -69,8 +79,15 @@ describe('stratifiedBootstrap', () => {
 
   it('a statistic may sort its buffers in place without changing the result', () => {
     const strata = EXPERIMENTS.slice(0, 2);
-    const copying = stratifiedBootstrap(strata, (s) => Float64Array.from(s[0] as Float64Array).sort()[10] as number, createRandom(5), { resamples: 500 });
-    const inPlace = stratifiedBootstrap(strata, (s) => (s[0] as Float64Array).sort()[10] as number, createRandom(5), { resamples: 500 });
+    const copying = stratifiedBootstrap(
+      strata,
+      (s) => Float64Array.from(s[0] as Float64Array).sort()[10] as number,
+      createRandom(5),
+      { resamples: 500 },
+    );
+    const inPlace = stratifiedBootstrap(strata, (s) => (s[0] as Float64Array).sort()[10] as number, createRandom(5), {
+      resamples: 500,
+    });
     expect(inPlace).toEqual(copying);
   });
 
@@ -78,7 +95,12 @@ describe('stratifiedBootstrap', () => {
     // Bootstrap variance of a mean = plug-in variance / n (Efron & Tibshirani 1993, sec. 5.2), so for
     // (1/H) sum of stratum means it is (1/H^2) sum_h s2_h (n_h - 1) / n_h^2; near normal with 5 x 20 runs.
     const H = EXPERIMENTS.length;
-    const r = stratifiedBootstrap(EXPERIMENTS, (s) => s.reduce((acc, a) => acc + mean(a), 0) / s.length, createRandom(11), { resamples: 20_000 });
+    const r = stratifiedBootstrap(
+      EXPERIMENTS,
+      (s) => s.reduce((acc, a) => acc + mean(a), 0) / s.length,
+      createRandom(11),
+      { resamples: 20_000 },
+    );
     let v = 0;
     for (const e of EXPERIMENTS) {
       const m = mean(e);

@@ -13,7 +13,8 @@ describe('studentTQuantile', () => {
     // METHODS.md check values (any statistics handbook's t table, 6 decimals).
     const table = T_TABLE_0975;
     for (let round = 0; round < 2; round++) {
-      for (const [df, q] of table) expect(Math.abs(studentTQuantile(0.975, df) - q), `df ${df}, round ${round}`).toBeLessThanOrEqual(5e-7);
+      for (const [df, q] of table)
+        expect(Math.abs(studentTQuantile(0.975, df) - q), `df ${df}, round ${round}`).toBeLessThanOrEqual(5e-7);
     }
   });
 
@@ -37,7 +38,8 @@ describe('studentTQuantile', () => {
     const pairs: [number, number][] = [];
     for (const p of [0.9, 0.95, 0.975, 0.995, 0.025, 0.5]) for (let i = 0; i < 800; i++) pairs.push([p, 1 + i * 0.37]);
     for (let round = 0; round < 2; round++) {
-      for (const [p, df] of pairs) expect(Object.is(studentTQuantile(p, df), tQuantile(p, df)), `p ${p}, df ${df}`).toBe(true);
+      for (const [p, df] of pairs)
+        expect(Object.is(studentTQuantile(p, df), tQuantile(p, df)), `p ${p}, df ${df}`).toBe(true);
     }
   });
 

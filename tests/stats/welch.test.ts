@@ -75,7 +75,11 @@ describe('welch', () => {
 
   it('agrees with the test: the two-sided interval excludes 0 exactly when p < 1 - level', () => {
     // Property of inverting the test (common practice), on the METHODS inputs at several levels.
-    for (const [x, y] of [[A, B], [C, D], [B, A]] as const) {
+    for (const [x, y] of [
+      [A, B],
+      [C, D],
+      [B, A],
+    ] as const) {
       for (const level of [0.8, 0.9, 0.95, 0.99]) {
         const r = welch(x, y, { level });
         expect(r.low > 0 || r.high < 0).toBe(r.p < 1 - level);

@@ -39,22 +39,26 @@ describe('wilcoxonSignedRank: exact (no zeros, no ties)', () => {
 
   it('exact p equals the fraction of all 2^n sign patterns with W+ at least as extreme (definition)', () => {
     fc.assert(
-      fc.property(fc.uniqueArray(fc.integer({ min: 1, max: 40 }), { minLength: 1, maxLength: 10 }), fc.array(fc.boolean(), { minLength: 10, maxLength: 10 }), (magnitudes, signs) => {
-        const d = magnitudes.map((m, i) => (signs[i] ? m : -m));
-        const n = d.length;
-        const order = [...magnitudes].sort((a, b) => a - b);
-        const rank = (m: number): number => order.indexOf(m) + 1;
-        const wPlus = d.reduce((s, v) => s + (v > 0 ? rank(v) : 0), 0);
-        let atLeast = 0;
-        for (let mask = 0; mask < 2 ** n; mask++) {
-          let w = 0;
-          for (let i = 0; i < n; i++) if (mask & (1 << i)) w += i + 1;
-          if (w >= wPlus) atLeast++;
-        }
-        const result = wilcoxonSignedRank(d, new Array<number>(n).fill(0), { alternative: 'greater' });
-        expect(result.statistic).toBe(wPlus);
-        expect(result.p).toBeCloseTo(atLeast / 2 ** n, 14);
-      }),
+      fc.property(
+        fc.uniqueArray(fc.integer({ min: 1, max: 40 }), { minLength: 1, maxLength: 10 }),
+        fc.array(fc.boolean(), { minLength: 10, maxLength: 10 }),
+        (magnitudes, signs) => {
+          const d = magnitudes.map((m, i) => (signs[i] ? m : -m));
+          const n = d.length;
+          const order = [...magnitudes].sort((a, b) => a - b);
+          const rank = (m: number): number => order.indexOf(m) + 1;
+          const wPlus = d.reduce((s, v) => s + (v > 0 ? rank(v) : 0), 0);
+          let atLeast = 0;
+          for (let mask = 0; mask < 2 ** n; mask++) {
+            let w = 0;
+            for (let i = 0; i < n; i++) if (mask & (1 << i)) w += i + 1;
+            if (w >= wPlus) atLeast++;
+          }
+          const result = wilcoxonSignedRank(d, new Array<number>(n).fill(0), { alternative: 'greater' });
+          expect(result.statistic).toBe(wPlus);
+          expect(result.p).toBeCloseTo(atLeast / 2 ** n, 14);
+        },
+      ),
       { seed: 99, numRuns: 100 },
     );
   });

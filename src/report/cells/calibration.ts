@@ -13,7 +13,8 @@ import { NO_TICK_DATA } from './noTickData.js';
 
 function ece(point: CalibrationCurve['ece'][number] | undefined): string | null {
   if (point === undefined || point.mean === null) return null;
-  const band = point.low === null || point.high === null ? '' : ` [${formatNumber(point.low, 3)}, ${formatNumber(point.high, 3)}]`;
+  const band =
+    point.low === null || point.high === null ? '' : ` [${formatNumber(point.low, 3)}, ${formatNumber(point.high, 3)}]`;
   return `${formatNumber(point.mean, 3)}${band} (tick ${point.tick})`;
 }
 
@@ -29,8 +30,25 @@ export const calibration: Cell = {
     const bins = [...new Set(r.calibration.map((c) => c.bins))].join(' or ');
     const caption = `Expected calibration error over ${bins} equal-width confidence bins; lower is better calibrated. Which noise: the band is the ${level} interval across seeds (the spread between training runs). The reliability diagrams below pool every seed's samples, so their whiskers show only the between-example noise of each bin.`;
     let html = figureHtml(state, calibrationChart(r), caption, 'No calibration curves.');
-    const rows: TableCell[][] = r.calibration.map((c) => [{ html: nameHtml(c.config) }, c.seeds === undefined ? null : `${c.seeds}`, `${c.bins}`, ece(c.ece[0]), ece(c.ece[c.ece.length - 1])]);
-    html += tableHtml({ className: 'calibration', head: ['Config', 'Seeds', 'Bins', `ECE first tick [${level} across seeds]`, `ECE last tick [${level} across seeds]`], rows, numeric: [1, 2, 3, 4] });
+    const rows: TableCell[][] = r.calibration.map((c) => [
+      { html: nameHtml(c.config) },
+      c.seeds === undefined ? null : `${c.seeds}`,
+      `${c.bins}`,
+      ece(c.ece[0]),
+      ece(c.ece[c.ece.length - 1]),
+    ]);
+    html += tableHtml({
+      className: 'calibration',
+      head: [
+        'Config',
+        'Seeds',
+        'Bins',
+        `ECE first tick [${level} across seeds]`,
+        `ECE last tick [${level} across seeds]`,
+      ],
+      rows,
+      numeric: [1, 2, 3, 4],
+    });
     for (const c of r.calibration) {
       html += figureHtml(state, reliabilityChart(r, c.config), '', `No reliability diagram for ${c.config}.`);
     }

@@ -69,7 +69,9 @@ export function checkCall(cell: Cell, call: CellCall): void {
   const [low, high] = cell.arity;
   const n = call.params.length;
   if (n < low || n > high) {
-    throw new CellError(`expected ${low === high ? low : `${low} to ${high}`} argument${high === 1 ? '' : 's'} (${cell.usage}), got ${n}`);
+    throw new CellError(
+      `expected ${low === high ? low : `${low} to ${high}`} argument${high === 1 ? '' : 's'} (${cell.usage}), got ${n}`,
+    );
   }
   for (const key of Object.keys(call.hash)) {
     if (!cell.options.includes(key)) {
@@ -100,7 +102,7 @@ export function metricParam(state: RenderState, call: CellCall, index: number): 
  * Throws CellError naming the summaries there are. Cost O(values + comparisons).
  */
 export function summaryOption(state: RenderState, call: CellCall, metric: string): string {
-  const given = call.hash['summary'];
+  const given = call.hash.summary;
   if (given === undefined) return state.results.settings.summary;
   if (typeof given !== 'string') throw new CellError(`summary: expected text such as "last:10%", got ${String(given)}`);
   const present = new Set([
@@ -110,7 +112,9 @@ export function summaryOption(state: RenderState, call: CellCall, metric: string
   ]);
   if (!present.has(given)) {
     const list = [...present].map(quoted).join(', ');
-    throw new CellError(`no results for ${quoted(metric)} under summary ${quoted(given)}; these results hold ${list === '' ? 'none' : list} (run the report with --summary ${given})`);
+    throw new CellError(
+      `no results for ${quoted(metric)} under summary ${quoted(given)}; these results hold ${list === '' ? 'none' : list} (run the report with --summary ${given})`,
+    );
   }
   return given;
 }

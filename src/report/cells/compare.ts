@@ -8,7 +8,15 @@
 import { cautionScope, groupCautions } from '../verdictWords.js';
 import type { Comparison, Results } from '../../analysis/results.js';
 import { compareChart } from '../charts/compareChart.js';
-import { comparisonDecimals, formatDifference, formatIntervalKind, formatNumber, formatP, formatSeeds, formatSigned } from '../format.js';
+import {
+  comparisonDecimals,
+  formatDifference,
+  formatIntervalKind,
+  formatNumber,
+  formatP,
+  formatSeeds,
+  formatSigned,
+} from '../format.js';
 import { listHtml, nameHtml, tableHtml, type TableCell } from '../html.js';
 import { verdictHtml } from './verdicts.js';
 import { figureHtml, metricParam, summaryOption, type Cell } from './cell.js';
@@ -17,7 +25,9 @@ const CORRECTION = { holm: 'Holm', bh: 'Benjamini-Hochberg', none: 'no' } as con
 
 function withInterval(x: number | null, low: number | null, high: number | null, decimals: number): string {
   if (x === null) return '—';
-  return low === null || high === null ? formatSigned(x, decimals) : `${formatSigned(x, decimals)} [${formatNumber(low, decimals)}, ${formatNumber(high, decimals)}]`;
+  return low === null || high === null
+    ? formatSigned(x, decimals)
+    : `${formatSigned(x, decimals)} [${formatNumber(low, decimals)}, ${formatNumber(high, decimals)}]`;
 }
 
 /** The quantities of one comparison, in display order: [label, cell]. */
@@ -26,24 +36,48 @@ function quantities(r: Results, c: Comparison): [string, TableCell][] {
   const t = c.tests;
   const out: [string, TableCell][] = [
     ['Mean (baseline v candidate)', `${formatNumber(c.mean.baseline, d)} v ${formatNumber(c.mean.candidate, d)}`],
-    ['SD between seeds (baseline v candidate)', `${formatNumber(c.sd.baseline, d)} v ${formatNumber(c.sd.candidate, d)}`],
+    [
+      'SD between seeds (baseline v candidate)',
+      `${formatNumber(c.sd.baseline, d)} v ${formatNumber(c.sd.candidate, d)}`,
+    ],
     ['Seeds (baseline v candidate)', formatSeeds(c, r.settings.diverged)],
     [`Difference [${formatIntervalKind(c.difference)}]`, formatDifference(c.difference, d)],
-    ['Welch t-test (primary)', `t = ${formatNumber(t.welch.statistic, 2)}, df = ${formatNumber(t.welch.df, 1)}, p = ${formatP(t.welch.p)}`],
+    [
+      'Welch t-test (primary)',
+      `t = ${formatNumber(t.welch.statistic, 2)}, df = ${formatNumber(t.welch.df, 1)}, p = ${formatP(t.welch.p)}`,
+    ],
   ];
   if (t.paired !== undefined) {
-    out.push(['Paired t-test and Wilcoxon signed-rank', `t = ${formatNumber(t.paired.t, 2)}, df = ${formatNumber(t.paired.df, 1)}, p = ${formatP(t.paired.p)}; Wilcoxon p = ${formatP(t.paired.wilcoxonP)} (${t.paired.pairs} pairs)`]);
+    out.push([
+      'Paired t-test and Wilcoxon signed-rank',
+      `t = ${formatNumber(t.paired.t, 2)}, df = ${formatNumber(t.paired.df, 1)}, p = ${formatP(t.paired.p)}; Wilcoxon p = ${formatP(t.paired.wilcoxonP)} (${t.paired.pairs} pairs)`,
+    ]);
   }
   out.push(
-    ['Permutation test', `p = ${formatP(t.permutation.p)} (${t.permutation.exact ? 'exact, every split' : 'random relabelings'})`],
-    ['Mann-Whitney U', `U = ${formatNumber(t.mannWhitney.u, 1)}, p = ${formatP(t.mannWhitney.p)} (${t.mannWhitney.exact ? 'exact' : 'normal approximation'})`],
+    [
+      'Permutation test',
+      `p = ${formatP(t.permutation.p)} (${t.permutation.exact ? 'exact, every split' : 'random relabelings'})`,
+    ],
+    [
+      'Mann-Whitney U',
+      `U = ${formatNumber(t.mannWhitney.u, 1)}, p = ${formatP(t.mannWhitney.p)} (${t.mannWhitney.exact ? 'exact' : 'normal approximation'})`,
+    ],
     [`p adjusted (${CORRECTION[r.settings.correction]})`, formatP(c.pAdjusted)],
     ['Verdict', { html: verdictHtml(c) }],
     ["Hedges' g [interval]", withInterval(c.effect.hedgesG, c.effect.hedgesGLow, c.effect.hedgesGHigh, 2)],
-    ['P(candidate better)', c.effect.probabilityOfImprovement === null ? null : formatNumber(c.effect.probabilityOfImprovement, 2)],
-    ["Cliff's delta [interval]", withInterval(c.effect.cliffsDelta, c.effect.cliffsDeltaLow, c.effect.cliffsDeltaHigh, 2)],
+    [
+      'P(candidate better)',
+      c.effect.probabilityOfImprovement === null ? null : formatNumber(c.effect.probabilityOfImprovement, 2),
+    ],
+    [
+      "Cliff's delta [interval]",
+      withInterval(c.effect.cliffsDelta, c.effect.cliffsDeltaLow, c.effect.cliffsDeltaHigh, 2),
+    ],
     ['Smallest difference these seeds detect (80% power)', formatNumber(c.detectable.minimumEffect, d)],
-    ['Seeds per arm to detect the observed difference (80% power)', c.detectable.seedsFor80 === null ? null : formatNumber(c.detectable.seedsFor80, 0)],
+    [
+      'Seeds per arm to detect the observed difference (80% power)',
+      c.detectable.seedsFor80 === null ? null : formatNumber(c.detectable.seedsFor80, 0),
+    ],
   );
   return out;
 }
@@ -59,7 +93,12 @@ export const compare: Cell = {
     const r = state.results;
     const mine = r.comparisons.filter((c) => c.metric === m.name && c.summary === summary);
     const caption = `Candidate minus baseline (summary ${summary}); every statistic of each comparison is in the table below.`;
-    const chart = figureHtml(state, compareChart(r, m.name, summary), caption, `No comparisons of ${m.name} under summary ${summary}.`);
+    const chart = figureHtml(
+      state,
+      compareChart(r, m.name, summary),
+      caption,
+      `No comparisons of ${m.name} under summary ${summary}.`,
+    );
     if (mine.length === 0) return chart;
     const columns = mine.map((c) => quantities(r, c));
     const labels = columns[0]?.map(([label]) => label) ?? [];

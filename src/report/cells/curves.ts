@@ -15,8 +15,14 @@ export const curves: Cell = {
     const m = metricParam(state, call, 0);
     const mine = state.results.curves.filter((c) => c.metric === m.name);
     const bands = [...new Set(mine.map((c) => formatIntervalKind({ level: c.level, method: c.band })))].join(' or ');
-    const horizon = m.horizon === null ? '' : ` Comparisons use the common horizon, step ${formatNumber(m.horizon, 0)}.`;
+    const horizon =
+      m.horizon === null ? '' : ` Comparisons use the common horizon, step ${formatNumber(m.horizon, 0)}.`;
     const caption = `The ${bands} band shows the spread between seeds: it is for looking, the tests decide. No curve runs past a run's last step.${horizon}`;
-    return figureHtml(state, curvesChart(state.results, m.name), caption, `No learning curves of ${m.name} in these results (a score table holds final numbers only).`);
+    return figureHtml(
+      state,
+      curvesChart(state.results, m.name),
+      caption,
+      `No learning curves of ${m.name} in these results (a score table holds final numbers only).`,
+    );
   },
 };

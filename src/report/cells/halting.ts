@@ -15,9 +15,13 @@ import { nameHtml, noteHtml, tableHtml, type TableCell } from '../html.js';
 import { figureHtml, type Cell } from './cell.js';
 import { NO_TICK_DATA } from './noTickData.js';
 
-function interval(x: { readonly mean: number | null; readonly low: number | null; readonly high: number | null } | undefined, decimals: number): string | null {
+function interval(
+  x: { readonly mean: number | null; readonly low: number | null; readonly high: number | null } | undefined,
+  decimals: number,
+): string | null {
   if (x === undefined || x.mean === null) return null;
-  const band = x.low === null || x.high === null ? '' : ` [${formatNumber(x.low, decimals)}, ${formatNumber(x.high, decimals)}]`;
+  const band =
+    x.low === null || x.high === null ? '' : ` [${formatNumber(x.low, decimals)}, ${formatNumber(x.high, decimals)}]`;
   return `${formatNumber(x.mean, decimals)}${band}`;
 }
 
@@ -51,7 +55,16 @@ export const halting: Cell = {
         interval(at < 0 ? undefined : h.exitTick[at], 2),
       ];
     });
-    const head = ['Config', 'Seeds', 'Samples per run', 'Ticks', 'Threshold', `Accuracy at exit [${level} across seeds]`, 'Between-example SE (one run)', `Mean exit tick [${level} across seeds]`];
+    const head = [
+      'Config',
+      'Seeds',
+      'Samples per run',
+      'Ticks',
+      'Threshold',
+      `Accuracy at exit [${level} across seeds]`,
+      'Between-example SE (one run)',
+      `Mean exit tick [${level} across seeds]`,
+    ];
     html += tableHtml({ className: 'halting', head, rows, numeric: [1, 2, 3, 4, 5, 6, 7] });
     for (const h of r.halting) {
       html += figureHtml(state, exitHistogramChart(r, h.config), '', `No exit histogram for ${h.config}.`);

@@ -24,7 +24,19 @@ import { values } from './values.js';
 import { verdicts } from './verdicts.js';
 
 /** Every cell, by the name a notebook calls it. */
-export const CELLS: readonly Cell[] = [verdicts, metric, curves, values, compare, ticks, halting, calibration, runs, problems, methods];
+export const CELLS: readonly Cell[] = [
+  verdicts,
+  metric,
+  curves,
+  values,
+  compare,
+  ticks,
+  halting,
+  calibration,
+  runs,
+  problems,
+  methods,
+];
 
 /** The names of the cells, for messages. */
 export const CELL_NAMES: readonly string[] = CELLS.map((c) => c.name);
@@ -44,7 +56,11 @@ function helperOf(hb: typeof Handlebars, cell: Cell): Handlebars.HelperDelegate 
     if (state === undefined) throw new Error(`cell ${cell.name}: rendered without seedsift state`);
     const line = state.bodyLine - 1 + (options.loc?.start.line ?? 1);
     if (typeof options.fn === 'function') {
-      throw new SeedsiftError('notebook', `{{#${cell.name}}}: ${cell.name} is a cell, not a block; write ${cell.usage}`, { file: state.file, line });
+      throw new SeedsiftError(
+        'notebook',
+        `{{#${cell.name}}}: ${cell.name} is a cell, not a block; write ${cell.usage}`,
+        { file: state.file, line },
+      );
     }
     const call = { params, hash: (options.hash ?? {}) as Record<string, unknown> };
     let html: string;
@@ -52,7 +68,8 @@ function helperOf(hb: typeof Handlebars, cell: Cell): Handlebars.HelperDelegate 
       checkCall(cell, call);
       html = cell.render(state, call);
     } catch (error) {
-      if (error instanceof CellError) throw new SeedsiftError('notebook', `{{${cell.name}}}: ${error.message}`, { file: state.file, line });
+      if (error instanceof CellError)
+        throw new SeedsiftError('notebook', `{{${cell.name}}}: ${error.message}`, { file: state.file, line });
       throw error;
     }
     const index = state.cells.push(html) - 1;

@@ -6,7 +6,7 @@
  */
 import { PROBLEM_CODES, type Problem, type Severity } from '../../problems.js';
 import { codeHtml, nameHtml, noteHtml, tableHtml, textHtml, type TableCell } from '../html.js';
-import { type Cell } from './cell.js';
+import type { Cell } from './cell.js';
 
 const ORDER: Readonly<Record<Severity, number>> = { error: 0, warning: 1, note: 2 };
 

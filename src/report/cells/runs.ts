@@ -5,7 +5,7 @@
 import type { RunRecord } from '../../analysis/results.js';
 import { formatNumber } from '../format.js';
 import { codeHtml, listHtml, nameHtml, noteHtml, tableHtml, textHtml, type TableCell } from '../html.js';
-import { type Cell } from './cell.js';
+import type { Cell } from './cell.js';
 
 /** Runs shown unfolded; longer lists start folded. */
 const OPEN_UP_TO = 40;
@@ -37,7 +37,13 @@ export const runs: Cell = {
       .map(([s, n]) => `${n} ${s}`)
       .join(', ');
     const summary = `${r.runs.length} runs in ${r.configs.length} configs (${counts}); ${r.inputs.filesRead} of ${r.inputs.files} files read.`;
-    const table = tableHtml({ className: 'runs', head: ['Config', 'Seed', 'Status', 'Last step', 'Diverged at', 'Files', 'Problems'], rows, numeric: [3, 4], rowClasses: r.runs.map((x) => `status-${x.status}`) });
+    const table = tableHtml({
+      className: 'runs',
+      head: ['Config', 'Seed', 'Status', 'Last step', 'Diverged at', 'Files', 'Problems'],
+      rows,
+      numeric: [3, 4],
+      rowClasses: r.runs.map((x) => `status-${x.status}`),
+    });
     return `<details class="fold"${r.runs.length <= OPEN_UP_TO ? ' open' : ''}><summary>${textHtml(summary)}</summary>${table}</details>`;
   },
 };

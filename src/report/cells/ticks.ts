@@ -15,7 +15,8 @@ import { NO_TICK_DATA } from './noTickData.js';
 function earliest(t: TickCurve): string | null {
   const e = t.earliestGood;
   if (e === null) return null;
-  const spread = e.low === null || e.high === null ? '' : ` (seeds: ${formatNumber(e.low, 1)} to ${formatNumber(e.high, 1)})`;
+  const spread =
+    e.low === null || e.high === null ? '' : ` (seeds: ${formatNumber(e.low, 1)} to ${formatNumber(e.high, 1)})`;
   return `tick ${e.tick}${spread}, within ${formatNumber(e.tolerance, 4)} of the best`;
 }
 
@@ -39,7 +40,12 @@ function verdictRanges(decided: readonly TickVerdict[]): string[] {
     const ps = run.map((v) => v.pAdjusted).filter((p): p is number => p !== null);
     const largest = ps.length === 0 ? null : Math.max(...ps);
     if (run.length === 1) return `${first.verdict} at tick ${first.tick} (adjusted p ${formatP(largest)})`;
-    const p = largest === null ? '' : largest < 0.001 ? ' (adjusted p < 0.001 at each)' : ` (adjusted p ≤ ${formatP(largest)} at each)`;
+    const p =
+      largest === null
+        ? ''
+        : largest < 0.001
+          ? ' (adjusted p < 0.001 at each)'
+          : ` (adjusted p ≤ ${formatP(largest)} at each)`;
     return `${first.verdict} at ticks ${first.tick}–${last.tick}${p}`;
   });
 }
@@ -61,14 +67,25 @@ function oneMetric(state: RenderState, metric: string): string {
     earliest(t),
     differing(t),
   ]);
-  const bands = [...new Set(mine.map((t) => formatIntervalKind({ level: state.results.settings.level, method: t.band })))].join(' or ');
+  const bands = [
+    ...new Set(mine.map((t) => formatIntervalKind({ level: state.results.settings.level, method: t.band }))),
+  ].join(' or ');
   const known = mine.filter((t) => t.exampleHalfWidth !== null).length;
-  const examples = known === 0
-    ? ` The between-example spread of one evaluation (how much ${metric} would move on other examples) is not shown: the logs do not say on how many examples it was measured.`
-    : ` The dotted whiskers are the between-example spread of one evaluation, ±1 standard error √(p(1−p)/m) for m examples: a different noise, how much the number would move on other examples of the same size, not with another seed${known < mine.length ? ` (known for ${known} of ${mine.length} configs)` : ''}.`;
+  const examples =
+    known === 0
+      ? ` The between-example spread of one evaluation (how much ${metric} would move on other examples) is not shown: the logs do not say on how many examples it was measured.`
+      : ` The dotted whiskers are the between-example spread of one evaluation, ±1 standard error √(p(1−p)/m) for m examples: a different noise, how much the number would move on other examples of the same size, not with another seed${known < mine.length ? ` (known for ${known} of ${mine.length} configs)` : ''}.`;
   const caption = `Which noise: the ${bands} band is the spread between seeds (training the same config again), the noise the tests weigh.${examples}`;
   const chart = figureHtml(state, ticksChart(state.results, metric), caption, `No tick curves of ${metric}.`);
-  return chart + tableHtml({ className: 'ticks', head: ['Config', 'At step', 'Seeds', 'Earliest good tick', 'Ticks that differ from the baseline'], rows, numeric: [1, 2] });
+  return (
+    chart +
+    tableHtml({
+      className: 'ticks',
+      head: ['Config', 'At step', 'Seeds', 'Earliest good tick', 'Ticks that differ from the baseline'],
+      rows,
+      numeric: [1, 2],
+    })
+  );
 }
 
 export const ticks: Cell = {

@@ -23,15 +23,26 @@ function valuesList(values: readonly RunValue[], decimals: number): string {
 
 function meanCell(cv: ConfigValue | undefined, decimals: number): TableCell {
   if (cv === undefined || cv.mean === null) return null;
-  const interval = cv.low === null || cv.high === null ? '' : ` [${formatNumber(cv.low, decimals)}, ${formatNumber(cv.high, decimals)}]`;
+  const interval =
+    cv.low === null || cv.high === null
+      ? ''
+      : ` [${formatNumber(cv.low, decimals)}, ${formatNumber(cv.high, decimals)}]`;
   return `${formatNumber(cv.mean, decimals)}${interval}`;
 }
 
 /** The scale that sets the digits shown: the pooled SD of a comparison, else the widest interval, else the range of the values. */
-function scaleOf(r: Results, metric: string, summary: string, cvs: readonly ConfigValue[], vs: readonly RunValue[]): number | null {
+function scaleOf(
+  r: Results,
+  metric: string,
+  summary: string,
+  cvs: readonly ConfigValue[],
+  vs: readonly RunValue[],
+): number | null {
   const c = r.comparisons.find((x) => x.metric === metric && x.summary === summary && x.detectable.sd !== null);
   if (c !== undefined) return c.detectable.sd;
-  const halves = cvs.map((cv) => (cv.low === null || cv.high === null ? 0 : (cv.high - cv.low) / 2)).filter((h) => h > 0);
+  const halves = cvs
+    .map((cv) => (cv.low === null || cv.high === null ? 0 : (cv.high - cv.low) / 2))
+    .filter((h) => h > 0);
   if (halves.length > 0) return Math.max(...halves);
   const xs = vs.map((v) => v.value).filter((v): v is number => v !== null && Number.isFinite(v));
   if (xs.length === 0) return null;
@@ -57,12 +68,33 @@ export const values: Cell = {
       const vs = mine.filter((v) => v.config === config.id);
       if (vs.length === 0) continue;
       const usedCount = vs.filter((v) => v.usedInTests && v.value !== null).length;
-      rows.push([{ html: nameHtml(config.id) }, `${usedCount} of ${vs.length}`, meanCell(cvs.find((cv) => cv.config === config.id), decimals), { html: valuesList(vs, decimals) }]);
+      rows.push([
+        { html: nameHtml(config.id) },
+        `${usedCount} of ${vs.length}`,
+        meanCell(
+          cvs.find((cv) => cv.config === config.id),
+          decimals,
+        ),
+        { html: valuesList(vs, decimals) },
+      ]);
     }
     const caption = `The tests compare these per-run numbers (summary ${summary}); the table lists them by seed.`;
-    const chart = figureHtml(state, valuesChart(r, m.name, summary), caption, `No per-run values of ${m.name} under summary ${summary}.`);
+    const chart = figureHtml(
+      state,
+      valuesChart(r, m.name, summary),
+      caption,
+      `No per-run values of ${m.name} under summary ${summary}.`,
+    );
     if (rows.length === 0) return chart;
     const meanHead = kinds === '' ? 'Mean' : `Mean [${kinds}]`;
-    return chart + tableHtml({ className: 'values', head: ['Config', 'Runs used', meanHead, 'Values by seed'], rows, numeric: [1, 2] });
+    return (
+      chart +
+      tableHtml({
+        className: 'values',
+        head: ['Config', 'Runs used', meanHead, 'Values by seed'],
+        rows,
+        numeric: [1, 2],
+      })
+    );
   },
 };

@@ -7,7 +7,15 @@
 import type { Comparison, Results } from '../../analysis/results.js';
 import { comparisonDecimals, formatDifference, formatIntervalKind, formatP, formatSeeds } from '../format.js';
 import { listHtml, nameHtml, noteHtml, tableHtml, textHtml, type TableCell } from '../html.js';
-import { cautionScope, comparisonGroups, groupCautions, GOAL_WORDS, sharedIntervalKind, standardCaution, VERDICT_LABELS } from '../verdictWords.js';
+import {
+  cautionScope,
+  comparisonGroups,
+  groupCautions,
+  GOAL_WORDS,
+  sharedIntervalKind,
+  standardCaution,
+  VERDICT_LABELS,
+} from '../verdictWords.js';
 import { metricParam, type Cell } from './cell.js';
 
 const CORRECTION_HEAD = { holm: 'p (Holm)', bh: 'p (BH)', none: 'p' } as const;
@@ -17,11 +25,16 @@ export function verdictHtml(c: Comparison): string {
   const badge = `<span class="verdict verdict-${c.verdict}">${VERDICT_LABELS[c.verdict]}</span>`;
   if (c.nonInferiority === null) return badge;
   const ni = c.nonInferiority;
-  const words = ni.holds ? `not worse by more than ${ni.margin} (p ${formatP(ni.p)})` : `not shown to be within ${ni.margin} (p ${formatP(ni.p)})`;
+  const words = ni.holds
+    ? `not worse by more than ${ni.margin} (p ${formatP(ni.p)})`
+    : `not shown to be within ${ni.margin} (p ${formatP(ni.p)})`;
   return `${badge}<br><span class="small">${textHtml(words)}</span>`;
 }
 
-function rows(results: Results, metric: string | undefined): { rows: TableCell[][]; classes: string[]; cautions: string[]; withTask: boolean; interval: string | null } {
+function rows(
+  results: Results,
+  metric: string | undefined,
+): { rows: TableCell[][]; classes: string[]; cautions: string[]; withTask: boolean; interval: string | null } {
   const groups = comparisonGroups(results, metric);
   const all = groups.flatMap((g) => g.comparisons);
   const interval = sharedIntervalKind(all);
@@ -33,8 +46,14 @@ function rows(results: Results, metric: string | undefined): { rows: TableCell[]
     g.comparisons.forEach((c, i) => {
       const d = comparisonDecimals(c);
       const goal = `${GOAL_WORDS[g.goal]}${g.goalSource === 'inferred' ? ' (guessed)' : ''}`;
-      const metricCell: TableCell = i === 0 ? { html: `${nameHtml(g.metric)}<br><span class="small">${textHtml(goal)};<br>${textHtml(`summary ${g.summary}`)}</span>` } : { html: '' };
-      const difference = formatDifference(c.difference, d) + (interval === null ? ` (${formatIntervalKind(c.difference)})` : '');
+      const metricCell: TableCell =
+        i === 0
+          ? {
+              html: `${nameHtml(g.metric)}<br><span class="small">${textHtml(goal)};<br>${textHtml(`summary ${g.summary}`)}</span>`,
+            }
+          : { html: '' };
+      const difference =
+        formatDifference(c.difference, d) + (interval === null ? ` (${formatIntervalKind(c.difference)})` : '');
       out.push([
         metricCell,
         ...(withTask ? [c.task === null ? null : { html: nameHtml(c.task) }] : []),
@@ -62,7 +81,11 @@ export const verdicts: Cell = {
     const r = state.results;
     const t = rows(r, metric);
     if (t.rows.length === 0) {
-      return noteHtml(metric === undefined ? 'No comparisons: the runs hold fewer than two configs to compare, or no metric with values.' : `No comparisons of ${metric}.`);
+      return noteHtml(
+        metric === undefined
+          ? 'No comparisons: the runs hold fewer than two configs to compare, or no metric with values.'
+          : `No comparisons of ${metric}.`,
+      );
     }
     const head = [
       'Metric',
@@ -75,7 +98,13 @@ export const verdicts: Cell = {
       'Seeds',
     ];
     const offset = t.withTask ? 1 : 0;
-    const table = tableHtml({ className: 'verdicts', head, rows: t.rows, numeric: [3 + offset, 4 + offset], rowClasses: t.classes });
+    const table = tableHtml({
+      className: 'verdicts',
+      head,
+      rows: t.rows,
+      numeric: [3 + offset, 4 + offset],
+      rowClasses: t.classes,
+    });
     const lead = `Candidate minus baseline on per-run values; verdict at alpha ${r.settings.alpha} on the adjusted p of Welch's t-test${r.settings.paired ? ' (paired t under --paired)' : ''}.`;
     return `<div class="verdicts-cell">${noteHtml(lead, 'lead')}${table}${listHtml(t.cautions)}${noteHtml(standardCaution(r.settings.alpha), 'caution')}</div>`;
   },

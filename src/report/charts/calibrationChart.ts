@@ -26,11 +26,24 @@ export function calibrationChart(results: Results): TopLevelSpec | null {
   const rows = curves.flatMap((c) =>
     c.ece.map((e) => {
       const banded = e.low !== null && e.high !== null;
-      return { config: c.config, tick: e.tick, mean: e.mean, low: banded ? e.low : null, high: banded ? e.high : null, bins: c.bins };
+      return {
+        config: c.config,
+        tick: e.tick,
+        mean: e.mean,
+        low: banded ? e.low : null,
+        high: banded ? e.high : null,
+        bins: c.bins,
+      };
     }),
   );
   const configs = curves.map((c) => c.config);
-  const color = { field: 'config', type: 'nominal', title: 'config', scale: configColourScale(results, configs), legend: CONFIG_LEGEND } as const;
+  const color = {
+    field: 'config',
+    type: 'nominal',
+    title: 'config',
+    scale: configColourScale(results, configs),
+    legend: CONFIG_LEGEND,
+  } as const;
   const x = tickAxis(rows.map((r) => r.tick));
   const y = (field: string) => ({ field, type: 'quantitative', title: 'expected calibration error' }) as const;
 

@@ -25,7 +25,12 @@ export function chartFrame(opts: {
   readonly description: string;
   readonly height?: number | { readonly step: number };
 }): ChartFrame {
-  const height = opts.height === undefined ? CHART_HEIGHT : typeof opts.height === 'number' ? opts.height : { step: opts.height.step };
+  const height =
+    opts.height === undefined
+      ? CHART_HEIGHT
+      : typeof opts.height === 'number'
+        ? opts.height
+        : { step: opts.height.step };
   return {
     $schema: VEGA_LITE_SCHEMA,
     description: opts.description,

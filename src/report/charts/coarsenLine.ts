@@ -6,8 +6,13 @@
  * then says at what resolution they are drawn. Pure, O(points).
  * Example: `coarsenLine([0, 1, 2, 3, 4], [1, 3, null, 5, 7], 2)` is `{ steps: [0.5, 2.5, 4], values: [2, 5, 7] }`.
  */
-export function coarsenLine(steps: readonly number[], values: readonly (number | null)[], stride: number): { steps: number[]; values: (number | null)[] } {
-  if (!Number.isInteger(stride) || stride < 1) throw new RangeError(`coarsenLine: stride must be a whole number >= 1, got ${stride}`);
+export function coarsenLine(
+  steps: readonly number[],
+  values: readonly (number | null)[],
+  stride: number,
+): { steps: number[]; values: (number | null)[] } {
+  if (!Number.isInteger(stride) || stride < 1)
+    throw new RangeError(`coarsenLine: stride must be a whole number >= 1, got ${stride}`);
   if (stride === 1) return { steps: [...steps], values: [...values] };
   const outSteps: number[] = [];
   const outValues: (number | null)[] = [];

@@ -44,8 +44,19 @@ export function compareChart(results: Results, metric: string, summary: string):
   const margin = comparisons.find((c) => c.nonInferiority !== null)?.nonInferiority?.margin ?? results.settings.margin;
   const marginAt = margin === null ? null : goal === 'max' ? -Math.abs(margin) : Math.abs(margin);
 
-  const y = { field: 'label', type: 'nominal', title: null, sort: null, scale: { domain: labels }, axis: { labelLimit: 260 } } as const;
-  const x = { field: 'estimate', type: 'quantitative', title: `difference in ${metric} (candidate − baseline)` } as const;
+  const y = {
+    field: 'label',
+    type: 'nominal',
+    title: null,
+    sort: null,
+    scale: { domain: labels },
+    axis: { labelLimit: 260 },
+  } as const;
+  const x = {
+    field: 'estimate',
+    type: 'quantitative',
+    title: `difference in ${metric} (candidate − baseline)`,
+  } as const;
   const verdictScale = { domain: [...VERDICTS], range: VERDICTS.map((v) => VERDICT_COLOURS[v]) };
   const shapeScale = { domain: [...VERDICTS], range: VERDICTS.map((v) => VERDICT_SHAPES[v]) };
   const color = { field: 'verdict', type: 'nominal', title: 'verdict', scale: verdictScale } as const;
@@ -81,12 +92,16 @@ export function compareChart(results: Results, metric: string, summary: string):
       data: { values: rows },
       mark: { type: 'point', filled: true, size: 90, stroke: '#ffffff', strokeWidth: 0.8 },
       encoding: {
-        x, y, color,
+        x,
+        y,
+        color,
         shape: { field: 'verdict', type: 'nominal', title: 'verdict', scale: shapeScale },
         tooltip: [
           { field: 'candidate', type: 'nominal', title: 'candidate' },
           { field: 'baseline', type: 'nominal', title: 'baseline' },
-          ...(comparisons.some((c) => c.task !== null) ? [{ field: 'task', type: 'nominal', title: 'task' } as const] : []),
+          ...(comparisons.some((c) => c.task !== null)
+            ? [{ field: 'task', type: 'nominal', title: 'task' } as const]
+            : []),
           { field: 'estimate', type: 'quantitative', title: 'difference', format: NUMBER_FORMAT },
           { field: 'low', type: 'quantitative', title: 'interval low', format: NUMBER_FORMAT },
           { field: 'high', type: 'quantitative', title: 'interval high', format: NUMBER_FORMAT },
@@ -107,10 +122,16 @@ export function compareChart(results: Results, metric: string, summary: string):
     },
   );
 
-  const methods = intervalLabels(comparisons.filter((c) => c.difference.method !== 'none').map((c) => ({ method: c.difference.method, level: c.difference.level })));
+  const methods = intervalLabels(
+    comparisons
+      .filter((c) => c.difference.method !== 'none')
+      .map((c) => ({ method: c.difference.method, level: c.difference.level })),
+  );
   const subtitle = [
     `Point: candidate − baseline in ${metric} units (${summary}); ${goal === 'max' ? 'higher' : 'lower'} is better.`,
-    methods === '' ? 'No row has an interval (too few runs).' : `Bar: ${methods}. Verdicts use ${results.settings.correction === 'none' ? 'unadjusted' : `${results.settings.correction}-adjusted`} p at alpha ${results.settings.alpha}.`,
+    methods === ''
+      ? 'No row has an interval (too few runs).'
+      : `Bar: ${methods}. Verdicts use ${results.settings.correction === 'none' ? 'unadjusted' : `${results.settings.correction}-adjusted`} p at alpha ${results.settings.alpha}.`,
   ];
   if (marginAt !== null) subtitle.push(`Dashed line: non-inferiority margin (${marginAt}).`);
 

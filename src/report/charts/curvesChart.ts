@@ -47,11 +47,27 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
   const bins = Math.max(...curves.map((c) => c.steps.length));
   const stride = Math.max(lineStride(runCount, bins, SEED_POINTS), lineStride(1, bins, SEED_LINE_POINTS));
 
-  const summary: { config: string; step: number[]; mean: (number | null)[]; low: (number | null)[]; high: (number | null)[]; n: number[]; band: string[] }[] = [];
+  const summary: {
+    config: string;
+    step: number[];
+    mean: (number | null)[];
+    low: (number | null)[];
+    high: (number | null)[];
+    n: number[];
+    band: string[];
+  }[] = [];
   const seeds: { config: string; run: string; seed: string; step: number[]; value: (number | null)[] }[] = [];
   const bandMethods: { method: IntervalMethod; level: number }[] = [];
   for (const c of curves) {
-    const row = { config: c.config, step: [...c.steps], mean: [] as (number | null)[], low: [] as (number | null)[], high: [] as (number | null)[], n: [] as number[], band: [] as string[] };
+    const row = {
+      config: c.config,
+      step: [...c.steps],
+      mean: [] as (number | null)[],
+      low: [] as (number | null)[],
+      high: [] as (number | null)[],
+      n: [] as number[],
+      band: [] as string[],
+    };
     c.steps.forEach((_, i) => {
       const low = c.low[i] ?? null;
       const high = c.high[i] ?? null;
@@ -66,13 +82,23 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
     });
     summary.push(row);
     for (const r of c.runs) {
-      const line = coarsenLine(c.steps, c.steps.map((_, i) => r.values[i] ?? null), stride);
+      const line = coarsenLine(
+        c.steps,
+        c.steps.map((_, i) => r.values[i] ?? null),
+        stride,
+      );
       seeds.push({ config: c.config, run: r.run, seed: r.seed, step: line.steps, value: line.values });
     }
   }
 
   const configs = curves.map((c) => c.config);
-  const color = { field: 'config', type: 'nominal', title: 'config', scale: configColourScale(results, configs), legend: CONFIG_LEGEND } as const;
+  const color = {
+    field: 'config',
+    type: 'nominal',
+    title: 'config',
+    scale: configColourScale(results, configs),
+    legend: CONFIG_LEGEND,
+  } as const;
   const x = { field: 'step', type: 'quantitative', title: 'step', axis: { format: '~s' } } as const;
   const y = (field: string) => ({ field, type: 'quantitative', title: metric, scale: { zero: false } }) as const;
   const band = intervalLabels(bandMethods);
@@ -92,7 +118,10 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
       name: 'horizon',
       data: { values: [{ step: horizon }] },
       mark: { type: 'rule', color: REFERENCE_INK, strokeDash: [4, 4], strokeWidth: 1 },
-      encoding: { x, tooltip: [{ field: 'step', type: 'quantitative', title: 'common horizon (step)', format: STEP_FORMAT }] },
+      encoding: {
+        x,
+        tooltip: [{ field: 'step', type: 'quantitative', title: 'common horizon (step)', format: STEP_FORMAT }],
+      },
     });
   }
   if (hasSeeds) {
@@ -160,7 +189,9 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
       title: `${metric}: learning curves`,
       subtitle: [
         `Thick line: mean across seeds. Thin lines: single seeds (${runCount})${stride === 1 ? '' : `, each drawn with one point per ${stride} bins`}.`,
-        band === '' ? 'No band: too few seeds per step for an interval.' : `Band: ${band} of the mean across seeds, per step.`,
+        band === ''
+          ? 'No band: too few seeds per step for an interval.'
+          : `Band: ${band} of the mean across seeds, per step.`,
         ...(horizon === null ? [] : [`Dashed line: the common horizon (step ${horizon}), where runs are compared.`]),
       ],
       description: `Learning curves of ${metric} against step for ${curves.length} config${curves.length === 1 ? '' : 's'}: mean across seeds${band === '' ? '' : ` with a ${band} band`}, and ${runCount} single-seed lines.`,

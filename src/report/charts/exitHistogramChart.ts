@@ -24,14 +24,22 @@ export function exitHistogramChart(results: Results, config: string): TopLevelSp
   return {
     ...chartFrame({
       title: `Exit ticks at certainty ≥ ${threshold}: ${config}`,
-      subtitle: [`Samples exiting at each tick, summed over ${halting.seeds} seed${halting.seeds === 1 ? '' : 's'}; the last tick also holds samples that never reached the threshold.`],
+      subtitle: [
+        `Samples exiting at each tick, summed over ${halting.seeds} seed${halting.seeds === 1 ? '' : 's'}; the last tick also holds samples that never reached the threshold.`,
+      ],
       description: `Histogram of exit ticks for config ${config} at certainty threshold ${threshold}, over ${counts.length} ticks and ${halting.seeds} seeds.`,
     }),
     name: 'bars',
     data: { values: bars },
     mark: { type: 'rect', color: configColour(results, config), stroke: '#fbf9f4', strokeWidth: 1 },
     encoding: {
-      x: { field: 'from', type: 'quantitative', title: 'exit tick', axis: { tickMinStep: 1, format: 'd' }, scale: { domain: [-0.5, counts.length - 0.5], nice: false } },
+      x: {
+        field: 'from',
+        type: 'quantitative',
+        title: 'exit tick',
+        axis: { tickMinStep: 1, format: 'd' },
+        scale: { domain: [-0.5, counts.length - 0.5], nice: false },
+      },
       x2: { field: 'to' },
       y: { field: 'count', type: 'quantitative', title: 'samples' },
       tooltip: [

@@ -28,9 +28,14 @@ export function haltingChart(results: Results): TopLevelSpec | null {
       const a = h.accuracy[i];
       const e = h.exitTick[i];
       return {
-        config: h.config, threshold,
-        accuracy: a?.mean ?? null, accuracyLow: a?.low ?? null, accuracyHigh: a?.high ?? null,
-        exitTick: e?.mean ?? null, exitLow: e?.low ?? null, exitHigh: e?.high ?? null,
+        config: h.config,
+        threshold,
+        accuracy: a?.mean ?? null,
+        accuracyLow: a?.low ?? null,
+        accuracyHigh: a?.high ?? null,
+        exitTick: e?.mean ?? null,
+        exitLow: e?.low ?? null,
+        exitHigh: e?.high ?? null,
         seeds: h.seeds,
       };
     }),
@@ -39,7 +44,13 @@ export function haltingChart(results: Results): TopLevelSpec | null {
   if (points.length === 0) return null;
 
   const configs = curves.map((h) => h.config);
-  const color = { field: 'config', type: 'nominal', title: 'config', scale: configColourScale(results, configs), legend: CONFIG_LEGEND } as const;
+  const color = {
+    field: 'config',
+    type: 'nominal',
+    title: 'config',
+    scale: configColourScale(results, configs),
+    legend: CONFIG_LEGEND,
+  } as const;
   const x = { field: 'exitTick', type: 'quantitative', title: 'mean exit tick', scale: { zero: false } } as const;
   const y = { field: 'accuracy', type: 'quantitative', title: 'accuracy at exit', scale: { zero: false } } as const;
 
@@ -77,7 +88,10 @@ export function haltingChart(results: Results): TopLevelSpec | null {
     mark: { type: 'point', filled: true, size: 44 },
     encoding: {
       // 0.7: Vega-Lite's default opacity of point marks, kept so the chart looks as before.
-      x, y, color, opacity: opacity(0.7),
+      x,
+      y,
+      color,
+      opacity: opacity(0.7),
       tooltip: [
         { field: 'config', type: 'nominal', title: 'config' },
         { field: 'threshold', type: 'quantitative', title: 'certainty threshold', format: NUMBER_FORMAT },

@@ -34,7 +34,9 @@ export function intervalLabel(method: IntervalMethod, level: number): string {
  * subtitle ("95% t-interval" or "95% t-interval or 95% BCa bootstrap interval").
  * Cost O(records). Never throws. Example: `intervalLabels([{ method: 't', level: 0.95 }])` → `'95% t-interval'`.
  */
-export function intervalLabels(records: readonly { readonly method: IntervalMethod; readonly level: number }[]): string {
+export function intervalLabels(
+  records: readonly { readonly method: IntervalMethod; readonly level: number }[],
+): string {
   const labels: string[] = [];
   for (const r of records) {
     const label = intervalLabel(r.method, r.level);

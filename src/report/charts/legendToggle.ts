@@ -21,7 +21,11 @@ export const PICKED_CONFIGS = 'pickedConfigs';
 export const FADED = 0.15;
 
 /** The selection parameter: point selection on `config`, bound to the colour legend. */
-export const PICK_CONFIGS_PARAM: LayerParam = { name: PICKED_CONFIGS, select: { type: 'point', fields: ['config'] }, bind: 'legend' };
+export const PICK_CONFIGS_PARAM: LayerParam = {
+  name: PICKED_CONFIGS,
+  select: { type: 'point', fields: ['config'] },
+  bind: 'legend',
+};
 
 /**
  * The opacity channel of a layer drawn at `opacity`: that opacity for picked configs (all of
@@ -29,7 +33,10 @@ export const PICK_CONFIGS_PARAM: LayerParam = { name: PICKED_CONFIGS, select: { 
  * Cost O(1). Never throws.
  * Example: `pickedOpacity(0.2)` → `{ condition: { param: 'pickedConfigs', value: 0.2 }, value: 0.03 }`.
  */
-export function pickedOpacity(opacity: number): { readonly condition: { readonly param: string; readonly value: number }; readonly value: number } {
+export function pickedOpacity(opacity: number): {
+  readonly condition: { readonly param: string; readonly value: number };
+  readonly value: number;
+} {
   return { condition: { param: PICKED_CONFIGS, value: opacity }, value: Number((opacity * FADED).toFixed(4)) };
 }
 
@@ -52,7 +59,8 @@ export function withLegendToggle(layers: readonly Layer[], configs: number, hold
 }
 
 /** What the reader can do, for the page to say beside a live chart (the SVG alone cannot do it). */
-export const LEGEND_TOGGLE_HINT = 'Click a config in the legend to show it alone; shift-click to add or remove one; double-click the plot to show all.';
+export const LEGEND_TOGGLE_HINT =
+  'Click a config in the legend to show it alone; shift-click to add or remove one; double-click the plot to show all.';
 
 /**
  * Whether a spec carries the legend selection (some layer has the `pickedConfigs` parameter).
@@ -61,7 +69,11 @@ export const LEGEND_TOGGLE_HINT = 'Click a config in the legend to show it alone
 export function hasLegendToggle(spec: unknown): boolean {
   const layers = (spec as { layer?: unknown }).layer;
   if (!Array.isArray(layers)) return false;
-  return layers.some((l) => Array.isArray((l as { params?: unknown }).params) && ((l as { params: { name?: unknown }[] }).params).some((p) => p.name === PICKED_CONFIGS));
+  return layers.some(
+    (l) =>
+      Array.isArray((l as { params?: unknown }).params) &&
+      (l as { params: { name?: unknown }[] }).params.some((p) => p.name === PICKED_CONFIGS),
+  );
 }
 
 /**
@@ -69,6 +81,9 @@ export function hasLegendToggle(spec: unknown): boolean {
  * plain value.
  * Cost O(1). Never throws. Example: `layerOpacity(0.35, 1)` → `{ value: 0.35 }`.
  */
-export function layerOpacity(opacity: number, configs: number): ReturnType<typeof pickedOpacity> | { readonly value: number } {
+export function layerOpacity(
+  opacity: number,
+  configs: number,
+): ReturnType<typeof pickedOpacity> | { readonly value: number } {
   return configs < 2 ? { value: opacity } : pickedOpacity(opacity);
 }

@@ -27,7 +27,16 @@ export function reliabilityChart(results: Results, config: string): TopLevelSpec
     .map((b) => {
       const a = b.accuracy as number;
       const se = a >= 0 && a <= 1 && Number.isInteger(b.count) ? binomialHalfWidth(a, b.count) : null;
-      return { low: b.low, high: b.high, accuracy: a, confidence: b.confidence, count: b.count, exampleSe: se, from: se === null ? null : Math.max(0, a - se), to: se === null ? null : Math.min(1, a + se) };
+      return {
+        low: b.low,
+        high: b.high,
+        accuracy: a,
+        confidence: b.confidence,
+        count: b.count,
+        exampleSe: se,
+        from: se === null ? null : Math.max(0, a - se),
+        to: se === null ? null : Math.min(1, a + se),
+      };
     });
   if (bins.length === 0) return null;
 
@@ -99,7 +108,11 @@ export function reliabilityChart(results: Results, config: string): TopLevelSpec
       subtitle: [
         `${curve.bins} equal-width confidence bins, samples summed over ${curve.seeds === undefined ? 'seeds' : `${curve.seeds} seed${curve.seeds === 1 ? '' : 's'}`}. Bars: accuracy per bin; points: at the bin's mean confidence.`,
         'Dashed diagonal: perfect calibration (points below it are over-confident).',
-        ...(whiskers.length > 0 ? ['Whiskers: ±1 between-example standard error √(a(1−a)/n) of each bin; seeds are pooled, so seed-to-seed spread is not shown.'] : []),
+        ...(whiskers.length > 0
+          ? [
+              'Whiskers: ±1 between-example standard error √(a(1−a)/n) of each bin; seeds are pooled, so seed-to-seed spread is not shown.',
+            ]
+          : []),
       ],
       description: `Reliability diagram for config ${config} at the last tick: accuracy against confidence in ${bins.length} non-empty bins of ${curve.bins}, with the diagonal of perfect calibration.`,
       height: 320,

@@ -24,5 +24,11 @@ export function tickDomain(ticks: readonly number[]): number[] {
  * last tick (`tickDomain`, no "nice" rounding). Example: `tickAxis([0, 1, 7]).scale.domain` → `[0, 7]`.
  */
 export function tickAxis(ticks: readonly number[]) {
-  return { field: 'tick', type: 'quantitative', title: 'internal tick', axis: { tickMinStep: 1, format: 'd' }, scale: { domain: tickDomain(ticks), nice: false } } as const;
+  return {
+    field: 'tick',
+    type: 'quantitative',
+    title: 'internal tick',
+    axis: { tickMinStep: 1, format: 'd' },
+    scale: { domain: tickDomain(ticks), nice: false },
+  } as const;
 }

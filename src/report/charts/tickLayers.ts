@@ -29,14 +29,24 @@ export function tickLayers(p: TickLayerParts): Layer[] {
   const { rows, x, y, color } = p;
   const opacity = (o: number) => layerOpacity(o, p.configs);
   const layers: Layer[] = [];
-  if (rows.some((r) => r['low'] !== null)) {
-    layers.push({ name: 'band', data: { values: rows }, mark: { type: 'area' }, encoding: { x, y: y('low'), y2: { field: 'high' }, color, opacity: opacity(0.2) } } as Layer);
+  if (rows.some((r) => r.low !== null)) {
+    layers.push({
+      name: 'band',
+      data: { values: rows },
+      mark: { type: 'area' },
+      encoding: { x, y: y('low'), y2: { field: 'high' }, color, opacity: opacity(0.2) },
+    } as Layer);
   }
   layers.push(
-    { name: 'mean', data: { values: rows }, mark: { type: 'line' }, encoding: { x, y: y('mean'), color, opacity: opacity(1) } } as Layer,
+    {
+      name: 'mean',
+      data: { values: rows },
+      mark: { type: 'line' },
+      encoding: { x, y: y('mean'), color, opacity: opacity(1) },
+    } as Layer,
     {
       name: 'points',
-      data: { values: rows.filter((r) => r['mean'] !== null) },
+      data: { values: rows.filter((r) => r.mean !== null) },
       mark: { type: 'point', filled: true, size: 30 },
       // 0.7: Vega-Lite's default opacity of point marks, kept so the charts look as before.
       encoding: { x, y: y('mean'), color, opacity: opacity(0.7), tooltip: p.tooltip },

@@ -35,8 +35,17 @@ export function ticksChart(results: Results, metric: string): TopLevelSpec | nul
       const high = c.high[i] ?? null;
       const banded = low !== null && high !== null;
       const half = c.exampleHalfWidth?.[i] ?? null;
-      rows.push({ config: c.config, tick, mean, low: banded ? low : null, high: banded ? high : null, n: c.n[i] ?? 0, exampleSe: half });
-      if (mean !== null && half !== null) whiskers.push({ config: c.config, tick, from: mean - half, to: mean + half, exampleSe: half });
+      rows.push({
+        config: c.config,
+        tick,
+        mean,
+        low: banded ? low : null,
+        high: banded ? high : null,
+        n: c.n[i] ?? 0,
+        exampleSe: half,
+      });
+      if (mean !== null && half !== null)
+        whiskers.push({ config: c.config, tick, from: mean - half, to: mean + half, exampleSe: half });
     });
     if (c.earliestGood !== null) {
       const e = c.earliestGood;
@@ -45,11 +54,17 @@ export function ticksChart(results: Results, metric: string): TopLevelSpec | nul
   }
 
   const configs = curves.map((c) => c.config);
-  const color = { field: 'config', type: 'nominal', title: 'config', scale: configColourScale(results, configs), legend: CONFIG_LEGEND } as const;
+  const color = {
+    field: 'config',
+    type: 'nominal',
+    title: 'config',
+    scale: configColourScale(results, configs),
+    legend: CONFIG_LEGEND,
+  } as const;
   const x = tickAxis(curves.flatMap((c) => c.ticks));
   const y = (field: string) => ({ field, type: 'quantitative', title: metric, scale: { zero: false } }) as const;
 
-  if (!rows.some((r) => r['mean'] !== null)) return null;
+  if (!rows.some((r) => r.mean !== null)) return null;
   const opacity = (o: number) => layerOpacity(o, configs.length);
   const layers = tickLayers({
     rows,
@@ -81,7 +96,9 @@ export function ticksChart(results: Results, metric: string): TopLevelSpec | nul
       data: { values: earliest },
       mark: { type: 'rule', strokeDash: [6, 4], strokeWidth: 1.2 },
       encoding: {
-        x, color, opacity: opacity(0.8),
+        x,
+        color,
+        opacity: opacity(0.8),
         tooltip: [
           { field: 'config', type: 'nominal', title: 'config' },
           { field: 'tick', type: 'quantitative', title: 'earliest good tick' },
@@ -100,7 +117,8 @@ export function ticksChart(results: Results, metric: string): TopLevelSpec | nul
   const subtitle = [
     `Line: mean across seeds${at}. ${band === '' ? 'No band: too few seeds.' : `Band: ${band} across seeds (seed-to-seed spread).`}`,
   ];
-  if (whiskers.length > 0) subtitle.push('Dotted whiskers: ±1 between-example standard error, √(p(1−p)/m), of one evaluation.');
+  if (whiskers.length > 0)
+    subtitle.push('Dotted whiskers: ±1 between-example standard error, √(p(1−p)/m), of one evaluation.');
   if (earliest.length > 0) subtitle.push('Dashed rule: earliest tick within tolerance of the best tick.');
   const diverged = curves.reduce((total, c) => total + (c.diverged ?? 0), 0);
   if (diverged > 0) subtitle.push(`${diverged} diverged run${diverged === 1 ? '' : 's'} left out.`);

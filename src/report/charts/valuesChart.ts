@@ -4,7 +4,7 @@
  */
 import type { TopLevelSpec } from 'vega-lite';
 import type { Results } from '../../analysis/results.js';
-import { CONFIG_LEGEND, configColourScale } from '../palette.js';
+import { configColourScale } from '../palette.js';
 import { chartFrame, NUMBER_FORMAT, type Layer } from './chartFrame.js';
 import { intervalLabel, intervalLabels } from './intervalLabel.js';
 
@@ -34,18 +34,38 @@ export function valuesChart(results: Results, metric: string, summary: string): 
     const count = perConfig.get(v.config) ?? 1;
     // Layout only: spread a row's dots evenly over [-1, 1] in seed order.
     const slot = count === 1 ? 0 : (2 * index) / (count - 1) - 1;
-    return { config: v.config, seed: v.seed, run: v.run, value: v.value, used: v.usedInTests, note: v.note ?? '', slot };
+    return {
+      config: v.config,
+      seed: v.seed,
+      run: v.run,
+      value: v.value,
+      used: v.usedInTests,
+      note: v.note ?? '',
+      slot,
+    };
   });
 
-  const summaries = new Map(results.configValues.filter((c) => c.metric === metric && c.summary === summary && c.mean !== null).map((c) => [c.config, c]));
+  const summaries = new Map(
+    results.configValues
+      .filter((c) => c.metric === metric && c.summary === summary && c.mean !== null)
+      .map((c) => [c.config, c]),
+  );
   const meanRows = configs.flatMap((config) => {
     const c = summaries.get(config);
-    return c === undefined ? [] : [{ config, mean: c.mean, low: c.low, high: c.high, n: c.n, interval: intervalLabel(c.method, c.level) }];
+    return c === undefined
+      ? []
+      : [{ config, mean: c.mean, low: c.low, high: c.high, n: c.n, interval: intervalLabel(c.method, c.level) }];
   });
   const withInterval = meanRows.filter((r) => r.low !== null && r.high !== null);
 
   const scale = configColourScale(results, configs);
-  const y = { field: 'config', type: 'nominal', title: null, scale: { domain: configs }, axis: { labelLimit: 200 } } as const;
+  const y = {
+    field: 'config',
+    type: 'nominal',
+    title: null,
+    scale: { domain: configs },
+    axis: { labelLimit: 200 },
+  } as const;
   const x = { field: 'value', type: 'quantitative', title: `${metric} (${summary})`, scale: { zero: false } } as const;
   const color = { field: 'config', type: 'nominal', scale, legend: null } as const;
   const yOffset = { field: 'slot', type: 'quantitative' as const, scale: { domain: [-1.6, 1.6] } };
@@ -110,7 +130,10 @@ export function valuesChart(results: Results, metric: string, summary: string): 
   const subtitle = [
     `One dot per seed: filled, used in tests${unused > 0 ? `; hollow diamond, not used (${unused})` : ''}. Bar: mean across seeds; line: ${intervalLabels(meanRows.length === 0 ? [] : [...summaries.values()].map((c) => ({ method: c.method, level: c.level })))} of the mean.`,
   ];
-  if (missing > 0) subtitle.push(`${missing} run${missing === 1 ? ' has' : 's have'} no value (diverged, censored or missing) and ${missing === 1 ? 'is' : 'are'} not drawn.`);
+  if (missing > 0)
+    subtitle.push(
+      `${missing} run${missing === 1 ? ' has' : 's have'} no value (diverged, censored or missing) and ${missing === 1 ? 'is' : 'are'} not drawn.`,
+    );
 
   return {
     ...chartFrame({

@@ -10,7 +10,9 @@ import { sampleResults } from '../sampleResults.js';
 import { renderCells, textOf } from './renderCells.js';
 
 function column(html: string, label: string): string[] {
-  const row = [...html.matchAll(/<tr>([\s\S]*?)<\/tr>/g)].map((m) => [...(m[1] ?? '').matchAll(/<td[^>]*>([\s\S]*?)<\/td>/g)].map((c) => textOf(c[1] ?? '')));
+  const row = [...html.matchAll(/<tr>([\s\S]*?)<\/tr>/g)].map((m) =>
+    [...(m[1] ?? '').matchAll(/<td[^>]*>([\s\S]*?)<\/td>/g)].map((c) => textOf(c[1] ?? '')),
+  );
   return row.find((cells) => cells[0] === label)?.slice(1) ?? [];
 }
 
@@ -18,7 +20,10 @@ describe('{{compare}}', () => {
   it('shows the primary test, the checks beside it, effect sizes and seeds', async () => {
     const html = await renderCells('{{compare "val_acc"}}', sampleResults());
     expect(column(html, 'Mean (baseline v candidate)')[0]).toBe('69.59 v 71.30');
-    expect(column(html, 'Seeds (baseline v candidate)')).toEqual(['7 v 5', '7 v 4 (1 diverged in the candidate, excluded)']);
+    expect(column(html, 'Seeds (baseline v candidate)')).toEqual([
+      '7 v 5',
+      '7 v 4 (1 diverged in the candidate, excluded)',
+    ]);
     expect(column(html, 'Welch t-test (primary)')[0]).toBe('t = 2.40, df = 7.7, p = 0.044');
     expect(column(html, 'Permutation test')[0]).toBe('p = 0.034 (exact, every split)');
     expect(column(html, 'Mann-Whitney U')[0]).toBe('U = 30.0, p = 0.048 (exact)');
@@ -32,8 +37,13 @@ describe('{{compare}}', () => {
   it('adds the paired tests when Results has them', async () => {
     const r = sampleResults();
     const first = r.comparisons[0] as Comparison;
-    const paired: Comparison = { ...first, tests: { ...first.tests, paired: { t: 3.1, df: 4, p: 0.036, wilcoxonP: 0.0625, pairs: 5 } } };
+    const paired: Comparison = {
+      ...first,
+      tests: { ...first.tests, paired: { t: 3.1, df: 4, p: 0.036, wilcoxonP: 0.0625, pairs: 5 } },
+    };
     const html = await renderCells('{{compare "val_acc"}}', { ...r, comparisons: [paired, ...r.comparisons.slice(1)] });
-    expect(column(html, 'Paired t-test and Wilcoxon signed-rank')[0]).toBe('t = 3.10, df = 4.0, p = 0.036; Wilcoxon p = 0.063 (5 pairs)');
+    expect(column(html, 'Paired t-test and Wilcoxon signed-rank')[0]).toBe(
+      't = 3.10, df = 4.0, p = 0.036; Wilcoxon p = 0.063 (5 pairs)',
+    );
   });
 });

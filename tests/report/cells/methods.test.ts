@@ -28,9 +28,24 @@ describe('{{methods}}', () => {
 
   it('follows the settings: BH, worst, paired, margin, task key', async () => {
     const r = sampleResults();
-    const settings = { ...r.settings, correction: 'bh' as const, diverged: 'worst' as const, paired: true, margin: 0.5, taskKey: 'task', bootstrapFrom: 30 };
+    const settings = {
+      ...r.settings,
+      correction: 'bh' as const,
+      diverged: 'worst' as const,
+      paired: true,
+      margin: 0.5,
+      taskKey: 'task',
+      bootstrapFrom: 30,
+    };
     const text = textOf(await renderCells('{{methods}}', { ...r, settings }));
-    for (const phrase of ['Benjamini and Hochberg (1995) correction', 'counts as the worst value observed', 'paired t-test and the Wilcoxon signed-rank test', 'not worse than the baseline by more than 0.5', 'Comparisons run per value of task', 'fewer than 30 runs']) {
+    for (const phrase of [
+      'Benjamini and Hochberg (1995) correction',
+      'counts as the worst value observed',
+      'paired t-test and the Wilcoxon signed-rank test',
+      'not worse than the baseline by more than 0.5',
+      'Comparisons run per value of task',
+      'fewer than 30 runs',
+    ]) {
       expect(text).toContain(phrase);
     }
   });

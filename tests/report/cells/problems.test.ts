@@ -17,15 +17,27 @@ describe('{{problems}}', () => {
 
   it('folds the notes away under a count by code when there are many, keeping errors and warnings open', async () => {
     const base = sampleResults();
-    const notes = Array.from({ length: 12 }, (_, i) => ({ severity: 'note' as const, code: 'cells-missing' as const, message: `cells treated as missing: ${i}` }));
+    const notes = Array.from({ length: 12 }, (_, i) => ({
+      severity: 'note' as const,
+      code: 'cells-missing' as const,
+      message: `cells treated as missing: ${i}`,
+    }));
     const html = await renderCells('{{problems}}', { ...base, problems: [...base.problems, ...notes] });
     const [open, folded] = html.split('<details class="fold">');
-    expect([...(open ?? '').matchAll(/<tr class="severity-(\w+)">/g)].map((m) => m[1])).toEqual(['error', 'warning', 'warning']);
-    expect(textOf(/<summary>([\s\S]*?)<\/summary>/.exec(folded ?? '')?.[1] ?? '')).toBe('14 notes: steps-duplicated 1, goal-inferred 1, cells-missing 12');
+    expect([...(open ?? '').matchAll(/<tr class="severity-(\w+)">/g)].map((m) => m[1])).toEqual([
+      'error',
+      'warning',
+      'warning',
+    ]);
+    expect(textOf(/<summary>([\s\S]*?)<\/summary>/.exec(folded ?? '')?.[1] ?? '')).toBe(
+      '14 notes: steps-duplicated 1, goal-inferred 1, cells-missing 12',
+    );
     expect([...(folded ?? '').matchAll(/<tr class="severity-note">/g)]).toHaveLength(14);
   });
 
   it('says when there are none', async () => {
-    expect(textOf(await renderCells('{{problems}}', { ...sampleResults(), problems: [] }))).toBe('No problems found in the input.');
+    expect(textOf(await renderCells('{{problems}}', { ...sampleResults(), problems: [] }))).toBe(
+      'No problems found in the input.',
+    );
   });
 });

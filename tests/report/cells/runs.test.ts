@@ -11,7 +11,9 @@ describe('{{runs}}', () => {
     expect(html).toContain('<details class="fold" open>');
     expect(textOf(html)).toContain('17 runs in 3 configs (16 ok, 1 diverged); 17 of 18 files read.');
     const diverged = /<tr class="status-diverged">([\s\S]*?)<\/tr>/.exec(html)?.[1] ?? '';
-    expect(textOf(diverged)).toBe('memory=12 5 diverged 5500 6000 runs/memory=12/seed=5/log.csv train_loss went non-finite at step 6000 and stayed so');
+    expect(textOf(diverged)).toBe(
+      'memory=12 5 diverged 5500 6000 runs/memory=12/seed=5/log.csv train_loss went non-finite at step 6000 and stayed so',
+    );
   });
 
   it('folds a long list', async () => {

@@ -20,37 +20,70 @@ function withTicks(r: Results, map: (t: TickCurve, k: number) => TickCurve): Res
 describe('{{ticks}}', () => {
   it('says the band is between seeds and the whiskers between examples when m is known', async () => {
     const text = textOf(await renderCells('{{ticks}}', sampleResults()));
-    expect(text).toContain('Which noise: the 95% t-interval band is the spread between seeds (training the same config again), the noise the tests weigh.');
-    expect(text).toContain('The dotted whiskers are the between-example spread of one evaluation, ±1 standard error √(p(1−p)/m) for m examples');
+    expect(text).toContain(
+      'Which noise: the 95% t-interval band is the spread between seeds (training the same config again), the noise the tests weigh.',
+    );
+    expect(text).toContain(
+      'The dotted whiskers are the between-example spread of one evaluation, ±1 standard error √(p(1−p)/m) for m examples',
+    );
   });
 
   it('says the between-example spread is not known when no config has it, and for how many configs when some have it', async () => {
-    const none = textOf(await renderCells('{{ticks}}', withTicks(sampleResults(), (t) => ({ ...t, exampleHalfWidth: null }))));
-    expect(none).toContain('The between-example spread of one evaluation (how much tick_acc would move on other examples) is not shown: the logs do not say on how many examples it was measured.');
+    const none = textOf(
+      await renderCells(
+        '{{ticks}}',
+        withTicks(sampleResults(), (t) => ({ ...t, exampleHalfWidth: null })),
+      ),
+    );
+    expect(none).toContain(
+      'The between-example spread of one evaluation (how much tick_acc would move on other examples) is not shown: the logs do not say on how many examples it was measured.',
+    );
     expect(none).not.toContain('whiskers');
-    const some = textOf(await renderCells('{{ticks}}', withTicks(sampleResults(), (t, k) => (k === 0 ? t : { ...t, exampleHalfWidth: null }))));
+    const some = textOf(
+      await renderCells(
+        '{{ticks}}',
+        withTicks(sampleResults(), (t, k) => (k === 0 ? t : { ...t, exampleHalfWidth: null })),
+      ),
+    );
     expect(some).toContain('(known for 1 of 3 configs)');
   });
 
   it('gives consecutive ticks with one verdict as a range, with the largest adjusted p', async () => {
     const results = withTicks(sampleResults(), (t, k) =>
-      k !== 1 ? t : {
-        ...t,
-        versusBaseline: t.ticks.map((tick) => ({
-          tick, difference: -0.1,
-          pAdjusted: tick < 3 ? 0.0004 : tick === 3 ? 0.2 : tick < 6 ? [0.004, 0.012][tick - 4] ?? null : 0.03,
-          verdict: tick < 3 ? ('worse' as const) : tick === 3 ? ('inconclusive' as const) : tick < 6 ? ('better' as const) : ('worse' as const),
-        })),
-      },
+      k !== 1
+        ? t
+        : {
+            ...t,
+            versusBaseline: t.ticks.map((tick) => ({
+              tick,
+              difference: -0.1,
+              pAdjusted: tick < 3 ? 0.0004 : tick === 3 ? 0.2 : tick < 6 ? ([0.004, 0.012][tick - 4] ?? null) : 0.03,
+              verdict:
+                tick < 3
+                  ? ('worse' as const)
+                  : tick === 3
+                    ? ('inconclusive' as const)
+                    : tick < 6
+                      ? ('better' as const)
+                      : ('worse' as const),
+            })),
+          },
     );
     const r = rows(await renderCells('{{ticks}}', results));
     expect(r[0]).toContain('baseline');
-    expect(r[1]).toContain('worse at ticks 0–2 (adjusted p < 0.001 at each); better at ticks 4–5 (adjusted p ≤ 0.012 at each); worse at ticks 6–7 (adjusted p ≤ 0.030 at each)');
+    expect(r[1]).toContain(
+      'worse at ticks 0–2 (adjusted p < 0.001 at each); better at ticks 4–5 (adjusted p ≤ 0.012 at each); worse at ticks 6–7 (adjusted p ≤ 0.030 at each)',
+    );
     expect(r[2]).toContain('no tick differs after Holm adjustment');
   });
 
   it('says when runs were read at different steps', async () => {
-    const r = rows(await renderCells('{{ticks}}', withTicks(sampleResults(), (t, k) => (k === 2 ? { ...t, step: null } : t))));
+    const r = rows(
+      await renderCells(
+        '{{ticks}}',
+        withTicks(sampleResults(), (t, k) => (k === 2 ? { ...t, step: null } : t)),
+      ),
+    );
     expect(r[2]).toContain('each run’s last (they differ)');
     expect(r[0]).toContain('10000');
   });

@@ -16,8 +16,12 @@ describe('{{verdicts}}', () => {
     const html = await renderCells('{{verdicts}}', sampleResults());
     const r = rows(html);
     expect(r).toHaveLength(4);
-    expect(r[0]).toBe('val_acc higher is better; summary final memory=4 memory=8 +1.71 [0.06, 3.37] 0.088 ● inconclusive 7 v 5');
-    expect(r[3]).toBe('memory=4 memory=12 +0.01514 [0.00588, 0.02441] 0.0052 ▼ worse 7 v 4 (1 diverged in the candidate, excluded)');
+    expect(r[0]).toBe(
+      'val_acc higher is better; summary final memory=4 memory=8 +1.71 [0.06, 3.37] 0.088 ● inconclusive 7 v 5',
+    );
+    expect(r[3]).toBe(
+      'memory=4 memory=12 +0.01514 [0.00588, 0.02441] 0.0052 ▼ worse 7 v 4 (1 diverged in the candidate, excluded)',
+    );
     expect(html).toContain('<th scope="col" class="num">Difference [95% Welch t-interval]</th>');
     expect(textOf(html)).toContain('A statistical test is evidence, not proof');
     expect(textOf(html)).toContain('val_acc, memory=8 v memory=4: Unequal seeds: 7 v 5.');
@@ -28,7 +32,10 @@ describe('{{verdicts}}', () => {
     const [first, second] = base.comparisons as [Comparison, Comparison];
     const results: Results = {
       ...base,
-      comparisons: [{ ...first, task: 'glyphs', nonInferiority: { margin: 0.5, p: 0.012, holds: true } }, { ...second, task: 'glyphs' }],
+      comparisons: [
+        { ...first, task: 'glyphs', nonInferiority: { margin: 0.5, p: 0.012, holds: true } },
+        { ...second, task: 'glyphs' },
+      ],
     };
     const html = await renderCells('{{verdicts "val_acc"}}', results);
     expect(html).toContain('<th scope="col">Task</th>');

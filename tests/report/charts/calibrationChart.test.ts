@@ -11,7 +11,8 @@ import { makeResults } from '../fixtures.js';
 import { attr, drawn, markItems } from './svgInspect.js';
 
 const results = makeResults();
-const subtitle = (r: Results): string => ((calibrationChart(r) as TopLevelSpec & { title: { subtitle: string[] } }).title.subtitle).join(' ');
+const subtitle = (r: Results): string =>
+  (calibrationChart(r) as TopLevelSpec & { title: { subtitle: string[] } }).title.subtitle.join(' ');
 
 describe('calibrationChart', () => {
   it('returns null without calibration curves', () => {
@@ -30,7 +31,10 @@ describe('calibrationChart', () => {
   });
 
   it('says there is no band when no tick has an interval', async () => {
-    const bare: Results = { ...results, calibration: results.calibration.map((c) => ({ ...c, ece: c.ece.map((e) => ({ ...e, low: null, high: null })) })) };
+    const bare: Results = {
+      ...results,
+      calibration: results.calibration.map((c) => ({ ...c, ece: c.ece.map((e) => ({ ...e, low: null, high: null })) })),
+    };
     expect(subtitle(bare)).toContain('No band');
     const svg = await renderSvg(calibrationChart(bare) as TopLevelSpec);
     expect(markItems(svg, 'band')).toEqual([]);

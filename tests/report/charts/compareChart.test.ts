@@ -24,11 +24,19 @@ describe('compareChart', () => {
   it('draws every estimate in its verdict colour, intervals only where they exist, and the verdict as words', async () => {
     const svg = await render(results);
     const points = markItems(svg, 'estimate');
-    expect(points.map((p) => attr(p, 'fill'))).toEqual([VERDICT_COLOURS.better, VERDICT_COLOURS.worse, VERDICT_COLOURS.inconclusive]);
+    expect(points.map((p) => attr(p, 'fill'))).toEqual([
+      VERDICT_COLOURS.better,
+      VERDICT_COLOURS.worse,
+      VERDICT_COLOURS.inconclusive,
+    ]);
     const intervals = markItems(svg, 'interval');
     expect(intervals).toHaveLength(2); // the third comparison has no interval
     expect(intervals.every(drawn)).toBe(true);
-    expect(markItems(svg, 'verdict').map((t) => /> *([^<]*)<\/text>$/.exec(t)?.[1])).toEqual(['better', 'worse', 'inconclusive']);
+    expect(markItems(svg, 'verdict').map((t) => /> *([^<]*)<\/text>$/.exec(t)?.[1])).toEqual([
+      'better',
+      'worse',
+      'inconclusive',
+    ]);
     // The legend names all three verdicts.
     const legend = svg.match(/role-legend-label[^]*?<\/g>/g)?.join('') ?? '';
     for (const v of ['better', 'worse', 'inconclusive']) expect(legend).toContain(`>${v}</text>`);
@@ -44,7 +52,9 @@ describe('compareChart', () => {
 
     const min: Results = { ...results, comparisons: results.comparisons.map((c) => ({ ...c, goal: 'min' as const })) };
     const svgMin = await render(min);
-    expect(translate(markItems(svgMin, 'margin')[0] ?? '').x).toBeGreaterThan(translate(markItems(svgMin, 'zero')[0] ?? '').x);
+    expect(translate(markItems(svgMin, 'margin')[0] ?? '').x).toBeGreaterThan(
+      translate(markItems(svgMin, 'zero')[0] ?? '').x,
+    );
   });
 
   it('has no margin rule without a margin', async () => {
@@ -62,7 +72,9 @@ describe('compareChart', () => {
     const first = results.comparisons[0];
     if (first === undefined) throw new Error('fixture has comparisons');
     const twice: Results = { ...results, comparisons: [first, { ...first }, { ...first, task: 'count' }] };
-    const spec = compareChart(twice, metric, summary) as TopLevelSpec & { layer: { name?: string; data?: { values: { label: string }[] } }[] };
+    const spec = compareChart(twice, metric, summary) as TopLevelSpec & {
+      layer: { name?: string; data?: { values: { label: string }[] } }[];
+    };
     const labels = spec.layer.find((l) => l.name === 'estimate')?.data?.values.map((r) => r.label);
     expect(labels).toEqual([
       `${first.candidate} vs ${first.baseline}`,

@@ -17,7 +17,10 @@ const config = DEFAULT_NAMES.configs[1];
 describe('exitHistogramChart', () => {
   it('returns null for an unknown config or when every count is zero', () => {
     expect(exitHistogramChart(results, 'nope')).toBeNull();
-    const zero: Results = { ...results, halting: results.halting.map((h) => ({ ...h, exitHistogram: { threshold: 0.7, counts: [0, 0, 0, 0] } })) };
+    const zero: Results = {
+      ...results,
+      halting: results.halting.map((h) => ({ ...h, exitHistogram: { threshold: 0.7, counts: [0, 0, 0, 0] } })),
+    };
     expect(exitHistogramChart(zero, config)).toBeNull();
   });
 

@@ -29,7 +29,9 @@ describe('haltingChart', () => {
     expect(exit.every((l) => Number(attr(l, 'x2')) !== 0 && Number(attr(l, 'y2') ?? 0) === 0)).toBe(true);
     expect(accuracy.every((l) => Number(attr(l, 'y2')) !== 0 && Number(attr(l, 'x2') ?? 0) === 0)).toBe(true);
     // Higher thresholds exit later in the fixture: points of one config move right in threshold order.
-    const xs = markItems(svg, 'points').slice(0, 3).map((p) => translate(p).x);
+    const xs = markItems(svg, 'points')
+      .slice(0, 3)
+      .map((p) => translate(p).x);
     expect(xs[0]).toBeLessThan(xs[1] ?? -Infinity);
     expect(xs[1]).toBeLessThan(xs[2] ?? -Infinity);
   });
@@ -39,7 +41,10 @@ describe('haltingChart', () => {
     if (first === undefined) throw new Error('fixture has halting curves');
     const holed: Results = {
       ...results,
-      halting: [{ ...first, accuracy: first.accuracy.map((a, i) => (i === 1 ? { mean: null, low: null, high: null } : a)) }, ...results.halting.slice(1)],
+      halting: [
+        { ...first, accuracy: first.accuracy.map((a, i) => (i === 1 ? { mean: null, low: null, high: null } : a)) },
+        ...results.halting.slice(1),
+      ],
     };
     const svg = await renderSvg(haltingChart(holed) as TopLevelSpec);
     expect(markItems(svg, 'points')).toHaveLength(8);

@@ -19,7 +19,13 @@ describe('intervalLabel', () => {
   });
 
   it('lists distinct labels in order of first appearance', () => {
-    expect(intervalLabels([{ method: 't', level: 0.95 }, { method: 'bca', level: 0.95 }, { method: 't', level: 0.95 }])).toBe('95% t-interval or 95% BCa bootstrap interval');
+    expect(
+      intervalLabels([
+        { method: 't', level: 0.95 },
+        { method: 'bca', level: 0.95 },
+        { method: 't', level: 0.95 },
+      ]),
+    ).toBe('95% t-interval or 95% BCa bootstrap interval');
     expect(intervalLabels([])).toBe('');
   });
 });
@@ -27,7 +33,12 @@ describe('intervalLabel', () => {
 describe('wrapLines', () => {
   it('wraps at word boundaries and keeps a long word whole', () => {
     expect(wrapLines(['a bb ccc'], 4)).toEqual(['a bb', 'ccc']);
-    expect(wrapLines(['</script><img src=x onerror=alert(1)> ok'], 10)).toEqual(['</script><img', 'src=x', 'onerror=alert(1)>', 'ok']);
+    expect(wrapLines(['</script><img src=x onerror=alert(1)> ok'], 10)).toEqual([
+      '</script><img',
+      'src=x',
+      'onerror=alert(1)>',
+      'ok',
+    ]);
     expect(wrapLines(['one', 'two three'], 80)).toEqual(['one', 'two three']);
   });
 });

@@ -12,7 +12,14 @@ import { calibrationChart } from '../../../src/report/charts/calibrationChart.js
 import type { Layer } from '../../../src/report/charts/chartFrame.js';
 import { curvesChart } from '../../../src/report/charts/curvesChart.js';
 import { haltingChart } from '../../../src/report/charts/haltingChart.js';
-import { FADED, hasLegendToggle, layerOpacity, pickedOpacity, PICKED_CONFIGS, withLegendToggle } from '../../../src/report/charts/legendToggle.js';
+import {
+  FADED,
+  hasLegendToggle,
+  layerOpacity,
+  pickedOpacity,
+  PICKED_CONFIGS,
+  withLegendToggle,
+} from '../../../src/report/charts/legendToggle.js';
 import { ticksChart } from '../../../src/report/charts/ticksChart.js';
 import { valuesChart } from '../../../src/report/charts/valuesChart.js';
 import { compileVega, renderSvg } from '../../../src/report/renderSvg.js';
@@ -24,8 +31,8 @@ const results = makeResults();
 function withoutToggle(spec: TopLevelSpec): TopLevelSpec {
   const layers = (spec as unknown as { layer: Record<string, unknown>[] }).layer.map((layer) => {
     const { params: _params, ...rest } = layer;
-    const encoding = rest['encoding'] as Record<string, unknown> | undefined;
-    const opacity = encoding?.['opacity'] as { condition?: { value: number } } | undefined;
+    const encoding = rest.encoding as Record<string, unknown> | undefined;
+    const opacity = encoding?.opacity as { condition?: { value: number } } | undefined;
     if (encoding === undefined || opacity?.condition === undefined) return rest;
     return { ...rest, encoding: { ...encoding, opacity: { value: opacity.condition.value } } };
   });
@@ -59,7 +66,10 @@ describe('pickedOpacity, layerOpacity, withLegendToggle', () => {
       { name: 'mean', mark: 'line', encoding: {} },
     ];
     const params = (ls: Layer[]): unknown[] => ls.map((l) => ('params' in l ? l.params : undefined));
-    expect(params(withLegendToggle(layers, 3, ['seeds', 'mean']))).toEqual([undefined, [{ name: PICKED_CONFIGS, select: { type: 'point', fields: ['config'] }, bind: 'legend' }]]);
+    expect(params(withLegendToggle(layers, 3, ['seeds', 'mean']))).toEqual([
+      undefined,
+      [{ name: PICKED_CONFIGS, select: { type: 'point', fields: ['config'] }, bind: 'legend' }],
+    ]);
     expect(withLegendToggle(layers, 1, ['mean'])).toEqual(layers);
     expect(withLegendToggle(layers, 3, ['points'])).toEqual(layers);
   });
@@ -76,12 +86,19 @@ for (const [name, spec] of CHARTS) {
   describe(`${name} with legend toggling`, () => {
     it('binds a point selection on config to the legend, and conditions the opacity of every config layer on it', () => {
       expect(spec).not.toBeNull();
-      const vega = compileVega(spec as TopLevelSpec) as { signals?: { name: string }[]; legends?: { encode?: { symbols?: { name?: string } } }[] };
+      const vega = compileVega(spec as TopLevelSpec) as {
+        signals?: { name: string }[];
+        legends?: { encode?: { symbols?: { name?: string } } }[];
+      };
       // Vega-Lite's compiler makes the legend's symbols the event source of the selection.
       expect((vega.signals ?? []).map((s) => s.name)).toContain(`${PICKED_CONFIGS}_config_legend`);
       expect(JSON.stringify(vega.legends)).toContain('config_legend_symbols');
-      const layers = (spec as { layer: { encoding?: { color?: { field?: string }; opacity?: unknown }; mark: unknown }[] }).layer;
-      const configLayers = layers.filter((l) => l.encoding?.color?.field === 'config' && (l.mark as { opacity?: number }).opacity !== 0);
+      const layers = (
+        spec as { layer: { encoding?: { color?: { field?: string }; opacity?: unknown }; mark: unknown }[] }
+      ).layer;
+      const configLayers = layers.filter(
+        (l) => l.encoding?.color?.field === 'config' && (l.mark as { opacity?: number }).opacity !== 0,
+      );
       expect(configLayers.length).toBeGreaterThan(1);
       for (const l of configLayers) expect(l.encoding?.opacity).toMatchObject({ condition: { param: PICKED_CONFIGS } });
     });

@@ -6,7 +6,15 @@
  * reddish purple 204,121,167.
  */
 import { describe, expect, it } from 'vitest';
-import { CONFIG_COLOURS, configColour, configColourScale, OKABE_ITO, TOL_MUTED, VERDICT_COLOURS, VERDICT_SHAPES } from '../../../src/report/palette.js';
+import {
+  CONFIG_COLOURS,
+  configColour,
+  configColourScale,
+  OKABE_ITO,
+  TOL_MUTED,
+  VERDICT_COLOURS,
+  VERDICT_SHAPES,
+} from '../../../src/report/palette.js';
 import { DEFAULT_NAMES, makeResults } from '../fixtures.js';
 
 const rgb = (hex: string): number[] => [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16));
@@ -24,7 +32,7 @@ describe('palette', () => {
     expect(new Set(CONFIG_COLOURS.slice(0, 8))).toEqual(new Set(Object.values(OKABE_ITO)));
   });
 
-  it('then uses Paul Tol\'s muted scheme (Tol 2021, SRON technical note; from memory) for configs 9 to 17', () => {
+  it("then uses Paul Tol's muted scheme (Tol 2021, SRON technical note; from memory) for configs 9 to 17", () => {
     expect(rgb(TOL_MUTED.indigo)).toEqual([51, 34, 136]);
     expect(rgb(TOL_MUTED.rose)).toEqual([204, 102, 119]);
     expect(new Set(CONFIG_COLOURS.slice(8))).toEqual(new Set(Object.values(TOL_MUTED)));
@@ -34,11 +42,17 @@ describe('palette', () => {
   it('gives a config the same colour in every chart, by its place in Results.configs', () => {
     const results = makeResults();
     const [a, b, c] = DEFAULT_NAMES.configs;
-    expect(configColourScale(results, [c, a])).toEqual({ domain: [a, c], range: [CONFIG_COLOURS[0], CONFIG_COLOURS[2]] });
+    expect(configColourScale(results, [c, a])).toEqual({
+      domain: [a, c],
+      range: [CONFIG_COLOURS[0], CONFIG_COLOURS[2]],
+    });
     expect(configColourScale(results, [b])).toEqual({ domain: [b], range: [CONFIG_COLOURS[1]] });
     expect(configColour(results, c)).toBe(CONFIG_COLOURS[2]);
     // Unknown configs follow the known ones, in the order given.
-    expect(configColourScale(results, ['zz', a])).toEqual({ domain: [a, 'zz'], range: [CONFIG_COLOURS[0], CONFIG_COLOURS[3]] });
+    expect(configColourScale(results, ['zz', a])).toEqual({
+      domain: [a, 'zz'],
+      range: [CONFIG_COLOURS[0], CONFIG_COLOURS[3]],
+    });
   });
 
   it('gives 17 configs 17 colours, and cycles after that', () => {

@@ -15,14 +15,23 @@ const config = DEFAULT_NAMES.configs[0];
 describe('reliabilityChart', () => {
   it('returns null for an unknown config or when no bin has samples', () => {
     expect(reliabilityChart(results, 'nope')).toBeNull();
-    const empty: Results = { ...results, calibration: results.calibration.map((c) => ({ ...c, reliability: c.reliability.map((b) => ({ ...b, count: 0, accuracy: null, confidence: null })) })) };
+    const empty: Results = {
+      ...results,
+      calibration: results.calibration.map((c) => ({
+        ...c,
+        reliability: c.reliability.map((b) => ({ ...b, count: 0, accuracy: null, confidence: null })),
+      })),
+    };
     expect(reliabilityChart(empty, config)).toBeNull();
   });
 
   it('says over how many seeds samples were summed when analysis gives it', () => {
-    const subtitle = (r: Results): string => (reliabilityChart(r, config) as TopLevelSpec & { title: { subtitle: string[] } }).title.subtitle.join(' ');
+    const subtitle = (r: Results): string =>
+      (reliabilityChart(r, config) as TopLevelSpec & { title: { subtitle: string[] } }).title.subtitle.join(' ');
     expect(subtitle(results)).toContain('summed over seeds');
-    expect(subtitle({ ...results, calibration: results.calibration.map((c) => ({ ...c, seeds: 3 })) })).toContain('summed over 3 seeds');
+    expect(subtitle({ ...results, calibration: results.calibration.map((c) => ({ ...c, seeds: 3 })) })).toContain(
+      'summed over 3 seeds',
+    );
   });
 
   it('draws the non-empty bins, their points and the diagonal from (0,0) to (1,1)', async () => {
@@ -39,7 +48,9 @@ describe('reliabilityChart', () => {
 describe('reliabilityChart between-example whiskers', () => {
   it('draws ±1 binomial standard error √(a(1−a)/n) per bin and says that seeds are pooled', async () => {
     const spec = reliabilityChart(results, config) as TopLevelSpec & { title: { subtitle: string[] } };
-    expect(spec.title.subtitle.join(' ')).toContain('Whiskers: ±1 between-example standard error √(a(1−a)/n) of each bin; seeds are pooled, so seed-to-seed spread is not shown.');
+    expect(spec.title.subtitle.join(' ')).toContain(
+      'Whiskers: ±1 between-example standard error √(a(1−a)/n) of each bin; seeds are pooled, so seed-to-seed spread is not shown.',
+    );
     const whiskers = markItems(await renderSvg(spec), 'exampleSpread');
     expect(whiskers).toHaveLength(4);
     // The fixture's bin 0.2-0.4 of the first config: accuracy a = 0.27 on n = 40 samples; by hand,

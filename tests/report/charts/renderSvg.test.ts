@@ -6,7 +6,12 @@
 import { parse, View } from 'vega';
 import type { TopLevelSpec } from 'vega-lite';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { compileVega, compileVegaWithWarnings, renderSvg, renderSvgWithWarnings } from '../../../src/report/renderSvg.js';
+import {
+  compileVega,
+  compileVegaWithWarnings,
+  renderSvg,
+  renderSvgWithWarnings,
+} from '../../../src/report/renderSvg.js';
 
 const clipped = (n: number): TopLevelSpec => ({
   title: 'clipped',
@@ -27,7 +32,9 @@ describe('renderSvg', () => {
     const root = svg.slice(0, svg.indexOf('>') + 1);
     expect(root).toContain(' role="graphics-document document"');
     expect(root).toContain(' aria-label="D &#39;q&#39; &lt;b&gt;"');
-    expect(svg.slice(root.length)).toMatch(/^<title>T &lt;&amp;&gt; &quot;x&quot;<\/title><desc>D &#39;q&#39; &lt;b&gt;<\/desc>/);
+    expect(svg.slice(root.length)).toMatch(
+      /^<title>T &lt;&amp;&gt; &quot;x&quot;<\/title><desc>D &#39;q&#39; &lt;b&gt;<\/desc>/,
+    );
   });
 
   it('numbers clip ids from 1 whatever rendered before, where raw Vega output does not', async () => {
@@ -58,7 +65,11 @@ describe('renderSvg', () => {
   it('collects Vega runtime warnings instead of printing them', async () => {
     const warn = vi.spyOn(console, 'warn');
     const error = vi.spyOn(console, 'error');
-    const empty: TopLevelSpec = { data: { values: [{ a: null }, { a: null }] }, mark: 'point', encoding: { x: { field: 'a', type: 'quantitative' } } };
+    const empty: TopLevelSpec = {
+      data: { values: [{ a: null }, { a: null }] },
+      mark: 'point',
+      encoding: { x: { field: 'a', type: 'quantitative' } },
+    };
     const { warnings } = await renderSvgWithWarnings(empty);
     expect(warnings.join('\n')).toContain('Infinite extent');
     expect(warn).not.toHaveBeenCalled();
@@ -76,7 +87,11 @@ describe('compileVega', () => {
 
   it('collects Vega-Lite compiler warnings instead of printing them', () => {
     const warn = vi.spyOn(console, 'warn');
-    const spec: TopLevelSpec = { data: { values: [{ a: 1 }] }, mark: 'bar', encoding: { x: { field: 'a', type: 'quantitative' }, theta: { field: 'a', type: 'quantitative' } } };
+    const spec: TopLevelSpec = {
+      data: { values: [{ a: 1 }] },
+      mark: 'bar',
+      encoding: { x: { field: 'a', type: 'quantitative' }, theta: { field: 'a', type: 'quantitative' } },
+    };
     const { warnings } = compileVegaWithWarnings(spec);
     expect(warnings).toEqual(['theta dropped as it is incompatible with "bar".']); // Vega-Lite's log/message.ts wording
     expect(warn).not.toHaveBeenCalled();

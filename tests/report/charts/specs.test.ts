@@ -85,12 +85,21 @@ const HOSTILE: FixtureNames = {
 describe('the schema check itself (so a pass means something)', () => {
   it('rejects a spec with an unknown mark and accepts a minimal valid one', () => {
     expect(schemaErrors({ mark: 'pointy', data: { values: [] } })).not.toBe('');
-    expect(schemaErrors({ mark: 'point', data: { values: [{ a: 1 }] }, encoding: { x: { field: 'a', type: 'quantitative' } } })).toBe('');
+    expect(
+      schemaErrors({
+        mark: 'point',
+        data: { values: [{ a: 1 }] },
+        encoding: { x: { field: 'a', type: 'quantitative' } },
+      }),
+    ).toBe('');
     expect(schemaErrors({ mark: 'point', encoding: { x: { field: 'a', type: 'ratio' } } })).not.toBe('');
   });
 });
 
-for (const [label, names] of [['fixture', DEFAULT_NAMES], ['hostile names', HOSTILE]] as const) {
+for (const [label, names] of [
+  ['fixture', DEFAULT_NAMES],
+  ['hostile names', HOSTILE],
+] as const) {
   describe(`every chart builder (${label})`, () => {
     const results = makeResults(names);
     for (const [name, spec] of charts(results, names)) {
@@ -125,10 +134,18 @@ for (const [label, names] of [['fixture', DEFAULT_NAMES], ['hostile names', HOST
             // The names did reach the SVG (escaped), so the checks below are not vacuous. The
             // per-config charts are drawn for configs[1] (a.b[0]"'); the others show configs[0].
             expect(svg).toContain('a.b[0]');
-            if (name !== 'exitHistogramChart' && name !== 'reliabilityChart') expect(svg).toContain('&lt;/script&gt;&lt;img src=x onerror=alert(1)&gt;');
+            if (name !== 'exitHistogramChart' && name !== 'reliabilityChart')
+              expect(svg).toContain('&lt;/script&gt;&lt;img src=x onerror=alert(1)&gt;');
             const tags = svg.match(/<[^>]*>/g) ?? [];
             const elements = new Set(tags.map((t) => /^<\/?([a-zA-Z:]+)/.exec(t)?.[1] ?? t));
-            expect([...elements].filter((e) => !['svg', 'g', 'path', 'line', 'text', 'rect', 'title', 'desc', 'defs', 'clipPath', 'tspan'].includes(e))).toEqual([]);
+            expect(
+              [...elements].filter(
+                (e) =>
+                  !['svg', 'g', 'path', 'line', 'text', 'rect', 'title', 'desc', 'defs', 'clipPath', 'tspan'].includes(
+                    e,
+                  ),
+              ),
+            ).toEqual([]);
             for (const tag of tags) {
               // Attribute values are quoted with " and contain no raw " (Vega escapes it), so
               // removing quoted values leaves only element and attribute names.

@@ -21,7 +21,10 @@ function layerNames(spec: TopLevelSpec): string[] {
 
 /** SVG elements without the root's size attributes and the background rect's size. */
 function inner(svg: string): string[] {
-  return svg.replace(/<svg[^>]*>/, '<svg>').replace(/<rect width="\d+" height="\d+"/, '<rect').split(/(?=<)/);
+  return svg
+    .replace(/<svg[^>]*>/, '<svg>')
+    .replace(/<rect width="\d+" height="\d+"/, '<rect')
+    .split(/(?=<)/);
 }
 
 describe('staticChart', () => {

@@ -36,7 +36,8 @@ export function subpaths(element: string): number {
  */
 export function drawn(element: string): boolean {
   if (element.startsWith('<path')) return /M[^MZ]*[LHVCSQTAlhvcsqta]/.test(attr(element, 'd') ?? '');
-  if (element.startsWith('<line')) return Number(attr(element, 'x2') ?? 0) !== 0 || Number(attr(element, 'y2') ?? 0) !== 0;
+  if (element.startsWith('<line'))
+    return Number(attr(element, 'x2') ?? 0) !== 0 || Number(attr(element, 'y2') ?? 0) !== 0;
   return />[^<]+<\/text>$/.test(element);
 }
 
@@ -71,7 +72,8 @@ export function dataKeys(spec: unknown): string[] {
     else if (node !== null && typeof node === 'object') {
       for (const [k, v] of Object.entries(node)) {
         if (k === 'values' && Array.isArray(v)) {
-          for (const row of v) if (row !== null && typeof row === 'object') Object.keys(row).forEach((key) => out.add(key));
+          for (const row of v)
+            if (row !== null && typeof row === 'object') Object.keys(row).forEach((key) => out.add(key));
         } else walk(v);
       }
     }
@@ -81,7 +83,10 @@ export function dataKeys(spec: unknown): string[] {
 }
 
 /** A mark of a compiled Vega spec by name, searched through nested group marks. */
-export function vegaMark(spec: { readonly marks?: readonly unknown[] }, name: string): { name?: string; encode?: { update?: Record<string, unknown> } } | undefined {
+export function vegaMark(
+  spec: { readonly marks?: readonly unknown[] },
+  name: string,
+): { name?: string; encode?: { update?: Record<string, unknown> } } | undefined {
   for (const m of spec.marks ?? []) {
     const mark = m as { name?: string; marks?: readonly unknown[]; encode?: { update?: Record<string, unknown> } };
     if (mark.name === name) return mark;

@@ -12,7 +12,8 @@ import { drawn, markItems, subpaths, translate } from './svgInspect.js';
 
 const results = makeResults();
 const metric = DEFAULT_NAMES.tickMetric;
-const subtitle = (r: Results): string => ((ticksChart(r, metric) as TopLevelSpec & { title: { subtitle: string[] } }).title.subtitle).join(' ');
+const subtitle = (r: Results): string =>
+  (ticksChart(r, metric) as TopLevelSpec & { title: { subtitle: string[] } }).title.subtitle.join(' ');
 
 describe('ticksChart', () => {
   it('runs the tick axis from the first to the last tick (0..31 on 520 px), not on to a rounder number', async () => {
@@ -23,7 +24,16 @@ describe('ticksChart', () => {
         if (k !== 2) return t;
         const ticks = Array.from({ length: 32 }, (_, i) => i);
         const mean = ticks.map((i) => 0.4 + 0.01 * i);
-        return { ...t, ticks, mean, low: mean.map((m) => m - 0.01), high: mean.map((m) => m + 0.01), n: ticks.map(() => 3), exampleHalfWidth: null, versusBaseline: null };
+        return {
+          ...t,
+          ticks,
+          mean,
+          low: mean.map((m) => m - 0.01),
+          high: mean.map((m) => m + 0.01),
+          n: ticks.map(() => 3),
+          exampleHalfWidth: null,
+          versusBaseline: null,
+        };
       }),
     };
     const svg = await renderSvg(ticksChart(long, metric) as TopLevelSpec);
@@ -51,7 +61,11 @@ describe('ticksChart', () => {
   it('breaks the line at a null mean and leaves out whiskers when no curve has them', async () => {
     const holed: Results = {
       ...results,
-      ticks: results.ticks.map((t, k) => ({ ...t, exampleHalfWidth: null, mean: k === 0 ? t.mean.map((v, i) => (i === 1 ? null : v)) : t.mean })),
+      ticks: results.ticks.map((t, k) => ({
+        ...t,
+        exampleHalfWidth: null,
+        mean: k === 0 ? t.mean.map((v, i) => (i === 1 ? null : v)) : t.mean,
+      })),
     };
     const svg = await renderSvg(ticksChart(holed, metric) as TopLevelSpec);
     expect(markItems(svg, 'mean').map(subpaths)).toEqual([2, 1, 1]);

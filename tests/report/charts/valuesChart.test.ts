@@ -12,7 +12,10 @@ import { attr, drawn, markItems } from './svgInspect.js';
 
 const results = makeResults();
 const { metric, summary, configs } = DEFAULT_NAMES;
-type Layered = TopLevelSpec & { layer: { name?: string; data?: { values: Record<string, unknown>[] } }[]; title: { subtitle: string[] } };
+type Layered = TopLevelSpec & {
+  layer: { name?: string; data?: { values: Record<string, unknown>[] } }[];
+  title: { subtitle: string[] };
+};
 
 describe('valuesChart', () => {
   it('returns null when no run has a value for that metric and summary', () => {
@@ -37,7 +40,7 @@ describe('valuesChart', () => {
     const spec = valuesChart(results, metric, summary) as Layered;
     const mean = spec.layer.find((l) => l.name === 'mean');
     // configs[1]: configValues says 0.77; its two values (0.75, 0.76) would average 0.755.
-    expect(mean?.data?.values.map((r) => [r['config'], r['mean'], r['low'], r['high']])).toEqual([
+    expect(mean?.data?.values.map((r) => [r.config, r.mean, r.low, r.high])).toEqual([
       [configs[0], 0.74, 0.72, 0.76],
       [configs[1], 0.77, 0.75, 0.79],
       [configs[2], 0.8, 0.78, 0.8200000000000001],
@@ -50,16 +53,24 @@ describe('valuesChart', () => {
   });
 
   it('draws no interval line for a config whose interval is null (one seed)', () => {
-    const one = { ...results, configValues: results.configValues.map((c, k) => (k === 0 ? { ...c, n: 1, low: null, high: null, method: 'none' as const } : c)) };
+    const one = {
+      ...results,
+      configValues: results.configValues.map((c, k) =>
+        k === 0 ? { ...c, n: 1, low: null, high: null, method: 'none' as const } : c,
+      ),
+    };
     const spec = valuesChart(one, metric, summary) as Layered;
-    expect(spec.layer.find((l) => l.name === 'interval')?.data?.values.map((r) => r['config'])).toEqual([configs[1], configs[2]]);
+    expect(spec.layer.find((l) => l.name === 'interval')?.data?.values.map((r) => r.config)).toEqual([
+      configs[1],
+      configs[2],
+    ]);
     expect(spec.layer.find((l) => l.name === 'mean')?.data?.values).toHaveLength(3);
   });
 
   it('spreads equal values of one config apart and keeps rows in Results.configs order', () => {
     const spec = valuesChart(results, metric, summary) as Layered;
     const used = spec.layer.find((l) => l.name === 'used')?.data?.values ?? [];
-    const slots = used.filter((r) => r['config'] === configs[0]).map((r) => r['slot']);
+    const slots = used.filter((r) => r.config === configs[0]).map((r) => r.slot);
     expect(slots).toEqual([-1, 0, 1]);
     expect(JSON.stringify(spec)).toContain(JSON.stringify({ domain: [...configs] }));
   });
