@@ -169,7 +169,7 @@ async function readNumbers(engine: Engine, file: string, points: number): Promis
     steps.set(s, filled);
     values.set(v, filled);
     filled += s.length;
-    releaseResults();
+    releaseResults(engine);
   }
   if (filled !== points) throw new RangeError(`expected ${points} rows of numbers, got ${filled}`);
   return [steps, values];

@@ -18,10 +18,12 @@ import bindings from '@duckdb/node-bindings';
 import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
 
-/** An open engine: the instance and its one connection. */
+/** An open engine: the instance, its one connection, and the garbage collection it forces (`releaseResults`). */
 export interface Engine {
   readonly instance: DuckDBInstance;
   readonly connection: DuckDBConnection;
+  /** A full collection of the JavaScript heap (V8's `gc`, enabled at the first call). */
+  readonly collect: () => void;
 }
 
 /**
@@ -36,10 +38,16 @@ export interface Engine {
 export async function openEngine(): Promise<Engine> {
   const instance = await DuckDBInstance.create(':memory:');
   const connection = await instance.connect();
-  return { instance, connection };
+  let gc: (() => void) | null = null;
+  const collect = (): void => {
+    if (gc === null) {
+      setFlagsFromString('--expose-gc');
+      gc = runInNewContext('gc') as () => void;
+    }
+    gc();
+  };
+  return { instance, connection, collect };
 }
-
-let collect: (() => void) | null = null;
 
 /**
  * Free the native memory of the DuckDB results that are no longer referenced. The node API
@@ -47,14 +55,11 @@ let collect: (() => void) | null = null;
  * count that memory, so it would not hurry: read in batches, the results of every batch stayed
  * resident together (about 45 MB more peak memory on the medium benchmark). Ingest calls this after
  * each batch; it runs a full collection of the JavaScript heap (V8's `gc`, enabled at the first
- * call), a few milliseconds while that heap holds only typed arrays. Example: `releaseResults()`.
+ * call, one per engine), a few milliseconds while that heap holds only typed arrays.
+ * Example: `releaseResults(engine)`.
  */
-export function releaseResults(): void {
-  if (collect === null) {
-    setFlagsFromString('--expose-gc');
-    collect = runInNewContext('gc') as () => void;
-  }
-  collect();
+export function releaseResults(engine: Engine): void {
+  engine.collect();
 }
 
 /**

@@ -308,7 +308,7 @@ export async function loadFiles(
   let done = 0;
   for (const b of batches) {
     await readSafely(engine.connection, b.items, b.doubles);
-    releaseResults();
+    releaseResults(engine);
     onBatch((done += b.items.length));
   }
   const data = items.flatMap((item) => {
