@@ -22,7 +22,7 @@
  * (Float64Array) are allocated once per curve.
  */
 import type { Run, Series } from '../ingest/types.js';
-import { bootstrapMeanFromCounts, resampleCounts } from '../stats/bootstrap.js';
+import { bootstrapMeanFromCounts, resampleCounts } from '../stats/bootstrapMeanFromCounts.js';
 import { createRandom, deriveSeed, type Random } from '../stats/random.js';
 import { tInterval } from '../stats/tInterval.js';
 import { isDiverged } from './horizon.js';

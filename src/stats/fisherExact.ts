@@ -32,8 +32,8 @@ export interface FisherExactResult {
   readonly oddsRatio: number;
 }
 
-/** scipy 1.10.1's relative tolerance for "at most as probable as the observed table". */
-const EPSILON = 1e-14;
+/** 1 / epsilon, where epsilon = 1e-14 is scipy 1.10.1's relative tolerance for "at most as probable as observed". */
+const INVERSE_EPSILON = 10n ** 14n;
 
 /**
  * Fisher's exact test of independence in the 2x2 table [[a, b], [c, d]] (see the file comment for
@@ -79,9 +79,9 @@ export function fisherExact(
   const mode = Math.floor(((col1 + 1) * (row1 + 1)) / (total + 2));
   const exact = new ExactWeights(row1, row2, col1);
   const logExact = logPmf(a);
-  // P(mode) within EPSILON of P(a), relative to the larger: p = 1 (scipy's first branch).
+  // P(mode) within epsilon of P(a), relative to the larger: p = 1 (scipy's first branch).
   if (withinRelative(logPmf(mode) - logExact, exact, mode, a)) return { p: 1, oddsRatio };
-  // Far side: x counts when P(x) < P(a) (1 + EPSILON).
+  // Far side: x counts when P(x) < P(a) (1 + epsilon).
   const counts = (x: number): boolean => {
     const diff = logPmf(x) - logExact;
     if (Math.abs(diff) > 1e-9) return diff < 0;
@@ -107,7 +107,7 @@ function logChoose(n: number, k: number): number {
 }
 
 /**
- * |P(x) - P(a)| / max(P(x), P(a)) <= EPSILON, decided in floating point when the log ratio is far
+ * |P(x) - P(a)| / max(P(x), P(a)) <= 1e-14, decided in floating point when the log ratio is far
  * from 0 and exactly otherwise.
  */
 function withinRelative(logRatio: number, exact: ExactWeights, x: number, a: number): boolean {
@@ -130,19 +130,19 @@ class ExactWeights {
     return choose(this.row1, x) * choose(this.row2, this.col1 - x);
   }
 
-  /** W(x) < W(a) (1 + EPSILON), with EPSILON = 1e-14 = 1 / 10^14. */
+  /** W(x) < W(a) (1 + epsilon), multiplied through by 1 / epsilon. */
   lessThanScaled(x: number, a: number): boolean {
-    const scale = 10n ** 14n;
-    return this.weight(x) * scale < this.weight(a) * (scale + 1n);
+    return this.weight(x) * INVERSE_EPSILON < this.weight(a) * (INVERSE_EPSILON + 1n);
   }
 
-  /** |W(x) - W(a)| <= EPSILON max(W(x), W(a)). */
+  /** |W(x) - W(a)| <= epsilon max(W(x), W(a)) (BigInt: Math.max does not apply). */
   withinRelative(x: number, a: number): boolean {
     const wx = this.weight(x);
     const wa = this.weight(a);
     const diff = wx > wa ? wx - wa : wa - wx;
-    const max = wx > wa ? wx : wa;
-    return diff * 10n ** 14n <= max;
+    // biome-ignore lint/complexity/useMathMinMax: BigInt values, Math.max does not accept them
+    const larger = wx > wa ? wx : wa;
+    return diff * INVERSE_EPSILON <= larger;
   }
 }
 
