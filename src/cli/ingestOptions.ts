@@ -3,6 +3,7 @@
  * `IngestOptions` with every field set; bad values are rejected with the option's name.
  */
 import type { Command } from 'commander';
+import { readingMode } from '../ingest/readingMode.js';
 import type { Goal, IngestOptions } from '../ingest/types.js';
 import { SeedsiftError } from '../problems.js';
 
@@ -49,7 +50,10 @@ const list = (value: string | undefined): string[] | null =>
         .map((s) => s.trim())
         .filter((s) => s !== '');
 
-/** Resolve raw ingest options; throws SeedsiftError('usage') naming the option on a bad value. */
+/**
+ * Resolve raw ingest options, the reading mode chosen and checked here (readingMode.ts); throws
+ * SeedsiftError('usage') naming the option on a bad value or a contradictory combination.
+ */
 export function resolveIngestOptions(raw: RawIngestOptions): IngestOptions {
   const metricGoals: Record<string, Goal> = {};
   for (const spec of raw.metric ?? []) {
@@ -61,28 +65,16 @@ export function resolveIngestOptions(raw: RawIngestOptions): IngestOptions {
     }
     metricGoals[name] = goal;
   }
-  const identity = [raw.seedColumn, raw.seedColumns, raw.manifest].filter((v) => v !== undefined);
-  if (identity.length > 1) {
-    throw new SeedsiftError('usage', '--seed-column, --seed-columns and --manifest: expected at most one of them');
-  }
-  if (raw.seedColumns !== undefined && !raw.seedColumns.includes('{seed}')) {
-    throw new SeedsiftError(
-      'usage',
-      `--seed-columns: expected a pattern with a {seed} capture, got '${raw.seedColumns}'`,
-    );
-  }
-  const columns = list(raw.columns);
-  if (columns !== null && columns.length === 0)
-    throw new SeedsiftError('usage', '--columns: expected a comma-separated list of names');
-  return {
+  const mode = readingMode({
     layout: raw.layout ?? null,
     seedColumn: raw.seedColumn ?? null,
     seedColumns: raw.seedColumns ?? null,
     manifest: raw.manifest ?? null,
-    step: raw.step ?? null,
-    columns,
     scores: raw.scores ?? null,
     by: list(raw.by),
-    metricGoals,
-  };
+  });
+  const columns = list(raw.columns);
+  if (columns !== null && columns.length === 0)
+    throw new SeedsiftError('usage', '--columns: expected a comma-separated list of names');
+  return { mode, step: raw.step ?? null, columns, metricGoals };
 }

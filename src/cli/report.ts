@@ -14,6 +14,7 @@ import { DEFAULT_NOTEBOOK } from '../report/templatePaths.js';
 import { failedGate } from './gate.js';
 import { progressDisplay } from './progress.js';
 import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
+import { modeFiles } from '../ingest/readingMode.js';
 import { inputFiles } from './inputFiles.js';
 import type { Io } from './io.js';
 import { EXIT_GATE } from './exitCodes.js';
@@ -94,7 +95,7 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
         markdown: outputs.markdown !== undefined,
       },
     }).finally(() => progress.done());
-    const inputs = inputFiles(result.runSet, [ingestOptions.manifest, ingestOptions.scores, notebookFile]);
+    const inputs = inputFiles(result.runSet, [...modeFiles(ingestOptions.mode), notebookFile]);
     const written: string[] = [];
     for (const [file, text] of [
       [outputs.html, result.html],

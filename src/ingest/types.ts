@@ -4,6 +4,7 @@
  * per step, missing cells already removed (and counted in problems).
  */
 import type { Problem } from '../problems.js';
+import type { ReadingMode } from './readingMode.js';
 
 export type Goal = 'max' | 'min';
 export type FileFormat = 'csv' | 'tsv' | 'txt' | 'parquet';
@@ -129,13 +130,11 @@ export interface RunSet {
 
 /** Ingest options, resolved once at the edge (every field set). */
 export interface IngestOptions {
-  readonly layout: string | null;
-  readonly seedColumn: string | null;
-  readonly seedColumns: string | null;
-  readonly manifest: string | null;
+  /** How runs are named: from paths, a seed column, per-seed columns, a manifest, a score table. */
+  readonly mode: ReadingMode;
+  /** `--step`: the step column's name; null to take the first of the usual names. */
   readonly step: string | null;
+  /** `--columns`: the column names of headerless files. */
   readonly columns: readonly string[] | null;
-  readonly scores: string | null;
-  readonly by: readonly string[] | null;
   readonly metricGoals: Readonly<Record<string, Goal>>;
 }

@@ -10,7 +10,7 @@
 import type { DuckDBBlobValue } from '@duckdb/node-api';
 import { SeedsiftError } from '../../problems.js';
 import { releaseResults, resultColumns, sqlPath, sqlString, type Engine } from '../load/duckdb.js';
-import { DIGEST_KEY, DIGEST_KIND, DIGEST_VERSION, ROW_GROUP_ROWS, type DigestHeader } from './writeDigest.js';
+import { DIGEST_KEY, DIGEST_KIND, DIGEST_VERSION, ROW_GROUP_ROWS, type DigestHeader } from './digestFormat.js';
 import type { FileRecord, Run, RunSet, Series, TickDump, TickSeries } from '../types.js';
 
 const blobText = (value: unknown): string => Buffer.from((value as DuckDBBlobValue).bytes).toString('utf8');

@@ -3,21 +3,9 @@
  * read, each with what its location says about it (config parameters, seed, information fields).
  * Nothing is read from the log files themselves here; the load stage does that.
  *
- * Identity, in DESIGN's order of preference:
- * 1. `key=value` segments of the path as given, the PATH's own included (hive.ts), file name
- *    included (`seed=3.csv`).
- * 2. `--layout TEMPLATE` fields (layout.ts), matched against the path relative to the PATH. With a
- *    layout, a file that does not match is skipped (`layout-unmatched`). Where a key comes both
- *    from a `key=value` segment and from a layout field, the segment's value is kept.
- * 3./4. `--seed-column` / `--seed-columns`: the seed is inside the file (`seed: null`, identity
- *    `seed-column(s)`); config from 1 and 2. A seed the path names anyway goes to `info.seed`.
- * 5. `--manifest FILE` (manifest.ts): rows give file, seed and params; the PATHs, if any, are
- *    searched only to list (as skipped) the log files the manifest leaves out.
- * A `params.json` in the same folder as a file adds parameters and is checked against the path or
- * manifest (sidecar.ts); when nothing else names the seed, its `seed` does.
- * Identity names where the seed came from; when the seed came from params.json or nowhere, it
- * names where the config came from (`layout`, else `hive` when the path has `key=value`
- * segments, else `none`).
+ * What a file's location says about its run (config, seed, where each came from) is decided by
+ * identity.ts, in the reading mode chosen at the edge (readingMode.ts). A `params.json` in the same
+ * folder as a file is read once per folder (sidecar.ts) and handed to identity.ts.
  *
  * A file with no seed from any source gets `seed-missing` and the seed `auto-N`, N = 1, 2, ... in
  * source order (the prefix cannot collide with a real seed written as a number), so every such
@@ -26,19 +14,18 @@
  * Order: sources in PATH order, sorted by relative path within one PATH (walk.ts); with a
  * manifest, in manifest row order. Files named `params.json` and the manifest itself are
  * consumed, not listed. Every other file found that does not become a source is in `files`
- * (status `skipped` or `unreadable`) with a problem. `options.scores` is not used: score tables
- * do not go through locate.
+ * (status `skipped` or `unreadable`) with a problem. The reading mode (readingMode.ts) was checked
+ * at the edge; a score table does not go through locate.
  */
 import { realpath } from 'node:fs/promises';
 import { dirname, join } from 'node:path';
-import { problem, SeedsiftError, type Problem } from '../../problems.js';
+import { problem, type Problem } from '../../problems.js';
 import { fileFormat } from './fileFormat.js';
-import { hivePairs } from './hive.js';
-import { compileLayout, type Layout } from './layout.js';
+import { manifestIdentity, modeLayout, pathIdentity, seedInFile } from './identity.js';
 import { readManifest } from './manifest.js';
-import { mergeSidecar, readSidecar, SIDECAR_NAME, type Identity, type Sidecar } from './sidecar.js';
-import type { FileRecord, IdentitySource, IngestOptions, RunSource } from '../types.js';
-import { skippedFile, walk, type WalkedFile } from './walk.js';
+import { readSidecar, SIDECAR_NAME, type Sidecar } from './sidecar.js';
+import type { FileRecord, IngestOptions, RunSource } from '../types.js';
+import { skippedFile, walk } from './walk.js';
 
 /** What `locate` hands to the load stage. */
 export interface Located {
@@ -47,70 +34,20 @@ export interface Located {
   readonly problems: Problem[];
 }
 
-type SeedOrigin = 'hive' | 'layout' | 'params' | null;
-
-function checkOptions(options: IngestOptions): void {
-  const given = (['layout', 'seedColumn', 'seedColumns', 'manifest'] as const).filter((k) => options[k] !== null);
-  const flag = {
-    layout: '--layout',
-    seedColumn: '--seed-column',
-    seedColumns: '--seed-columns',
-    manifest: '--manifest',
-  } as const;
-  if (options.seedColumn !== null && options.seedColumns !== null) {
-    throw new SeedsiftError('usage', 'options: expected at most one of --seed-column and --seed-columns, got both');
-  }
-  if (options.manifest !== null && given.length > 1) {
-    throw new SeedsiftError(
-      'usage',
-      `options: --manifest names every file's seed and params, so it cannot be combined with ${given
-        .filter((k) => k !== 'manifest')
-        .map((k) => flag[k])
-        .join(', ')}`,
-    );
-  }
-}
-
-/** Identity of a walked file from its path (hive segments, then layout fields). */
-function pathIdentity(
-  f: WalkedFile,
-  layoutFields: Readonly<Record<string, string>>,
-  layout: Layout | null,
-): { identity: Identity; seedFrom: SeedOrigin } {
-  const params: Record<string, string> = {};
-  const info: Record<string, string> = {};
-  let seed: string | null = null;
-  let seedFrom: SeedOrigin = null;
-  for (const [key, value] of hivePairs(f.file)) {
-    if (key === 'seed') [seed, seedFrom] = [value, 'hive'];
-    else if (key.startsWith('_')) info[key] = value;
-    else params[key] = value;
-  }
-  for (const name of layout?.fields ?? []) {
-    const value = layoutFields[name] as string;
-    if (name === 'seed') {
-      if (seed === null) [seed, seedFrom] = [value, 'layout'];
-    } else if (name.startsWith('_')) info[name] ??= value;
-    else params[name] ??= value;
-  }
-  return { identity: { params, info, seed }, seedFrom };
-}
-
 /**
  * Find the run files under `paths` and what their locations say (see the module comment).
  * Cost: one directory listing per folder, one read per params.json folder; O(files) memory.
- * Throws SeedsiftError('usage') for a PATH or manifest that does not exist, a malformed --layout,
- * or contradictory options; SeedsiftError('input') for a manifest that cannot be parsed or has
+ * Throws SeedsiftError('usage') for a PATH or manifest that does not exist; SeedsiftError('input') for a manifest that cannot be parsed or has
  * no `file` column. Every other difficulty is a problem; a folder with no log files is `no-logs`.
  * Example: `locate(['runs'], opts)` with runs/ticks=8/seed=1/log.csv gives one source
  * `{ relPath: 'ticks=8/seed=1/log.csv', params: { ticks: '8' }, seed: '1', identity: 'hive' }`.
  */
 export async function locate(paths: readonly string[], options: IngestOptions): Promise<Located> {
-  checkOptions(options);
-  const layout = options.layout === null ? null : compileLayout(options.layout);
-  const seedInFile: IdentitySource | null =
-    options.seedColumn !== null ? 'seed-column' : options.seedColumns !== null ? 'seed-columns' : null;
-  const manifest = options.manifest === null ? null : await readManifest(options.manifest);
+  const mode = options.mode;
+  const layout = modeLayout(mode);
+  const inFile = seedInFile(mode);
+  const manifestFile = mode.kind === 'manifest' ? mode.file : null;
+  const manifest = manifestFile === null ? null : await readManifest(manifestFile);
   const walked = await walk(paths);
 
   const files: FileRecord[] = [...(manifest?.skipped ?? []), ...walked.skipped];
@@ -126,26 +63,17 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
     }
     return sidecars.get(path) ?? null;
   };
-  const withSidecar = async (file: string, identity: Identity, origin: string): Promise<Identity> => {
-    const sidecar = await sidecarFor(file);
-    if (sidecar === null) return identity;
-    const merged = mergeSidecar(identity, sidecar, origin, seedInFile === null);
-    problems.push(...merged.problems);
-    return merged.identity;
-  };
 
   // Manifest rows are the sources; the walk only lists what the manifest leaves out.
   for (const row of manifest?.rows ?? []) {
     const kind = fileFormat(row.file);
     if (kind === null) continue;
-    const identity = await withSidecar(row.file, { params: row.params, info: row.info, seed: row.seed }, 'manifest');
-    pending.push({
-      source: { file: row.file, relPath: row.relPath, ...kind, ...identity, identity: 'manifest' },
-      line: row.line,
-    });
+    const decided = manifestIdentity(row, await sidecarFor(row.file));
+    problems.push(...decided.problems);
+    pending.push({ source: { file: row.file, relPath: row.relPath, ...kind, ...decided.identity }, line: row.line });
   }
   const listed = new Set((manifest?.rows ?? []).map((r) => r.realPath));
-  const manifestReal = options.manifest === null ? null : await realpath(options.manifest);
+  const manifestReal = manifestFile === null ? null : await realpath(manifestFile);
 
   const logsPerRoot = paths.map(() => 0);
   for (const f of walked.files) {
@@ -167,7 +95,7 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
       if (!listed.has(f.realPath)) {
         files.push(skippedFile(f.file, 'skipped'));
         problems.push(
-          problem('file-skipped', `log file not listed in the manifest ${options.manifest as string}; not read`, {
+          problem('file-skipped', `log file not listed in the manifest ${manifestFile as string}; not read`, {
             file: f.file,
           }),
         );
@@ -186,15 +114,9 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
       );
       continue;
     }
-    const fromPath = pathIdentity(f, fields ?? {}, layout);
-    let identity = fromPath.identity;
-    if (seedInFile !== null && identity.seed !== null)
-      identity = { ...identity, info: { seed: identity.seed, ...identity.info }, seed: null };
-    const merged = await withSidecar(f.file, identity, 'path');
-    const seedFrom: SeedOrigin = fromPath.seedFrom ?? (merged.seed !== null ? 'params' : null);
-    const configFrom: IdentitySource = layout !== null ? 'layout' : hivePairs(f.file).length > 0 ? 'hive' : 'none';
-    const source: IdentitySource = seedInFile ?? (seedFrom === 'hive' || seedFrom === 'layout' ? seedFrom : configFrom);
-    pending.push({ source: { file: f.file, relPath: f.relPath, ...kind, ...merged, identity: source } });
+    const decided = pathIdentity(f.file, fields ?? {}, mode, await sidecarFor(f.file));
+    problems.push(...decided.problems);
+    pending.push({ source: { file: f.file, relPath: f.relPath, ...kind, ...decided.identity } });
   }
   walked.roots.forEach((kind, k) => {
     if (kind !== 'repeated' && logsPerRoot[k] === 0) {
@@ -209,9 +131,9 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
 
   let auto = 0;
   const sources: RunSource[] = pending.map(({ source, line }) => {
-    if (source.seed !== null || seedInFile !== null) return source;
+    if (source.seed !== null || inFile !== null) return source;
     const seed = `auto-${++auto}`;
-    const where = line === undefined ? { file: source.file } : { file: options.manifest as string, line };
+    const where = line === undefined ? { file: source.file } : { file: manifestFile as string, line };
     problems.push(
       problem(
         'seed-missing',

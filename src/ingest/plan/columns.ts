@@ -11,11 +11,10 @@
  * - Per-tick columns: `name@k` with k a whole number; a long file has a `tick` column instead.
  * - Tick dump: a file with both `sample` and `tick` columns (tickDump.ts reads the rest).
  * - A column named `seed` is an identity column, never a metric.
- * - `--seed-columns` (seedColumns below): columns matching a pattern hold one seed each; of the
+ * - `--seed-columns` (the mode's patterns, readingMode.ts): columns matching a pattern hold one seed each; of the
  *   other columns (the step column aside) those that look like aggregates are ignored
  *   (`aggregate-columns-ignored`), the rest are listed as unmatched.
  */
-import { SeedsiftError } from '../../problems.js';
 import type { IngestOptions } from '../types.js';
 
 /** Step column names tried in this order (DESIGN "Inputs"). */
@@ -74,13 +73,6 @@ export interface ColumnPlan {
   readonly unmatched: readonly string[];
 }
 
-/** One `--seed-columns` pattern, compiled. */
-export interface SeedPattern {
-  readonly metric: string;
-  readonly text: string;
-  readonly regex: RegExp;
-}
-
 /**
  * Words of a column or metric name: split at every character that is not a letter or digit and
  * at lower-to-upper case changes, lower-cased. Pure. Example: `nameWords('valLoss_top1')` is `['val', 'loss', 'top1']`.
@@ -91,41 +83,6 @@ export function nameWords(name: string): string[] {
     .split(/[^A-Za-z0-9]+/)
     .filter((w) => w.length > 0)
     .map((w) => w.toLowerCase());
-}
-
-/**
- * Compile `--seed-columns`: a comma-separated list of `NAME:PATTERN` (NAME is the metric, PATTERN
- * matches whole column names, `{seed}` captures the seed, `*` matches any text). Without `NAME:`,
- * the metric is named by the pattern's text with `{seed}` and `*` removed and separators trimmed
- * (`val_acc_seed{seed}` gives `val_acc_seed`), or `value` when nothing is left.
- * Throws SeedsiftError('usage') when a pattern has no `{seed}` or more than one.
- * Example: `seedColumns('acc:seed_{seed}_*')[0].regex.exec('seed_3_final')[1]` is `'3'`.
- */
-export function seedColumns(option: string): SeedPattern[] {
-  return option.split(',').map((raw) => {
-    const part = raw.trim();
-    const colon = part.indexOf(':');
-    const text = colon >= 0 ? part.slice(colon + 1) : part;
-    const count = text.split('{seed}').length - 1;
-    if (count !== 1)
-      throw new SeedsiftError('usage', `--seed-columns: expected a pattern with one {seed} capture, got '${part}'`);
-    const derived = text
-      .replace('{seed}', '')
-      .replaceAll('*', '')
-      .replace(/^[^A-Za-z0-9]+|[^A-Za-z0-9]+$/g, '')
-      .replace(/[_\-. ]{2,}/g, '_');
-    const metric = colon >= 0 ? part.slice(0, colon).trim() : derived === '' ? 'value' : derived;
-    const source = text
-      .split('{seed}')
-      .map((piece) =>
-        piece
-          .split('*')
-          .map((lit) => lit.replace(/[.*+?^${}()|[\]\\]/g, '\\$&'))
-          .join('.*'),
-      )
-      .join('(.+?)');
-    return { metric, text, regex: new RegExp(`^${source}$`) };
-  });
 }
 
 /** Rename duplicates: `loss, loss` gives `loss, loss_2`. */
@@ -150,13 +107,9 @@ function uniqueNames(names: readonly string[]): { names: string[]; duplicated: s
 
 /**
  * Plan the columns of one file (see the module comment). Pure, O(columns x patterns).
- * Throws SeedsiftError('usage') for a malformed `--seed-columns` pattern.
  * Example: `planColumns(['step', 'loss', 'acc@0', 'acc@1'], opts).wideTicks.length` is 2.
  */
-export function planColumns(
-  rawNames: readonly string[],
-  options: Pick<IngestOptions, 'step' | 'seedColumn' | 'seedColumns'>,
-): ColumnPlan {
+export function planColumns(rawNames: readonly string[], options: Pick<IngestOptions, 'step' | 'mode'>): ColumnPlan {
   const { names, duplicated } = uniqueNames(rawNames);
   const find = (name: string): number | null => {
     const k = names.indexOf(name);
@@ -171,7 +124,8 @@ export function planColumns(
       if (step !== null) break;
     }
   }
-  const seed = options.seedColumn === null ? null : find(options.seedColumn);
+  const mode = options.mode;
+  const seed = mode.kind === 'seed-column' ? find(mode.column) : null;
   const tick = kind === 'log' ? find('tick') : null;
   const identity = new Set([step, seed, tick, find('seed')]);
   const scalars: number[] = [];
@@ -179,7 +133,7 @@ export function planColumns(
   const perSeed: SeedColumn[] = [];
   const aggregates: string[] = [];
   const unmatched: string[] = [];
-  const patterns = options.seedColumns === null ? null : seedColumns(options.seedColumns);
+  const patterns = mode.kind === 'seed-columns' ? mode.patterns : null;
   names.forEach((name, index) => {
     if (identity.has(index) || kind === 'tick-dump') return;
     if (patterns !== null) {

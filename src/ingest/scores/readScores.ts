@@ -23,9 +23,14 @@ import { fileFormat } from '../locate/fileFormat.js';
 import { loadFiles, type FileData } from '../load/loadFiles.js';
 import { readHeader } from '../plan/header.js';
 import { REJECTS_SCAN, REJECTS_TABLE, textSql } from '../load/query.js';
-import { draft, type Draft } from '../lines/drafts.js';
-import { configId, runId } from '../assemble/runs.js';
-import type { FileRecord, IngestOptions, Run, RunSource, Series } from '../types.js';
+import { draft, finishDrafts, type Draft } from '../lines/drafts.js';
+import { metricInfos } from '../plan/goals.js';
+import { configId, runId } from '../assemble/runIds.js';
+import type { ReadingMode } from '../readingMode.js';
+import type { FileRecord, IngestOptions, Run, RunSet, RunSource, Series } from '../types.js';
+
+/** The score-table reading mode. */
+type ScoresMode = Extract<ReadingMode, { kind: 'scores' }>;
 
 /** What a score table gives: keys, runs, its file record and problems (rows not yet lines). */
 export interface ScoreTable {
@@ -38,8 +43,8 @@ export interface ScoreTable {
 type Role = 'seed' | 'config' | 'metric' | 'unused';
 
 /** Role of each column (see the module comment). */
-function roles(data: FileData, options: Pick<IngestOptions, 'by' | 'seedColumn'>, plan: ColumnPlan): Role[] {
-  const seedName = options.seedColumn ?? 'seed';
+function roles(data: FileData, options: ScoresMode, plan: ColumnPlan): Role[] {
+  const seedName = options.seedColumn;
   for (const name of options.by ?? []) {
     if (!plan.names.includes(name))
       throw new SeedsiftError(
@@ -84,8 +89,12 @@ async function textColumns(engine: Engine, data: FileData, columns: readonly num
  * Cost: two DuckDB reads of the table. Example: a table `method,seed,acc` with rows `a,1,0.9` and
  * `b,1,0.8` gives runs `method=a,seed=1` and `method=b,seed=1`, each with acc at step 0.
  */
-export async function readScores(engine: Engine, options: IngestOptions): Promise<ScoreTable> {
-  const file = options.scores as string;
+export async function readScores(
+  engine: Engine,
+  mode: ScoresMode,
+  options: Pick<IngestOptions, 'columns'>,
+): Promise<ScoreTable> {
+  const file = mode.file;
   const kind = fileFormat(file);
   if (kind === null)
     throw new SeedsiftError(
@@ -120,7 +129,7 @@ export async function readScores(engine: Engine, options: IngestOptions): Promis
       files: [record(header.code === 'file-empty' ? 'skipped' : 'unreadable', 0, 0, [])],
       drafts: [draft(header.code, `score table: ${header.reason}`, { file })],
     };
-  const base = planColumns(header.header.names, { step: null, seedColumn: null, seedColumns: null });
+  const base = planColumns(header.header.names, { step: null, mode });
   const plan: ColumnPlan = {
     ...base,
     kind: 'log',
@@ -142,7 +151,7 @@ export async function readScores(engine: Engine, options: IngestOptions): Promis
       files: [record('unreadable', 0, 0, [])],
       drafts: [draft('file-unreadable', `score table: ${loaded.failed[0]?.reason ?? 'could not be read'}`, { file })],
     };
-  const role = roles(data, options, plan);
+  const role = roles(data, mode, plan);
   const at = (r: Role): number[] => role.flatMap((x, k) => (x === r ? [k] : []));
   const configCols = at('config');
   const seedCol = at('seed')[0];
@@ -156,7 +165,7 @@ export async function readScores(engine: Engine, options: IngestOptions): Promis
     drafts.push(
       draft(
         'column-not-numeric',
-        `score table column ${plan.names[k] as string} ${options.by === null ? 'is empty' : 'holds text and is not named by --by'}; not used`,
+        `score table column ${plan.names[k] as string} ${mode.by === null ? 'is empty' : 'holds text and is not named by --by'}; not used`,
         { file },
       ),
     );
@@ -230,4 +239,27 @@ export async function readScores(engine: Engine, options: IngestOptions): Promis
     ),
   ];
   return { keys, runs: out, files, drafts };
+}
+
+/**
+ * The RunSet of a score table: `readScores`, its drafts given lines, its metrics their goals.
+ * Throws what `readScores` throws. Example: the table of `readScores`'s example gives two runs and
+ * the metric `acc` (goal inferred: max).
+ */
+export async function scoreRunSet(
+  engine: Engine,
+  mode: ScoresMode,
+  options: Pick<IngestOptions, 'columns' | 'metricGoals'>,
+): Promise<RunSet> {
+  const table = await readScores(engine, mode, options);
+  const { metrics, problems } = metricInfos(table.runs, options);
+  return {
+    mode: 'scores',
+    keys: table.keys,
+    runs: table.runs,
+    metrics,
+    tickDumps: [],
+    files: table.files,
+    problems: [...(await finishDrafts(table.drafts)), ...problems],
+  };
 }

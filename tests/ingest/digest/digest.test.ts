@@ -9,7 +9,8 @@
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { readDigest } from '../../../src/ingest/digest/readDigest.js';
-import { DIGEST_KEY, writeDigest } from '../../../src/ingest/digest/writeDigest.js';
+import { DIGEST_KEY } from '../../../src/ingest/digest/digestFormat.js';
+import { writeDigest } from '../../../src/ingest/digest/writeDigest.js';
 import { closeEngine, openEngine, type Engine } from '../../../src/ingest/load/duckdb.js';
 import { ingest } from '../../../src/ingest/ingest.js';
 import type { RunSet } from '../../../src/ingest/types.js';

@@ -6,7 +6,7 @@ import { parse } from 'csv-parse/sync';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { planColumns } from '../../../src/ingest/plan/columns.js';
 import { closeEngine, openEngine, type Engine } from '../../../src/ingest/load/duckdb.js';
-import { columnsToRead, loadFiles, type FileData, type FileToRead } from '../../../src/ingest/load/loadFiles.js';
+import { loadFiles, type FileData, type FileToRead } from '../../../src/ingest/load/loadFiles.js';
 import { readHeader } from '../../../src/ingest/plan/header.js';
 import type { RunSource } from '../../../src/ingest/types.js';
 import { createRandom } from '../../../src/stats/random.js';
@@ -98,13 +98,6 @@ describe('loadFiles', () => {
     expect(loaded.data.map((d) => d.header.source.relPath)).toEqual(['a.csv.gz', 'c.csv.gz']);
     expect(loaded.failed.map((f) => f.header.source.relPath)).toEqual(['b.csv.gz']);
     expect(values(loaded.data[1], 1)).toEqual([0.125]);
-  });
-
-  it('columnsToRead: step, tick and metric columns of a log; every column of a dump but the seed', () => {
-    expect(columnsToRead(planColumns(['step', 'loss', 'acc@0', 'seed'], none))).toEqual([0, 1, 2]);
-    expect(columnsToRead(planColumns(['sample', 'tick', 'correct', 'run'], { ...none, seedColumn: 'run' }))).toEqual([
-      0, 1, 2,
-    ]);
   });
 });
 

@@ -1,8 +1,8 @@
 import { join, relative } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
 import { locate } from '../../../src/ingest/locate/locate.js';
-import type { IngestOptions } from '../../../src/ingest/types.js';
 import { SeedsiftError } from '../../../src/problems.js';
+import { none, opts } from '../../fixtures/ingest/tree.js';
 import { makeTree, removeTree, type Tree } from '../../fixtures/locate/tree.js';
 
 const made: string[] = [];
@@ -15,18 +15,6 @@ async function tree(t: Tree): Promise<string> {
   return root;
 }
 
-const none: IngestOptions = {
-  layout: null,
-  seedColumn: null,
-  seedColumns: null,
-  manifest: null,
-  step: null,
-  columns: null,
-  scores: null,
-  by: null,
-  metricGoals: {},
-};
-const opts = (o: Partial<IngestOptions>): IngestOptions => ({ ...none, ...o });
 const LOG = 'step,acc\n1,0.5\n';
 
 // Expected values: DESIGN.md "Inputs" (identity sources in order of preference, params.json,
@@ -144,9 +132,15 @@ describe('locate: --layout', () => {
     ]);
   });
 
-  it('throws a usage error for a malformed template', async () => {
-    const root = await tree({ 'a.csv': LOG });
-    await expect(locate([root], opts({ layout: '{model/{seed}.csv' }))).rejects.toMatchObject({ code: 'usage' });
+  it('throws a usage error for a malformed template (when the options are resolved, before locate)', () => {
+    let error: unknown = null;
+    try {
+      opts({ layout: '{model/{seed}.csv' });
+    } catch (e) {
+      error = e;
+    }
+    expect(error).toBeInstanceOf(SeedsiftError);
+    expect(error).toMatchObject({ code: 'usage' });
   });
 });
 
@@ -168,9 +162,8 @@ describe('locate: seed inside the file', () => {
     expect(sources.map((s) => [s.params, s.seed, s.identity])).toEqual([[{ model: 'ctm' }, null, 'seed-columns']]);
   });
 
-  it('rejects --seed-column together with --seed-columns', async () => {
-    const root = await tree({ 'a.csv': LOG });
-    await expect(locate([root], opts({ seedColumn: 'seed', seedColumns: '{seed}' }))).rejects.toThrow(SeedsiftError);
+  it('rejects --seed-column together with --seed-columns (when the options are resolved, before locate)', () => {
+    expect(() => opts({ seedColumn: 'seed', seedColumns: '{seed}' })).toThrow(SeedsiftError);
   });
 });
 
@@ -221,11 +214,8 @@ describe('locate: --manifest', () => {
     });
   });
 
-  it('rejects --manifest with --layout', async () => {
-    const root = await tree({ 'runs.csv': 'file,seed\n' });
-    await expect(locate([], opts({ manifest: join(root, 'runs.csv'), layout: '{seed}.csv' }))).rejects.toThrow(
-      /cannot be combined with --layout/,
-    );
+  it('rejects --manifest with --layout (when the options are resolved, before locate)', () => {
+    expect(() => opts({ manifest: 'runs.csv', layout: '{seed}.csv' })).toThrow(/cannot be combined with --layout/);
   });
 });
 

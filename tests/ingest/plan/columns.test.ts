@@ -1,10 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { nameWords, planColumns, seedColumns } from '../../../src/ingest/plan/columns.js';
-import { SeedsiftError } from '../../../src/problems.js';
+import { nameWords, planColumns } from '../../../src/ingest/plan/columns.js';
+import { none, opts } from '../../fixtures/ingest/tree.js';
 
 // Expected values: DESIGN.md "Inputs" (step column order, name@k tick columns, seed column,
 // --seed-columns with {seed} and *, aggregates ignored) and the problem table in src/problems.ts.
-const none = { step: null, seedColumn: null, seedColumns: null };
 
 describe('planColumns', () => {
   it('step column: the first of step, global_step, iteration, iter, epoch, timestep, frame present', () => {
@@ -41,17 +40,17 @@ describe('planColumns', () => {
   });
 
   it('--seed-column: found by name', () => {
-    expect(planColumns(['step', 'run_seed', 'acc'], { ...none, seedColumn: 'run_seed' })).toMatchObject({
+    expect(planColumns(['step', 'run_seed', 'acc'], opts({ seedColumn: 'run_seed' }))).toMatchObject({
       seed: 1,
       scalars: [2],
     });
   });
 
   it('--seed-columns: per-seed columns, aggregates ignored, others unused', () => {
-    const p = planColumns(['step', 'seed_1_acc', 'seed_2_acc', 'acc_mean', 'acc_std', 'lr'], {
-      ...none,
-      seedColumns: 'acc:seed_{seed}_*',
-    });
+    const p = planColumns(
+      ['step', 'seed_1_acc', 'seed_2_acc', 'acc_mean', 'acc_std', 'lr'],
+      opts({ seedColumns: 'acc:seed_{seed}_*' }),
+    );
     expect(p.perSeed).toEqual([
       { metric: 'acc', seed: '1', index: 1 },
       { metric: 'acc', seed: '2', index: 2 },
@@ -59,26 +58,6 @@ describe('planColumns', () => {
     expect(p.aggregates).toEqual(['acc_mean', 'acc_std']);
     expect(p.unmatched).toEqual(['lr']);
     expect(p.scalars).toEqual([]);
-  });
-});
-
-describe('seedColumns', () => {
-  it('{seed} captures lazily; * matches any text', () => {
-    const [p] = seedColumns('acc:seed_{seed}_*');
-    expect(p?.metric).toBe('acc');
-    expect(p?.regex.exec('seed_12_run_a')?.[1]).toBe('12');
-    expect(p?.regex.exec('xseed_1_a')).toBeNull(); // whole names only
-  });
-  it('several patterns, comma-separated; a pattern without NAME: is named from its text', () => {
-    const ps = seedColumns('acc:a{seed},val_loss_s{seed}');
-    expect(ps.map((p) => p.metric)).toEqual(['acc', 'val_loss_s']);
-  });
-  it('regex characters in the pattern are literal', () => {
-    expect(seedColumns('m:acc.{seed}')[0]?.regex.test('accX3')).toBe(false);
-  });
-  it('throws a usage error without exactly one {seed}', () => {
-    expect(() => seedColumns('acc:seed_*')).toThrow(SeedsiftError);
-    expect(() => seedColumns('acc:{seed}_{seed}')).toThrow(/one \{seed\} capture/);
   });
 });
 

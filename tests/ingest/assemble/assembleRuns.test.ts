@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { configId, configKeys, runId } from '../../../src/ingest/assemble/runs.js';
+import { configId, configKeys, runId } from '../../../src/ingest/assemble/runIds.js';
 import { ingestTree, runById, withCode } from '../../fixtures/ingest/tree.js';
 
 // Each case is a row of DESIGN.md "Messy logs" (policy, and "every case is reported"), checked
