@@ -198,6 +198,20 @@ describe('noncentralTCdf far from the centre (|ncp| > 2,000: the integral route)
 });
 
 describe('noncentralTNcpInterval', () => {
+  it('brackets limits far out (|t| 4e6 and 2e7: once a "could not bracket" error at |t| above 2e6)', () => {
+    // Definition of the limits: F(t; df, low) = (1 + level)/2 and F(t; df, high) = (1 - level)/2, with
+    // the CDF checked against mpmath far out above.
+    for (const [t, df, level] of [
+      [-4e6, 3, 0.99],
+      [2e7, 8, 0.95],
+    ] as const) {
+      const { low, high } = noncentralTNcpInterval(t, df, level);
+      expect(low).toBeLessThan(high);
+      expect(Math.abs(noncentralTCdf(t, df, low) - (1 + level) / 2)).toBeLessThan(1e-12);
+      expect(Math.abs(noncentralTCdf(t, df, high) - (1 - level) / 2)).toBeLessThan(1e-12);
+    }
+  });
+
   // METHODS.md's A vs B: pooled t = d sqrt(n1 n2 / (n1 + n2)) with d = 1.4535900564185282, n = 5 and 7.
   const scale = Math.sqrt(35 / 12);
   const t = 1.4535900564185282 * scale;
