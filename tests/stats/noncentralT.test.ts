@@ -157,21 +157,24 @@ describe('noncentralTCdf', () => {
 
 /**
  * [t, df, ncp, P(T <= t)] far from the centre, 40-digit mpmath integrals split at the step of the Phi
- * factor (tests/reference/noncentral_t_far_reference.py). 316227.75293206575 is scipy 1.10.1's
+ * factor (tests/reference/noncentral_t_far_reference.py). TC = 316227.75293206575 is scipy 1.10.1's
  * nct.ppf(1 - 5e-12, 2, 0), close to the critical t at df 2 for two-sided alpha 1e-11 (the exact one is
  * 316227.766...: 1 - 5e-12 is rounded in binary); the first five rows are the kind of power
  * computation at 2 v 2 that used to end in an internal error (series did not converge).
  */
+// Written as a string: biome's noPrecisionLoss flags 17-digit literals even where they are a double's
+// shortest form, as here. The expected values below are the script's 17 digits rounded to 16.
+const TC = Number('316227.75293206575');
 const FAR: readonly [number, number, number, number][] = [
-  [316227.75293206575, 2, 200000.0, 0.67032002384526548],
-  [316227.75293206575, 2, 300000.0, 0.40656962946261219],
-  [316227.75293206575, 2, 400000.0, 0.20189649126626501],
-  [316227.75293206575, 2, 600000.0, 0.027323714308722639],
-  [-316227.75293206575, 2, 300000.0, 0], // mpmath: 4.3e-19543251714
-  [2600.0, 10, 2500.0, 0.50896836397377538],
-  [-2500.0, 5, -2200.0, 0.43201177785513105],
-  [3000.0, 30, 2980.0, 0.48620041897550464],
-  [200000000.0, 2, 250000000.0, 0.20961138715109783],
+  [TC, 2, 200000.0, 0.6703200238452655],
+  [TC, 2, 300000.0, 0.4065696294626122],
+  [TC, 2, 400000.0, 0.201896491266265],
+  [TC, 2, 600000.0, 0.02732371430872264],
+  [-TC, 2, 300000.0, 0], // mpmath: 4.3e-19543251714
+  [2600.0, 10, 2500.0, 0.5089683639737754],
+  [-2500.0, 5, -2200.0, 0.4320117778551311],
+  [3000.0, 30, 2980.0, 0.4862004189755046],
+  [200000000.0, 2, 250000000.0, 0.2096113871510978],
   [50.0, 4, 2500.0, 0], // mpmath: 4.9e-2165
   [100000.0, 60, 99000.0, 0.5194291866621269],
 ];
