@@ -120,7 +120,7 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
       mark: { type: 'rule', color: REFERENCE_INK, strokeDash: [4, 4], strokeWidth: 1 },
       encoding: {
         x,
-        tooltip: [{ field: 'step', type: 'quantitative', title: 'common horizon (step)', format: STEP_FORMAT }],
+        tooltip: [{ field: 'step', type: 'quantitative', title: 'step compared at', format: STEP_FORMAT }],
       },
     });
   }
@@ -192,7 +192,7 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
         band === ''
           ? 'No band: too few seeds per step for an interval.'
           : `Band: ${band} of the mean across seeds, per step.`,
-        ...(horizon === null ? [] : [`Dashed line: the common horizon (step ${horizon}), where runs are compared.`]),
+        ...(horizon === null ? [] : [`Dashed line: step ${horizon}, where this metric's comparisons are made.`]),
       ],
       description: `Learning curves of ${metric} against step for ${curves.length} config${curves.length === 1 ? '' : 's'}: mean across seeds${band === '' ? '' : ` with a ${band} band`}, and ${runCount} single-seed lines.`,
     }),
