@@ -171,7 +171,7 @@ export const SUMMARY_KINDS: { readonly [K in SummaryKind]: SummaryKindEntry<K> }
           short: true,
         };
       }
-      const i = lastIndexAtOrBefore(s.steps, Math.min(spec.step, w.horizon));
+      const i = lastIndexAtOrBefore(s.steps, spec.step);
       if (i < 0)
         return {
           value: null,
