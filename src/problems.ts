@@ -149,7 +149,7 @@ export const PROBLEM_CODES = {
     severity: 'warning',
     means: 'A run stopped well before the other runs of its config (below 90% of their last step).',
     action:
-      'Check whether the run crashed; it is a failure of its arm (counted, compared with Fisher\'s exact test, and excluded or scored worst by --failed) and never moves any comparison\'s step.',
+      "Check whether the run crashed; it is a failure of its arm (counted, compared with Fisher's exact test, and excluded or scored worst by --failed) and never moves any comparison's step.",
   },
   'tick-dump-invalid': {
     severity: 'warning',

@@ -24,7 +24,13 @@ import type { Comparison } from './comparisonTypes.js';
 import type { Correction, FailedPolicy, FamilyScope } from './results.js';
 import type { RunOutcome } from './runValues.js';
 import { timeToEventDraft, type TimeToEventDraft } from './timeToEventDraft.js';
-import { simultaneousBounds, twoSampleDraft, type PowerCache, type TwoSampleDraft, type TwoSampleSettings } from './twoSample.js';
+import {
+  simultaneousBounds,
+  twoSampleDraft,
+  type PowerCache,
+  type TwoSampleDraft,
+  type TwoSampleSettings,
+} from './twoSample.js';
 import { adjustFamily, decideVerdict } from './verdict.js';
 
 export type { PowerCache } from './twoSample.js';
@@ -91,8 +97,14 @@ export function compareMetric(
   const niAdjusted: (number | null)[] = drafts.map(() => null);
   const size: number[] = drafts.map(() => 0);
   for (const members of families.values()) {
-    const adjusted = adjustFamily(members.map((i) => (drafts[i] as Draft).p), settings.correction);
-    const ni = adjustFamily(members.map((i) => (drafts[i] as Draft).values?.nonInferiorityP ?? null), settings.correction);
+    const adjusted = adjustFamily(
+      members.map((i) => (drafts[i] as Draft).p),
+      settings.correction,
+    );
+    const ni = adjustFamily(
+      members.map((i) => (drafts[i] as Draft).values?.nonInferiorityP ?? null),
+      settings.correction,
+    );
     const m = members.filter((i) => (drafts[i] as Draft).p !== null).length;
     members.forEach((i, k) => {
       pAdjusted[i] = adjusted[k] ?? null;
@@ -152,14 +164,18 @@ function finish(
     failedPolicy: s.failed,
     noValue: { baseline: d.base.noValue, candidate: d.cand.noValue },
     alpha: s.alpha,
-    p: v === null
-      ? { welch: null, permutation: null, mannWhitney: null }
-      : { welch: v.tests.welch.p, permutation: v.tests.permutation.p, mannWhitney: v.tests.mannWhitney.p },
+    p:
+      v === null
+        ? { welch: null, permutation: null, mannWhitney: null }
+        : { welch: v.tests.welch.p, permutation: v.tests.permutation.p, mannWhitney: v.tests.mannWhitney.p },
     zeroSpread: v?.zeroSpread ?? false,
     verdict,
     reasons: v?.reasons ?? d.time?.reasons ?? [],
   });
-  const difference = v === null ? (d.time as TimeToEventDraft).difference : { ...v.difference, simultaneous: simultaneousBounds(v, s.alpha, size) };
+  const difference =
+    v === null
+      ? (d.time as TimeToEventDraft).difference
+      : { ...v.difference, simultaneous: simultaneousBounds(v, s.alpha, size) };
   const stats = v === null;
   const comparison: Comparison = {
     metric: r.metric,
@@ -170,8 +186,12 @@ function finish(
     candidate: r.candidate,
     step: r.step,
     n: { baseline: d.base.values.length, candidate: d.cand.values.length },
-    mean: stats ? { baseline: null, candidate: null } : { baseline: mean(d.base.values), candidate: mean(d.cand.values) },
-    sd: stats ? { baseline: null, candidate: null } : { baseline: sdOrNull(d.base.values), candidate: sdOrNull(d.cand.values) },
+    mean: stats
+      ? { baseline: null, candidate: null }
+      : { baseline: mean(d.base.values), candidate: mean(d.cand.values) },
+    sd: stats
+      ? { baseline: null, candidate: null }
+      : { baseline: sdOrNull(d.base.values), candidate: sdOrNull(d.cand.values) },
     diverged: { baseline: d.base.diverged, candidate: d.cand.diverged },
     failures: d.arms.failures,
     difference,

@@ -47,8 +47,17 @@ export function summarizeSeries(series: Series, spec: SummarySpec, goal: Goal, w
   const n = steps.length;
   if (n === 0) return none('no finite value for this metric');
   const horizon = window.horizon;
-  if (horizon === null) return { value: values[n - 1] as number, loggedAt: steps[n - 1] as number, note: null, censored: false, short: false };
-  const entry = kindOf(spec) as { compute: (s: Series, spec: SummarySpec, g: Goal, w: { horizon: number; firstStep: number | null }) => SummaryValue };
+  if (horizon === null)
+    return {
+      value: values[n - 1] as number,
+      loggedAt: steps[n - 1] as number,
+      note: null,
+      censored: false,
+      short: false,
+    };
+  const entry = kindOf(spec) as {
+    compute: (s: Series, spec: SummarySpec, g: Goal, w: { horizon: number; firstStep: number | null }) => SummaryValue;
+  };
   if (spec.kind !== 'step' && lastIndexAtOrBefore(steps, horizon) < 0)
     return none(`no value logged at or before the comparison's step ${horizon}`);
   return entry.compute(series, spec, goal, { horizon, firstStep: window.firstStep });

@@ -21,7 +21,8 @@ export function parseSummary(text: string, option = '--summary'): SummarySpec {
   const arg = colon < 0 ? null : t.slice(colon + 1).trim();
   const entry = Object.hasOwn(SUMMARY_KINDS, kind) ? SUMMARY_KINDS[kind as SummaryKind] : undefined;
   const parsed = entry === undefined ? '' : (entry.parse as (a: string | null) => SummarySpec | string)(arg);
-  if (typeof parsed === 'string') throw new SeedsiftError('usage', `${option}: expected ${GRAMMAR}${parsed}, got '${text}'`);
+  if (typeof parsed === 'string')
+    throw new SeedsiftError('usage', `${option}: expected ${GRAMMAR}${parsed}, got '${text}'`);
   return parsed;
 }
 

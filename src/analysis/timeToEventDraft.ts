@@ -33,10 +33,15 @@ export function timeToEventDraft(base: Arm, cand: Arm, label: string, seed: numb
   const kmB = armSummary(b);
   const kmC = armSummary(c);
   const anyEvent = base.events.some((e) => e) || cand.events.some((e) => e);
-  if (!anyEvent) reasons.push('no run of either arm reached the value by the comparison\'s step: there is nothing to compare');
+  if (!anyEvent)
+    reasons.push("no run of either arm reached the value by the comparison's step: there is nothing to compare");
   const test = anyEvent ? attempt(() => logRank(c, b), 'the log-rank test', reasons) : null;
   const perm = anyEvent
-    ? attempt(() => logRankPermutation(c, b, createRandom(deriveSeed(seed, `logrank|${label}`))), 'the log-rank permutation test', reasons)
+    ? attempt(
+        () => logRankPermutation(c, b, createRandom(deriveSeed(seed, `logrank|${label}`))),
+        'the log-rank permutation test',
+        reasons,
+      )
     : null;
   const observed = test?.observed[0] ?? null;
   const expected = test?.expected[0] ?? null;

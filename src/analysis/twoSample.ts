@@ -98,7 +98,11 @@ export function twoSampleDraft(
   else if (flat) reasons.push('every run of both arms gave the same value: there is no difference to test');
 
   const w = few || flat ? null : attempt(() => welch(x, y, { level: s.level }), "Welch's test", reasons);
-  const perm = attempt(() => permutationTest(x, y, createRandom(deriveSeed(s.seed, label))), 'the permutation test', reasons);
+  const perm = attempt(
+    () => permutationTest(x, y, createRandom(deriveSeed(s.seed, label))),
+    'the permutation test',
+    reasons,
+  );
   const mw = attempt(() => mannWhitney(x, y), 'the Mann-Whitney test', reasons);
   const tests: Mutable<Comparison['tests']> = {
     welch: { statistic: w?.statistic ?? null, df: w?.df ?? null, p: finiteOrNull(w?.p) },
@@ -118,7 +122,9 @@ export function twoSampleDraft(
       reasons.push(
         `--paired: only ${paired.x.length} seed${paired.x.length === 1 ? '' : 's'} present in both arms; the paired tests need 2`,
       );
-    const pt = canPair ? attempt(() => pairedT(paired.x, paired.y, { level: s.level }), 'the paired t-test', reasons) : null;
+    const pt = canPair
+      ? attempt(() => pairedT(paired.x, paired.y, { level: s.level }), 'the paired t-test', reasons)
+      : null;
     const wx = canPair
       ? attempt(() => wilcoxonSignedRank(paired.x, paired.y), 'the Wilcoxon signed-rank test', reasons)
       : null;

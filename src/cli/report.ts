@@ -58,7 +58,10 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
     .option('--paired', 'pair runs by seed across configs (paired t, Wilcoxon signed-rank)')
     .option('--failed <policy>', 'failed runs (diverged or short): exclude | worst (default exclude)')
     .option('--diverged <policy>', 'the old name of --failed')
-    .option('--family <scope>', 'correction family: study (each metric and summary over all tasks) | task (default study)')
+    .option(
+      '--family <scope>',
+      'correction family: study (each metric and summary over all tasks) | task (default study)',
+    )
     .option('--interval <kind>', 'headline interval: welch | bca (default welch)')
     .option('--seed <n>', 'seed of every resampling (default 1)')
     .option('--fail-on <gate>', 'exit 1 when a comparison is worse | not-better')

@@ -41,7 +41,12 @@ const NAME_LIMIT = 200;
 
 const name = (text: string): string => escapeMarkdown(text, NAME_LIMIT);
 const CORRECTION_WORDS = { holm: 'Holm-adjusted', bh: 'Benjamini-Hochberg-adjusted', none: 'unadjusted' } as const;
-const PRIMARY = { welch: "Welch's t", 'paired-t': 'paired t', permutation: 'exact permutation, zero spread', 'log-rank': 'log-rank' } as const;
+const PRIMARY = {
+  welch: "Welch's t",
+  'paired-t': 'paired t',
+  permutation: 'exact permutation, zero spread',
+  'log-rank': 'log-rank',
+} as const;
 
 function row(cells: readonly string[]): string {
   return `| ${cells.join(' | ')} |`;
@@ -118,7 +123,10 @@ function groupTable(results: Results, g: ComparisonGroup): string[] {
     '',
     `Means: ${means.join('; ')}.`,
     ...(effects.length > 0
-      ? ['', `Effect sizes (candidate minus baseline, in the metric's own direction; P(candidate better) follows the goal): ${effects.join('; ')}.`]
+      ? [
+          '',
+          `Effect sizes (candidate minus baseline, in the metric's own direction; P(candidate better) follows the goal): ${effects.join('; ')}.`,
+        ]
       : []),
     ...(cautions.length > 0 ? ['', 'Cautions:', '', ...cautions] : []),
     '',

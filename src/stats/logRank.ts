@@ -30,7 +30,8 @@ interface Pooled {
 
 function pool(a: TimeToEvent, b: TimeToEvent): Pooled {
   const n = a.times.length + b.times.length;
-  if (a.times.length === 0 || b.times.length === 0) throw new RangeError('logRank requires at least 1 subject per group');
+  if (a.times.length === 0 || b.times.length === 0)
+    throw new RangeError('logRank requires at least 1 subject per group');
   if (a.events.length !== a.times.length || b.events.length !== b.times.length)
     throw new RangeError('logRank: times and events differ in length');
   const times = new Float64Array(n);

@@ -111,7 +111,7 @@ describe('analyze: each comparison at its own step', () => {
     expect(early[0]?.message).toContain('compared at step 0');
   });
 
-  it('step:N past some runs\' ends: those runs are short for that comparison, never their last value', () => {
+  it("step:N past some runs' ends: those runs are short for that comparison, never their last value", () => {
     const set = runSet(
       ['m'],
       [...runs({ m: 'base' }, [1000, 1000, 1000, 600], 0), ...runs({ m: 'new' }, [1000, 1000, 1000, 1000], 0.02)],

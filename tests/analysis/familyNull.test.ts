@@ -60,7 +60,8 @@ describe('the family over all tasks holds the family-wise error (null simulation
     const specs: RunSpec[] = [];
     for (let t = 0; t < TASKS; t++)
       for (const m of ['base', 'new'])
-        for (let s = 1; s <= SEEDS; s++) specs.push({ params: { task: `t${t}`, m }, seed: s, metrics: { acc: normal(random) } });
+        for (let s = 1; s <= SEEDS; s++)
+          specs.push({ params: { task: `t${t}`, m }, seed: s, metrics: { acc: normal(random) } });
     const set = runSet(['task', 'm'], specs, [{ name: 'acc', goal: 'max' }], 'scores');
     const study = analyze(set, resolveOptions({ baseline: 'm=base', taskKey: 'task' }), meta);
     expect(study.comparisons).toHaveLength(TASKS);

@@ -61,16 +61,7 @@ describe('metricValues', () => {
   });
 
   it('runs of configs outside every comparison are not used in tests', () => {
-    const r = metricValues(
-      set.runs,
-      'acc',
-      'max',
-      { kind: 'final' },
-      'final',
-      'exclude',
-      new Set(['m=b']),
-      'logs',
-    );
+    const r = metricValues(set.runs, 'acc', 'max', { kind: 'final' }, 'final', 'exclude', new Set(['m=b']), 'logs');
     expect(r.values[0]).toMatchObject({ value: 0.9, usedInTests: false });
   });
 });

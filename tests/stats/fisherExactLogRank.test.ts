@@ -22,9 +22,27 @@ describe('fisherExact (scipy 1.10.1 fisher_exact, two-sided)', () => {
 });
 
 const SIX_MP: [number, boolean][] = [
-  [6, true], [6, true], [6, true], [6, false], [7, true], [9, false], [10, true], [10, false], [11, false],
-  [13, true], [16, true], [17, false], [19, false], [20, false], [22, true], [23, true], [25, false],
-  [32, false], [32, false], [34, false], [35, false],
+  [6, true],
+  [6, true],
+  [6, true],
+  [6, false],
+  [7, true],
+  [9, false],
+  [10, true],
+  [10, false],
+  [11, false],
+  [13, true],
+  [16, true],
+  [17, false],
+  [19, false],
+  [20, false],
+  [22, true],
+  [23, true],
+  [25, false],
+  [32, false],
+  [32, false],
+  [34, false],
+  [35, false],
 ];
 const PLACEBO = [1, 1, 2, 2, 3, 4, 4, 5, 5, 8, 8, 8, 8, 11, 11, 12, 12, 15, 17, 22, 23];
 const sixMp = { times: SIX_MP.map(([t]) => t), events: SIX_MP.map(([, e]) => e) };

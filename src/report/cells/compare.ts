@@ -52,7 +52,10 @@ function quantities(r: Results, c: Comparison): [string, TableCell][] {
     ],
     ['Seeds (baseline v candidate)', formatSeeds(c, r.settings.failed)],
     ['Failed runs (Fisher exact test)', formatFailures(c)],
-    [`Difference, candidate minus baseline [${formatIntervalKind(c.difference)}, unadjusted]`, formatDifference(c.difference, d)],
+    [
+      `Difference, candidate minus baseline [${formatIntervalKind(c.difference)}, unadjusted]`,
+      formatDifference(c.difference, d),
+    ],
     [
       `Simultaneous bounds [${c.difference.simultaneous === null ? 'Bonferroni' : formatLevel(c.difference.simultaneous.level)}, family of ${c.family.size}]`,
       c.difference.simultaneous === null
@@ -61,7 +64,9 @@ function quantities(r: Results, c: Comparison): [string, TableCell][] {
     ],
     [
       `BCa bootstrap interval beside (from ${r.settings.bootstrapFrom} runs per arm; does not decide)`,
-      c.difference.bca === null ? null : `[${formatNumber(c.difference.bca.low, d)}, ${formatNumber(c.difference.bca.high, d)}]`,
+      c.difference.bca === null
+        ? null
+        : `[${formatNumber(c.difference.bca.low, d)}, ${formatNumber(c.difference.bca.high, d)}]`,
     ],
   ];
   if (c.timeToEvent !== null) {

@@ -5,7 +5,15 @@
  * comparison's caution lines and the caution that a test is evidence, not proof.
  */
 import type { Comparison, Results } from '../../analysis/results.js';
-import { comparisonDecimals, formatDifference, formatFailures, formatIntervalKind, formatNumber, formatP, formatSeeds } from '../format.js';
+import {
+  comparisonDecimals,
+  formatDifference,
+  formatFailures,
+  formatIntervalKind,
+  formatNumber,
+  formatP,
+  formatSeeds,
+} from '../format.js';
 import { listHtml, nameHtml, noteHtml, tableHtml, textHtml, type TableCell } from '../html.js';
 import {
   cautionScope,
