@@ -120,7 +120,9 @@ export const verdicts: Cell = {
       'Baseline',
       'Candidate',
       'Step',
-      t.interval === null ? 'Difference [interval, unadjusted]' : `Difference [${t.interval}, unadjusted]`,
+      {
+        html: `${textHtml(t.interval === null ? 'Difference [interval]' : `Difference [${t.interval}]`)}<br>${textHtml('unadjusted')}`,
+      },
       CORRECTION_HEAD[r.settings.correction],
       'Verdict',
       'Seeds',
