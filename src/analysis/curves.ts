@@ -22,8 +22,9 @@
  * (Float64Array) are allocated once per curve.
  */
 import type { Run, Series } from '../ingest/types.js';
-import { bootstrapMeanFromCounts, resampleCounts } from '../stats/bootstrap.js';
+import { bootstrapMeanFromCounts, resampleCounts } from '../stats/bootstrapMeanFromCounts.js';
 import { createRandom, deriveSeed, type Random } from '../stats/random.js';
+import { createTQuantileCache, type TQuantile } from '../stats/studentTQuantile.js';
 import { tInterval } from '../stats/tInterval.js';
 import { isDiverged } from './comparisonStep.js';
 import type { Curve, FailedPolicy, IntervalChoice, IntervalMethod } from './results.js';
@@ -208,13 +209,14 @@ function binBands(
   const high: (number | null)[] = [];
   const n: number[] = [];
   const bandByBin: IntervalMethod[] = [];
+  const quantile = createTQuantileCache().quantile; // bins of a curve share a few (level, df) pairs
   for (let b = 0; b < k; b++) {
     let m = 0;
     for (let j = 0; j < r; j++) {
       const v = matrix[j * k + b] as number;
       if (counted[j] === true && !Number.isNaN(v)) column[m++] = v;
     }
-    const band = binBand(column.subarray(0, m), settings, draws);
+    const band = binBand(column.subarray(0, m), settings, draws, quantile);
     mean.push(band.mean);
     low.push(band.low);
     high.push(band.high);
@@ -262,11 +264,16 @@ export function freshDraws(random: Random, resamples: number): Draws {
 export const BCA_BAND_FROM = 4;
 
 /** The band of one bin: the t-interval; under `--interval bca`, BCa bootstrap (resample counts from `draws`) from 4 runs. */
-export function binBand(x: Float64Array, settings: Pick<CurveSettings, 'level' | 'interval'>, draws: Draws): Band {
+export function binBand(
+  x: Float64Array,
+  settings: Pick<CurveSettings, 'level' | 'interval'>,
+  draws: Draws,
+  quantile?: TQuantile,
+): Band {
   const m = x.length;
   if (m === 0) return { mean: null, low: null, high: null, method: 'none' };
   if (m === 1) return { mean: x[0] as number, low: null, high: null, method: 'none' };
-  const t = tInterval(x, settings.level);
+  const t = tInterval(x, settings.level, quantile);
   if (settings.interval === 'bca' && m >= BCA_BAND_FROM) {
     try {
       const boot = bootstrapMeanFromCounts(x, draws(m), { method: 'bca', level: settings.level });

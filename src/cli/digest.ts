@@ -1,14 +1,14 @@
 /**
  * `seedsift digest PATH... --out FILE.parquet`: read the runs under PATH... (every reading option
  * applies) and save them, exactly, as one digest file; `report`, `scan` and `seeds` read digests
- * beside or instead of raw logs (src/ingest/digestWrite.ts, digestRead.ts). The digest is written
+ * beside or instead of raw logs (src/ingest/digest/writeDigest.ts, digest/readDigest.ts). The digest is written
  * to a temporary file beside FILE and renamed into place, and never over one of its inputs.
  */
 import { existsSync, realpathSync, renameSync, rmSync, statSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { Command } from 'commander';
 import { ingest } from '../ingest/ingest.js';
-import { writeDigest } from '../ingest/digestWrite.js';
+import { writeDigest } from '../ingest/digest/writeDigest.js';
 import { SeedsiftError } from '../problems.js';
 import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
 import { inputFiles } from './inputFiles.js';

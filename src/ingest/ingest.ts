@@ -2,11 +2,11 @@
  * The ingest stage: from the PATHs on the command line (or a score table) to a `RunSet`.
  *
  *   1. locate   find the files and what their paths say (config, seed)          locate.ts
- *   2. headers  read each file's column names; recognise the columns           loadHeader.ts, columns.ts
+ *   2. headers  read each file's column names; recognise the columns           plan/header.ts, columns.ts
  *   3. load     read the rows with DuckDB, one call per batch of same-shaped files   loadFiles.ts
  *   4. runs     split files into runs, apply the messy-log policies, build dumps     runs.ts
- *   5. report   metrics and goals, file records, problems with exact lines     goals.ts, loadRefs.ts
- *   6. digests  when digests were among the files (found in step 1 by their marker): read them   digestRead.ts
+ *   5. report   metrics and goals, file records, problems with exact lines     goals.ts, lines/drafts.ts
+ *   6. digests  when digests were among the files (found in step 1 by their marker): read them   digest/readDigest.ts
  *               and merge them with the runs read from logs                      mergeRunSets.ts
  *
  * One DuckDB instance per call (default threads), closed at the end whatever happens. A file
@@ -15,20 +15,20 @@
  */
 import { problem, type Problem } from '../problems.js';
 import type { ProgressHook } from '../progress.js';
-import { planColumns, type ColumnPlan } from './columns.js';
-import { findDigests, readDigest } from './digestRead.js';
-import { closeEngine, openEngine, type Engine } from './duckdb.js';
-import { metricGoal } from './goals.js';
-import { locate, type Located } from './locate.js';
-import { fileDrafts, headerDrift, notNumericDrafts } from './loadChecks.js';
-import { loadFiles, type FileData, type FileToRead } from './loadFiles.js';
-import { readHeader, type HeaderResult } from './loadHeader.js';
-import { mapPool } from './mapPool.js';
-import { draft, finishDrafts, type Draft } from './loadRefs.js';
-import { numericNames } from './loadRows.js';
-import { mergeRunSets, type RunSetPart } from './mergeRunSets.js';
-import { assembleRuns } from './runs.js';
-import { readScores } from './scores.js';
+import { planColumns, type ColumnPlan } from './plan/columns.js';
+import { findDigests, readDigest } from './digest/readDigest.js';
+import { closeEngine, openEngine, type Engine } from './load/duckdb.js';
+import { metricGoal } from './plan/goals.js';
+import { locate, type Located } from './locate/locate.js';
+import { fileDrafts, headerDrift, notNumericDrafts } from './load/checks.js';
+import { loadFiles, type FileData, type FileToRead } from './load/loadFiles.js';
+import { readHeader, type HeaderResult } from './plan/header.js';
+import { mapPool } from './plan/mapPool.js';
+import { draft, finishDrafts, type Draft } from './lines/drafts.js';
+import { numericNames } from './assemble/rows.js';
+import { mergeRunSets, type RunSetPart } from './digest/mergeRunSets.js';
+import { assembleRuns } from './assemble/runs.js';
+import { readScores } from './scores/readScores.js';
 import type { FileRecord, IngestOptions, MetricInfo, Run, RunSet, RunSource } from './types.js';
 
 /**
@@ -124,7 +124,7 @@ async function ingestScores(engine: Engine, options: IngestOptions): Promise<Run
 /**
  * Read every run under `paths` (or the `--scores` table) into a RunSet (see the module comment).
  * Throws SeedsiftError('usage' | 'input') only for what the user typed or supplied (from locate,
- * or options, or a digest that cannot be used: digestRead.ts, mergeRunSets.ts). Cost: dominated
+ * or options, or a digest that cannot be used: digest/readDigest.ts, mergeRunSets.ts). Cost: dominated
  * by DuckDB parsing the files (measured on a shared 2-core machine: 500 runs x 20,000 rows x 4
  * columns, 315 MB of CSV, in 5 to 9 s with a peak RSS of 0.6 to 0.7 GB);
  * memory about 8 bytes per number kept, plus one batch of DuckDB results.

@@ -1,7 +1,7 @@
 import { mkdir } from 'node:fs/promises';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import { closeEngine, openEngine } from '../../src/ingest/duckdb.js';
+import { closeEngine, openEngine } from '../../src/ingest/load/duckdb.js';
 import { ingest } from '../../src/ingest/ingest.js';
 import type { RunSet } from '../../src/ingest/types.js';
 import { gz, ingestTree, makeTree, none, opts, removeTree, runById, withCode } from '../fixtures/ingest/tree.js';

@@ -8,7 +8,7 @@
  * - the fields come from csv-parse (not DuckDB, which ingest uses), and every number from
  *   `parseFloat` on a cell that is a decimal number (a strict pattern below); the values ingest
  *   keeps must equal those exactly (`Object.is`: -0 and the last bit count);
- * - the messy-log policies (DESIGN.md "Messy logs", the module comments of src/ingest/messy.ts and
+ * - the messy-log policies (DESIGN.md "Messy logs", the module comments of src/ingest/assemble/messy.ts and
  *   runs.ts) are re-derived here from those fields: last row wins on a repeated step, steps sorted,
  *   empty / nan / inf / text cells missing and counted, a run diverged when its last values are
  *   non-finite, rows with an unusable step dropped and counted, malformed rows rejected with their lines;
