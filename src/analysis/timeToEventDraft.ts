@@ -14,7 +14,7 @@ import { createRandom, deriveSeed } from '../stats/random.js';
 import type { TimeToEvent } from '../stats/timeToEvent.js';
 import type { Arm } from './arms.js';
 import type { Difference, TimeToEventArm, TimeToEventResult } from './comparisonTypes.js';
-import { attempt, finiteOrNull } from './twoSample.js';
+import { attempt, finiteOrNull } from './attempt.js';
 
 export interface TimeToEventDraft {
   readonly result: TimeToEventResult;

@@ -32,6 +32,7 @@ import { createRandom, deriveSeed } from '../stats/random.js';
 import { welch, welchNonInferiority } from '../stats/welch.js';
 import { wilcoxonSignedRank } from '../stats/wilcoxon.js';
 import type { Arm } from './arms.js';
+import { attempt, finiteOrNull } from './attempt.js';
 import { formatNumber } from './cautions.js';
 import type { Comparison, Difference } from './comparisonTypes.js';
 import type { IntervalChoice } from './results.js';
@@ -287,19 +288,4 @@ function pairedArms(base: Arm, cand: Arm): { x: Float64Array; y: Float64Array } 
     }
   });
   return { x: Float64Array.from(x), y: Float64Array.from(y) };
-}
-
-/** Run a statistic; on a RangeError (input it cannot use) record why and give null. */
-export function attempt<T>(f: () => T, what: string, reasons: string[]): T | null {
-  try {
-    return f();
-  } catch (error) {
-    if (!(error instanceof RangeError)) throw error;
-    reasons.push(`${what} could not run: ${error.message}`);
-    return null;
-  }
-}
-
-export function finiteOrNull(v: number | null | undefined): number | null {
-  return v === null || v === undefined || !Number.isFinite(v) ? null : v;
 }
