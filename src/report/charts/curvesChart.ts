@@ -26,7 +26,7 @@ export const SEED_LINE_POINTS = 200;
  * `bandByBin` when present, else `band`; each bin's method also in the tooltip) where either end is
  * null, and each seed's line (`Curve.runs`) where its value is null. Hover points on the mean
  * carry tooltips (step, mean, interval, runs in the bin). A dashed vertical rule marks the metric's
- * common horizon (`MetricRecord.horizon`), where the runs are compared. A layer with nothing to
+ * step where the metric's comparisons are made (`MetricRecord.horizon`, when they share one). A layer with nothing to
  * draw is left out.
  * Clicking a config in the legend fades the others (`withLegendToggle`).
  * Data is stored compactly: one row per run (seed lines) or per config (mean and band) holding
