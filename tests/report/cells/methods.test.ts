@@ -59,7 +59,9 @@ describe('{{methods}}', () => {
 
   it('describes each summary kind of DESIGN.md (from the summary kinds table, through Results)', () => {
     const words = (t: string): string => describeSummary(parseSummary(t));
-    expect(words('last:10%')).toBe("the mean of the values logged in the last 10% of the steps up to the comparison's step");
+    expect(words('last:10%')).toBe(
+      "the mean of the values logged in the last 10% of the steps up to the comparison's step",
+    );
     expect(words('reach:0.9')).toContain('first reaches 0.9');
     expect(words('reach:0.9')).toContain('log-rank');
     expect(words('step:5000')).toContain('step 5000');
