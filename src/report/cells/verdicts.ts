@@ -10,6 +10,7 @@ import {
   formatDifference,
   formatFailures,
   formatIntervalKind,
+  formatLevel,
   formatNumber,
   formatP,
   formatSeeds,
@@ -135,7 +136,7 @@ export const verdicts: Cell = {
       numeric: [3 + offset, 4 + offset, 5 + offset],
       rowClasses: t.classes,
     });
-    const lead = `Candidate minus baseline on per-run values, each comparison at its own step; verdict at alpha ${r.settings.alpha} on the adjusted p of the test named under it. The interval is unadjusted (${r.settings.level * 100}%): the verdict, not the interval, accounts for the family.`;
+    const lead = `Candidate minus baseline on per-run values, each comparison at its own step; verdict at alpha ${r.settings.alpha} on the adjusted p of the test named under it. The interval is unadjusted (${formatLevel(r.settings.level)}): the verdict, not the interval, accounts for the family.`;
     return `<div class="verdicts-cell">${noteHtml(lead, 'lead')}${table}${listHtml(t.cautions)}${noteHtml(standardCaution(r.settings.alpha), 'caution')}</div>`;
   },
 };
