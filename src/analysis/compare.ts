@@ -176,7 +176,7 @@ function finish(
     v === null
       ? (d.time as TimeToEventDraft).difference
       : { ...v.difference, simultaneous: simultaneousBounds(v, s.alpha, size) };
-  const stats = v === null;
+  const timeToEvent = v === null;
   const comparison: Comparison = {
     metric: r.metric,
     goal: r.goal,
@@ -186,10 +186,10 @@ function finish(
     candidate: r.candidate,
     step: r.step,
     n: { baseline: d.base.values.length, candidate: d.cand.values.length },
-    mean: stats
+    mean: timeToEvent
       ? { baseline: null, candidate: null }
       : { baseline: mean(d.base.values), candidate: mean(d.cand.values) },
-    sd: stats
+    sd: timeToEvent
       ? { baseline: null, candidate: null }
       : { baseline: sdOrNull(d.base.values), candidate: sdOrNull(d.cand.values) },
     diverged: { baseline: d.base.diverged, candidate: d.cand.diverged },
