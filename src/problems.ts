@@ -148,7 +148,8 @@ export const PROBLEM_CODES = {
   'run-short': {
     severity: 'warning',
     means: 'A run stopped well before the other runs of its config (below 90% of their last step).',
-    action: 'Check whether the run crashed; comparisons use the common horizon of the runs compared.',
+    action:
+      "Check whether the run crashed; it is a failure of its arm (counted, compared with Fisher's exact test, and excluded or scored worst by --failed) and never moves any comparison's step.",
   },
   'tick-dump-invalid': {
     severity: 'warning',
@@ -189,6 +190,29 @@ export const PROBLEM_CODES = {
     severity: 'note',
     means: 'The two arms of a comparison have different numbers of seeds.',
     action: 'Nothing; Welch does not assume equal sizes.',
+  },
+  'step-early': {
+    severity: 'warning',
+    means:
+      "A comparison is made at a step well before the end of some of its runs (below 90% of the longest non-failed run of the two arms), because every run of one arm stops early; only this comparison's step is set by them.",
+    action: 'Check why those runs stop early; the verdict answers a question about that early step.',
+  },
+  'value-stale': {
+    severity: 'note',
+    means:
+      "A run's value for a comparison was logged more than one of its typical logging intervals before the comparison's step.",
+    action: 'Nothing, if the metric is logged rarely; otherwise check for a gap in the log.',
+  },
+  'step-beyond-run': {
+    severity: 'warning',
+    means: 'For --summary step:N, a run ends before step N: it has no value and is short for that comparison.',
+    action: 'Choose a step every run reached, or read the failure counts beside the verdict.',
+  },
+  'zero-spread': {
+    severity: 'warning',
+    means:
+      "Every run of both arms gave the same value within its arm, and the arms differ: Welch's test is undefined, so the exact permutation test decides.",
+    action: 'Check that the metric varies between seeds at all (a constant, a saturated score, a copied log).',
   },
   'tests-disagree': {
     severity: 'note',

@@ -8,7 +8,7 @@
 import type { RunSet } from '../ingest/types.js';
 import { SeedsiftError } from '../problems.js';
 import { inventory } from './inventory.js';
-import type { Correction, DivergedPolicy, FailOn, SummarySpec } from './results.js';
+import type { Correction, FailedPolicy, FailOn, FamilyScope, IntervalChoice, SummarySpec } from './results.js';
 import { checkSelector, parseSelector, type Selector } from './selectors.js';
 import { parseSummary } from './summarySpec.js';
 
@@ -24,7 +24,11 @@ export interface ReportOptions {
   readonly taskKey?: string | null | undefined;
   readonly margin?: Raw | null;
   readonly paired?: boolean | string | undefined;
+  readonly failed?: string | undefined;
+  /** The old name of `failed` (`--diverged exclude|worst`), still accepted. */
   readonly diverged?: string | undefined;
+  readonly family?: string | undefined;
+  readonly interval?: string | undefined;
   readonly failOn?: string | null | undefined;
   readonly level?: Raw;
   readonly resamples?: Raw;
@@ -48,9 +52,14 @@ export interface ResolvedOptions {
   readonly taskKey: string | null;
   readonly margin: number | null;
   readonly paired: boolean;
-  readonly diverged: DivergedPolicy;
+  /** Failed runs (diverged or short): left out, or scored worst. */
+  readonly failed: FailedPolicy;
   readonly failOn: FailOn | null;
-  /** Confidence level of every interval. */
+  /** The family of each correction: one metric and summary over all tasks, or each task. */
+  readonly family: FamilyScope;
+  /** The headline interval: Welch's t at every n, or BCa bootstrap. */
+  readonly interval: IntervalChoice;
+  /** Confidence level of every interval (1 - alpha unless given: the intervals are unadjusted). */
   readonly level: number;
   /** Bootstrap resamples for intervals that decide something. */
   readonly resamples: number;
@@ -58,7 +67,7 @@ export interface ResolvedOptions {
   readonly bandResamples: number;
   /** Most bins of the shared step grid of learning curves. */
   readonly bins: number;
-  /** Runs per arm (or per curve bin) from which intervals switch from t to BCa bootstrap. */
+  /** Runs per arm from which the BCa interval of a difference is shown beside Welch's. */
   readonly bootstrapFrom: number;
   /** Certainty thresholds of the halting trade-off curve. */
   readonly haltingThresholds: readonly number[];
@@ -78,13 +87,16 @@ export const DEFAULT_OPTIONS = {
   taskKey: null,
   margin: null,
   paired: false,
-  diverged: 'exclude',
+  failed: 'exclude',
   failOn: null,
-  level: 0.95,
+  family: 'study',
+  interval: 'welch',
+  /** null: 1 - alpha. */
+  level: null,
   resamples: 10000,
   bandResamples: 2000,
   bins: 400,
-  bootstrapFrom: 20,
+  bootstrapFrom: 10,
   haltingThresholds: [
     0.05, 0.1, 0.15, 0.2, 0.25, 0.3, 0.35, 0.4, 0.45, 0.5, 0.55, 0.6, 0.65, 0.7, 0.75, 0.8, 0.85, 0.9, 0.95, 0.99,
   ],
@@ -106,8 +118,9 @@ export function resolveOptions(input: ReportOptions, runSet?: RunSet): ResolvedO
   const taskKey = blankToNull(input.taskKey) ?? d.taskKey;
   const baselineText = blankToNull(input.baseline) ?? d.baseline;
   const baseline = baselineText === null ? null : parseSelector(baselineText);
+  const alpha = numberIn('--alpha', input.alpha ?? d.alpha, 0, 1, 'open');
   const resolved: ResolvedOptions = {
-    alpha: numberIn('--alpha', input.alpha ?? d.alpha, 0, 1, 'open'),
+    alpha,
     seed: integerIn('--seed', input.seed ?? d.seed, -(2 ** 31), 2 ** 32 - 1),
     correction: oneOf('--correction', input.correction ?? d.correction, ['holm', 'bh', 'none'] as const),
     summary,
@@ -119,12 +132,17 @@ export function resolveOptions(input: ReportOptions, runSet?: RunSet): ResolvedO
         ? d.margin
         : numberIn('--margin', input.margin, 0, Infinity, 'closed-low'),
     paired: booleanOf('--paired', input.paired ?? d.paired),
-    diverged: oneOf('--diverged', input.diverged ?? d.diverged, ['exclude', 'worst'] as const),
+    failed:
+      input.failed === undefined && input.diverged !== undefined
+        ? oneOf('--diverged', input.diverged, ['exclude', 'worst'] as const)
+        : oneOf('--failed', input.failed ?? d.failed, ['exclude', 'worst'] as const),
+    family: oneOf('--family', input.family ?? d.family, ['study', 'task'] as const),
+    interval: oneOf('--interval', input.interval ?? d.interval, ['welch', 'bca'] as const),
     failOn:
       blankToNull(input.failOn) === null
         ? d.failOn
         : oneOf('--fail-on', input.failOn as string, ['worse', 'not-better'] as const),
-    level: numberIn('--level', input.level ?? d.level, 0, 1, 'open'),
+    level: input.level === undefined ? 1 - alpha : numberIn('--level', input.level, 0, 1, 'open'),
     resamples: integerIn('--resamples', input.resamples ?? d.resamples, 100, 10_000_000),
     bandResamples: integerIn('--band-resamples', input.bandResamples ?? d.bandResamples, 100, 10_000_000),
     bins: integerIn('--bins', input.bins ?? d.bins, 1, 100_000),

@@ -34,6 +34,9 @@ interface RawReportOptions extends RawIngestOptions {
   margin?: string;
   paired?: boolean;
   diverged?: string;
+  failed?: string;
+  family?: string;
+  interval?: string;
   seed?: string;
   failOn?: string;
   quiet?: boolean;
@@ -54,7 +57,13 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
     .option('--correction <c>', 'multiple comparisons: holm | bh | none (default holm)')
     .option('--margin <m>', 'non-inferiority margin in metric units (one-sided Welch)')
     .option('--paired', 'pair runs by seed across configs (paired t, Wilcoxon signed-rank)')
-    .option('--diverged <policy>', 'diverged runs: exclude | worst (default exclude)')
+    .option('--failed <policy>', 'failed runs (diverged or short): exclude | worst (default exclude)')
+    .option('--diverged <policy>', 'the old name of --failed')
+    .option(
+      '--family <scope>',
+      'correction family: study (each metric and summary over all tasks) | task (default study)',
+    )
+    .option('--interval <kind>', 'headline interval: welch | bca (default welch)')
     .option('--seed <n>', 'seed of every resampling (default 1)')
     .option('--fail-on <gate>', 'exit 1 when a comparison is worse | not-better')
     .option('--quiet', 'print nothing but errors');
@@ -166,7 +175,10 @@ function mergeReport(front: NotebookOptions, raw: RawReportOptions): ReportOptio
     taskKey: raw.taskKey ?? front.taskKey ?? null,
     margin: raw.margin ?? front.margin ?? null,
     paired: raw.paired ?? front.paired,
+    failed: raw.failed ?? (raw.diverged === undefined ? front.failed : undefined),
     diverged: raw.diverged ?? front.diverged,
+    family: raw.family ?? front.family,
+    interval: raw.interval ?? front.interval,
     failOn: raw.failOn ?? front.failOn ?? null,
     level: front.level,
     resamples: front.resamples,

@@ -28,6 +28,9 @@ export interface NotebookOptions {
   readonly paired?: boolean | string;
   readonly seed?: number | string;
   readonly diverged?: string;
+  readonly failed?: string;
+  readonly family?: string;
+  readonly interval?: string;
   readonly taskKey?: string;
   readonly failOn?: string;
   readonly level?: number | string;
@@ -75,6 +78,9 @@ const KEYS: Readonly<Record<string, readonly [keyof NotebookOptions, Kind]>> = {
   paired: ['paired', 'boolean'],
   seed: ['seed', 'number'],
   diverged: ['diverged', 'text'],
+  failed: ['failed', 'text'],
+  family: ['family', 'text'],
+  interval: ['interval', 'text'],
   'task-key': ['taskKey', 'text'],
   'fail-on': ['failOn', 'text'],
   level: ['level', 'number'],
