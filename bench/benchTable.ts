@@ -48,7 +48,10 @@ export function summarize(samples: readonly Sample[]): { wall: number; cpu: numb
 /** Left-aligned first column, right-aligned others, two spaces between columns. */
 export function formatColumns(rows: readonly (readonly string[])[], leftColumns = 1): string {
   const widths: number[] = [];
-  for (const row of rows) row.forEach((cell, i) => (widths[i] = Math.max(widths[i] ?? 0, cell.length)));
+  for (const row of rows)
+    row.forEach((cell, i) => {
+      widths[i] = Math.max(widths[i] ?? 0, cell.length);
+    });
   return rows
     .map((row) =>
       row

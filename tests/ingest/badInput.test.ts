@@ -418,7 +418,9 @@ describe('values of the cases that must read cleanly (checked against the fixtur
       .map((line) => parseFloat(line.split(',')[1] as string));
     const [, values] = pairs(await series(join(BAD, 'long-numbers')), 'seed=1', 'loss');
     expect(values.length).toBe(expected.length);
-    values.forEach((v, k) => expect(Object.is(v, expected[k]), `row ${k + 1}: ${v} vs ${expected[k]}`).toBe(true));
+    values.forEach((v, k) => {
+      expect(Object.is(v, expected[k]), `row ${k + 1}: ${v} vs ${expected[k]}`).toBe(true);
+    });
   });
 
   it('a BOM does not hide the step column; CRLF and CR line ends give the same rows', async () => {

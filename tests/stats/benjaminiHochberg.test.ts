@@ -5,9 +5,9 @@ import { holm } from '../../src/stats/holm.js';
 
 function expectAllRelative(actual: number[], expected: number[], tolerance = 1e-10): void {
   expect(actual.length).toBe(expected.length);
-  actual.forEach((a, i) =>
-    expect(Math.abs(a - (expected[i] as number))).toBeLessThanOrEqual(tolerance * Math.abs(expected[i] as number)),
-  );
+  actual.forEach((a, i) => {
+    expect(Math.abs(a - (expected[i] as number))).toBeLessThanOrEqual(tolerance * Math.abs(expected[i] as number));
+  });
 }
 
 // Benjamini & Hochberg (1995), JRSS B 57:289-300, section 4.1: the 15 p-values of their example.

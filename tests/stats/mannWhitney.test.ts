@@ -101,11 +101,14 @@ describe('mannWhitney: against brute-force enumeration of every split', () => {
     const counts = new Array<number>(13).fill(0);
     for (const chosen of combinations(7, 4)) {
       const y = [0, 1, 2, 3, 4, 5, 6].filter((i) => !chosen.includes(i));
-      counts[uByDefinition(chosen, y)]! += 1;
+      const u = uByDefinition(chosen, y);
+      counts[u] = (counts[u] as number) + 1;
     }
     const dist = exactUDistribution(4, 3);
     expect(dist.length).toBe(13);
-    counts.forEach((c, u) => expect(dist[u]).toBeCloseTo(c / 35, 15));
+    counts.forEach((c, u) => {
+      expect(dist[u]).toBeCloseTo(c / 35, 15);
+    });
   });
 
   it('smallest two-sided p: 3 v 3 is 0.1, 4 v 4 is 2/70 = .0286, 5 v 5 is 2/252 = .0079 (METHODS.md)', () => {

@@ -194,7 +194,9 @@ export async function writeDigest(runSet: RunSet, file: string): Promise<void> {
     connection.registerTableFunction(
       DuckDBTableFunction.create({
         name: 'seedsift_digest_rows',
-        bindFunction: (bind) => TABLE_COLUMNS.forEach(([name, type]) => bind.addResultColumn(name, type)),
+        bindFunction: (bind) => {
+          for (const [name, type] of TABLE_COLUMNS) bind.addResultColumn(name, type);
+        },
         // One thread: the rows must reach the file in the order they are made.
         initFunction: (init) => init.setMaxThreads(1),
         mainFunction: (_, chunk) => rows.fill(chunk),

@@ -146,7 +146,9 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
   const seen = new Set<string>();
   const unique = problems.filter((p) => {
     const key = JSON.stringify([p.code, p.file, p.line, p.message]);
-    return seen.has(key) ? false : (seen.add(key), true);
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
   });
   return { sources, files, problems: unique };
 }

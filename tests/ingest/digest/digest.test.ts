@@ -141,7 +141,9 @@ describe('a digest keeps a RunSet exactly', () => {
         ]),
     );
     expect(rows.map((r) => r.slice(0, 5))).toEqual(expected.map((r) => r.slice(0, 5)));
-    rows.forEach((r, k) => expect(r[5] as number).toBeCloseTo(expected[k]?.[5] as number, 9));
+    rows.forEach((r, k) => {
+      expect(r[5] as number).toBeCloseTo(expected[k]?.[5] as number, 9);
+    });
     // kind 2: tick k of a tick metric; kinds 3-5: dump correct/certainty/confidence.
     const ticks = set.runs.reduce(
       (n, r) => n + Object.values(r.tickMetrics).reduce((m, t) => m + t.steps.length * t.values.length, 0),
