@@ -139,7 +139,8 @@ export function ratioTable(results: readonly SizeResult[]): string {
       html === null ? '-' : `${html.peakMiB - own.peak >= 0 ? '+' : ''}${mib(html.peakMiB - own.peak)}`,
       a === null
         ? '-'
-        : `${a.matched} matched, ${a.unmatched} not; max |diff gap| ${a.maxDifferenceGap.toExponential(1)}, max |Welch p gap| ${a.maxWelchPGap.toExponential(1)} (${a.welchUndefined} without a Welch p on one side)`,
+        : `${a.matched} matched, ${a.unmatched} not; max |diff gap| ${a.maxDifferenceGap.toExponential(1)}, ` +
+          `max |Welch p gap| ${a.maxWelchPGap.toExponential(1)} (${a.welchUndefined} without a Welch p on one side)`,
     ]);
   }
   return formatColumns(rows, 1);

@@ -30,7 +30,9 @@ export interface PermutationResult {
   readonly splits: number;
   /** mean(x) - mean(y). */
   readonly statistic: number;
-  /** Splits at least as extreme as the observed one (exact: including the observed split itself; Monte Carlo: b of M). */
+  /**
+   * Splits at least as extreme as the observed one (exact: including the observed split itself; Monte Carlo: b of M).
+   */
   readonly atLeast: number;
 }
 

@@ -16,10 +16,14 @@ const BH_1995 = Object.freeze([
 ]);
 
 describe('benjaminiHochberg', () => {
-  it('adjusts [.01, .04, .03, .005, .2, .03] to [.03, .048, .045, .03, .2, .045] (METHODS.md; statsmodels 0.13.5 multipletests fdr_bh agrees)', () => {
-    const p = Object.freeze([0.01, 0.04, 0.03, 0.005, 0.2, 0.03]);
-    expectAllRelative(benjaminiHochberg(p), [0.03, 0.048, 0.045, 0.03, 0.2, 0.045]);
-  });
+  it(
+    'adjusts [.01, .04, .03, .005, .2, .03] to [.03, .048, .045, .03, .2, .045] (METHODS.md; statsmodels 0.13.5 ' +
+      'multipletests fdr_bh agrees)',
+    () => {
+      const p = Object.freeze([0.01, 0.04, 0.03, 0.005, 0.2, 0.03]);
+      expectAllRelative(benjaminiHochberg(p), [0.03, 0.048, 0.045, 0.03, 0.2, 0.045]);
+    },
+  );
 
   it('rejects 4 of the 15 Benjamini & Hochberg (1995) p-values at .05, as in their paper', () => {
     const q = benjaminiHochberg(BH_1995);

@@ -162,7 +162,8 @@ export function runRows(parts: readonly Part[], numeric: ReadonlySet<string>): {
       drafts.push(
         draft(
           'step-invalid',
-          `${refs.length} row(s) have a ${stepName} cell that is empty, not a number or not finite; those rows were dropped${refs.length > LISTED_ROWS ? `; the first ${LISTED_ROWS}` : ''}`,
+          `${refs.length} row(s) have a ${stepName} cell that is empty, not a number or not finite; those rows were ` +
+            `dropped${refs.length > LISTED_ROWS ? `; the first ${LISTED_ROWS}` : ''}`,
           { file: data.header.source.file, rows: refs.slice(0, LISTED_ROWS) },
         ),
       );

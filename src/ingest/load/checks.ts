@@ -58,7 +58,8 @@ export function fileDrafts(data: FileData): Draft[] {
     drafts.push(
       draft(
         'column-duplicated',
-        `duplicate column name(s) ${data.plan.duplicated.join(', ')}; the later ones were renamed with a suffix (_2, _3, ...)`,
+        `duplicate column name(s) ${data.plan.duplicated.join(', ')}; the later ones were renamed with a suffix ` +
+          `(_2, _3, ...)`,
         { file },
       ),
     );
@@ -128,7 +129,8 @@ export function headerDrift(items: readonly FileToRead[]): Draft[] {
         .join('; ');
       return draft(
         'header-drift',
-        `${g.files.length} file(s) have other columns than the ${main.files.length} file(s) like ${main.files[0] as string} (${diff}); columns were matched by name`,
+        `${g.files.length} file(s) have other columns than the ${main.files.length} file(s) like ` +
+          `${main.files[0] as string} (${diff}); columns were matched by name`,
         { file: g.files[0] as string },
       );
     });

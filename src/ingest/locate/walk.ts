@@ -215,7 +215,8 @@ export async function walk(roots: readonly string[]): Promise<WalkResult> {
       problems.push(
         problem(
           'file-skipped',
-          `symbolic link loop: it points back to a folder that contains it (${searched.get(real) ?? real}); not followed`,
+          'symbolic link loop: it points back to a folder that contains it ' +
+            `(${searched.get(real) ?? real}); not followed`,
           { file: link.file },
         ),
       );

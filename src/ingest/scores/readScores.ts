@@ -165,7 +165,8 @@ export async function readScores(
     drafts.push(
       draft(
         'column-not-numeric',
-        `score table column ${plan.names[k] as string} ${mode.by === null ? 'is empty' : 'holds text and is not named by --by'}; not used`,
+        `score table column ${plan.names[k] as string} ` +
+          `${mode.by === null ? 'is empty' : 'holds text and is not named by --by'}; not used`,
         { file },
       ),
     );
