@@ -350,8 +350,10 @@ function main(argv: readonly string[]): void {
     }
     console.log(table(['n', 'scenario', 'Welch t', 'permutation', 'Mann-Whitney', 'bootstrap CI excludes 0'], rows));
     console.log(
-      `(permutation: exact while C(2n, n) <= 200,000, so up to n = 10; Monte Carlo with ${opts.permutationResamples} relabelings above. ` +
-        'Mann-Whitney: exact distribution, the data have no ties. Bootstrap: percentile interval of the difference, resampling within arms.)\n',
+      `(permutation: exact while C(2n, n) <= 200,000, so up to n = 10; Monte Carlo with ` +
+        `${opts.permutationResamples} relabelings above. ` +
+        'Mann-Whitney: exact distribution, the data have no ties. Bootstrap: percentile interval of the difference, ' +
+        'resampling within arms.)\n',
     );
   }
 
@@ -397,13 +399,15 @@ function main(argv: readonly string[]): void {
 
 function printNote(comparisons: readonly Comparison[], opts: SimulationOptions): void {
   console.log(
-    `Comparison with METHODS.md's table (${METHODS_REPS.toLocaleString('en')} replications, B = 2,000): ${comparisons.length} cells in common.`,
+    `Comparison with METHODS.md's table (${METHODS_REPS.toLocaleString('en')} replications, B = 2,000): ` +
+      `${comparisons.length} cells in common.`,
   );
   if (comparisons.length === 0) return;
   const off = comparisons.filter((c) => Math.abs(c.z) > 3);
   const worst = comparisons.reduce((a, b) => (Math.abs(b.z) > Math.abs(a.z) ? b : a));
   console.log(
-    `Largest difference: ${worst.where}: ${worst.ours.rate.toFixed(3)} here vs ${worst.methods.toFixed(3)} in METHODS.md (z = ${worst.z.toFixed(1)}).`,
+    `Largest difference: ${worst.where}: ${worst.ours.rate.toFixed(3)} here vs ${worst.methods.toFixed(3)} in ` +
+      `METHODS.md (z = ${worst.z.toFixed(1)}).`,
   );
   if (off.length === 0) {
     console.log('Every common cell agrees within 3 combined Monte Carlo standard errors.');
@@ -411,7 +415,8 @@ function printNote(comparisons: readonly Comparison[], opts: SimulationOptions):
     console.log(`${off.length} cells differ by more than 3 combined Monte Carlo standard errors:`);
     for (const c of off)
       console.log(
-        `  ${c.where}: ${c.ours.rate.toFixed(3)} ±${c.ours.se.toFixed(3)} vs ${c.methods.toFixed(3)} (z = ${c.z.toFixed(1)})`,
+        `  ${c.where}: ${c.ours.rate.toFixed(3)} ±${c.ours.se.toFixed(3)} vs ${c.methods.toFixed(3)} ` +
+          `(z = ${c.z.toFixed(1)})`,
       );
   }
   if (opts.resamples !== 2000) {

@@ -89,7 +89,8 @@ export function readingMode(flags: ReadingFlags): ReadingMode {
     if (paths.length > 0)
       throw new SeedsiftError(
         'usage',
-        `--scores: a score table names its runs in its own columns, so it cannot be combined with ${paths.map((k) => FLAG[k]).join(', ')}`,
+        `--scores: a score table names its runs in its own columns, so it cannot be combined with ` +
+          `${paths.map((k) => FLAG[k]).join(', ')}`,
       );
     return { kind: 'scores', file: flags.scores, seedColumn: flags.seedColumn ?? 'seed', by: flags.by };
   }

@@ -170,7 +170,8 @@ export function bootstrapMeanDifference(
       return shift(tailInterval(ordered, (1 - level) / 2));
     case 'expanded-percentile': {
       const plugIn = (vx * (n1 - 1)) / n1 + (vy * (n2 - 1)) / n2;
-      if (!(plugIn > 0)) return shift(tailInterval(ordered, (1 - level) / 2)); // both groups constant: every resample equal
+      // Both groups constant: every resample is equal, so there is no spread to expand.
+      if (!(plugIn > 0)) return shift(tailInterval(ordered, (1 - level) / 2));
       const df = (vx + vy) ** 2 / ((vx * vx) / (n1 - 1) + (vy * vy) / (n2 - 1));
       return shift(tailInterval(ordered, expandedTail(level, (vx + vy) / plugIn, df)));
     }

@@ -82,8 +82,8 @@ export function logRank(a: TimeToEvent, b: TimeToEvent): LogRankResult {
  * relabelings equal in exact arithmetic count.
  * Cost O(C(N, n1) (N + K)) exact (K distinct event times), O(M (N + K)) Monte Carlo. Randomness only
  * from `random` (not used when exact). Throws a RangeError on bad input or options.
- * Example: `logRankPermutation({ times: [1, 2], events: [true, true] }, { times: [3, 4], events: [false, false] }, random)`
- * is { p: 1/3, exact: true, splits: 6 }: the observed labeling and its mirror image are the two most
+ * Example: `logRankPermutation({ times: [1, 2], events: [true, true] }, { times: [3, 4], events: [false, false] },
+ * random)` is { p: 1/3, exact: true, splits: 6 }: the observed labeling and its mirror image are the two most
  * extreme of the C(4, 2) = 6.
  */
 export function logRankPermutation(

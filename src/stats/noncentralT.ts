@@ -13,8 +13,8 @@
  * Unlike AS 243, which sums upward from j = 0 (its Poisson weights underflow once ncp^2/2 exceeds
  * about 745), the sum starts at the largest Poisson weight j = floor(lambda) and runs both ways,
  * as proposed by Benton & Krishnamoorthy (2003), "Computing discrete mixtures of continuous
- * distributions", Computational Statistics & Data Analysis 43:249-267 (details from memory). The two starting I_x values
- * come from @stdlib's `betainc`, Phi from @stdlib's normal CDF. For t < 0,
+ * distributions", Computational Statistics & Data Analysis 43:249-267 (details from memory). The two starting I_x
+ * values come from @stdlib's `betainc`, Phi from @stdlib's normal CDF. For t < 0,
  * F(t; df, ncp) = 1 - F(-t; df, -ncp).
  *
  * Far from the centre (|ncp| > 2,000, df >= 1) the series needs of the order of 40 sqrt(ncp^2 / 2)
@@ -32,8 +32,8 @@
  * Noncentrality interval. For an observed t, the confidence limits for ncp are the values at which
  * the observed t is the (1+level)/2 and (1-level)/2 quantile (Steiger & Fouladi 1997, "Noncentrality
  * interval estimation and the evaluation of statistical models", in Harlow, Mulaik & Steiger (eds.),
- * What If There Were No Significance Tests?, pp. 221-257; details from memory). F decreases in ncp, so each limit is one
- * root, found by bisection.
+ * What If There Were No Significance Tests?, pp. 221-257; details from memory). F decreases in ncp, so each limit is
+ * one root, found by bisection.
  */
 import betainc from '@stdlib/math-base-special-betainc';
 import gammaln from '@stdlib/math-base-special-gammaln';

@@ -261,7 +261,8 @@ function readReference(f: GenFile, path: string): RefFile {
   const rows: RefRow[] = [];
   const malformedLines: number[] = [];
   for (const { record, info } of data) {
-    // Extra fields that are empty (a trailing delimiter: `1,0.5,`) hold nothing; DuckDB ignores them, and so does this reading.
+    // Extra fields that are empty (a trailing delimiter: `1,0.5,`) hold nothing; DuckDB ignores them, and so does this
+    // reading.
     const extraEmpty = record.length > names.length && record.slice(names.length).every((c) => c === '');
     if (record.length !== names.length && !extraEmpty) {
       malformedLines.push(info.lines);

@@ -46,13 +46,16 @@ describe('bootstrapMean: Monte Carlo paths against a naive recomputation of the 
     expect(r).toMatchObject({ estimate: ref.theta, level: 0.95, method: 'percentile', resamples });
   });
 
-  it('expanded percentile: tail Phi(sqrt(5/4) t_{.025,4}) = 0.0009541005518824885 (Hesterberg 2015; scipy 1.10.1)', () => {
-    const tail = normalCdf(Math.sqrt(5 / 4) * tQuantile(0.025, 4), 0, 1);
-    expectRelative(tail, 0.0009541005518824885, 1e-9);
-    const r = bootstrapMean(A, createRandom(1), { method: 'expanded-percentile', resamples });
-    expectRelative(r.low, quantileSorted(ref.stats, tail), 1e-12);
-    expectRelative(r.high, quantileSorted(ref.stats, 1 - tail), 1e-12);
-  });
+  it(
+    'expanded percentile: tail Phi(sqrt(5/4) t_{.025,4}) = 0.0009541005518824885 (Hesterberg 2015; scipy ' + '1.10.1)',
+    () => {
+      const tail = normalCdf(Math.sqrt(5 / 4) * tQuantile(0.025, 4), 0, 1);
+      expectRelative(tail, 0.0009541005518824885, 1e-9);
+      const r = bootstrapMean(A, createRandom(1), { method: 'expanded-percentile', resamples });
+      expectRelative(r.low, quantileSorted(ref.stats, tail), 1e-12);
+      expectRelative(r.high, quantileSorted(ref.stats, 1 - tail), 1e-12);
+    },
+  );
 
   it('BCa: the core applied to the resample means with the jackknife acceleration', () => {
     const a = jackknifeAcceleration([leaveOneOutMeans(A)]);

@@ -17,7 +17,9 @@ const fixture = JSON.parse(readFileSync(new URL('../reference/survival-cases.jso
   kaplanMeier: KmCase[];
 };
 
-/** The first time with S(t) <= 0.5, from statsmodels' (rounded) survival values, with exactly-0.5 steps taken as 0.5. */
+/**
+ * The first time with S(t) <= 0.5, from statsmodels' (rounded) survival values, with exactly-0.5 steps taken as 0.5.
+ */
 function medianFromReference(c: KmCase): number | null {
   const i = c.survProb.findIndex((s) => s <= 0.5 + 1e-12);
   return i < 0 ? null : (c.survTimes[i] as number);

@@ -30,7 +30,10 @@ export interface AssemblyInput {
   readonly sources: readonly RunSource[];
   /** Files read: logs and tick dumps. */
   readonly data: readonly FileData[];
-  /** Log sources of which nothing could be used (unreadable, no step column): their runs are `rejected` unless another file gives them rows. */
+  /**
+   * Log sources of which nothing could be used (unreadable, no step column): their runs are `rejected` unless another
+   * file gives them rows.
+   */
   readonly failed: readonly RunSource[];
   /** Metric names holding a number somewhere (assemble/rows.ts `numericNames`). */
   readonly numeric: ReadonlySet<string>;

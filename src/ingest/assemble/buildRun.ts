@@ -148,7 +148,8 @@ export function buildRun(
     drafts.push(
       draft(
         'run-duplicate',
-        `${logFiles.length} files claim this config and seed: ${logFiles.join(', ')}; their rows were merged in that order (later rows win on repeated steps)`,
+        `${logFiles.length} files claim this config and seed: ${logFiles.join(', ')}; their rows were merged in ` +
+          `that order (later rows win on repeated steps)`,
         { run: id, file: logFiles[1] as string },
       ),
     );
@@ -158,7 +159,8 @@ export function buildRun(
     drafts.push(
       draft(
         'steps-duplicated',
-        `${found.duplicateSteps.size} step(s) logged more than once (first: step ${first}); the last row in file order was kept for each`,
+        `${found.duplicateSteps.size} step(s) logged more than once (first: step ${first}); the last row in file ` +
+          `order was kept for each`,
         { run: id, ...oneFile, rows: found.firstDuplicate === null ? [] : [found.firstDuplicate] },
       ),
     );

@@ -76,7 +76,7 @@ function countCells(cells: Float64Array): { empty: number; nonFinite: number; te
   let text = 0;
   for (let i = 0; i < cells.length; i++) {
     const c = cells[i] as number;
-    if (c !== c) empty++;
+    if (Number.isNaN(c)) empty++;
     else if (c === Infinity) nonFinite++;
     else if (c === -Infinity) text++;
   }
@@ -103,8 +103,7 @@ export function cleanSeries(steps: Float64Array, cells: Float64Array, order: Int
   const duplicateSteps: number[] = [];
   let firstDuplicateRow = -1;
   if (order === null) {
-    for (let i = 0; i < n; i++)
-      if ((cells[i] as number) === (cells[i] as number) && cells[i] !== -Infinity) winners.push(i);
+    for (let i = 0; i < n; i++) if (!Number.isNaN(cells[i] as number) && cells[i] !== -Infinity) winners.push(i);
   } else {
     let k = 0;
     while (k < n) {
@@ -114,7 +113,7 @@ export function cleanSeries(steps: Float64Array, cells: Float64Array, order: Int
       for (; k < n && steps[order[k] as number] === step; k++) {
         const row = order[k] as number;
         const c = cells[row] as number;
-        if (c === c && c !== -Infinity) {
+        if (!Number.isNaN(c) && c !== -Infinity) {
           last = row;
           logged++;
         }

@@ -62,7 +62,8 @@ export function splitParts(data: FileData): { parts: Part[]; drafts: Draft[] } {
         : [
             draft(
               'seed-missing',
-              `${empty.length} row(s) have an empty ${plan.names[plan.seed as number] as string} cell, so they belong to no run and were not used`,
+              `${empty.length} row(s) have an empty ${plan.names[plan.seed as number] as string} cell, so they ` +
+                `belong to no run and were not used`,
               { file, rows: empty.slice(0, LISTED_ROWS).map((n): RowRef => ({ data, kind: 'row', n })) },
             ),
           ];
@@ -82,7 +83,8 @@ export function splitParts(data: FileData): { parts: Part[]; drafts: Draft[] } {
   const drafts = [
     draft(
       'seed-missing',
-      `the seed was to come from inside the file, but ${wanted}; ${fromPath === undefined ? 'given a seed of its own' : 'the seed its path names was used'}: ${seed}`,
+      `the seed was to come from inside the file, but ${wanted}; ` +
+        `${fromPath === undefined ? 'given a seed of its own' : 'the seed its path names was used'}: ${seed}`,
       { file },
     ),
   ];

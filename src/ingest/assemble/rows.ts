@@ -104,7 +104,9 @@ function compact(column: Float64Array, kept: Int32Array): Float64Array {
  */
 export function runRows(parts: readonly Part[], numeric: ReadonlySet<string>): { rows: RunRows; drafts: Draft[] } {
   const offsets = new Int32Array(parts.length + 1);
-  parts.forEach((p, k) => (offsets[k + 1] = (offsets[k] as number) + (p.rows === null ? p.data.rows : p.rows.length)));
+  parts.forEach((p, k) => {
+    offsets[k + 1] = (offsets[k] as number) + (p.rows === null ? p.data.rows : p.rows.length);
+  });
   const columns = parts.map((p) => partColumns(p, numeric));
   const single = parts.length === 1 && (parts[0] as Part).rows === null;
   const column = (pick: (part: Part, p: number) => number | null): Float64Array => {
@@ -160,7 +162,8 @@ export function runRows(parts: readonly Part[], numeric: ReadonlySet<string>): {
       drafts.push(
         draft(
           'step-invalid',
-          `${refs.length} row(s) have a ${stepName} cell that is empty, not a number or not finite; those rows were dropped${refs.length > LISTED_ROWS ? `; the first ${LISTED_ROWS}` : ''}`,
+          `${refs.length} row(s) have a ${stepName} cell that is empty, not a number or not finite; those rows were ` +
+            `dropped${refs.length > LISTED_ROWS ? `; the first ${LISTED_ROWS}` : ''}`,
           { file: data.header.source.file, rows: refs.slice(0, LISTED_ROWS) },
         ),
       );
@@ -182,7 +185,7 @@ function holdsNumber(cells: Float64Array | undefined): boolean {
   if (cells === undefined) return false;
   for (let i = 0; i < cells.length; i++) {
     const c = cells[i] as number;
-    if (c === c && c !== -Infinity) return true;
+    if (!Number.isNaN(c) && c !== -Infinity) return true;
   }
   return false;
 }

@@ -203,7 +203,9 @@ export function buildDumps(
       return {
         invalid: {
           row: -1,
-          reason: `sample ${[...index.keys()][Math.floor(hole / ticks)] as number} lacks tick ${hole % ticks} (every sample needs ticks 0..${ticks - 1})`,
+          reason:
+            `sample ${[...index.keys()][Math.floor(hole / ticks)] as number} lacks tick ${hole % ticks} ` +
+            `(every sample needs ticks 0..${ticks - 1})`,
         },
       };
     dumps.push({

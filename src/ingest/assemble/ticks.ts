@@ -76,7 +76,7 @@ function build(
           if (col === undefined) continue;
           c = col[row] as number;
         }
-        if (c !== c) {
+        if (Number.isNaN(c)) {
           empty++;
           continue;
         }
@@ -176,7 +176,7 @@ function scanColumn(col: Float64Array, n: number, logged: Uint8Array, tally: Tal
   let nonFinite = 0;
   for (let i = 0; i < n; i++) {
     const c = col[i] as number;
-    if (c !== c) empty++;
+    if (Number.isNaN(c)) empty++;
     else if (c === -Infinity) text++;
     else {
       logged[i] = 1;

@@ -87,7 +87,8 @@ export interface DigestHeader {
 /**
  * The header of a digest of `runSet`: everything but the long arrays, and how many rows of numbers
  * follow (see the module comment). Pure, O(runs + metrics + dumps + problems); never throws.
- * Example: a RunSet of one run with `loss` at 3 steps gives `runs[0].metrics` `[{ name: 'loss', points: 3, ... }]` and `points: 3`.
+ * Example: a RunSet of one run with `loss` at 3 steps gives `runs[0].metrics`
+ * `[{ name: 'loss', points: 3, ... }]` and `points: 3`.
  */
 export function digestHeader(runSet: RunSet): DigestHeader {
   let points = 0;
@@ -142,5 +143,7 @@ export function digestHeader(runSet: RunSet): DigestHeader {
   };
 }
 
-/** Rows per Parquet row group of a digest (1 Mi rows, see writeDigest.ts); the reader reads this many rows per query. */
+/**
+ * Rows per Parquet row group of a digest (1 Mi rows, see writeDigest.ts); the reader reads this many rows per query.
+ */
 export const ROW_GROUP_ROWS = 1 << 20;

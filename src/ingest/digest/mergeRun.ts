@@ -10,7 +10,10 @@ import type { Run, RunStatus, Series, TickSeries } from '../types.js';
 /** A run while merging (its status is decided again afterwards). */
 export type MergedRun = Omit<Run, 'status'> & { status: RunStatus };
 
-/** Union of two sorted step lists; at a step both have, `b` wins. Returns the source of each step (>= 0: index in a; < 0: -1 - index in b). */
+/**
+ * Union of two sorted step lists; at a step both have, `b` wins. Returns the source of each step
+ * (>= 0: index in a; < 0: -1 - index in b).
+ */
 function mergeSteps(a: Float64Array, b: Float64Array): { steps: Float64Array; from: Int32Array } {
   const steps = new Float64Array(a.length + b.length);
   const from = new Int32Array(a.length + b.length);

@@ -72,7 +72,8 @@ function mergeMetrics(
         problems.push(
           problem(
             'goal-conflict',
-            `${info.name}: ${says(kept.info.goal, kept.part)}, ${says(info.goal, part)}; the first was kept (say --metric ${info.name}:max or ${info.name}:min to choose)`,
+            `${info.name}: ${says(kept.info.goal, kept.part)}, ${says(info.goal, part)}; the first was kept (say ` +
+              `--metric ${info.name}:max or ${info.name}:min to choose)`,
             part.digest === null ? {} : { file: part.digest },
           ),
         );
@@ -122,7 +123,9 @@ export async function mergeRunSets(
   if (other !== undefined) {
     throw new SeedsiftError(
       'input',
-      `${label(other)}: holds ${other.runSet.mode === 'scores' ? 'a score table' : 'per-step logs'}, ${label(withRuns[0] as RunSetPart)} holds ${mode === 'scores' ? 'a score table' : 'per-step logs'}; they cannot be read together`,
+      `${label(other)}: holds ${other.runSet.mode === 'scores' ? 'a score table' : 'per-step logs'}, ` +
+        `${label(withRuns[0] as RunSetPart)} holds ${mode === 'scores' ? 'a score table' : 'per-step logs'}; they ` +
+        `cannot be read together`,
     );
   }
   const keys: string[] = [];
@@ -157,7 +160,8 @@ export async function mergeRunSets(
     duplicates.push(
       problem(
         'run-duplicate',
-        `${from.length} sources claim this config and seed: ${from.join(', ')}; their series were merged in that order (later values win on repeated steps)`,
+        `${from.length} sources claim this config and seed: ${from.join(', ')}; their series were merged in that ` +
+          `order (later values win on repeated steps)`,
         { run: id, file: from[1] as string },
       ),
     );

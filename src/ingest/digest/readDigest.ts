@@ -62,12 +62,14 @@ async function readHeader(engine: Engine, file: string): Promise<DigestHeader> {
   if (marker === undefined)
     throw bad(
       file,
-      `expected the key ${DIGEST_KEY} in its Parquet metadata, got none (it is an ordinary Parquet file, which seedsift reads as a log)`,
+      `expected the key ${DIGEST_KEY} in its Parquet metadata, got none (it is an ordinary Parquet file, which ` +
+        `seedsift reads as a log)`,
     );
   if (marker !== String(DIGEST_VERSION))
     throw bad(
       file,
-      `expected format version ${DIGEST_VERSION}, got ${JSON.stringify(marker)} (make the digest again with this seedsift)`,
+      `expected format version ${DIGEST_VERSION}, got ${JSON.stringify(marker)} ` +
+        '(make the digest again with this seedsift)',
     );
   let header: DigestHeader;
   try {
@@ -163,7 +165,10 @@ async function readNumbers(engine: Engine, file: string, points: number): Promis
   const values = new Float64Array(points);
   let filled = 0;
   for (let from = 0; from <= points; from += ROW_GROUP_ROWS) {
-    const sql = `SELECT step, value FROM read_parquet(${sqlPath(file)}, hive_partitioning = false, file_row_number = true) WHERE kind > ${DIGEST_KIND.header} AND file_row_number >= ${from} AND file_row_number < ${from + ROW_GROUP_ROWS}`;
+    const sql =
+      `SELECT step, value FROM read_parquet(${sqlPath(file)}, hive_partitioning = false, file_row_number = true) ` +
+      `WHERE kind > ${DIGEST_KIND.header} ` +
+      `AND file_row_number >= ${from} AND file_row_number < ${from + ROW_GROUP_ROWS}`;
     const [s, v] = resultColumns(await engine.connection.run(sql)) as [Float64Array, Float64Array];
     if (filled + s.length > points) throw new RangeError(`expected ${points} rows of numbers, got more`);
     steps.set(s, filled);

@@ -57,7 +57,10 @@ interface Piece {
   readonly text: string | null;
 }
 
-/** The pieces of a digest in the file's row order (see the module comment); a dump's per-tick arrays are made as they are reached. */
+/**
+ * The pieces of a digest in the file's row order (see the module comment); a dump's per-tick arrays are made as they
+ * are reached.
+ */
 function* pieces(runSet: RunSet, header: DigestHeader): Generator<Piece> {
   const nan = Float64Array.of(NaN);
   yield { kind: DIGEST_KIND.header, run: -1, item: -1, tick: 0, steps: nan, values: nan, text: JSON.stringify(header) };
@@ -129,7 +132,10 @@ class RowSource {
   private from = 0;
   constructor(private readonly source: Iterator<Piece>) {}
 
-  /** Fill `chunk` with the next rows (none when all were given). Only the header piece (one row) has a text; every other row's is NULL. */
+  /**
+   * Fill `chunk` with the next rows (none when all were given). Only the header piece (one row) has a text; every other
+   * row's is NULL.
+   */
   fill(chunk: DuckDBDataChunk): void {
     let rows = 0;
     let text: { at: number; value: string } | null = null;
@@ -181,8 +187,8 @@ function copyInto(vector: bindings.Vector, data: ArrayBufferView): void {
  * exists (the command line writes to a temporary name and renames). The RunSet is kept exactly:
  * `readDigest(file)` gives back a RunSet whose every field and number equals this one.
  * Cost: one DuckDB instance and one row group of DuckDB's Parquet writer (1 Mi rows), nothing
- * per number beyond the RunSet itself; the file holds about 3.5 bytes per point (step and value) on the benchmark, where noisy values
- * take nearly all of it and steps almost nothing.
+ * per number beyond the RunSet itself; the file holds about 3.5 bytes per point (step and value) on the benchmark,
+ * where noisy values take nearly all of it and steps almost nothing.
  * Throws what DuckDB throws when the file cannot be written (a missing folder, no permission).
  * Example: `await writeDigest(await ingest(['runs'], options), 'shard-1.parquet')`.
  */
@@ -194,14 +200,18 @@ export async function writeDigest(runSet: RunSet, file: string): Promise<void> {
     connection.registerTableFunction(
       DuckDBTableFunction.create({
         name: 'seedsift_digest_rows',
-        bindFunction: (bind) => TABLE_COLUMNS.forEach(([name, type]) => bind.addResultColumn(name, type)),
+        bindFunction: (bind) => {
+          for (const [name, type] of TABLE_COLUMNS) bind.addResultColumn(name, type);
+        },
         // One thread: the rows must reach the file in the order they are made.
         initFunction: (init) => init.setMaxThreads(1),
         mainFunction: (_, chunk) => rows.fill(chunk),
       }),
     );
     await connection.run(
-      `COPY (SELECT * FROM seedsift_digest_rows()) TO ${sqlString(file)} (FORMAT parquet, COMPRESSION zstd, COMPRESSION_LEVEL ${ZSTD_LEVEL}, ROW_GROUP_SIZE ${ROW_GROUP_ROWS}, KV_METADATA {${sqlString(DIGEST_KEY)}: ${sqlString(String(DIGEST_VERSION))}})`,
+      `COPY (SELECT * FROM seedsift_digest_rows()) TO ${sqlString(file)} (FORMAT parquet, COMPRESSION zstd, ` +
+        `COMPRESSION_LEVEL ${ZSTD_LEVEL}, ROW_GROUP_SIZE ${ROW_GROUP_ROWS}, KV_METADATA {${sqlString(DIGEST_KEY)}: ` +
+        `${sqlString(String(DIGEST_VERSION))}})`,
     );
   } finally {
     closeEngine(engine);

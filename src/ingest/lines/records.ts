@@ -20,7 +20,10 @@ import { gunzipSync } from 'node:zlib';
 export interface Records {
   /** 1-based physical line on which record k starts (record k is DuckDB's line k + 1). */
   readonly start: Int32Array;
-  /** 1-based physical line on which record k ends (after `start` when a quoted field holds line breaks, or a quote is never closed). */
+  /**
+   * 1-based physical line on which record k ends (after `start` when a quoted field holds line breaks, or a quote is
+   * never closed).
+   */
   readonly end: Int32Array;
   /** 1 when record k is blank: zero length (delimited) or whitespace only (whitespace mode). */
   readonly blank: Uint8Array;

@@ -22,26 +22,26 @@ export function fileDrafts(data: FileData): Draft[] {
   const file = data.header.source.file;
   const drafts: Draft[] = [];
   const malformed = data.rejects.length + data.malformed.length;
-  data.rejects
-    .slice(0, LISTED_MALFORMED)
-    .forEach((r) =>
-      drafts.push(
-        draft(
-          'row-malformed',
-          `row rejected, the run keeps its other rows: ${r.type.toLowerCase()}: ${r.message}${r.column === null ? '' : ` (column ${data.header.names[r.column] ?? r.column})`}`,
-          { file, rows: [{ data, kind: 'record', n: r.record }] },
-        ),
+  for (const r of data.rejects.slice(0, LISTED_MALFORMED)) {
+    const column = r.column === null ? '' : ` (column ${data.header.names[r.column] ?? r.column})`;
+    drafts.push(
+      draft(
+        'row-malformed',
+        `row rejected, the run keeps its other rows: ${r.type.toLowerCase()}: ${r.message}${column}`,
+        {
+          file,
+          rows: [{ data, kind: 'record', n: r.record }],
+        },
       ),
     );
-  data.malformed
-    .slice(0, Math.max(0, LISTED_MALFORMED - data.rejects.length))
-    .forEach((n) =>
-      drafts.push(
-        draft(
-          'row-malformed',
-          `row rejected, the run keeps its other rows: expected ${data.header.names.length} whitespace-separated fields`,
-          { file, rows: [{ data, kind: 'dataRow', n }] },
-        ),
+  }
+  for (const n of data.malformed.slice(0, Math.max(0, LISTED_MALFORMED - data.rejects.length)))
+    drafts.push(
+      draft(
+        'row-malformed',
+        'row rejected, the run keeps its other rows: ' +
+          `expected ${data.header.names.length} whitespace-separated fields`,
+        { file, rows: [{ data, kind: 'dataRow', n }] },
       ),
     );
   if (malformed > LISTED_MALFORMED)
@@ -58,7 +58,8 @@ export function fileDrafts(data: FileData): Draft[] {
     drafts.push(
       draft(
         'column-duplicated',
-        `duplicate column name(s) ${data.plan.duplicated.join(', ')}; the later ones were renamed with a suffix (_2, _3, ...)`,
+        `duplicate column name(s) ${data.plan.duplicated.join(', ')}; the later ones were renamed with a suffix ` +
+          `(_2, _3, ...)`,
         { file },
       ),
     );
@@ -128,7 +129,8 @@ export function headerDrift(items: readonly FileToRead[]): Draft[] {
         .join('; ');
       return draft(
         'header-drift',
-        `${g.files.length} file(s) have other columns than the ${main.files.length} file(s) like ${main.files[0] as string} (${diff}); columns were matched by name`,
+        `${g.files.length} file(s) have other columns than the ${main.files.length} file(s) like ` +
+          `${main.files[0] as string} (${diff}); columns were matched by name`,
         { file: g.files[0] as string },
       );
     });

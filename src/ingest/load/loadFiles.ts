@@ -161,7 +161,8 @@ export async function loadFiles(
   for (const b of batches) {
     await readSafely(engine.connection, b.items, b.doubles);
     releaseResults(engine);
-    onBatch((done += b.items.length));
+    done += b.items.length;
+    onBatch(done);
   }
   const data = items.flatMap((item) => {
     const d = byFile.get(item);

@@ -44,7 +44,10 @@ const NUMERIC_TYPES =
  */
 export function cellSql(expr: string, type: string): string {
   if (NUMERIC_TYPES.test(type))
-    return `CASE WHEN ${expr} IS NULL THEN 'nan'::DOUBLE WHEN isfinite(${expr}::DOUBLE) THEN ${expr}::DOUBLE ELSE 'inf'::DOUBLE END`;
+    return (
+      `CASE WHEN ${expr} IS NULL THEN 'nan'::DOUBLE WHEN isfinite(${expr}::DOUBLE) THEN ${expr}::DOUBLE ` +
+      `ELSE 'inf'::DOUBLE END`
+    );
   if (type === 'BOOLEAN')
     return `CASE WHEN ${expr} IS NULL THEN 'nan'::DOUBLE WHEN ${expr} THEN 1::DOUBLE ELSE 0::DOUBLE END`;
   if (type !== 'VARCHAR') return `CASE WHEN ${expr} IS NULL THEN 'nan'::DOUBLE ELSE '-inf'::DOUBLE END`;
@@ -85,8 +88,10 @@ function readCall(headers: readonly FileHeader[], doubles: ReadonlySet<number>):
   const delimiter = whitespace ? LINE_DELIMITER : (first.text.delimiter as string);
   const quote = whitespace ? `quote='', escape=''` : `quote='"', escape='"'`;
   return (
-    `read_csv(${fileList(headers)}, header=${first.text.header}, skip=${first.text.skip}, delim=${sqlString(delimiter)}, ${quote}, columns=${columns}, ` +
-    `auto_detect=false, hive_partitioning=false, compression=${first.source.gzip ? "'gzip'" : "'none'"}, store_rejects=true, ` +
+    `read_csv(${fileList(headers)}, header=${first.text.header}, skip=${first.text.skip}, ` +
+    `delim=${sqlString(delimiter)}, ${quote}, columns=${columns}, ` +
+    `auto_detect=false, hive_partitioning=false, compression=${first.source.gzip ? "'gzip'" : "'none'"}, ` +
+    `store_rejects=true, ` +
     `rejects_table=${sqlString(REJECTS_TABLE)}, rejects_scan=${sqlString(REJECTS_SCAN)})`
   );
 }
@@ -122,7 +127,10 @@ export function batchSql(spec: BatchSpec): string {
   const whitespace = first.text !== null && first.text.delimiter === null;
   if (whitespace) {
     select.push(`(len(p) <> ${first.names.length})::DOUBLE`);
-    return `SELECT ${select.join(', ')} FROM (SELECT file_index, regexp_extract_all(line, '\\S+') AS p FROM ${readCall(spec.headers, NONE)}) WHERE len(p) > 0`;
+    return (
+      `SELECT ${select.join(', ')} FROM (SELECT file_index, regexp_extract_all(line, '\\S+') AS p FROM ` +
+      `${readCall(spec.headers, NONE)}) WHERE len(p) > 0`
+    );
   }
   return `SELECT ${select.join(', ')} FROM ${readCall(spec.headers, spec.doubles)}`;
 }
@@ -152,7 +160,8 @@ export function seedValuesSql(headers: readonly FileHeader[], index: number): st
   const text = c.type === 'VARCHAR' ? c.expr : `${c.expr}::VARCHAR`;
   const whitespace = first.text !== null && first.text.delimiter === null;
   const inner = whitespace
-    ? `SELECT trim(${text}) AS seed FROM (SELECT regexp_extract_all(line, '\\S+') AS p FROM ${readCall(headers, NONE)}) WHERE len(p) > 0`
+    ? `SELECT trim(${text}) AS seed FROM (SELECT regexp_extract_all(line, '\\S+') AS p FROM ` +
+      `${readCall(headers, NONE)}) WHERE len(p) > 0`
     : `SELECT trim(${text}) AS seed FROM ${readCall(headers, NONE)}`;
   return `SELECT DISTINCT seed FROM (${inner}) WHERE seed IS NOT NULL AND seed <> '' ORDER BY seed`;
 }
@@ -174,7 +183,10 @@ export function textSql(header: FileHeader, columns: readonly number[]): string 
   });
   if (header.text !== null && header.text.delimiter === null) {
     select.push(`(len(p) <> ${header.names.length})`);
-    return `SELECT ${select.join(', ')} FROM (SELECT regexp_extract_all(line, '\\S+') AS p FROM ${readCall([header], NONE)}) WHERE len(p) > 0`;
+    return (
+      `SELECT ${select.join(', ')} FROM (SELECT regexp_extract_all(line, '\\S+') AS p FROM ` +
+      `${readCall([header], NONE)}) WHERE len(p) > 0`
+    );
   }
   return `SELECT ${select.join(', ')} FROM ${readCall([header], NONE)}`;
 }

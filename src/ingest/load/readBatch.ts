@@ -91,7 +91,11 @@ function keep(column: Float64Array, rows: Int32Array): Float64Array {
 /** The first error of each rejected row (a row is reported once however many columns failed). */
 function onePerRow(rejects: readonly Reject[]): Reject[] {
   const seen = new Set<number>();
-  return rejects.filter((r) => (seen.has(r.record) ? false : (seen.add(r.record), true)));
+  return rejects.filter((r) => {
+    if (seen.has(r.record)) return false;
+    seen.add(r.record);
+    return true;
+  });
 }
 
 /**

@@ -37,8 +37,9 @@ export interface Located {
 /**
  * Find the run files under `paths` and what their locations say (see the module comment).
  * Cost: one directory listing per folder, one read per params.json folder; O(files) memory.
- * Throws SeedsiftError('usage') for a PATH or manifest that does not exist; SeedsiftError('input') for a manifest that cannot be parsed or has
- * no `file` column. Every other difficulty is a problem; a folder with no log files is `no-logs`.
+ * Throws SeedsiftError('usage') for a PATH or manifest that does not exist; SeedsiftError('input') for a manifest that
+ * cannot be parsed or has no `file` column. Every other difficulty is a problem; a folder with no log files is
+ * `no-logs`.
  * Example: `locate(['runs'], opts)` with runs/ticks=8/seed=1/log.csv gives one source
  * `{ relPath: 'ticks=8/seed=1/log.csv', params: { ticks: '8' }, seed: '1', identity: 'hive' }`.
  */
@@ -108,7 +109,8 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
       problems.push(
         problem(
           'layout-unmatched',
-          `${f.relPath} does not match --layout '${layout.template}' (matched against the whole path below ${paths[f.root] as string}, file name included; end the template with /* or /** to accept any file name)`,
+          `${f.relPath} does not match --layout '${layout.template}' (matched against the whole path below ` +
+            `${paths[f.root] as string}, file name included; end the template with /* or /** to accept any file name)`,
           { file: f.file },
         ),
       );
@@ -137,7 +139,8 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
     problems.push(
       problem(
         'seed-missing',
-        `no seed found for ${source.file} (no seed= segment, layout field, seed column, manifest seed or params.json seed); given the seed ${seed}`,
+        `no seed found for ${source.file} (no seed= segment, layout field, seed column, manifest seed or ` +
+          `params.json seed); given the seed ${seed}`,
         where,
       ),
     );
@@ -146,7 +149,9 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
   const seen = new Set<string>();
   const unique = problems.filter((p) => {
     const key = JSON.stringify([p.code, p.file, p.line, p.message]);
-    return seen.has(key) ? false : (seen.add(key), true);
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
   });
   return { sources, files, problems: unique };
 }

@@ -46,7 +46,8 @@ function toSlashes(p: string): string {
  * `stat` per row. Throws SeedsiftError('usage') when the manifest does not exist, and
  * SeedsiftError('input') (with the line) when it cannot be parsed as CSV, is empty, has no `file`
  * column, or has an empty or repeated column name.
- * Example: a manifest `file,seed,ticks` / `a.csv,1,8` gives one row `{ relPath: 'a.csv', seed: '1', params: { ticks: '8' } }`.
+ * Example: a manifest `file,seed,ticks` / `a.csv,1,8` gives one row
+ * `{ relPath: 'a.csv', seed: '1', params: { ticks: '8' } }`.
  */
 export async function readManifest(
   manifest: string,

@@ -180,7 +180,8 @@ export function mergeSidecar(
   const check = (key: string, ours: string, theirs: string): void => {
     if (sameValue(ours, theirs)) return;
     const line = sidecar.lines[key];
-    const message = `params.json says ${key}=${theirs} but the ${origin} says ${key}=${ours}; the ${origin}'s value was kept`;
+    const message =
+      `params.json says ${key}=${theirs} but the ${origin} says ${key}=${ours}; ` + `the ${origin}'s value was kept`;
     problems.push(
       problem('params-mismatch', message, line === undefined ? { file: sidecar.file } : { file: sidecar.file, line }),
     );

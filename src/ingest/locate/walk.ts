@@ -18,6 +18,7 @@
  * - A PATH that does not exist or cannot be examined throws SeedsiftError('usage').
  */
 import { lstat, readdir, realpath, stat } from 'node:fs/promises';
+import type { Dirent, Stats } from 'node:fs';
 import { basename, join, sep } from 'node:path';
 import { problem, SeedsiftError, type Problem } from '../../problems.js';
 import { fileFormat } from './fileFormat.js';
@@ -118,7 +119,7 @@ export async function walk(roots: readonly string[]): Promise<WalkResult> {
       return false;
     }
     searched.set(real, dir);
-    let entries;
+    let entries: Dirent[];
     try {
       entries = await readdir(dir, { withFileTypes: true });
     } catch (error) {
@@ -138,7 +139,7 @@ export async function walk(roots: readonly string[]): Promise<WalkResult> {
         if (entry.isDirectory()) problems.push(problem('file-skipped', 'hidden folder not searched', { file }));
         else skip(file, 'skipped', problem('file-skipped', 'hidden file not read', { file }));
       } else if (entry.isSymbolicLink()) {
-        let target;
+        let target: Stats;
         try {
           target = await stat(file);
         } catch (error) {
@@ -173,9 +174,9 @@ export async function walk(roots: readonly string[]): Promise<WalkResult> {
 
   // Pass 1: each PATH, without following links to folders.
   for (const [index, root] of roots.entries()) {
-    let info;
-    let link;
-    let real;
+    let info: Stats;
+    let link: Stats;
+    let real: string;
     try {
       link = await lstat(root);
       info = await stat(root);
@@ -199,7 +200,7 @@ export async function walk(roots: readonly string[]): Promise<WalkResult> {
   // Pass 2: links to folders, each real folder searched once.
   for (let k = 0; k < links.length; k++) {
     const link = links[k] as PendingLink;
-    let real;
+    let real: string;
     try {
       real = await realpath(link.file);
     } catch (error) {
@@ -214,7 +215,8 @@ export async function walk(roots: readonly string[]): Promise<WalkResult> {
       problems.push(
         problem(
           'file-skipped',
-          `symbolic link loop: it points back to a folder that contains it (${searched.get(real) ?? real}); not followed`,
+          'symbolic link loop: it points back to a folder that contains it ' +
+            `(${searched.get(real) ?? real}); not followed`,
           { file: link.file },
         ),
       );

@@ -26,7 +26,8 @@ export function inferGoal(name: string): Goal {
 
 /**
  * The goal of a metric and where it came from: the `--metric` option, else the name.
- * Pure. Example: `metricGoal('val_acc', { metricGoals: { val_acc: 'min' } })` is `{ goal: 'min', goalSource: 'option' }`.
+ * Pure. Example: `metricGoal('val_acc', { metricGoals: { val_acc: 'min' } })` is
+ * `{ goal: 'min', goalSource: 'option' }`.
  */
 export function metricGoal(
   name: string,
@@ -41,7 +42,8 @@ export function metricGoal(
 /**
  * Metrics found in the runs, in first-seen order (scalars and per-tick metrics separately, a name
  * may be both), with their goals; a `goal-inferred` note for each name whose goal was guessed.
- * Pure. Example: runs with `val_loss` give `{ name: 'val_loss', goal: 'min', goalSource: 'inferred', kind: 'scalar', ticks: 0 }`.
+ * Pure. Example: runs with `val_loss` give
+ * `{ name: 'val_loss', goal: 'min', goalSource: 'inferred', kind: 'scalar', ticks: 0 }`.
  */
 export function metricInfos(
   runs: readonly Run[],
@@ -63,7 +65,8 @@ export function metricInfos(
     const goal = (metrics.find((m) => m.name === name) as MetricInfo).goal;
     return problem(
       'goal-inferred',
-      `${name}: ${goal === 'min' ? 'lower' : 'higher'} is taken to be better (from its name); say --metric ${name}:${goal === 'min' ? 'max' : 'min'} if that is wrong`,
+      `${name}: ${goal === 'min' ? 'lower' : 'higher'} is taken to be better (from its name); say --metric ` +
+        `${name}:${goal === 'min' ? 'max' : 'min'} if that is wrong`,
     );
   });
   return { metrics, problems };

@@ -29,7 +29,10 @@ export async function gzipDamage(file: string): Promise<string | null> {
   } catch (error) {
     const e = error as NodeJS.ErrnoException;
     if (e.code === 'Z_BUF_ERROR')
-      return 'the gzip data ends before its end marker (a truncated file or an interrupted download); none of its rows were used';
+      return (
+        'the gzip data ends before its end marker (a truncated file or an interrupted download); none of its ' +
+        'rows were used'
+      );
     if (e.code === 'Z_DATA_ERROR') return `damaged gzip data (${e.message}); none of its rows were used`;
     return e.code ?? (String(e.message ?? error).split('\n')[0] as string);
   }

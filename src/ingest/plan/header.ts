@@ -37,7 +37,10 @@ export interface TextFormat {
 /** A file's shape, read from its head. */
 export interface FileHeader {
   readonly source: RunSource;
-  /** Column names as the file gives them (or `--columns`), before duplicates are renamed; empty names become `columnK` (K from 1). */
+  /**
+   * Column names as the file gives them (or `--columns`), before duplicates are renamed; empty names become `columnK`
+   * (K from 1).
+   */
   readonly names: readonly string[];
   /** DuckDB type of each column of a Parquet file; null for text. */
   readonly parquetTypes: readonly string[] | null;
@@ -45,7 +48,9 @@ export interface FileHeader {
   readonly text: TextFormat | null;
   /** Size on disk in bytes. */
   readonly bytes: number;
-  /** Text files: columns with a cell that is not a number among the first lines (a hint for the reader's column types). */
+  /**
+   * Text files: columns with a cell that is not a number among the first lines (a hint for the reader's column types).
+   */
   readonly textLike: readonly number[];
 }
 
@@ -205,7 +210,9 @@ export async function readHeader(
     return {
       ok: false,
       code: 'file-unreadable',
-      reason: `its first line has ${parsed.names.length} fields (more than ${MAX_COLUMNS}), so it is not read as a per-step log (rows written without line breaks?)`,
+      reason:
+        `its first line has ${parsed.names.length} fields (more than ${MAX_COLUMNS}), so it is not read as a ` +
+        `per-step log (rows written without line breaks?)`,
     };
   }
   if (source.gzip) {

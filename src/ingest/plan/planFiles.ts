@@ -29,7 +29,10 @@ export interface Planned {
   readonly drafts: readonly Draft[];
 }
 
-/** Files whose heads are read at the same time (text files; Parquet ones go one by one through the one DuckDB connection). */
+/**
+ * Files whose heads are read at the same time (text files; Parquet ones go one by one through the one DuckDB
+ * connection).
+ */
 const HEAD_READS = 8;
 
 /** Every source's header, in source order. */

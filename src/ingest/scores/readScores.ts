@@ -62,7 +62,7 @@ function roles(data: FileData, options: ScoresMode, plan: ColumnPlan): Role[] {
     for (let i = 0; i < cells.length; i++) {
       const c = cells[i] as number;
       if (c === -Infinity) text++;
-      else if (c === c) numbers++;
+      else if (!Number.isNaN(c)) numbers++;
     }
     if (text > 0) return options.by === null ? 'config' : 'unused';
     return numbers > 0 ? 'metric' : 'unused';
@@ -165,7 +165,8 @@ export async function readScores(
     drafts.push(
       draft(
         'column-not-numeric',
-        `score table column ${plan.names[k] as string} ${mode.by === null ? 'is empty' : 'holds text and is not named by --by'}; not used`,
+        `score table column ${plan.names[k] as string} ` +
+          `${mode.by === null ? 'is empty' : 'holds text and is not named by --by'}; not used`,
         { file },
       ),
     );
@@ -174,7 +175,9 @@ export async function readScores(
   for (let i = 0; i < data.rows; i++) {
     const row = text[i] ?? [];
     const params: Record<string, string> = {};
-    keys.forEach((key, j) => (params[key] = row[j] ?? ''));
+    keys.forEach((key, j) => {
+      params[key] = row[j] ?? '';
+    });
     const ref = [{ data, kind: 'row' as const, n: i }];
     let seed = seedCol === undefined ? null : (row[configCols.length] ?? null);
     if (seed === null) {
@@ -198,7 +201,7 @@ export async function readScores(
       const c = (data.cells.get(k) as Float64Array)[i] as number;
       if (Number.isFinite(c))
         metrics[name] = { steps: Float64Array.of(0), values: Float64Array.of(c), divergedAt: null, missing: 0 };
-      else if (c !== c)
+      else if (Number.isNaN(c))
         drafts.push(draft('score-missing', `${name} is empty for this run`, { file, run: id, rows: ref }));
       else
         drafts.push(

@@ -94,13 +94,17 @@ describe('cleanSeries: the policies of DESIGN "Messy logs"', () => {
     expect(Array.from(c.series.values)).toEqual([0.1, 0.2]);
   });
 
-  it('a metric never finite did not diverge (DESIGN: "goes non-finite and stays so" needs a finite stretch first); it has no values', () => {
-    const c = clean([5, 6], [NF, NF]);
-    expect(c.series.divergedAt).toBeNull();
-    expect(c.series.values.length).toBe(0);
-    // After a finite start, the same tail is a divergence.
-    expect(clean([4, 5, 6], [0.5, NF, NF]).series.divergedAt).toBe(5);
-  });
+  it(
+    'a metric never finite did not diverge (DESIGN: "goes non-finite and stays so" needs a finite stretch first); ' +
+      'it has no values',
+    () => {
+      const c = clean([5, 6], [NF, NF]);
+      expect(c.series.divergedAt).toBeNull();
+      expect(c.series.values.length).toBe(0);
+      // After a finite start, the same tail is a divergence.
+      expect(clean([4, 5, 6], [0.5, NF, NF]).series.divergedAt).toBe(5);
+    },
+  );
 
   it('does not mutate its inputs', () => {
     // (typed arrays cannot be frozen: compare copies instead)

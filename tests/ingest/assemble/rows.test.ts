@@ -15,7 +15,8 @@ describe('rows with an unusable step', () => {
         severity: 'warning',
         code: 'step-invalid',
         message:
-          '3 row(s) have a step cell that is empty, not a number or not finite; those rows were dropped (lines 3, 4, 6)',
+          '3 row(s) have a step cell that is empty, not a number or not finite; ' +
+          'those rows were dropped (lines 3, 4, 6)',
         file: at('seed=1/log.csv'),
         line: 3,
         run: 'seed=1',
@@ -27,7 +28,8 @@ describe('rows with an unusable step', () => {
     const rows = Array.from({ length: 8 }, (_, k) => `x${k},0.1`);
     const { set } = await ingestTree({ 'seed=1/log.csv': `step,loss\n1,0.5\n${rows.join('\n')}\n` });
     expect(withCode(set, 'step-invalid').map((p) => p.message)).toEqual([
-      '8 row(s) have a step cell that is empty, not a number or not finite; those rows were dropped; the first 5 (lines 3, 4, 5, 6, 7)',
+      '8 row(s) have a step cell that is empty, not a number or not finite; those rows were dropped; the first 5 ' +
+        '(lines 3, 4, 5, 6, 7)',
     ]);
   });
 

@@ -66,27 +66,30 @@ describe('one run in several parts', () => {
     expect(runById(raw, 'seed=1')).toMatchObject({ status: 'ok', divergedAt: null, lastStep: 6 });
   });
 
-  it('tick metrics with different tick counts: the union of steps, missing ticks NaN, the later part winning', async () => {
-    const { parts: p, raw } = await parts({
-      A: { 'seed=1/log.csv': 'step,acc@0,acc@1\n1,0.1,0.2\n2,0.3,0.4\n' },
-      B: { 'seed=1/log.csv': 'step,acc@0,acc@1,acc@2\n2,0.5,0.6,0.7\n3,0.8,0.9,1\n' },
-    });
-    const merged = await mergeRunSets(p, none);
-    const ticks = (set: RunSet): unknown => {
-      const t = runById(set, 'seed=1').tickMetrics.acc;
-      return { steps: Array.from(t?.steps ?? []), values: (t?.values ?? []).map((v) => Array.from(v)) };
-    };
-    expect(ticks(merged)).toEqual({
-      steps: [1, 2, 3],
-      values: [
-        [0.1, 0.5, 0.8],
-        [0.2, 0.6, 0.9],
-        [NaN, 0.7, 1],
-      ],
-    });
-    expect(ticks(merged)).toEqual(ticks(raw));
-    expect(merged.metrics).toEqual(raw.metrics);
-  });
+  it(
+    'tick metrics with different tick counts: the union of steps, missing ticks NaN, the later part ' + 'winning',
+    async () => {
+      const { parts: p, raw } = await parts({
+        A: { 'seed=1/log.csv': 'step,acc@0,acc@1\n1,0.1,0.2\n2,0.3,0.4\n' },
+        B: { 'seed=1/log.csv': 'step,acc@0,acc@1,acc@2\n2,0.5,0.6,0.7\n3,0.8,0.9,1\n' },
+      });
+      const merged = await mergeRunSets(p, none);
+      const ticks = (set: RunSet): unknown => {
+        const t = runById(set, 'seed=1').tickMetrics.acc;
+        return { steps: Array.from(t?.steps ?? []), values: (t?.values ?? []).map((v) => Array.from(v)) };
+      };
+      expect(ticks(merged)).toEqual({
+        steps: [1, 2, 3],
+        values: [
+          [0.1, 0.5, 0.8],
+          [0.2, 0.6, 0.9],
+          [NaN, 0.7, 1],
+        ],
+      });
+      expect(ticks(merged)).toEqual(ticks(raw));
+      expect(merged.metrics).toEqual(raw.metrics);
+    },
+  );
 
   it('three parts: one run-duplicate naming all three in order', async () => {
     const log = 'step,loss\n1,0.5\n';

@@ -23,7 +23,8 @@ describe('malformed rows', () => {
       [file, 7],
     ]);
     expect(withCode(set, 'row-malformed')[0]?.message).toBe(
-      'row rejected, the run keeps its other rows: missing columns: Expected Number of Columns: 3 Found: 2 (column note)',
+      'row rejected, the run keeps its other rows: missing columns: Expected Number of Columns: 3 Found: 2 ' +
+        '(column note)',
     );
     expect(Array.from(runById(set, 'seed=1').metrics.loss?.steps ?? [])).toEqual([1, 2, 5]);
     expect(set.files.find((f) => f.file === file)).toMatchObject({ status: 'read', rows: 3, rejectedRows: 2 });
@@ -85,7 +86,9 @@ describe('file-level problems', () => {
     expect(withCode(set, 'header-drift')).toEqual([
       expect.objectContaining({
         file: at('seed=3/a.csv'),
-        message: `1 file(s) have other columns than the 2 file(s) like ${at('seed=1/a.csv')} (missing: loss; extra: val_loss); columns were matched by name`,
+        message:
+          `1 file(s) have other columns than the 2 file(s) like ${at('seed=1/a.csv')} (missing: loss; extra: ` +
+          `val_loss); columns were matched by name`,
       }),
     ]);
     expect(Array.from(runById(set, 'seed=3').metrics.acc?.values ?? [])).toEqual([0.3]);

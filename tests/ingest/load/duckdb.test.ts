@@ -44,21 +44,28 @@ describe('resultColumns', () => {
     expect(col?.[4999]).toBe(4999);
     expect(col?.[2048]).toBe(2048);
   });
-  it('reads DOUBLE columns from the chunk buffers exactly as the node API reads them, NULLs at any bit of the mask as NaN', async () => {
-    const sql =
-      'SELECT CASE WHEN range % 7 = 3 OR range IN (63, 64, 2047, 2048) THEN NULL ELSE range::DOUBLE * 0.1 - 1e300 * (range = 5)::DOUBLE END, (range % 3)::DOUBLE FROM range(5000)';
-    const [a, b] = resultColumns(await engine.connection.run(sql));
-    const rows = (await engine.connection.runAndReadAll(sql)).getRows();
-    expect(a?.length).toBe(5000);
-    rows.forEach((row, i) => {
-      expect(Object.is(a?.[i], row[0] === null ? NaN : row[0])).toBe(true);
-      expect(b?.[i]).toBe(row[1]);
-    });
-    expect(Number.isNaN(a?.[63])).toBe(true);
-    expect(a?.[62]).toBe(62 * 0.1);
-  });
+  it(
+    'reads DOUBLE columns from the chunk buffers exactly as the node API reads them, NULLs at any bit of the mask ' +
+      'as NaN',
+    async () => {
+      const sql =
+        'SELECT CASE WHEN range % 7 = 3 OR range IN (63, 64, 2047, 2048) THEN NULL ' +
+        'ELSE range::DOUBLE * 0.1 - 1e300 * (range = 5)::DOUBLE END, (range % 3)::DOUBLE FROM range(5000)';
+      const [a, b] = resultColumns(await engine.connection.run(sql));
+      const rows = (await engine.connection.runAndReadAll(sql)).getRows();
+      expect(a?.length).toBe(5000);
+      rows.forEach((row, i) => {
+        expect(Object.is(a?.[i], row[0] === null ? NaN : row[0])).toBe(true);
+        expect(b?.[i]).toBe(row[1]);
+      });
+      expect(Number.isNaN(a?.[63])).toBe(true);
+      expect(a?.[62]).toBe(62 * 0.1);
+    },
+  );
   it('encodes DOUBLE cells on request exactly as cellSql does in SQL (NULL as NaN, nan/inf as +Infinity)', async () => {
-    const values = `(VALUES (0, 1.5::DOUBLE), (1, NULL), (2, 'nan'::DOUBLE), (3, 'inf'::DOUBLE), (4, '-inf'::DOUBLE), (5, -0.0::DOUBLE), (6, 1e308::DOUBLE)) t(i, x)`;
+    const values =
+      `(VALUES (0, 1.5::DOUBLE), (1, NULL), (2, 'nan'::DOUBLE), (3, 'inf'::DOUBLE), (4, ` +
+      `'-inf'::DOUBLE), (5, -0.0::DOUBLE), (6, 1e308::DOUBLE)) t(i, x)`;
     const [raw] = resultColumns(await engine.connection.run(`SELECT x FROM ${values} ORDER BY i`), [true]);
     const [sql] = resultColumns(
       await engine.connection.run(`SELECT ${cellSql('x', 'DOUBLE')} FROM ${values} ORDER BY i`),

@@ -13,7 +13,8 @@ afterAll(() => closeEngine(engine));
 async function encode(values: readonly (string | null)[], type = 'VARCHAR'): Promise<number[]> {
   const list = values.map((v) => (v === null ? 'NULL' : sqlString(v))).join(', ');
   const result = await engine.connection.run(
-    `SELECT ${cellSql('x', type)} FROM (SELECT unnest([${list}]::${type}[]) AS x, generate_subscripts([${list}]::${type}[], 1) AS i) ORDER BY i`,
+    `SELECT ${cellSql('x', type)} FROM (SELECT unnest([${list}]::${type}[]) AS x, ` +
+      `generate_subscripts([${list}]::${type}[], 1) AS i) ORDER BY i`,
   );
   return Array.from(resultColumns(result)[0] as Float64Array);
 }

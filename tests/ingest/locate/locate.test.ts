@@ -191,20 +191,23 @@ describe('locate: --manifest', () => {
     ]);
   });
 
-  it('works without PATHs, checks params.json against the manifest, and reports a seedless row with its line', async () => {
-    const root = await tree({
-      'runs.csv': 'file,seed,ticks\na/log.csv,,8\n',
-      'a/log.csv': LOG,
-      'a/params.json': '{"ticks": 16}',
-    });
-    const manifest = join(root, 'runs.csv');
-    const { sources, problems } = await locate([], opts({ manifest }));
-    expect(sources.map((s) => [s.params, s.seed])).toEqual([[{ ticks: '8' }, 'auto-1']]);
-    expect(problems.map((p) => [p.code, p.file, p.line])).toEqual([
-      ['params-mismatch', join(root, 'a/params.json'), 1],
-      ['seed-missing', manifest, 2],
-    ]);
-  });
+  it(
+    'works without PATHs, checks params.json against the manifest, and reports a seedless row with its ' + 'line',
+    async () => {
+      const root = await tree({
+        'runs.csv': 'file,seed,ticks\na/log.csv,,8\n',
+        'a/log.csv': LOG,
+        'a/params.json': '{"ticks": 16}',
+      });
+      const manifest = join(root, 'runs.csv');
+      const { sources, problems } = await locate([], opts({ manifest }));
+      expect(sources.map((s) => [s.params, s.seed])).toEqual([[{ ticks: '8' }, 'auto-1']]);
+      expect(problems.map((p) => [p.code, p.file, p.line])).toEqual([
+        ['params-mismatch', join(root, 'a/params.json'), 1],
+        ['seed-missing', manifest, 2],
+      ]);
+    },
+  );
 
   it('throws an input error when the manifest has no file column', async () => {
     const root = await tree({ 'runs.csv': 'seed,ticks\n1,8\n' });

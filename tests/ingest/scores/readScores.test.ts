@@ -68,13 +68,16 @@ describe('score tables', () => {
     expect(set.problems.filter((p) => p.code === 'run-duplicate').map((p) => p.line)).toEqual([3]);
   });
 
-  it('a table of numbers only (no config, no seed column): one run per row, each seed-missing with its line', async () => {
-    const file = await table('n.csv', 'a,b\n1,2\n3,4\n');
-    const set = await ingest([], opts({ scores: file }));
-    expect(set.runs.map((r) => r.id)).toEqual(['seed=auto-1', 'seed=auto-2']);
-    expect(set.problems.filter((p) => p.code === 'seed-missing').map((p) => p.line)).toEqual([2, 3]);
-    expect(Array.from(runById(set, 'seed=auto-2').metrics.b?.values ?? [])).toEqual([4]);
-  });
+  it(
+    'a table of numbers only (no config, no seed column): one run per row, each seed-missing with its ' + 'line',
+    async () => {
+      const file = await table('n.csv', 'a,b\n1,2\n3,4\n');
+      const set = await ingest([], opts({ scores: file }));
+      expect(set.runs.map((r) => r.id)).toEqual(['seed=auto-1', 'seed=auto-2']);
+      expect(set.problems.filter((p) => p.code === 'seed-missing').map((p) => p.line)).toEqual([2, 3]);
+      expect(Array.from(runById(set, 'seed=auto-2').metrics.b?.values ?? [])).toEqual([4]);
+    },
+  );
 
   it('a missing score table is a usage error; --by must name a column', async () => {
     await expect(ingest([], opts({ scores: '/nonexistent/scores.csv' }))).rejects.toThrow(SeedsiftError);
