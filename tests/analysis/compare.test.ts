@@ -68,10 +68,10 @@ describe('compareFamily on METHODS.md check values (candidate A, baseline B)', (
   });
 
   it('detectable: pooled sd, minimum detectable difference at 80% power, seeds for the observed difference', () => {
-    // scipy 1.10.1 (tests/reference/analysis_reference.py): pooled sd 1.1793460657742232; noncentral-t MDE at 5 v 7 = 1.8210108583 sd
-    // = 2.1476019914743 metric units (1.6e-11 from the value asserted, from scipy 1.17.1); seeds per arm for d = 1.4535900564185282: 9.
+    // scipy 1.10.1 (tests/reference/analysis_reference.py): pooled sd 1.1793460657742232; noncentral-t MDE at 5 v 7
+    // (brentq on nct power) = 1.8210108583 sd = 2.1476019914743016 metric units; seeds per arm for d = 1.4535900564185282: 9.
     expect(c.detectable.sd).toBeCloseTo(1.1793460657742232, 12);
-    expect(c.detectable.minimumEffect).toBeCloseTo(2.1476019914898608, 6);
+    expect(c.detectable.minimumEffect).toBeCloseTo(2.1476019914743016, 6);
     expect(c.detectable.seedsFor80).toBe(9);
   });
 
