@@ -382,36 +382,44 @@ async function runCase(c: Case, args: readonly string[]): Promise<Outcome> {
 }
 
 describe('the bad-input corpus through seedsift scan --json -', () => {
-  it.each(CASES.map((c) => [c.name, c] as const))('%s', async (_name, c) => {
-    const o = await runCase(c, ['scan', casePath(c), ...argsOf(c), '--json', '-']);
-    expect(o.err, `${c.name}: stderr`).toBe('');
-    expect(o.code).toBe(0);
-    const scan = JSON.parse(o.out) as LossView & { problems: Problem[]; runs: { id: string; status: string }[] };
-    expectProblems(scan.problems, c);
-    expectNoWarnings(scan.problems, c);
-    expect(silentLosses(scan), c.name).toEqual([]);
-    for (const [id, status] of Object.entries(c.runs ?? {}))
-      expect(scan.runs.find((r) => r.id === id)?.status, `${c.name}: run ${id}`).toBe(status);
-  });
+  it.each(CASES.map((c) => [c.name, c] as const))(
+    '%s',
+    async (_name, c) => {
+      const o = await runCase(c, ['scan', casePath(c), ...argsOf(c), '--json', '-']);
+      expect(o.err, `${c.name}: stderr`).toBe('');
+      expect(o.code).toBe(0);
+      const scan = JSON.parse(o.out) as LossView & { problems: Problem[]; runs: { id: string; status: string }[] };
+      expectProblems(scan.problems, c);
+      expectNoWarnings(scan.problems, c);
+      expect(silentLosses(scan), c.name).toEqual([]);
+      for (const [id, status] of Object.entries(c.runs ?? {}))
+        expect(scan.runs.find((r) => r.id === id)?.status, `${c.name}: run ${id}`).toBe(status);
+    },
+    60_000,
+  ); // a case run as nobody starts a child process through tsx: 5 s or more on a loaded machine
 });
 
 describe('the bad-input corpus through seedsift report --json FILE', () => {
-  it.each(CASES.map((c) => [c.name, c] as const))('%s', async (_name, c) => {
-    const file = join(out, `${c.name}.json`);
-    const o = await runCase(c, ['report', casePath(c), ...argsOf(c), '--json', file]);
-    expect(o.err, `${c.name}: stderr`).toBe('');
-    expect(o.code).toBe(0);
-    const results = JSON.parse(readFileSync(file, 'utf8')) as Results;
-    expectProblems(results.problems, c);
-    for (const r of results.runs)
-      if (r.status !== 'ok')
-        expect(
-          r.problems.length + results.problems.filter((p) => p.file !== undefined && r.files.includes(p.file)).length,
-          `${c.name}: run ${r.id}`,
-        ).toBeGreaterThan(0);
-    for (const [id, status] of Object.entries(c.runs ?? {}))
-      expect(results.runs.find((r) => r.id === id)?.status, `${c.name}: run ${id}`).toBe(status);
-  });
+  it.each(CASES.map((c) => [c.name, c] as const))(
+    '%s',
+    async (_name, c) => {
+      const file = join(out, `${c.name}.json`);
+      const o = await runCase(c, ['report', casePath(c), ...argsOf(c), '--json', file]);
+      expect(o.err, `${c.name}: stderr`).toBe('');
+      expect(o.code).toBe(0);
+      const results = JSON.parse(readFileSync(file, 'utf8')) as Results;
+      expectProblems(results.problems, c);
+      for (const r of results.runs)
+        if (r.status !== 'ok')
+          expect(
+            r.problems.length + results.problems.filter((p) => p.file !== undefined && r.files.includes(p.file)).length,
+            `${c.name}: run ${r.id}`,
+          ).toBeGreaterThan(0);
+      for (const [id, status] of Object.entries(c.runs ?? {}))
+        expect(results.runs.find((r) => r.id === id)?.status, `${c.name}: run ${id}`).toBe(status);
+    },
+    60_000,
+  );
 });
 
 describe('the whole corpus at once (committed and generated): still a report, nothing lost silently', () => {

@@ -138,5 +138,30 @@ V = np.array([0.61, 0.64, 0.58, 0.66])
 check('t.interval(0.95, 3, mean, sem) of [0.61, 0.64, 0.58, 0.66]', stats.t.interval(0.95, len(V) - 1, loc=V.mean(), scale=stats.sem(V)),
       [0.5668071896575351, 0.678192810342465], digits=12)
 
+# ---------------------------------------------------------------- analyzeChoices.test.ts: a level other than 0.95
+print('\n# analyzeChoices.test.ts (t.interval at level 0.9 and 0.95; the test holds the mpmath values to 10 digits)')
+
+
+def t_interval_mpmath(level, x):
+    x = np.asarray(x, dtype=float)
+    h = t_ppf_mpmath((1 + level) / 2, len(x) - 1) * stats.sem(x)
+    return [x.mean() - h, x.mean() + h]
+
+
+CHOICES = [
+    (0.9, [0.10, 0.20, 0.40], [-0.024185189250352207, 0.49085185591701896]),
+    (0.9, [0.60, 0.64, 0.71], [0.5561355961197778, 0.7438644038802222]),
+    (0.9, [0.15, 0.25, 0.30], [0.10457407204149055, 0.36209259462517607]),
+    (0.9, [0.66, 0.70, 0.69], [0.6482394742213973, 0.7184271924452692]),
+    (0.95, [0.60, 0.64, 0.71], [0.511689065761544, 0.788310934238456]),
+    (0.9, [0.15, 0.25], [-0.11568757573375188, 0.5156875757337519]),
+    (0.9, [0.2, 0.1875], [0.154289053033281, 0.233210946966719]),
+]
+for level, x, want in CHOICES:
+    # scipy 1.10.1's t.ppf is good to a few 1e-9 relative: 8 digits; the mpmath quantile: the test's 10.
+    check(f't.interval({level}, {len(x) - 1}, mean, sem) of {x}',
+          stats.t.interval(level, len(x) - 1, loc=np.mean(x), scale=stats.sem(x)), want, digits=8)
+    check(f'the same with the mpmath t quantile', t_interval_mpmath(level, x), want, digits=10)
+
 print(f"\n{len(MISMATCHES)} mismatch(es){': ' + '; '.join(MISMATCHES) if MISMATCHES else ''}")
 sys.exit(1 if MISMATCHES else 0)

@@ -252,7 +252,10 @@ describe('mannWhitney against scipy 1.10.1 mannwhitneyu (and permutation_test fo
     const expectedP = { exact: c.exact, 'exact-conditional': c.exactConditional, asymptotic: c.asymptotic }[
       expectedMethod
     ];
-    if (expectedP !== undefined) expectP(auto.p, expectedP['two-sided'], 'auto two-sided');
+    // Every case carries scipy's p-value for the method auto picks (scipy_reference.py records the exact
+    // one up to 50 per group, as auto uses it); a missing one fails rather than skipping the check.
+    expect(expectedP, `fixture has scipy's ${expectedMethod} p-value`).toBeDefined();
+    expectP(auto.p, (expectedP as Record<Alternative, number>)['two-sided'], 'auto two-sided');
   });
 });
 

@@ -10,7 +10,7 @@ function expectRel(actual: number, expected: number, tolerance: number): void {
 
 describe('studentTQuantile', () => {
   it('matches the handbook t table of METHODS.md (0.975 at df 1, 2, 5, 10, 30, 120), first call and remembered', () => {
-    // METHODS.md check values (any statistics handbook's t table, 6 decimals).
+    // METHODS.md check values: 40-digit mpmath roots rounded to 6 decimals (tests/stats/tTable.ts).
     const table = T_TABLE_0975;
     for (let round = 0; round < 2; round++) {
       for (const [df, q] of table)
