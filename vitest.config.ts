@@ -9,6 +9,6 @@ export default defineConfig({
   test: {
     testTimeout: 120_000,
     hookTimeout: 120_000,
-    exclude: [...configDefaults.exclude, '.stryker-tmp/**', 'reports/**'],
+    exclude: [...configDefaults.exclude, '.stryker-tmp*/**', 'reports/**'],
   },
 });
