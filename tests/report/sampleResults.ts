@@ -12,7 +12,7 @@
  *   per-run values written here. Holm adjustments by hand from those p-values.
  * - Per-config means and their t-intervals (`configValues`) are computed here from the per-run
  *   values; they and the curve bands use the t quantiles 2.446912 (df 6), 2.776445 (df 4) and
- *   3.182446 (df 3) (any statistics handbook table).
+ *   3.182446 (df 3) (40-digit mpmath roots rounded to 6 decimals: tests/reference/t_family_reference.py).
  * - Curves, tick curves, halting and calibration are invented shapes for drawing (no test checks a
  *   statistic against them).
  *
@@ -79,7 +79,7 @@ const SEEDS: readonly (readonly string[])[] = [
 ];
 const DIVERGED_AT = 6000;
 const STEPS = Array.from({ length: 21 }, (_, i) => i * 500);
-/** t quantiles 0.975 by df (handbook table). */
+/** t quantiles 0.975 by df (mpmath roots to 6 decimals, tests/reference/t_family_reference.py). */
 const T975: Readonly<Record<number, number>> = { 3: 3.182446, 4: 2.776445, 6: 2.446912 };
 
 const runId = (config: string, seed: string): string => `${config},seed=${seed}`;

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { holm } from '../../src/stats/holm.js';
+import { holm, sortedOrder } from '../../src/stats/holm.js';
 
 function expectAllRelative(actual: number[], expected: number[], tolerance = 1e-10): void {
   expect(actual.length).toBe(expected.length);
@@ -54,5 +54,11 @@ describe('holm', () => {
     expect(() => holm([0.1, 1.2])).toThrow(RangeError);
     expect(() => holm([Number.NaN])).toThrow(RangeError);
     expect(() => holm([-0.1])).toThrow(RangeError);
+    expect(() => holm([0.1, 1.2])).toThrow('holm: p-value 1 must be in [0, 1], got 1.2');
+  });
+
+  it('sortedOrder: increasing p, ties in input order (its documented contract)', () => {
+    expect(sortedOrder([0.3, 0.1, 0.2], 'holm')).toEqual([1, 2, 0]);
+    expect(sortedOrder([0.2, 0.1, 0.2, 0.1, 0.2], 'holm')).toEqual([1, 3, 0, 2, 4]);
   });
 });

@@ -10,7 +10,7 @@ function expectRel(actual: number, expected: number, tolerance: number): void {
 
 describe('studentTQuantile', () => {
   it('matches the handbook t table of METHODS.md (0.975 at df 1, 2, 5, 10, 30, 120), directly and from a cache', () => {
-    // METHODS.md check values (any statistics handbook's t table, 6 decimals).
+    // METHODS.md check values: 40-digit mpmath roots rounded to 6 decimals (tests/stats/tTable.ts).
     const table = T_TABLE_0975;
     const cache = createTQuantileCache();
     for (let round = 0; round < 2; round++) {
@@ -21,15 +21,16 @@ describe('studentTQuantile', () => {
     }
   });
 
-  it('matches scipy stats.t.ppf, whole and fractional df, both tails', () => {
-    // scipy 1.17.1 stats.t.ppf(p, df) (the PyPI build; Debian's python3-scipy 1.10.1 gives values about
-    // 1e-10 relative away, from its older t.ppf: see METHODS.md's note on the Welch interval).
+  it('matches 40-digit t quantiles, whole and fractional df, both tails', () => {
+    // mpmath 1.2.1 at 40 digits (Debian python3-mpmath): the root of the regularized incomplete beta
+    // form of the t CDF, tests/reference/t_family_reference.py ('studentTQuantile cases'). Debian's
+    // scipy 1.10.1 t.ppf is only good to a few 1e-9 relative here (the script prints it beside each).
     const cases: ReadonlyArray<readonly [number, number, number]> = [
-      [0.975, 1, 12.706204736174694],
-      [0.975, 7.5, 2.333039626864974],
-      [0.95, 10, 1.8124611228116756],
-      [0.995, 3.25, 5.416951201235887],
-      [0.025, 12, -2.1788128296672293],
+      [0.975, 1, 12.706204736174705],
+      [0.975, 7.5, 2.3330396268649746],
+      [0.95, 10, 1.8124611228116764],
+      [0.995, 3.25, 5.4169512012358878],
+      [0.025, 12, -2.1788128296672289],
     ];
     for (let round = 0; round < 2; round++) {
       for (const [p, df, q] of cases) expectRel(studentTQuantile(p, df), q, 1e-12);

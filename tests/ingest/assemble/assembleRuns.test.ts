@@ -125,6 +125,22 @@ describe('messy logs, end to end', () => {
     ]);
   });
 
+  it('the short-run threshold is exactly 90% of the longest: 900 of 1000 is ok, 899 (89.9%) is short', async () => {
+    // DESIGN.md "Messy logs": below 0.9 x the longest run of the config is short. 0.9 x 1000 = 900 exactly
+    // in binary floating point (the product rounds to 900), so 900 is not below it; 899 is.
+    const log = (last: number): string => `step,acc\n1,0.5\n${last},0.5\n`;
+    const { set } = await ingestTree({
+      'c=a/seed=1/l.csv': log(1000),
+      'c=a/seed=2/l.csv': log(900),
+      'c=a/seed=3/l.csv': log(899),
+    });
+    expect(set.runs.map((r) => [r.id, r.status])).toEqual([
+      ['c=a,seed=1', 'ok'],
+      ['c=a,seed=2', 'ok'],
+      ['c=a,seed=3', 'short'],
+    ]);
+  });
+
   it('two sources with one config and seed: run-duplicate, rows merged in order, later wins', async () => {
     const { set, at } = await ingestTree({
       'c=a/seed=1/a.csv': 'step,acc\n1,0.1\n2,0.2\n',
