@@ -208,6 +208,10 @@ export interface TaskAggregate {
   readonly baseline: string | null;
   /** Performance profile: fraction of task x run scores above each threshold. */
   readonly profile: { readonly thresholds: readonly number[]; readonly fraction: readonly number[] };
+  /** How scores were put on one scale before aggregating (METHODS.md); absent in older results (raw scores). */
+  readonly normalisation?: 'min-max per task';
+  /** Tasks left out because some compared group has no score there. */
+  readonly leftOut?: readonly string[];
 }
 
 /** Accuracy (or any per-tick metric) by tick for one config. */
