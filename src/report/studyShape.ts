@@ -9,7 +9,7 @@
  *   with comparisons. A metric named by the notebook's cell wins over all of these.
  * - **Tasks** come from `Settings.taskKey`; a config's **group** is its id without the task key
  *   (`method=base`), as the across-task aggregates name them.
- * - A **sweep key** is a config key (not the task key) with at least three distinct values, all of
+ * - A **sweep key** is a config key (not the task key) with at least two distinct values, all of
  *   them numbers.
  */
 import type { Comparison, Results } from '../analysis/results.js';
@@ -56,7 +56,7 @@ export function taskNames(results: Results): string[] {
   return [...out];
 }
 
-/** Config keys whose values are all numbers (at least three distinct), task key excluded, in key order. */
+/** Config keys whose values are all numbers (at least two distinct), task key excluded, in key order. */
 export function sweepKeys(results: Results): string[] {
   const values = new Map<string, Set<string>>();
   for (const c of results.configs) {
@@ -66,7 +66,7 @@ export function sweepKeys(results: Results): string[] {
     }
   }
   return [...values]
-    .filter(([, vs]) => vs.size >= 3 && [...vs].every((v) => v.trim() !== '' && Number.isFinite(Number(v))))
+    .filter(([, vs]) => vs.size >= 2 && [...vs].every((v) => v.trim() !== '' && Number.isFinite(Number(v))))
     .map(([k]) => k);
 }
 

@@ -143,8 +143,8 @@ suite('the report in chromium', () => {
     expect(csp).not.toContain('unsafe-eval');
     expect(csp).toMatch(/default-src 'none'/);
 
-    // The verdict table lies inside the first 1280 x 800 screen.
-    const box = await page.locator('table.verdicts').boundingBox();
+    // The overview (verdict counts and the matrix of differences) lies inside the first 1280 x 800 screen.
+    const box = await page.locator('.overview-cell').boundingBox();
     expect(box).not.toBeNull();
     expect((box?.y ?? Infinity) + (box?.height ?? 0)).toBeLessThanOrEqual(VIEWPORT.height);
     expect((box?.x ?? Infinity) + (box?.width ?? 0)).toBeLessThanOrEqual(VIEWPORT.width);
@@ -152,7 +152,7 @@ suite('the report in chromium', () => {
 
     // Every chart has an SVG with drawn marks, first as written, then as a live Vega view.
     const before = await marksPerChart(page);
-    expect(before).toHaveLength(15);
+    expect(before).toHaveLength(16); // the sweep of val_acc against memory first, then the cells' 15
     expect(before.every((n) => n > 0)).toBe(true);
     const live = await hydrateAll(page);
     expect(live.every((s) => s === 'true')).toBe(true);
@@ -160,7 +160,7 @@ suite('the report in chromium', () => {
     expect(after.every((n) => n > 0)).toBe(true);
 
     // A tooltip appears on hover over a mark (the per-run values chart: one dot per seed).
-    const figure = page.locator('figure.chart').nth(1);
+    const figure = page.locator('figure.chart').nth(2);
     await figure.scrollIntoViewIfNeeded();
     const dots = figure.locator('.role-mark.mark-symbol path');
     expect(await dots.count()).toBeGreaterThan(0);
@@ -176,7 +176,7 @@ suite('the report in chromium', () => {
     expect(await tip.innerText()).toMatch(/seed/);
 
     // Clicking a config in the legend of the learning curves keeps its lines and fades the others.
-    const curves = page.locator('figure.chart').nth(0);
+    const curves = page.locator('figure.chart').nth(1);
     await curves.scrollIntoViewIfNeeded();
     const meanOpacity = (): Promise<Record<string, string>> =>
       curves.evaluate((f) =>
@@ -210,7 +210,7 @@ suite('the report in chromium', () => {
   it('keeps the drawn charts when JavaScript does not run', async () => {
     const { page, watch } = await open(browser, reportFile, false);
     const marks = await marksPerChart(page);
-    expect(marks).toHaveLength(15);
+    expect(marks).toHaveLength(16);
     expect(marks.every((n) => n > 0)).toBe(true);
     expect(await page.locator('.chart-view[data-live]').count()).toBe(0);
     // The toggling hint is for live charts only.
