@@ -35,8 +35,8 @@ export interface OverviewModel {
 
 /**
  * The overview of `metric` (default: `primaryMetric`) under `summary` (default: the report's).
- * Rows: one per candidate (per pair without a baseline), ordered by their decided comparisons
- * (most decided first), ties in `Results` order. Null when nothing of that metric was compared.
+ * Rows: one per candidate (per pair without a baseline), ordered by their decided comparisons of
+ * the metric (most decided first), then by their smallest adjusted p, ties in `Results` order. Null when nothing of that metric was compared.
  * Cost O(comparisons log comparisons). Never throws.
  * Example: demo results → metric val_acc, mode 'metrics', 5 rows, counts { better: 4, worse: 0, inconclusive: 1 }.
  */
@@ -72,7 +72,12 @@ export function overviewModel(results: Results, metric?: string, summary?: strin
     [...cells.values()].filter((c) => c.metric === record.name);
   const rows = [...byRow.values()]
     .map((r) => ({ ...r, counts: verdictCounts(primaryOf(r.cells)) }))
-    .sort((a, b) => b.counts.better + b.counts.worse - (a.counts.better + a.counts.worse) || a.order - b.order)
+    .sort(
+      (a, b) =>
+        b.counts.better + b.counts.worse - (a.counts.better + a.counts.worse) ||
+        smallestP(a.cells, record.name) - smallestP(b.cells, record.name) ||
+        a.order - b.order,
+    )
     .map(({ order: _order, ...r }) => r);
   const baselines = new Set(rows.map((r) => r.baseline));
   return {
@@ -86,6 +91,12 @@ export function overviewModel(results: Results, metric?: string, summary?: strin
     decided: decidedFirst(comparisons),
     sharedBaseline: baselines.size === 1 ? ([...baselines][0] ?? null) : null,
   };
+}
+
+function smallestP(cells: ReadonlyMap<string, Comparison>, metric: string): number {
+  let p = 2;
+  for (const c of cells.values()) if (c.metric === metric && c.pAdjusted !== null) p = Math.min(p, c.pAdjusted);
+  return p;
 }
 
 /** "19 better, 11 worse, 370 inconclusive" (zero counts kept: a reader looks for each word). */

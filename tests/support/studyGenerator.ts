@@ -197,5 +197,6 @@ export const SWEEP_STUDY: StudySpec = {
   shortEvery: 173,
   seed: 168,
   // More ticks help up to 32 (diminishing), memory does not, a wider readout helps a little.
-  effect: (p) => 2.5 * Math.log2(Math.min(Number(p.ticks), 32) / 8) + 0.5 * Math.log2(Number(p.width) / 128),
+  effect: (p) =>
+    2.5 * Math.log2(Math.min(Number(p.ticks ?? 8), 32) / 8) + 0.5 * Math.log2(Number(p.width ?? 128) / 128),
 };

@@ -139,14 +139,14 @@ export function overviewHtml(results: Results, metric?: string, summary?: string
   const c = model.counts;
   const tally = `<p class="tally"><span class="verdict verdict-better">▲ ${c.better} better</span> <span class="verdict verdict-worse">▼ ${c.worse} worse</span> <span class="verdict verdict-inconclusive">● ${c.inconclusive} inconclusive</span> <span class="small">${textHtml(familyWords(results, model))}.</span></p>`;
   const marks = model.mode === 'tasks' && model.columns.length > FULL_CELLS_UP_TO;
-  const decidedRows = model.rows.filter((r) => r.counts.better + r.counts.worse > 0);
-  const shown = model.rows.slice(0, Math.max(ROWS_SHOWN, decidedRows.length));
+  const shown = model.rows.slice(0, ROWS_SHOWN);
   const folded = model.rows.slice(shown.length);
+  const foldedDecided = folded.filter((r) => r.counts.better + r.counts.worse > 0).length;
   const matrix = (rows: readonly OverviewRow[]): string => (marks ? markMatrix(model, rows) : fullMatrix(model, rows));
   const fold =
     folded.length === 0
       ? ''
-      : `<details class="fold"><summary>${textHtml(`${folded.length} more candidates, none decided on ${m.name}`)}</summary>${matrix(folded)}</details>`;
+      : `<details class="fold"><summary>${textHtml(`${folded.length} more candidates (${foldedDecided === 0 ? 'none' : foldedDecided} decided on ${m.name})`)}</summary>${matrix(folded)}</details>`;
   return `<div class="overview-cell"><p class="overview-question">${textHtml(question)}</p>${tally}${matrix(shown)}${fold}${marks ? decidedTable(model) : ''}</div>`;
 }
 
