@@ -10,6 +10,7 @@ import type { ReportOptions } from '../analysis/options.js';
 import type { Results } from '../analysis/results.js';
 import { SeedsiftError } from '../problems.js';
 import { parseNotebook, type NotebookOptions } from '../report/parseNotebook.js';
+import { overviewText } from '../report/overviewText.js';
 import { DEFAULT_NOTEBOOK } from '../report/templatePaths.js';
 import { failedGate } from './gate.js';
 import { progressDisplay } from './progress.js';
@@ -105,7 +106,7 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
       writeOutput(file, text, inputs);
       written.push(file);
     }
-    if (raw.quiet !== true) io.stdout(outcomeLine(result.results, written));
+    if (raw.quiet !== true) io.stdout(overviewText(result.results) + outcomeLine(result.results, written));
     const gate = failedGate(result.results);
     if (gate !== null) {
       io.stderr(`seedsift: --fail-on ${result.results.settings.failOn}: ${gate}\n`);

@@ -11,6 +11,7 @@ import type { Results } from '../../src/analysis/results.js';
 import { fitGroups, SUMMARY_LIMIT } from '../../src/report/fitMarkdown.js';
 import { overviewModel } from '../../src/report/overviewModel.js';
 import { overviewMarkdown } from '../../src/report/overviewMarkdown.js';
+import { overviewText, SCREEN_LINES } from '../../src/report/overviewText.js';
 import { primaryMetric, sweepKeys } from '../../src/report/studyShape.js';
 import { summaryMarkdown } from '../../src/report/summaryMarkdown.js';
 import { sweepModel } from '../../src/report/sweepModel.js';
@@ -154,5 +155,23 @@ describe('summary.md at scale', () => {
 
   it('keeps the whole of summary.md within the limit', () => {
     expect(summaryMarkdown(tasks).length).toBeLessThanOrEqual(SUMMARY_LIMIT);
+  });
+});
+
+describe('the overview in the terminal', () => {
+  it('prints at most a screen, decided comparisons first, and counts the rest', () => {
+    const text = overviewText(tasks);
+    const lines = text.trimEnd().split('\n');
+    expect(lines.length).toBeLessThanOrEqual(SCREEN_LINES);
+    const score = tasks.comparisons.filter((c) => c.metric === 'score');
+    const decided = score.filter((c) => c.verdict !== 'inconclusive').length;
+    expect(lines[0]).toContain(
+      `score (higher is better; summary final) against method=base: ${decided - score.filter((c) => c.verdict === 'worse').length} better`,
+    );
+    const rows = lines.filter((l) => /^ {2}[▲▼●] /.test(l));
+    const firstInconclusive = rows.findIndex((l) => l.includes('●'));
+    // Every decided comparison comes before the first inconclusive one.
+    if (firstInconclusive >= 0) expect(firstInconclusive).toBe(Math.min(decided, rows.length));
+    expect(rows.length + Number(/\.\.\. (\d+) more/.exec(text)?.[1] ?? 0)).toBe(score.length);
   });
 });

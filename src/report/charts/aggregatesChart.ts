@@ -35,7 +35,14 @@ export function aggregatesChart(results: Results, metric: string): TopLevelSpec 
   if (aggs.length === 0) return null;
   const groups = aggs.map((a) => a.config);
   const colour = { field: 'config', type: 'nominal', scale: configColourScale(results, groups), legend: null } as const;
-  const y = { field: 'config', type: 'nominal', title: null, sort: groups, axis: { labelLimit: 220 } } as const;
+  const y = {
+    field: 'config',
+    type: 'nominal',
+    title: null,
+    sort: groups,
+    scale: { domain: groups },
+    axis: { labelLimit: 220 },
+  } as const;
   const rows = aggs.map((a) => ({
     config: a.config,
     iqm: a.interquartileMean,
@@ -76,12 +83,14 @@ export function aggregatesChart(results: Results, metric: string): TopLevelSpec 
   const poiPanel = {
     width: 200,
     height: { step: ROW },
-    data: { values: withPoi.map((r) => ({ ...r, even: 0.5 })) },
+    // Every group keeps its row (the baseline's is empty), so the rows line up with the left panel.
+    data: { values: rows.map((r) => ({ ...r, even: 0.5 })) },
     layer: [
       {
+        transform: [{ filter: 'isValid(datum.poi)' }],
         mark: { type: 'bar', height: 10, opacity: 0.8 },
         encoding: {
-          y: { ...y, axis: null, sort: groups.filter((g) => withPoi.some((r) => r.config === g)) },
+          y: { ...y, axis: null, scale: { domain: groups } },
           x: {
             field: 'even',
             type: 'quantitative',
