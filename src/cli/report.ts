@@ -11,6 +11,7 @@ import type { Results } from '../analysis/results.js';
 import { SeedsiftError } from '../problems.js';
 import { parseNotebook, type NotebookOptions } from '../report/parseNotebook.js';
 import { overviewText } from '../report/overviewText.js';
+import { relativePaths } from './relativePaths.js';
 import { DEFAULT_NOTEBOOK } from '../report/templatePaths.js';
 import { failedGate } from './gate.js';
 import { progressDisplay } from './progress.js';
@@ -83,7 +84,7 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
     const progress = progressDisplay(io, raw.quiet === true);
     const result = await reportPipeline({
       hooks: progress.hooks,
-      paths: runPaths,
+      paths: relativePaths(runPaths, io.cwd),
       ingest: ingestOptions,
       report: mergeReport(front, raw),
       notebook: { source: notebookSource, file: raw.notebook ?? 'templates/notebook.md' },
