@@ -4,6 +4,7 @@
  *   1. ingest     find the files and read them with DuckDB          → RunSet    (src/ingest/)
  *   2. resolve    check the report options against what was read    → ResolvedOptions
  *   3. analyze    summaries, curves, comparisons, verdicts, ticks   → Results   (src/analysis/)
+ *                 (again for each other summary the notebook's cells name, merged in)
  *   4. render     the outputs asked for: HTML, JSON, Markdown       → strings   (src/report/)
  *
  * Writing files and exit codes are the command line's business (src/cli/report.ts).
@@ -15,6 +16,7 @@ import type { Results } from './analysis/results.js';
 import { ingest, type IngestHooks } from './ingest/ingest.js';
 import type { IngestOptions, RunSet } from './ingest/types.js';
 import { resultsJson } from './report/resultsJson.js';
+import { mergeSummary, notebookSummaries } from './report/notebookSummaries.js';
 import { summaryMarkdown } from './report/summaryMarkdown.js';
 import { SeedsiftError } from './problems.js';
 import type { ProgressHook } from './progress.js';
@@ -46,13 +48,13 @@ export async function reportPipeline(job: ReportJob): Promise<ReportOutputs> {
   const runSet = await ingest(job.paths, job.ingest, job.hooks);
   // 2. resolve
   const options = resolveOptions(job.report, runSet);
-  // 3. analyze
-  const results = analyze(
-    runSet,
-    options,
-    { paths: job.paths, generated: job.generated, version: job.version },
-    job.hooks?.progress,
-  );
+  // 3. analyze (once more for each other summary the notebook's cells name)
+  const meta = { paths: job.paths, generated: job.generated, version: job.version };
+  let results = analyze(runSet, options, meta, job.hooks?.progress);
+  if (job.outputs.html)
+    for (const summary of notebookSummaries(job.notebook.source))
+      if (summary !== options.summaryText)
+        results = mergeSummary(results, analyze(runSet, resolveOptions({ ...job.report, summary }, runSet), meta));
   // 4. render
   return {
     runSet,

@@ -3,10 +3,10 @@
  * is computed here): the primary metric, the tasks, the candidates, the sweep keys, and which
  * configs a page highlights once there are too many to tell apart by colour.
  *
- * - The **primary metric** is the metric the study is about: the first scalar metric with
- *   comparisons whose goal the user gave (`--metric`), else the first whose name reads like a
- *   quality measure (acc, score, return, reward, success, solved, f1, bleu, auc), else the first
- *   with comparisons. A metric named by the notebook's cell wins over all of these.
+ * - The **primary metric** is the metric the study is about: among scalar metrics with
+ *   comparisons, the first whose goal the user gave (`--metric`) and whose name reads like a quality
+ *   measure (acc, score, return, reward, success, solved, f1, bleu, auc), else the first whose goal
+ *   the user gave, else the first named like a quality measure, else the first. A metric named by the notebook's cell wins over all of these.
  * - **Tasks** come from `Settings.taskKey`; a config's **group** is its id without the task key
  *   (`method=base`), as the across-task aggregates name them.
  * - A **sweep key** is a config key (not the task key) with at least two distinct values, all of
@@ -28,6 +28,7 @@ export function primaryMetric(results: Results): string | null {
   const compared = new Set(results.comparisons.map((c) => c.metric));
   const candidates = results.metrics.filter((m) => m.kind === 'scalar' && compared.has(m.name));
   const pick =
+    candidates.find((m) => m.goalSource === 'option' && QUALITY_NAME.test(m.name)) ??
     candidates.find((m) => m.goalSource === 'option') ??
     candidates.find((m) => QUALITY_NAME.test(m.name)) ??
     candidates[0] ??
