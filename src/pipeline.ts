@@ -30,6 +30,8 @@ export interface ReportJob {
   readonly generated: string;
   readonly version: string;
   readonly outputs: { readonly html: boolean; readonly json: boolean; readonly markdown: boolean };
+  /** Curves in results.json: on a coarser grid (default) or in full (`--full-curves`). */
+  readonly jsonCurves?: 'coarse' | 'full';
   /** Observers of the work (progress display). */
   readonly hooks?: IngestHooks;
 }
@@ -61,7 +63,7 @@ export async function reportPipeline(job: ReportJob): Promise<ReportOutputs> {
     options,
     results,
     html: job.outputs.html ? await renderHtml(results, job.notebook, job.hooks?.progress) : null,
-    json: job.outputs.json ? resultsJson(results) : null,
+    json: job.outputs.json ? resultsJson(results, job.jsonCurves === 'full' ? { curvePoints: null } : {}) : null,
     markdown: job.outputs.markdown ? summaryMarkdown(results) : null,
   };
 }

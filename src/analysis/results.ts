@@ -312,9 +312,18 @@ export interface Results {
   readonly configValues: readonly ConfigValue[];
   readonly comparisons: readonly Comparison[];
   readonly curves: readonly Curve[];
+  /** Set in results.json only: curves written on a coarser grid (every k-th bin, at most maxPoints), or the full grid (null). */
+  readonly curveGrid?: { readonly maxPoints: number | null; readonly coarsened: boolean };
   readonly tasks: readonly TaskAggregate[];
   readonly ticks: readonly TickCurve[];
   readonly halting: readonly HaltingCurve[];
   readonly calibration: readonly CalibrationCurve[];
   readonly problems: readonly Problem[];
+  /** Set in results.json only: problems grouped by code with their count and first three messages. */
+  readonly problemCodes?: readonly {
+    readonly code: string;
+    readonly severity: string;
+    readonly count: number;
+    readonly examples: readonly string[];
+  }[];
 }

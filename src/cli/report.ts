@@ -26,6 +26,7 @@ interface RawReportOptions extends RawIngestOptions {
   out?: string;
   json?: string;
   markdown?: string;
+  fullCurves?: boolean;
   notebook?: string;
   baseline?: string;
   taskKey?: string;
@@ -58,6 +59,7 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
     .option('--diverged <policy>', 'diverged runs: exclude | worst (default exclude)')
     .option('--seed <n>', 'seed of every resampling (default 1)')
     .option('--fail-on <gate>', 'exit 1 when a comparison is worse | not-better')
+    .option('--full-curves', 'write learning curves to --json on the full grid (default: at most 100 bins each)')
     .option('--quiet', 'print nothing but errors');
   addIngestOptions(command);
   command.action(async (paths: string[], raw: RawReportOptions) => {
@@ -89,6 +91,7 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
       report: mergeReport(front, raw),
       notebook: { source: notebookSource, file: raw.notebook ?? 'templates/notebook.md' },
       generated: reportDate(io.env),
+      jsonCurves: raw.fullCurves === true ? 'full' : 'coarse',
       version: version(),
       outputs: {
         html: outputs.html !== undefined,
