@@ -207,6 +207,24 @@ suite('the report in chromium', () => {
     await page.context().close();
   });
 
+  it('makes legends usable by keyboard: a label takes focus, Enter shows that config alone', async () => {
+    const { page, watch } = await open(browser, reportFile);
+    const curves = page.locator('figure.chart').nth(1);
+    await curves.scrollIntoViewIfNeeded();
+    await expect.poll(() => curves.locator('.chart-view').getAttribute('data-live'), { timeout: 60_000 }).toBe('true');
+    const opacities = (): Promise<string[]> =>
+      curves.evaluate((f) => [...f.querySelectorAll('.mean_marks path')].map((p) => p.getAttribute('opacity') ?? '1'));
+    expect(new Set(await opacities())).toEqual(new Set(['1']));
+    const label = curves.locator('.role-legend-label text', { hasText: new RegExp(`^${SAMPLE_NAMES.configs[1]}$`) });
+    await expect(label.getAttribute('tabindex')).resolves.toBe('0');
+    await label.focus();
+    await page.keyboard.press('Enter');
+    // One config stays at full strength, the others fade (as a mouse click on the label does).
+    await expect.poll(async () => (await opacities()).filter((o) => o === '1').length).toBe(1);
+    expect(watch.console).toEqual([]);
+    await page.context().close();
+  });
+
   it('keeps the drawn charts when JavaScript does not run', async () => {
     const { page, watch } = await open(browser, reportFile, false);
     const marks = await marksPerChart(page);
