@@ -10,7 +10,7 @@ import { escapeMarkdown } from './escape.js';
 import { comparisonDecimals, formatDifference, formatNumber, formatP } from './format.js';
 import { countsWords, familyWords, overviewModel, type OverviewModel } from './overviewModel.js';
 import { sweepKeys } from './studyShape.js';
-import { sweepModel } from './sweepModel.js';
+import { sweepDecimals, sweepModel } from './sweepModel.js';
 import { GOAL_WORDS, sharedIntervalKind, VERDICT_LABELS } from './verdictWords.js';
 
 /** Rows of the overview tables before the rest are counted. */
@@ -124,10 +124,7 @@ export function sweepLines(results: Results, metric: string, summary: string): s
     const sweep = sweepModel(results, metric, summary, key);
     if (sweep === null || sweep.xs.length < 2) continue;
     const xs = sweep.xs.slice(0, SWEEP_COLUMNS);
-    const spread = sweep.series.flatMap((s) =>
-      s.points.map((p) => (p.low === null || p.high === null ? 0 : (p.high - p.low) / 2)),
-    );
-    const decimals = Math.max(2, Math.min(6, 1 - Math.floor(Math.log10(Math.max(...spread, 1e-12)))));
+    const decimals = sweepDecimals(sweep);
     out.push(
       `### ${name(metric)} against ${name(key)}`,
       '',

@@ -84,3 +84,14 @@ export function sweepModel(results: Results, metric: string, summary: string, ke
     })),
   };
 }
+
+/**
+ * Decimals that show a sweep's points to about two significant digits of their widest interval
+ * half-width (2 to 6). Cost O(points). Never throws.
+ */
+export function sweepDecimals(sweep: Sweep): number {
+  const spread = sweep.series.flatMap((x) =>
+    x.points.map((p) => (p.low === null || p.high === null ? 0 : (p.high - p.low) / 2)),
+  );
+  return Math.max(2, Math.min(6, 1 - Math.floor(Math.log10(Math.max(...spread, 1e-12)))));
+}
