@@ -161,10 +161,20 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
     });
   }
   if (hasMean) {
+    // Many configs: the grey ones are drawn first, thin, so the highlighted lines stay on top.
+    const context = many ? summary.filter((row) => !named.includes(row.config)) : [];
+    if (context.length > 0)
+      layers.push({
+        name: 'context',
+        data: { values: context },
+        transform: [perStep],
+        mark: { type: 'line', strokeWidth: 1, opacity: 0.6 },
+        encoding: { x, y: y('mean'), color },
+      });
     layers.push(
       {
         name: 'mean',
-        data: { values: summary },
+        data: { values: many ? focus : summary },
         transform: [perStep],
         mark: { type: 'line', strokeWidth: 2.2 },
         encoding: { x, y: y('mean'), color, opacity: layerOpacity(1, configs.length) },
