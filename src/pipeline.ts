@@ -4,6 +4,7 @@
  *   1. ingest     find the files and read them with DuckDB          → RunSet    (src/ingest/)
  *   2. resolve    check the report options against what was read    → ResolvedOptions
  *   3. analyze    summaries, curves, comparisons, verdicts, ticks   → Results   (src/analysis/)
+ *                 (again for each other summary the notebook's cells name, merged in)
  *   4. render     the outputs asked for: HTML, JSON, Markdown       → strings   (src/report/)
  *
  * Writing files and exit codes are the command line's business (src/cli/report.ts).
@@ -15,6 +16,7 @@ import type { Results } from './analysis/results.js';
 import { ingest, type IngestHooks } from './ingest/ingest.js';
 import type { IngestOptions, RunSet } from './ingest/types.js';
 import { resultsJson } from './report/resultsJson.js';
+import { mergeSummary, notebookSummaries } from './report/notebookSummaries.js';
 import { summaryMarkdown } from './report/summaryMarkdown.js';
 import { SeedsiftError } from './problems.js';
 import type { ProgressHook } from './progress.js';
@@ -28,6 +30,8 @@ export interface ReportJob {
   readonly generated: string;
   readonly version: string;
   readonly outputs: { readonly html: boolean; readonly json: boolean; readonly markdown: boolean };
+  /** Curves in results.json: on a coarser grid (default) or in full (`--full-curves`). */
+  readonly jsonCurves?: 'coarse' | 'full';
   /** Observers of the work (progress display). */
   readonly hooks?: IngestHooks;
 }
@@ -46,20 +50,20 @@ export async function reportPipeline(job: ReportJob): Promise<ReportOutputs> {
   const runSet = await ingest(job.paths, job.ingest, job.hooks);
   // 2. resolve
   const options = resolveOptions(job.report, runSet);
-  // 3. analyze
-  const results = analyze(
-    runSet,
-    options,
-    { paths: job.paths, generated: job.generated, version: job.version },
-    job.hooks?.progress,
-  );
+  // 3. analyze (once more for each other summary the notebook's cells name)
+  const meta = { paths: job.paths, generated: job.generated, version: job.version };
+  let results = analyze(runSet, options, meta, job.hooks?.progress);
+  if (job.outputs.html)
+    for (const summary of notebookSummaries(job.notebook.source))
+      if (summary !== options.summaryText)
+        results = mergeSummary(results, analyze(runSet, resolveOptions({ ...job.report, summary }, runSet), meta));
   // 4. render
   return {
     runSet,
     options,
     results,
     html: job.outputs.html ? await renderHtml(results, job.notebook, job.hooks?.progress) : null,
-    json: job.outputs.json ? resultsJson(results) : null,
+    json: job.outputs.json ? resultsJson(results, job.jsonCurves === 'full' ? { curvePoints: null } : {}) : null,
     markdown: job.outputs.markdown ? summaryMarkdown(results) : null,
   };
 }

@@ -82,6 +82,7 @@
         while (view.firstChild) view.removeChild(view.firstChild);
         view.appendChild(holder);
         view.setAttribute('data-live', 'true');
+        keyboardLegend(holder);
       },
       function () {
         live.finalize();
@@ -89,6 +90,42 @@
       }
     );
   }
+
+  // Legends usable by keyboard: each legend label of a live chart can take focus, and Enter or
+  // Space acts as a click on it (a shift-click with Shift held), which Vega handles as its own.
+  function keyboardLegend(holder) {
+    var labels = holder.querySelectorAll('.role-legend-label text');
+    for (var i = 0; i < labels.length; i++) {
+      var label = labels[i];
+      label.setAttribute('tabindex', '0');
+      label.setAttribute('role', 'button');
+      label.setAttribute('aria-label', 'show ' + label.textContent + ' alone (Shift: add or remove)');
+      label.addEventListener('keydown', function (event) {
+        if (event.key !== 'Enter' && event.key !== ' ') return;
+        event.preventDefault();
+        var box = event.target.getBoundingClientRect();
+        var init = {
+          bubbles: true,
+          cancelable: true,
+          shiftKey: event.shiftKey,
+          clientX: box.left + box.width / 2,
+          clientY: box.top + box.height / 2,
+        };
+        event.target.dispatchEvent(new MouseEvent('click', init));
+      });
+    }
+  }
+
+  // A link into a folded section opens the section, so the contents reach every heading.
+  function openTarget() {
+    var id = decodeURIComponent(location.hash.slice(1));
+    var target = id === '' ? null : document.getElementById(id);
+    for (var node = target; node !== null; node = node.parentElement) {
+      if (node.tagName === 'DETAILS') node.open = true;
+    }
+    if (target !== null) target.scrollIntoView();
+  }
+  window.addEventListener('hashchange', openTarget);
 
   function hydrateSafely(view) {
     if (view.hasAttribute('data-live')) return;
@@ -128,6 +165,11 @@
     for (var i = 0; i < folds.length; i++) folds[i].open = true;
   });
 
-  if (document.readyState === 'loading') document.addEventListener('DOMContentLoaded', start);
-  else start();
+  function ready() {
+    start();
+    if (location.hash !== '') openTarget();
+  }
+
+  if (document.readyState === 'loading') document.addEventListener('DOMContentLoaded', ready);
+  else ready();
 })();

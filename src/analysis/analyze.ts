@@ -41,7 +41,7 @@ import { metricValues } from './runValues.js';
 import { checkSelector, matchesSelector } from './selectors.js';
 import { describeSummary } from './summaryKinds.js';
 import { summaryGoal } from './summarySpec.js';
-import { taskAggregates, type TaskScore } from './tasks.js';
+import { normaliseTaskScores, taskAggregates, type TaskScore } from './tasks.js';
 import { tickCurves } from './ticks.js';
 import type { ProgressHook } from '../progress.js';
 
@@ -239,7 +239,16 @@ function metricTasks(
   const baselineOf = new Map<string, string>();
   if (options.baseline !== null)
     for (const p of pairing.pairs) if (!baselineOf.has(p.candidate)) baselineOf.set(p.candidate, p.baseline);
-  return taskAggregates(info.name, summaryGoal(options.summary, info.goal), groups, scores, baselineOf, options);
+  const normal = normaliseTaskScores(scores, groups);
+  const settings = { ...options, leftOut: normal.leftOut };
+  return taskAggregates(
+    info.name,
+    summaryGoal(options.summary, info.goal),
+    groups,
+    normal.scores,
+    baselineOf,
+    settings,
+  );
 }
 
 function dumpAnalyses(

@@ -171,6 +171,10 @@ export interface TaskAggregate {
   readonly baseline: string | null;
   /** Performance profile: fraction of task x run scores above each threshold. */
   readonly profile: { readonly thresholds: readonly number[]; readonly fraction: readonly number[] };
+  /** How scores were put on one scale before aggregating (METHODS.md); absent in older results (raw scores). */
+  readonly normalisation?: 'min-max per task';
+  /** Tasks left out because some compared group has no score there. */
+  readonly leftOut?: readonly string[];
 }
 
 /** Accuracy (or any per-tick metric) by tick for one config. */
@@ -271,9 +275,18 @@ export interface Results {
   readonly configValues: readonly ConfigValue[];
   readonly comparisons: readonly Comparison[];
   readonly curves: readonly Curve[];
+  /** Set in results.json only: curves written on a coarser grid (every k-th bin, at most maxPoints), or the full grid (null). */
+  readonly curveGrid?: { readonly maxPoints: number | null; readonly coarsened: boolean };
   readonly tasks: readonly TaskAggregate[];
   readonly ticks: readonly TickCurve[];
   readonly halting: readonly HaltingCurve[];
   readonly calibration: readonly CalibrationCurve[];
   readonly problems: readonly Problem[];
+  /** Set in results.json only: problems grouped by code with their count and first three messages. */
+  readonly problemCodes?: readonly {
+    readonly code: string;
+    readonly severity: string;
+    readonly count: number;
+    readonly examples: readonly string[];
+  }[];
 }

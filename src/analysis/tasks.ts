@@ -10,8 +10,10 @@
  * - the performance profile: the fraction of the config's task x run scores better than each of a
  *   shared grid of thresholds (`> t` for a goal of max, `< t` for min), 41 thresholds evenly spaced
  *   from the smallest to the largest score of the metric.
- * Scores are raw (not normalised per task): the IQM mixes tasks on their own scales, which is the
- * user's to judge. Cost per config: `resamples` x O(scores log scores).
+ * Scores are first normalised per task (`normaliseTaskScores`, METHODS.md): min-max over all runs
+ * of that task, so a task scored in hundreds and one scored in fractions weigh alike; only tasks
+ * every compared group has a score on are aggregated, and the others are named (`leftOut`).
+ * Cost per config: `resamples` x O(scores log scores).
  */
 import type { Goal } from '../ingest/types.js';
 import { interquartileMean } from '../stats/interquartileMean.js';
@@ -31,6 +33,39 @@ export interface TaskSettings {
   readonly level: number;
   readonly resamples: number;
   readonly seed: number;
+  /** Tasks left out before these scores (set when the scores were normalised by `normaliseTaskScores`). */
+  readonly leftOut?: readonly string[];
+}
+
+/**
+ * Per-task min-max normalisation (METHODS.md, "Several tasks"): each score becomes
+ * (value - min) / (max - min) over all scores of its task (0 when the task's scores are all equal),
+ * keeping only tasks on which every group in `groups` has at least one score. For a goal of `min`
+ * the scale keeps its direction (lower is still better). Returns the kept scores and the tasks
+ * left out, in first-seen order.
+ * Cost O(scores). Never throws.
+ * Example: task a scores 10 and 30 → 0 and 1; task b held by one group of two → left out.
+ */
+export function normaliseTaskScores(
+  scores: readonly TaskScore[],
+  groups: readonly string[],
+): { readonly scores: TaskScore[]; readonly leftOut: string[] } {
+  const byTask = new Map<string, { groups: Set<string>; low: number; high: number }>();
+  for (const s of scores) {
+    const t = byTask.get(s.task) ?? { groups: new Set<string>(), low: Infinity, high: -Infinity };
+    t.groups.add(s.group);
+    t.low = Math.min(t.low, s.value);
+    t.high = Math.max(t.high, s.value);
+    byTask.set(s.task, t);
+  }
+  const leftOut = [...byTask].filter(([, t]) => groups.some((g) => !t.groups.has(g))).map(([task]) => task);
+  const out: TaskScore[] = [];
+  for (const s of scores) {
+    const t = byTask.get(s.task);
+    if (t === undefined || leftOut.includes(s.task)) continue;
+    out.push({ ...s, value: t.high > t.low ? (s.value - t.low) / (t.high - t.low) : 0 });
+  }
+  return { scores: out, leftOut };
 }
 
 /** Thresholds of the performance profile. */
@@ -62,6 +97,7 @@ export function taskAggregates(
     highest = Math.max(highest, s.value);
   }
   const thresholds = profileThresholds(lowest, highest);
+  const extra = { normalisation: 'min-max per task' as const, leftOut: [...(settings.leftOut ?? [])] };
   const out: TaskAggregate[] = [];
   for (const group of groups) {
     const tasks = byGroup.get(group);
@@ -95,6 +131,7 @@ export function taskAggregates(
       probabilityOfImprovement: baseline === null ? null : averageImprovement(tasks, byGroup.get(baseline), goal),
       baseline,
       profile: { thresholds, fraction: thresholds.map((t) => fractionBetter(all, t, goal)) },
+      ...(settings.leftOut === undefined ? {} : extra),
     });
   }
   return out;

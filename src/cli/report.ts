@@ -10,6 +10,8 @@ import type { ReportOptions } from '../analysis/options.js';
 import type { Results } from '../analysis/results.js';
 import { SeedsiftError } from '../problems.js';
 import { parseNotebook, type NotebookOptions } from '../report/parseNotebook.js';
+import { overviewText } from '../report/overviewText.js';
+import { relativePaths } from './relativePaths.js';
 import { DEFAULT_NOTEBOOK } from '../report/templatePaths.js';
 import { failedGate } from './gate.js';
 import { progressDisplay } from './progress.js';
@@ -25,6 +27,7 @@ interface RawReportOptions extends RawIngestOptions {
   out?: string;
   json?: string;
   markdown?: string;
+  fullCurves?: boolean;
   notebook?: string;
   baseline?: string;
   taskKey?: string;
@@ -66,6 +69,7 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
     .option('--interval <kind>', 'headline interval: welch | bca (default welch)')
     .option('--seed <n>', 'seed of every resampling (default 1)')
     .option('--fail-on <gate>', 'exit 1 when a comparison is worse | not-better')
+    .option('--full-curves', 'write learning curves to --json on the full grid (default: at most 100 bins each)')
     .option('--quiet', 'print nothing but errors');
   addIngestOptions(command);
   command.action(async (paths: string[], raw: RawReportOptions) => {
@@ -92,11 +96,12 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
     const progress = progressDisplay(io, raw.quiet === true);
     const result = await reportPipeline({
       hooks: progress.hooks,
-      paths: runPaths,
+      paths: relativePaths(runPaths, io.cwd),
       ingest: ingestOptions,
       report: mergeReport(front, raw),
       notebook: { source: notebookSource, file: raw.notebook ?? 'templates/notebook.md' },
       generated: reportDate(io.env),
+      jsonCurves: raw.fullCurves === true ? 'full' : 'coarse',
       version: version(),
       outputs: {
         html: outputs.html !== undefined,
@@ -115,7 +120,7 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
       writeOutput(file, text, inputs);
       written.push(file);
     }
-    if (raw.quiet !== true) io.stdout(outcomeLine(result.results, written));
+    if (raw.quiet !== true) io.stdout(overviewText(result.results) + outcomeLine(result.results, written));
     const gate = failedGate(result.results);
     if (gate !== null) {
       io.stderr(`seedsift: --fail-on ${result.results.settings.failOn}: ${gate}\n`);

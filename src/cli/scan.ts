@@ -5,6 +5,7 @@ import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from '.
 import { modeFiles } from '../ingest/readingMode.js';
 import { inputFiles } from './inputFiles.js';
 import { progressDisplay } from './progress.js';
+import { relativePaths } from './relativePaths.js';
 import type { Io } from './io.js';
 import { writeOutput } from './writeOutput.js';
 
@@ -27,7 +28,7 @@ export function scanCommand(io: Io, done: (code: number) => void): Command {
     if (paths.length === 0 && options.mode.kind !== 'scores')
       throw new SeedsiftError('usage', 'scan: expected PATH... (folders or files of run logs) or --scores FILE');
     const progress = progressDisplay(io, raw.quiet === true);
-    const runSet = await ingest(paths, options, progress.hooks).finally(() => progress.done());
+    const runSet = await ingest(relativePaths(paths, io.cwd), options, progress.hooks).finally(() => progress.done());
     const inv = inventory(runSet);
     if (raw.json === '-') io.stdout(scanJson(runSet, inv));
     else {

@@ -5,7 +5,9 @@
  * (CUD): how to make figures and presentations that are friendly to colorblind people"
  * (https://jfly.uni-koeln.de/color/), then, for configs 9 to 17, Paul Tol's muted scheme. Configs
  * take them in the order of `Results.configs`, so a config has the same colour in every chart of
- * one report. Verdicts use the palette's green and
+ * one report. With a task key a config's colour is its group's (`method=x` has one colour on every
+ * task); from `HIGHLIGHT_FROM` groups on, only the baseline and decided candidates keep a colour
+ * and the rest are drawn in `MUTED_INK` (the charts' captions say so). Verdicts use the palette's green and
  * vermillion plus a neutral grey, and are always named in text and shape as well as colour.
  *
  * The look is our own: a warm paper background, serif titles over sans-serif labels, dotted grid
@@ -13,6 +15,7 @@
  */
 import type { Config } from 'vega-lite';
 import type { Results, Verdict } from '../analysis/results.js';
+import { configGroups, highlightedGroups } from './studyShape.js';
 
 /** Okabe & Ito (2008) colours, by their published names. */
 export const OKABE_ITO = {
@@ -103,19 +106,32 @@ export const CHART_HEIGHT = 260;
  * Example: `configColourScale(results, ['b'])` with configs [a, b] → `{ domain: ['b'], range: ['#D55E00'] }`.
  */
 export function configColourScale(results: Results, present: readonly string[]): { domain: string[]; range: string[] } {
+  const groups = configGroups(results);
+  const order = [...new Set(groups.values())];
+  const highlighted = highlightedGroups(results);
+  const colourOf = (group: string, fallback: number): string => {
+    if (highlighted !== null) {
+      const i = highlighted.indexOf(group);
+      return i < 0 ? MUTED_INK : (CONFIG_COLOURS[i] ?? OKABE_ITO.black);
+    }
+    const i = order.indexOf(group);
+    return CONFIG_COLOURS[(i < 0 ? fallback : i) % CONFIG_COLOURS.length] ?? OKABE_ITO.black;
+  };
   const known = results.configs.map((c) => c.id);
   const wanted = new Set(present);
-  const extra = [...wanted].filter((id) => !known.includes(id));
-  const order = [...known, ...extra];
+  const extra = [...wanted].filter((id) => !groups.has(id));
   const domain: string[] = [];
   const range: string[] = [];
-  order.forEach((id, index) => {
+  [...known, ...extra].forEach((id, index) => {
     if (!wanted.has(id)) return;
     domain.push(id);
-    range.push(CONFIG_COLOURS[index % CONFIG_COLOURS.length] ?? OKABE_ITO.black);
+    range.push(colourOf(groups.get(id) ?? id, order.length + index - known.length));
   });
   return { domain, range };
 }
+
+/** The grey of configs that are not highlighted on a page with many (see `highlightedGroups`). */
+export const MUTED_INK = '#c4beb2';
 
 /**
  * The report-wide colour of one config (its index in `Results.configs`, cycling after seventeen).

@@ -27,6 +27,7 @@ import { roundChartData } from './charts/roundChartData.js';
 import { staticChart } from './charts/staticChart.js';
 import { compileVega, renderSvg } from './renderSvg.js';
 import { createSlugger } from './slugger.js';
+import { studyContext, type StudyContext } from './studyContext.js';
 
 /** What a template can read: the whole `Results` and handy lists. */
 export interface NotebookContext {
@@ -39,6 +40,8 @@ export interface NotebookContext {
   /** Metrics with learning curves or per-run values (not per-tick). */
   readonly scalarMetrics: Results['metrics'];
   readonly tickMetrics: Results['metrics'];
+  /** The study's shape for the default notebook (`studyContext`). */
+  readonly study: StudyContext;
 }
 
 /** The rendered notebook: the main column's HTML. */
@@ -90,6 +93,7 @@ function context(results: Results, title: string): NotebookContext {
     metrics: results.metrics,
     scalarMetrics: results.metrics.filter((m) => m.kind === 'scalar'),
     tickMetrics: results.metrics.filter((m) => m.kind === 'tick'),
+    study: studyContext(results),
   };
 }
 

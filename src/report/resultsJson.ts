@@ -9,6 +9,7 @@
  * left out, as `JSON.stringify` does.
  */
 import type { Results } from '../analysis/results.js';
+import { coarseCurves, JSON_CURVE_POINTS } from './coarseCurves.js';
 import schema from './results.schema.json' with { type: 'json' };
 
 /** The part of a JSON Schema node that decides key order. */
@@ -49,12 +50,30 @@ function ordered(value: unknown, node: SchemaNode | undefined): unknown {
 /**
  * Serialise `Results` as `results.json` (format `seedsift-results`, version 1): key order of the
  * type, 2-space indentation, trailing newline, null for every missing or non-finite number.
+ * Curves are written on a coarser grid of at most `curvePoints` bins (default `JSON_CURVE_POINTS`;
+ * null for the full grid), said in `curveGrid`; `problemCodes` groups the problems by code.
  * Identical `Results` give identical bytes. Cost O(size of Results). Never throws for a `Results`
  * value (plain records only; a cyclic value would throw a TypeError from `JSON.stringify`).
  * Example: `resultsJson(results).startsWith('{\n  "format": "seedsift-results",\n  "version": 1,')` → true.
  */
-export function resultsJson(results: Results): string {
-  return `${JSON.stringify(ordered(results, ROOT), null, 2)}\n`;
+export function resultsJson(results: Results, options: { readonly curvePoints?: number | null } = {}): string {
+  const points = options.curvePoints === undefined ? JSON_CURVE_POINTS : options.curvePoints;
+  const bins = Math.max(0, ...results.curves.map((c) => c.steps.length));
+  const curves = points === null ? results.curves : coarseCurves(results.curves, points);
+  const curveGrid = { maxPoints: points, coarsened: points !== null && bins > points };
+  return `${JSON.stringify(ordered({ ...results, curves, curveGrid, problemCodes: problemCodes(results) }, ROOT), null, 2)}\n`;
+}
+
+/** Problems grouped by code: severity, count and the first three messages (every one stays in `problems`). */
+function problemCodes(results: Results): { code: string; severity: string; count: number; examples: string[] }[] {
+  const byCode = new Map<string, { code: string; severity: string; count: number; examples: string[] }>();
+  for (const p of results.problems) {
+    const g = byCode.get(p.code) ?? { code: p.code, severity: p.severity, count: 0, examples: [] };
+    g.count += 1;
+    if (g.examples.length < 3) g.examples.push(p.message);
+    byCode.set(p.code, g);
+  }
+  return [...byCode.values()];
 }
 
 /** The JSON Schema (draft-07) of `results.json`, as shipped in `results.schema.json`. */

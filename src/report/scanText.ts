@@ -2,7 +2,10 @@
  * The readable summary printed by `seedsift scan`: a configs x seeds grid, metrics with their goals
  * and step ranges, tick metrics, runs that are not ok, and problems grouped by code with counts
  * and the first few places. Plain text, fixed-width, no colour (it goes to logs as often as to
- * terminals).
+ * terminals). At scale it stays short: with more than `GRID_SEEDS` seed columns, or seeds read from
+ * inside files, the grid becomes one line per config with counts by status (and at most
+ * `GRID_CONFIGS` configs); files not used are grouped by status, reason and extension; and a
+ * config key that looks like a task or evaluation set is pointed out for `--task-key`.
  */
 import type { Inventory } from '../analysis/inventory.js';
 import { naturalCompare } from '../analysis/inventory.js';
@@ -11,6 +14,13 @@ import type { Problem } from '../problems.js';
 
 const STATUS_MARK = { ok: 'o', diverged: 'D', short: 'S', rejected: 'x' } as const;
 const PLACES_SHOWN = 3;
+/** More seed columns than this (or seeds from inside files) collapse the grid. */
+export const GRID_SEEDS = 20;
+/** Configs listed in a collapsed grid before the rest are counted. */
+export const GRID_CONFIGS = 40;
+/** Key names that usually hold tasks or evaluation sets. */
+const TASK_LIKE =
+  /^(task|tasks|env|environment|game|dataset|data|benchmark|suite|problem|level|split|eval|domain)(_?name|_?id)?$/i;
 
 /** Render the scan summary. */
 export function scanText(runSet: RunSet, inv: Inventory): string {
@@ -21,12 +31,13 @@ export function scanText(runSet: RunSet, inv: Inventory): string {
   );
   out.push(
     '',
-    ...grid(inv),
+    ...grid(inv, runSet),
     '',
     ...metricLines(inv),
     ...tickDumpLines(runSet.tickDumps),
     ...runLines(inv),
-    ...fileLines(runSet.files),
+    ...fileLines(runSet.files, runSet.problems),
+    ...taskKeyHint(runSet, inv),
     '',
     ...problemLines(runSet.problems),
   );
@@ -46,11 +57,14 @@ function table(rows: readonly (readonly string[])[]): string[] {
   );
 }
 
-function grid(inv: Inventory): string[] {
+function grid(inv: Inventory, runSet: RunSet): string[] {
   const seeds = [...new Set(inv.runs.map((r) => r.seed))].sort(naturalCompare);
+  const inside = runSet.runs.some((r) => r.identity === 'seed-column' || r.identity === 'seed-columns');
+  if (seeds.length > GRID_SEEDS || inside) return collapsedGrid(inv, seeds.length, inside);
   const status = new Map(inv.runs.map((r) => [`${r.config}\u0000${r.seed}`, r.status]));
   const rows = [['config', ...seeds.map((s) => `seed ${s}`)]];
-  for (const c of inv.configs) {
+  const more = inv.configs.length - GRID_CONFIGS;
+  for (const c of inv.configs.slice(0, GRID_CONFIGS)) {
     rows.push([
       c.id || '(no config keys)',
       ...seeds.map((s) => {
@@ -59,7 +73,11 @@ function grid(inv: Inventory): string[] {
       }),
     ]);
   }
-  return [`Configs x seeds (o ok, D diverged, S short, x rejected, . none):`, ...table(rows)];
+  return [
+    `Configs x seeds (o ok, D diverged, S short, x rejected, . none):`,
+    ...table(rows),
+    ...(more > 0 ? [`  ... and ${more} more configs (runs not ok are listed below; all in --json)`] : []),
+  ];
 }
 
 function metricLines(inv: Inventory): string[] {
@@ -106,11 +124,13 @@ function tickDumpLines(dumps: readonly TickDump[]): string[] {
 function runLines(inv: Inventory): string[] {
   const odd = inv.runs.filter((r) => r.status !== 'ok');
   if (odd.length === 0) return [];
+  const shown = odd.slice(0, GRID_CONFIGS);
   return [
     '',
-    'Runs not ok:',
+    `Runs not ok (${odd.length}):`,
+    ...(odd.length > shown.length ? [`  (the first ${shown.length}; all in --json)`] : []),
     ...table(
-      odd.map((r) => [
+      shown.map((r) => [
         r.id,
         r.status === 'diverged' ? `diverged at step ${r.divergedAt}` : `${r.status}, last step ${r.lastStep}`,
       ]),
@@ -118,10 +138,70 @@ function runLines(inv: Inventory): string[] {
   ];
 }
 
-function fileLines(files: readonly FileRecord[]): string[] {
+/** One line per config: its runs counted by status. */
+function collapsedGrid(inv: Inventory, seedCount: number, inside: boolean): string[] {
+  const byConfig = new Map<string, Map<string, number>>();
+  for (const r of inv.runs) {
+    const counts = byConfig.get(r.config) ?? new Map<string, number>();
+    counts.set(r.status, (counts.get(r.status) ?? 0) + 1);
+    byConfig.set(r.config, counts);
+  }
+  const shown = inv.configs.slice(0, GRID_CONFIGS);
+  const rows = [['config', 'runs', 'by status']];
+  for (const c of shown) {
+    const counts = byConfig.get(c.id) ?? new Map<string, number>();
+    const total = [...counts.values()].reduce((a, b) => a + b, 0);
+    rows.push([c.id || '(no config keys)', String(total), [...counts].map(([st, n]) => `${n} ${st}`).join(', ')]);
+  }
+  const why = inside ? 'seeds read from inside files' : `${seedCount} seeds`;
+  const more = inv.configs.length - shown.length;
+  return [
+    `Configs (${why}; one line per config):`,
+    ...table(rows),
+    ...(more > 0 ? [`  ... and ${more} more configs (see --json)`] : []),
+  ];
+}
+
+function extension(file: string): string {
+  const base = file.slice(file.lastIndexOf('/') + 1);
+  const m = /(\.[A-Za-z0-9]+(\.gz)?)$/.exec(base);
+  return m?.[1] ?? '(none)';
+}
+
+/** Files not read, grouped by status and reason, then by extension, with a few examples each. */
+function fileLines(files: readonly FileRecord[], problems: readonly Problem[]): string[] {
   const notRead = files.filter((f) => f.status !== 'read');
   if (notRead.length === 0) return [];
-  return ['', 'Files not used:', ...table(notRead.map((f) => [f.file, f.status]))];
+  const reasons = new Map<string, string>();
+  for (const p of problems) if (p.file !== undefined && !reasons.has(p.file)) reasons.set(p.file, p.message);
+  const groups = new Map<string, FileRecord[]>();
+  for (const f of notRead) {
+    const key = `${f.status}: ${reasons.get(f.file) ?? 'no reason recorded'}`;
+    groups.set(key, [...(groups.get(key) ?? []), f]);
+  }
+  const out = ['', `Files not used (${notRead.length}):`];
+  for (const [key, list] of groups) {
+    const byExt = new Map<string, number>();
+    for (const f of list) byExt.set(extension(f.file), (byExt.get(extension(f.file)) ?? 0) + 1);
+    const exts = [...byExt].sort((a, b) => b[1] - a[1]).map(([e, n]) => `${e} ${n}`);
+    out.push(`  ${key} x${list.length} (${exts.slice(0, 6).join(', ')}${exts.length > 6 ? ', ...' : ''})`);
+    for (const f of list.slice(0, PLACES_SHOWN)) out.push(`    ${f.file}`);
+    if (list.length > PLACES_SHOWN) out.push(`    ... and ${list.length - PLACES_SHOWN} more (see --json)`);
+  }
+  return out;
+}
+
+/** Keys whose name and values look like tasks or evaluation sets: a hint to report with --task-key. */
+function taskKeyHint(runSet: RunSet, inv: Inventory): string[] {
+  const out: string[] = [];
+  for (const key of runSet.keys) {
+    const values = new Set(inv.configs.map((c) => c.params[key]).filter((v) => v !== undefined));
+    if (!TASK_LIKE.test(key) || values.size < 2) continue;
+    out.push(
+      `Key '${key}' (${values.size} values) looks like tasks or evaluation sets: report with --task-key ${key} to compare within each and aggregate across them.`,
+    );
+  }
+  return out.length === 0 ? [] : ['', ...out];
 }
 
 function place(p: Problem): string {

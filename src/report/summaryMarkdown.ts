@@ -2,11 +2,15 @@
  * `summary.md`: the verdicts as GitHub-flavoured Markdown for a pull request. One table per metric
  * (and summary, and task): baseline, candidate, difference with its interval, adjusted p, verdict,
  * seeds; then the caution lines of those comparisons and the caution that a test is evidence, not
- * proof. Every name from the data is escaped (`escapeMarkdown`: no emphasis, link, HTML, cell break
+ * proof, after the overview (`overviewMarkdown`: the answer, aggregates, sweeps); the whole stays
+ * within `SUMMARY_LIMIT` characters (`fitGroups`). Every name from the data is escaped (`escapeMarkdown`: no emphasis, link, HTML, cell break
  * or mention can form; newlines become spaces). Renders `Results`; computes nothing statistical.
  */
 import type { Comparison, Results } from '../analysis/results.js';
 import { escapeMarkdown } from './escape.js';
+import { fitGroups, SUMMARY_LIMIT } from './fitMarkdown.js';
+import { overviewMarkdown } from './overviewMarkdown.js';
+import { primaryMetric } from './studyShape.js';
 import {
   comparisonDecimals,
   formatDifference,
@@ -156,10 +160,13 @@ export function summaryMarkdown(results: Results): string {
       `${s.baseline === null ? ', every pair of configs' : `, baseline ${name(s.baseline)}`}. Intervals are ${formatLevel(s.level)} and unadjusted; the verdict accounts for the family.`,
     '',
   );
+  out.push(...overviewMarkdown(results));
   const groups = comparisonGroups(results);
   if (groups.length === 0)
     out.push('No comparisons: the runs hold fewer than two configs to compare, or no metric with values.', '');
-  for (const g of groups) out.push(...groupTable(results, g));
+  // The whole file stays within SUMMARY_LIMIT (a pull-request comment); 2,000 characters are kept for the lines after.
+  const used = out.reduce((n, l) => n + l.length + 1, 0);
+  out.push(...fitGroups(groups, (g) => groupTable(results, g), SUMMARY_LIMIT - used - 2_000, primaryMetric(results)));
   const problems = problemLine(results);
   if (problems !== null) out.push(problems, '');
   out.push(`> ${standardCaution(s.alpha)}`, '');

@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { probabilityOfImprovement, PROFILE_POINTS, taskAggregates, type TaskScore } from '../../src/analysis/tasks.js';
+import {
+  normaliseTaskScores,
+  probabilityOfImprovement,
+  PROFILE_POINTS,
+  taskAggregates,
+  type TaskScore,
+} from '../../src/analysis/tasks.js';
 
 const settings = { level: 0.95, resamples: 2000, seed: 1 };
 
@@ -38,5 +44,54 @@ describe('taskAggregates', () => {
   it('probabilityOfImprovement counts ties as one half', () => {
     expect(probabilityOfImprovement([1, 2], [2], 'max')).toBe(0.25);
     expect(probabilityOfImprovement([1, 2], [2], 'min')).toBe(0.75);
+  });
+});
+
+describe('normaliseTaskScores (METHODS.md: min-max per task over all runs, only tasks every group has)', () => {
+  it('puts each task on [0, 1] from its own smallest and largest score (first principles)', () => {
+    const scores: TaskScore[] = [
+      { task: 'points', group: 'base', value: 100 },
+      { task: 'points', group: 'ours', value: 300 },
+      { task: 'points', group: 'ours', value: 200 },
+      { task: 'fraction', group: 'base', value: 0.5 },
+      { task: 'fraction', group: 'ours', value: 0.7 },
+      { task: 'flat', group: 'base', value: 3 },
+      { task: 'flat', group: 'ours', value: 3 },
+      { task: 'only-base', group: 'base', value: 9 },
+    ];
+    const frozen = Object.freeze(scores.map((s) => Object.freeze({ ...s })));
+    const out = normaliseTaskScores(frozen, ['base', 'ours']);
+    expect(out.leftOut).toEqual(['only-base']);
+    expect(out.scores.map((s) => [s.task, s.group, s.value])).toEqual([
+      ['points', 'base', 0],
+      ['points', 'ours', 1],
+      ['points', 'ours', 0.5],
+      ['fraction', 'base', 0],
+      ['fraction', 'ours', 1],
+      ['flat', 'base', 0],
+      ['flat', 'ours', 0],
+    ]);
+  });
+
+  it('makes the interquartile mean weigh a task in hundreds and one in fractions alike', () => {
+    // Two tasks, two groups, two runs each; 'ours' is the best run on both tasks by the same share of
+    // the task's range, so after normalisation both groups have the same scores on both tasks.
+    const scores: TaskScore[] = [
+      ...[100, 300].map((value) => ({ task: 'points', group: 'base', value })),
+      ...[200, 300].map((value) => ({ task: 'points', group: 'ours', value })),
+      ...[0.1, 0.3].map((value) => ({ task: 'fraction', group: 'base', value })),
+      ...[0.2, 0.3].map((value) => ({ task: 'fraction', group: 'ours', value })),
+    ];
+    const normal = normaliseTaskScores(scores, ['base', 'ours']);
+    const aggs = taskAggregates('acc', 'max', ['base', 'ours'], normal.scores, new Map(), {
+      ...settings,
+      leftOut: normal.leftOut,
+    });
+    // base: [0, 1, 0, 1] → IQM (fractional, 25% trimmed each end of 4) = mean of the middle two = 0.5.
+    expect(aggs[0]?.interquartileMean).toBeCloseTo(0.5, 12);
+    // ours: [0.5, 1, 0.5, 1] → middle two 0.5 and 1 → 0.75.
+    expect(aggs[1]?.interquartileMean).toBeCloseTo(0.75, 12);
+    expect(aggs[1]?.normalisation).toBe('min-max per task');
+    expect(aggs[1]?.leftOut).toEqual([]);
   });
 });

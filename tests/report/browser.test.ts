@@ -148,8 +148,8 @@ suite('the report in chromium', () => {
     expect(csp).not.toContain('unsafe-eval');
     expect(csp).toMatch(/default-src 'none'/);
 
-    // The verdict table lies inside the first 1280 x 800 screen.
-    const box = await page.locator('table.verdicts').boundingBox();
+    // The overview (verdict counts and the matrix of differences) lies inside the first 1280 x 800 screen.
+    const box = await page.locator('.overview-cell').boundingBox();
     expect(box).not.toBeNull();
     expect((box?.y ?? Infinity) + (box?.height ?? 0)).toBeLessThanOrEqual(VIEWPORT.height);
     expect((box?.x ?? Infinity) + (box?.width ?? 0)).toBeLessThanOrEqual(VIEWPORT.width);
@@ -157,7 +157,7 @@ suite('the report in chromium', () => {
 
     // Every chart has an SVG with drawn marks, first as written, then as a live Vega view.
     const before = await marksPerChart(page);
-    expect(before).toHaveLength(15);
+    expect(before).toHaveLength(16); // the sweep of val_acc against memory first, then the cells' 15
     expect(before.every((n) => n > 0)).toBe(true);
     const live = await hydrateAll(page);
     expect(live.every((s) => s === 'true')).toBe(true);
@@ -165,7 +165,7 @@ suite('the report in chromium', () => {
     expect(after.every((n) => n > 0)).toBe(true);
 
     // A tooltip appears on hover over a mark (the per-run values chart: one dot per seed).
-    const figure = page.locator('figure.chart').nth(1);
+    const figure = page.locator('figure.chart').nth(2);
     await figure.scrollIntoViewIfNeeded();
     const dots = figure.locator('.role-mark.mark-symbol path');
     expect(await dots.count()).toBeGreaterThan(0);
@@ -181,7 +181,7 @@ suite('the report in chromium', () => {
     expect(await tip.innerText()).toMatch(/seed/);
 
     // Clicking a config in the legend of the learning curves keeps its lines and fades the others.
-    const curves = page.locator('figure.chart').nth(0);
+    const curves = page.locator('figure.chart').nth(1);
     await curves.scrollIntoViewIfNeeded();
     const meanOpacity = (): Promise<Record<string, string>> =>
       curves.evaluate((f) =>
@@ -212,10 +212,28 @@ suite('the report in chromium', () => {
     await page.context().close();
   });
 
+  it('makes legends usable by keyboard: a label takes focus, Enter shows that config alone', async () => {
+    const { page, watch } = await open(browser, reportFile);
+    const curves = page.locator('figure.chart').nth(1);
+    await curves.scrollIntoViewIfNeeded();
+    await expect.poll(() => curves.locator('.chart-view').getAttribute('data-live'), { timeout: 60_000 }).toBe('true');
+    const opacities = (): Promise<string[]> =>
+      curves.evaluate((f) => [...f.querySelectorAll('.mean_marks path')].map((p) => p.getAttribute('opacity') ?? '1'));
+    expect(new Set(await opacities())).toEqual(new Set(['1']));
+    const label = curves.locator('.role-legend-label text', { hasText: new RegExp(`^${SAMPLE_NAMES.configs[1]}$`) });
+    await expect(label.getAttribute('tabindex')).resolves.toBe('0');
+    await label.focus();
+    await page.keyboard.press('Enter');
+    // One config stays at full strength, the others fade (as a mouse click on the label does).
+    await expect.poll(async () => (await opacities()).filter((o) => o === '1').length).toBe(1);
+    expect(watch.console).toEqual([]);
+    await page.context().close();
+  });
+
   it('keeps the drawn charts when JavaScript does not run', async () => {
     const { page, watch } = await open(browser, reportFile, false);
     const marks = await marksPerChart(page);
-    expect(marks).toHaveLength(15);
+    expect(marks).toHaveLength(16);
     expect(marks.every((n) => n > 0)).toBe(true);
     expect(await page.locator('.chart-view[data-live]').count()).toBe(0);
     // The toggling hint is for live charts only.

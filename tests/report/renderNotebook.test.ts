@@ -96,7 +96,7 @@ describe('renderNotebook: mistakes name the notebook line', () => {
     expect(e.file).toBe('studies/memory.md');
     expect(e.line).toBe(lineOf(source, '{{compair'));
     expect(e.message).toMatch(
-      /^unknown cell or field 'compair'; the cells are verdicts, .*\(studies\/memory\.md:16\)$/,
+      /^unknown cell or field 'compair'; the cells are overview, aggregates, sweep, verdicts, .*\(studies\/memory\.md:16\)$/,
     );
   });
 

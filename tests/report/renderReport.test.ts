@@ -76,7 +76,8 @@ describe('renderReport', () => {
 
   it('draws every chart as SVG with marks, beside a compiled Vega spec that parses', () => {
     const figures = [...html.matchAll(/<figure class="chart" id="chart-(\d+)">([\s\S]*?)<\/figure>/g)];
-    expect(figures.length).toBe(15);
+    // 15 charts of the cells, and the sweep of val_acc against memory (the fixture's one numeric key).
+    expect(figures.length).toBe(16);
     for (const [, , inner] of figures) {
       const svg = /<svg[\s\S]*<\/svg>/.exec(inner ?? '')?.[0] ?? '';
       expect(svg).toMatch(/<path|<rect|<line|<circle/);
@@ -92,7 +93,10 @@ describe('renderReport', () => {
   });
 
   it('draws no invisible hover layer in the SVG but keeps it in the live spec, and rounds chart data to 6 significant digits', () => {
-    const figure = /<figure class="chart" id="chart-1">([\s\S]*?)<\/figure>/.exec(html)?.[1] ?? '';
+    const figure =
+      [...html.matchAll(/<figure class="chart" id="chart-\d+">([\s\S]*?)<\/figure>/g)]
+        .map((m) => m[1] ?? '')
+        .find((f) => f.includes('<title>val_acc: learning curves</title>')) ?? '';
     expect(figure).toContain('learning curves');
     const svg = /<svg[\s\S]*<\/svg>/.exec(figure)?.[0] ?? '';
     const json = /<script type="application\/json" class="chart-spec">([\s\S]*?)<\/script>/.exec(figure)?.[1] ?? '';
@@ -139,13 +143,16 @@ describe('renderReport', () => {
     expect(html).toMatch(/\.chart-hint \{ display: none;/);
   });
 
-  it('puts the verdict table first, with a table of contents and the date of the results', () => {
+  it('puts the overview first (the answer before any chart), with a table of contents and the date of the results', () => {
     const main = html.slice(html.indexOf('<main'));
-    expect(main.indexOf('<table class="verdicts">')).toBeLessThan(main.indexOf('<figure'));
+    expect(main.indexOf('<div class="overview-cell">')).toBeGreaterThan(0);
+    expect(main.indexOf('<div class="overview-cell">')).toBeLessThan(main.indexOf('<figure'));
+    expect(main.indexOf('<div class="overview-cell">')).toBeLessThan(main.indexOf('<table class="verdicts">'));
     expect(html).toContain('<p class="kicker">seedsift report · 1 March 2026, 12:00 UTC</p>');
     const toc = /<nav class="toc"[\s\S]*?<\/nav>/.exec(html)?.[0] ?? '';
     for (const entry of [
-      'Verdicts',
+      'Overview',
+      'All verdicts',
       'val_acc',
       'train_loss',
       'Ticks',
@@ -185,7 +192,8 @@ describe('the size of a report as large as the demo', () => {
     ]);
     expect(results.ticks.map((t) => t.ticks.length)).toEqual([8, 8, 16, 16, 32, 32, 8, 8, 16, 16, 32, 32]);
     const page = await renderReport(results, NOTEBOOK, 'templates/notebook.md');
-    expect([...page.matchAll(/<figure class="chart"/g)]).toHaveLength(17);
+    // 17 charts of the cells and two sweeps (val_acc against ticks and against memory).
+    expect([...page.matchAll(/<figure class="chart"/g)]).toHaveLength(19);
     // Rendered by the code of commit 8f350a1 (before this bound), this fixture measured 3,277,052 bytes.
     expect(Buffer.byteLength(page, 'utf8')).toBeLessThan(2_000_000);
   });

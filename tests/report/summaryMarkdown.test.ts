@@ -22,8 +22,13 @@ function decode(html: string): string {
     .replace(/&amp;/g, '&');
 }
 
-/** Tables of the rendered Markdown: rows of cell texts (header row first). */
+/** Verdict tables of the rendered Markdown (those headed Baseline; the overview's come before them): rows of cell texts (header row first). */
 function tables(markdown: string): string[][][] {
+  return allTables(markdown).filter((t) => t[0]?.[0] === 'Baseline');
+}
+
+/** Every table of the rendered Markdown. */
+function allTables(markdown: string): string[][][] {
   const html = md.render(markdown);
   return [...html.matchAll(/<table>([\s\S]*?)<\/table>/g)].map((t) =>
     [...(t[1] ?? '').matchAll(/<tr>([\s\S]*?)<\/tr>/g)].map((r) =>
@@ -96,7 +101,7 @@ describe('summaryMarkdown', () => {
   it('says so when there is nothing to compare', () => {
     const empty: Results = { ...sampleResults(), comparisons: [] };
     expect(summaryMarkdown(empty)).toContain('No comparisons');
-    expect(tables(summaryMarkdown(empty))).toHaveLength(0);
+    expect(allTables(summaryMarkdown(empty))).toHaveLength(0);
   });
 });
 

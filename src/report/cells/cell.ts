@@ -136,3 +136,15 @@ export function figureHtml(state: RenderState, spec: TopLevelSpec | null, captio
 
 /** The placeholder pattern that `figureHtml` leaves for chart N. */
 export const CHART_PLACEHOLDER = /<!--seedsift-chart:(\d+)-->/g;
+
+/** Tables with more rows than this are folded (`foldWhenLong`). */
+export const FOLD_ROWS = 24;
+
+/**
+ * A long block folded in `<details>` with `summary` as its label (escaped); short ones as they are.
+ * Cost O(1). Never throws.
+ */
+export function foldWhenLong(html: string, rows: number, summary: string): string {
+  if (rows <= FOLD_ROWS) return html;
+  return `<details class="fold"><summary>${escapeHtml(visibleText(summary))}</summary>${html}</details>`;
+}

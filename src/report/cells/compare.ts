@@ -20,6 +20,7 @@ import {
   formatSigned,
 } from '../format.js';
 import { listHtml, nameHtml, tableHtml, type TableCell } from '../html.js';
+import { decidedFirst } from '../studyShape.js';
 import { verdictHtml } from './verdicts.js';
 import { figureHtml, metricParam, summaryOption, type Cell } from './cell.js';
 
@@ -133,11 +134,18 @@ export const compare: Cell = {
     const m = metricParam(state, call, 0);
     const summary = summaryOption(state, call, m.name);
     const r = state.results;
-    const mine = r.comparisons.filter((c) => c.metric === m.name && c.summary === summary);
-    const caption = `Candidate minus baseline, in the metric's own units (summary ${summary}); each comparison at its own step; every statistic of each comparison is in the table below.`;
+    const all = r.comparisons.filter((c) => c.metric === m.name && c.summary === summary);
+    const mine = detailedComparisons(all);
+    const left = all.length - mine.length;
+    const caption =
+      `Candidate minus baseline, in the metric's own units (summary ${summary}); each comparison at its own step; ` +
+      `every statistic of each comparison is in the table below.` +
+      (left > 0
+        ? ` ${left} more comparisons (inconclusive) are left out here: their rows are under All verdicts and every statistic in results.json.`
+        : '');
     const chart = figureHtml(
       state,
-      compareChart(r, m.name, summary),
+      compareChart(left > 0 ? { ...r, comparisons: mine } : r, m.name, summary),
       caption,
       `No comparisons of ${m.name} under summary ${summary}.`,
     );
@@ -151,6 +159,21 @@ export const compare: Cell = {
     return chart + table + listHtml(cautions);
   },
 };
+
+/** Comparisons detailed in full before the rest are left to the verdict table. */
+export const DETAILED_UP_TO = 12;
+
+/**
+ * The comparisons a compare cell details: all of them up to `DETAILED_UP_TO`; beyond, the decided
+ * ones (smallest adjusted p first, at most `DETAILED_UP_TO`), or the first ones when none is decided.
+ * Cost O(comparisons log comparisons). Never throws.
+ */
+export function detailedComparisons(all: readonly Comparison[]): Comparison[] {
+  if (all.length <= DETAILED_UP_TO) return [...all];
+  const decided = decidedFirst(all).filter((c) => c.verdict !== 'inconclusive');
+  const chosen = new Set(decided.length > 0 ? decided.slice(0, DETAILED_UP_TO) : all.slice(0, DETAILED_UP_TO));
+  return all.filter((c) => chosen.has(c));
+}
 
 /** The comparison's column title as HTML (names isolated). */
 export function comparisonTitleHtml(c: Comparison): string {

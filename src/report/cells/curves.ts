@@ -1,8 +1,10 @@
 /**
  * `{{curves "val_acc"}}`: the learning curves of one metric (mean across seeds, its band, one thin
- * line per seed), drawn from `Results.curves` by `curvesChart`.
+ * line per seed), drawn from `Results.curves` by `curvesChart`; with a task key, one small panel per
+ * task (`taskCurvesChart`).
  */
 import { curvesChart } from '../charts/curvesChart.js';
+import { taskCurvesChart } from '../charts/taskPanels.js';
 import { formatIntervalKind, formatNumber } from '../format.js';
 import { figureHtml, metricParam, type Cell } from './cell.js';
 
@@ -22,7 +24,9 @@ export const curves: Cell = {
     const caption = `The ${bands} band shows the spread between seeds: it is for looking, the tests decide. No curve runs past a run's last step.${horizon}`;
     return figureHtml(
       state,
-      curvesChart(state.results, m.name),
+      state.results.settings.taskKey === null
+        ? curvesChart(state.results, m.name)
+        : taskCurvesChart(state.results, m.name),
       caption,
       `No learning curves of ${m.name} in these results (a score table holds final numbers only).`,
     );

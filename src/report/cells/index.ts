@@ -10,21 +10,27 @@
 import type Handlebars from 'handlebars';
 import type { HelperOptions } from 'handlebars';
 import { SeedsiftError } from '../../problems.js';
+import { aggregates } from './aggregates.js';
 import { calibration } from './calibration.js';
 import { CellError, checkCall, type Cell, type RenderState } from './cell.js';
 import { compare } from './compare.js';
 import { curves } from './curves.js';
 import { halting } from './halting.js';
 import { methods } from './methods.js';
+import { overview } from './overview.js';
 import { metric } from './metric.js';
 import { problems } from './problems.js';
 import { runs } from './runs.js';
+import { sweep } from './sweep.js';
 import { ticks } from './ticks.js';
 import { values } from './values.js';
 import { verdicts } from './verdicts.js';
 
 /** Every cell, by the name a notebook calls it. */
 export const CELLS: readonly Cell[] = [
+  overview,
+  aggregates,
+  sweep,
   verdicts,
   metric,
   curves,

@@ -1,8 +1,9 @@
 /**
  * `{{problems}}`: everything seedsift noticed about the input, errors first: severity, code,
  * message, where (file:line, run), and what to do (from the table of problem codes). When there
- * are many, the notes (expected things, such as train and eval rows sharing a file) fold away
- * under a line that counts them by code, so errors and warnings stay in view.
+ * are many, they are grouped by code: one row per code with its count and a few examples (every
+ * one is in results.json), and the notes (expected things, such as train and eval rows sharing a
+ * file) fold away under a line that counts them by code, so errors and warnings stay in view.
  */
 import { PROBLEM_CODES, type Problem, type Severity } from '../../problems.js';
 import { codeHtml, nameHtml, noteHtml, tableHtml, textHtml, type TableCell } from '../html.js';
@@ -14,6 +15,46 @@ const ORDER: Readonly<Record<Severity, number>> = { error: 0, warning: 1, note: 
 const OPEN_UP_TO = 12;
 
 const HEAD = ['Severity', 'Code', 'Message', 'Where', 'What to do'];
+
+/** Above this many problems of one severity group, they are shown one row per code. */
+const GROUP_FROM = 30;
+/** Examples shown per code when grouped. */
+export const EXAMPLES = 3;
+
+/** One row per code: severity, code, count, the first `EXAMPLES` messages with where, what to do. */
+function grouped(list: readonly Problem[]): string {
+  const byCode = new Map<string, Problem[]>();
+  for (const p of list) byCode.set(p.code, [...(byCode.get(p.code) ?? []), p]);
+  const codes = [...byCode];
+  const rows: TableCell[][] = codes.map(([code, ps]) => {
+    const first = ps[0] as Problem;
+    const examples = ps
+      .slice(0, EXAMPLES)
+      .map((p) => {
+        const w = where(p);
+        return `<li>${textHtml(p.message)}${w === null ? '' : ` <span class="small">(${typeof w === 'string' ? textHtml(w) : w.html})</span>`}</li>`;
+      })
+      .join('');
+    const more =
+      ps.length > EXAMPLES
+        ? `<li class="small">${textHtml(`${ps.length - EXAMPLES} more like these (all in results.json)`)}</li>`
+        : '';
+    return [
+      { html: `<span class="severity severity-${first.severity}">${textHtml(first.severity)}</span>` },
+      { html: `<code>${textHtml(code)}</code>` },
+      String(ps.length),
+      { html: `<ul class="cautions">${examples}${more}</ul>` },
+      PROBLEM_CODES[first.code]?.action ?? null,
+    ];
+  });
+  return tableHtml({
+    className: 'problems',
+    head: ['Severity', 'Code', 'Count', 'Examples', 'What to do'],
+    rows,
+    numeric: [2],
+    rowClasses: codes.map(([, ps]) => `severity-${ps[0]?.severity ?? 'note'}`),
+  });
+}
 
 function table(list: readonly Problem[]): string {
   const rows: TableCell[][] = list.map((p) => [
@@ -55,7 +96,8 @@ export const problems: Cell = {
     const notes = list.filter((p) => p.severity === 'note');
     if (list.length <= OPEN_UP_TO || notes.length === 0) return table(list);
     const serious = list.filter((p) => p.severity !== 'note');
-    const open = serious.length === 0 ? noteHtml('No errors or warnings; only notes.') : table(serious);
-    return `${open}<details class="fold"><summary>${textHtml(noteSummary(notes))}</summary>${table(notes)}</details>`;
+    const show = (ps: readonly Problem[]): string => (ps.length > GROUP_FROM ? grouped(ps) : table(ps));
+    const open = serious.length === 0 ? noteHtml('No errors or warnings; only notes.') : show(serious);
+    return `${open}<details class="fold"><summary>${textHtml(noteSummary(notes))}</summary>${show(notes)}</details>`;
   },
 };

@@ -5,10 +5,14 @@
  * without a value with the reason.
  */
 import type { ConfigValue, Results, RunValue } from '../../analysis/results.js';
+import { taskValuesChart } from '../charts/taskPanels.js';
 import { valuesChart } from '../charts/valuesChart.js';
 import { decimalsFor, formatIntervalKind, formatNumber } from '../format.js';
 import { nameHtml, tableHtml, textHtml, type TableCell } from '../html.js';
-import { figureHtml, metricParam, summaryOption, type Cell } from './cell.js';
+import { figureHtml, foldWhenLong, metricParam, summaryOption, type Cell } from './cell.js';
+
+/** Configs up to which the table lists every seed's value. */
+export const SEEDS_LISTED_UP_TO = 60;
 
 function valuesList(values: readonly RunValue[], decimals: number): string {
   return values
@@ -81,20 +85,20 @@ export const values: Cell = {
     const caption = `The tests compare these per-run numbers (summary ${summary}); the table lists them by seed.`;
     const chart = figureHtml(
       state,
-      valuesChart(r, m.name, summary),
+      r.settings.taskKey === null ? valuesChart(r, m.name, summary) : taskValuesChart(r, m.name, summary),
       caption,
       `No per-run values of ${m.name} under summary ${summary}.`,
     );
     if (rows.length === 0) return chart;
     const meanHead = kinds === '' ? 'Mean' : `Mean [${kinds}]`;
-    return (
-      chart +
-      tableHtml({
-        className: 'values',
-        head: ['Config', 'Runs used', meanHead, 'Values by seed'],
-        rows,
-        numeric: [1, 2],
-      })
-    );
+    // Many configs: the seeds' values stay in the chart and results.json; the table keeps the means.
+    const bySeed = rows.length <= SEEDS_LISTED_UP_TO;
+    const table = tableHtml({
+      className: 'values',
+      head: ['Config', 'Runs used', meanHead, ...(bySeed ? ['Values by seed'] : [])],
+      rows: bySeed ? rows : rows.map((row) => row.slice(0, 3)),
+      numeric: [1, 2],
+    });
+    return chart + foldWhenLong(table, rows.length, `Values of all ${rows.length} configs, by seed`);
   },
 };

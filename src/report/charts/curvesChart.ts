@@ -4,7 +4,8 @@
  */
 import type { TopLevelSpec } from 'vega-lite';
 import type { IntervalMethod, Results } from '../../analysis/results.js';
-import { CONFIG_LEGEND, configColourScale, REFERENCE_INK } from '../palette.js';
+import { CONFIG_LEGEND, configColourScale, MUTED_INK, REFERENCE_INK } from '../palette.js';
+import { HIGHLIGHT_FROM } from '../studyShape.js';
 import { chartFrame, NUMBER_FORMAT, STEP_FORMAT, type Layer } from './chartFrame.js';
 import { coarsenLine, lineStride } from './coarsenLine.js';
 import { intervalLabel, intervalLabels } from './intervalLabel.js';
@@ -92,18 +93,23 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
   }
 
   const configs = curves.map((c) => c.config);
+  const scale = configColourScale(results, configs);
+  // Many configs: the legend lists only the highlighted ones (the rest are drawn grey).
+  const many = configs.length >= HIGHLIGHT_FROM;
+  const named = many ? scale.domain.filter((_, i) => scale.range[i] !== MUTED_INK) : scale.domain;
   const color = {
     field: 'config',
     type: 'nominal',
     title: 'config',
-    scale: configColourScale(results, configs),
-    legend: CONFIG_LEGEND,
+    scale,
+    legend: many ? { ...CONFIG_LEGEND, values: named } : CONFIG_LEGEND,
   } as const;
   const x = { field: 'step', type: 'quantitative', title: 'step', axis: { format: '~s' } } as const;
   const y = (field: string) => ({ field, type: 'quantitative', title: metric, scale: { zero: false } }) as const;
   const band = intervalLabels(bandMethods);
 
-  const hasSeeds = seeds.some((row) => row.value.some((v) => v !== null));
+  // Beyond a dozen configs single seeds are left out (the per-seed chart shows every one).
+  const hasSeeds = !many && seeds.some((row) => row.value.some((v) => v !== null));
   const hasBand = summary.some((row) => row.low.some((v) => v !== null));
   const hasMean = summary.some((row) => row.mean.some((v) => v !== null));
   const perStep = { flatten: ['step', 'mean', 'low', 'high', 'n', 'band'] };
@@ -143,27 +149,39 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
       },
     });
   }
-  if (hasBand) {
+  // Many configs: bands and hover points only for the highlighted ones (grey lines are context).
+  const focus = many ? summary.filter((row) => named.includes(row.config)) : summary;
+  if (hasBand && focus.some((row) => row.low.some((v) => v !== null))) {
     layers.push({
       name: 'band',
-      data: { values: summary },
+      data: { values: focus },
       transform: [perStep],
       mark: { type: 'area' },
       encoding: { x, y: y('low'), y2: { field: 'high' }, color, opacity: layerOpacity(0.2, configs.length) },
     });
   }
   if (hasMean) {
+    // Many configs: the grey ones are drawn first, thin, so the highlighted lines stay on top.
+    const context = many ? summary.filter((row) => !named.includes(row.config)) : [];
+    if (context.length > 0)
+      layers.push({
+        name: 'context',
+        data: { values: context },
+        transform: [perStep],
+        mark: { type: 'line', strokeWidth: 1, opacity: 0.6 },
+        encoding: { x, y: y('mean'), color },
+      });
     layers.push(
       {
         name: 'mean',
-        data: { values: summary },
+        data: { values: many ? focus : summary },
         transform: [perStep],
         mark: { type: 'line', strokeWidth: 2.2 },
         encoding: { x, y: y('mean'), color, opacity: layerOpacity(1, configs.length) },
       },
       {
         name: 'hover',
-        data: { values: summary },
+        data: { values: focus },
         transform: [perStep, { filter: { field: 'mean', valid: true } }],
         mark: { type: 'point', filled: true, size: 50, opacity: 0 },
         encoding: {
@@ -188,7 +206,9 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
     ...chartFrame({
       title: `${metric}: learning curves`,
       subtitle: [
-        `Thick line: mean across seeds. Thin lines: single seeds (${runCount})${stride === 1 ? '' : `, each drawn with one point per ${stride} bins`}.`,
+        many
+          ? `Line: mean across seeds; single seeds are left out at ${configs.length} configs. The baseline and ${named.length - 1} decided candidates in colour, the other ${configs.length - named.length} in grey.`
+          : `Thick line: mean across seeds. Thin lines: single seeds (${runCount})${stride === 1 ? '' : `, each drawn with one point per ${stride} bins`}.`,
         band === ''
           ? 'No band: too few seeds per step for an interval.'
           : `Band: ${band} of the mean across seeds, per step.`,

@@ -4,7 +4,8 @@
  */
 import type { TopLevelSpec } from 'vega-lite';
 import type { Results } from '../../analysis/results.js';
-import { configColourScale } from '../palette.js';
+import { configColourScale, MUTED_INK } from '../palette.js';
+import { HIGHLIGHT_FROM } from '../studyShape.js';
 import { chartFrame, NUMBER_FORMAT, type Layer } from './chartFrame.js';
 import { intervalLabel, intervalLabels } from './intervalLabel.js';
 
@@ -20,10 +21,15 @@ import { intervalLabel, intervalLabels } from './intervalLabel.js';
  */
 export function valuesChart(results: Results, metric: string, summary: string): TopLevelSpec | null {
   const values = results.values.filter((v) => v.metric === metric && v.summary === summary);
-  const drawn = values.filter((v) => v.value !== null);
-  if (drawn.length === 0) return null;
+  if (!values.some((v) => v.value !== null)) return null;
 
   const order = results.configs.map((c) => c.id);
+  const present = [...new Set(values.filter((v) => v.value !== null).map((v) => v.config))];
+  // Many configs: only the highlighted ones (baseline, decided candidates) get a row; the table lists all.
+  const full = configColourScale(results, present);
+  const keep =
+    present.length >= HIGHLIGHT_FROM ? new Set(full.domain.filter((_, i) => full.range[i] !== MUTED_INK)) : null;
+  const drawn = values.filter((v) => v.value !== null && (keep === null || keep.has(v.config)));
   const configs = [...new Set(drawn.map((v) => v.config))].sort((a, b) => rank(order, a) - rank(order, b));
   const perConfig = new Map<string, number>();
   for (const v of drawn) perConfig.set(v.config, (perConfig.get(v.config) ?? 0) + 1);
@@ -83,7 +89,7 @@ export function valuesChart(results: Results, metric: string, summary: string): 
     { field: 'interval', type: 'nominal', title: 'interval' },
     { field: 'n', type: 'quantitative', title: 'runs' },
   ] as const;
-  const missing = values.length - drawn.length;
+  const missing = values.filter((v) => v.value === null).length;
   const unused = dots.filter((d) => !d.used).length;
 
   const used = dots.filter((d) => d.used);
@@ -130,6 +136,10 @@ export function valuesChart(results: Results, metric: string, summary: string): 
   const subtitle = [
     `One dot per seed: filled, used in tests${unused > 0 ? `; hollow diamond, not used (${unused})` : ''}. Bar: mean across seeds; line: ${intervalLabels(meanRows.length === 0 ? [] : [...summaries.values()].map((c) => ({ method: c.method, level: c.level })))} of the mean.`,
   ];
+  if (keep !== null)
+    subtitle.push(
+      `Of ${present.length} configs, only the baseline and the decided candidates are drawn (${configs.length}); the table lists every one.`,
+    );
   if (missing > 0)
     subtitle.push(
       `${missing} run${missing === 1 ? ' has' : 's have'} no value (diverged, censored or missing) and ${missing === 1 ? 'is' : 'are'} not drawn.`,

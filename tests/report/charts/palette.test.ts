@@ -10,6 +10,7 @@ import {
   CONFIG_COLOURS,
   configColour,
   configColourScale,
+  MUTED_INK,
   OKABE_ITO,
   TOL_MUTED,
   VERDICT_COLOURS,
@@ -55,13 +56,41 @@ describe('palette', () => {
     });
   });
 
-  it('gives 17 configs 17 colours, and cycles after that', () => {
+  it('gives 12 configs 12 colours; from 13 on, only the baseline and decided candidates keep one', () => {
     const base = makeResults();
-    const many = { ...base, configs: Array.from({ length: 19 }, (_, i) => ({ ...base.configs[0]!, id: `c${i}` })) };
-    expect(new Set(Array.from({ length: 17 }, (_, i) => configColour(many, `c${i}`))).size).toBe(17);
-    expect(configColour(many, 'c8')).toBe(TOL_MUTED.indigo);
-    expect(configColour(many, 'c17')).toBe(CONFIG_COLOURS[0]);
-    expect(configColour(many, 'c18')).toBe(CONFIG_COLOURS[1]);
+    const configs = (n: number) => Array.from({ length: n }, (_, i) => ({ ...base.configs[0]!, id: `c${i}` }));
+    const twelve = { ...base, configs: configs(12), comparisons: [] };
+    expect(new Set(Array.from({ length: 12 }, (_, i) => configColour(twelve, `c${i}`))).size).toBe(12);
+    expect(configColour(twelve, 'c8')).toBe(TOL_MUTED.indigo);
+    const template = base.comparisons[0]!;
+    const comparisons = [
+      { ...template, baseline: 'c0', candidate: 'c5', verdict: 'inconclusive' as const, pAdjusted: 0.5 },
+      { ...template, baseline: 'c0', candidate: 'c7', verdict: 'worse' as const, pAdjusted: 0.01 },
+      { ...template, baseline: 'c0', candidate: 'c3', verdict: 'better' as const, pAdjusted: 0.02 },
+    ];
+    const many = { ...base, configs: configs(19), comparisons };
+    // Baseline first, then decided candidates (better before worse), the rest grey.
+    expect(configColour(many, 'c0')).toBe(CONFIG_COLOURS[0]);
+    expect(configColour(many, 'c3')).toBe(CONFIG_COLOURS[1]);
+    expect(configColour(many, 'c7')).toBe(CONFIG_COLOURS[2]);
+    expect(configColour(many, 'c5')).toBe(MUTED_INK);
+    expect(configColour(many, 'c18')).toBe(MUTED_INK);
+  });
+
+  it('gives a method one colour on every task (task key)', () => {
+    const base = makeResults();
+    const cfg = (task: string, method: string) => ({
+      ...base.configs[0]!,
+      id: `task=${task},method=${method}`,
+      params: { task, method },
+    });
+    const results = {
+      ...base,
+      settings: { ...base.settings, taskKey: 'task' },
+      configs: [cfg('a', 'x'), cfg('a', 'y'), cfg('b', 'x'), cfg('b', 'y')],
+    };
+    expect(configColour(results, 'task=b,method=x')).toBe(configColour(results, 'task=a,method=x'));
+    expect(configColour(results, 'task=b,method=y')).toBe(CONFIG_COLOURS[1]);
   });
 
   it('never tells verdicts apart by colour alone', () => {
