@@ -21,7 +21,7 @@ import { learningCurves } from './curves.js';
 import { haltingCurves } from './halting.js';
 import { commonHorizon } from './horizon.js';
 import { inventory, orderRuns } from './inventory.js';
-import type { ResolvedOptions } from './options.js';
+import { optionSettings, type ResolvedOptions } from './options.js';
 import { pairConfigs, type Pairing } from './pairing.js';
 import type {
   CalibrationCurve,
@@ -196,24 +196,9 @@ export function analyze(
   };
 }
 
-/** The settings block of Results (what ran, as the user gave it). */
+/** The settings block of Results (what ran, as the user gave it), from the options table. */
 export function settingsOf(o: ResolvedOptions): Settings {
-  return {
-    alpha: o.alpha,
-    seed: o.seed,
-    correction: o.correction,
-    summary: o.summaryText,
-    baseline: o.baseline?.text ?? null,
-    taskKey: o.taskKey,
-    margin: o.margin,
-    paired: o.paired,
-    diverged: o.diverged,
-    failOn: o.failOn,
-    resamples: o.resamples,
-    bandResamples: o.bandResamples,
-    bootstrapFrom: o.bootstrapFrom,
-    level: o.level,
-  };
+  return optionSettings(o);
 }
 
 function groupRuns(runs: readonly Run[]): Map<string, Run[]> {

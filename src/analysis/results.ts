@@ -5,6 +5,7 @@
  * Keys never change meaning within version 1; new keys may be added.
  */
 import type { Goal, IdentitySource, RunStatus } from '../ingest/types.js';
+import type { OptionSettings } from './options.js';
 import type { Problem } from '../problems.js';
 
 export type Verdict = 'better' | 'worse' | 'inconclusive';
@@ -22,25 +23,11 @@ export type SummarySpec =
   | { readonly kind: 'reach'; readonly value: number }
   | { readonly kind: 'step'; readonly step: number };
 
-export interface Settings {
-  readonly alpha: number;
-  readonly seed: number;
-  readonly correction: Correction;
-  /** The summary as typed, e.g. `last:10%`. */
-  readonly summary: string;
-  readonly baseline: string | null;
-  readonly taskKey: string | null;
-  readonly margin: number | null;
-  readonly paired: boolean;
-  readonly diverged: DivergedPolicy;
-  readonly failOn: FailOn | null;
-  /** Bootstrap resamples for intervals that decide something (10,000) and for bands (2,000). */
-  readonly resamples: number;
-  readonly bandResamples: number;
-  /** Runs per arm at which intervals switch from Welch/t to BCa bootstrap (20). */
-  readonly bootstrapFrom: number;
-  readonly level: number;
-}
+/**
+ * What ran, as the user gave it: one field per entry of the analysis options table that has a
+ * `setting` (`analysisOptions.ts`), in table order; the JSON schema's settings are checked against it.
+ */
+export type Settings = OptionSettings;
 
 export interface RunRecord {
   readonly id: string;

@@ -6,35 +6,27 @@
 import { readFileSync } from 'node:fs';
 import { dirname, isAbsolute, join, relative, resolve } from 'node:path';
 import { Command } from 'commander';
-import type { ReportOptions } from '../analysis/options.js';
+import { ANALYSIS_OPTIONS } from '../analysis/analysisOptions.js';
 import type { Results } from '../analysis/results.js';
 import { SeedsiftError } from '../problems.js';
 import { parseNotebook, type NotebookOptions } from '../report/parseNotebook.js';
 import { DEFAULT_NOTEBOOK } from '../report/templatePaths.js';
 import { failedGate } from './gate.js';
 import { progressDisplay } from './progress.js';
-import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
+import { rawIngestOptions, resolveIngestOptions } from './ingestOptions.js';
+import { addTableOptions, tableValues } from './tableOptions.js';
 import { inputFiles } from './inputFiles.js';
 import type { Io } from './io.js';
 import { EXIT_GATE } from './exitCodes.js';
 import { version } from './version.js';
 import { writeOutput } from './writeOutput.js';
 
-interface RawReportOptions extends RawIngestOptions {
+/** The options of `report` that are not in the option tables: where outputs go. */
+interface OutputOptions {
   out?: string;
   json?: string;
   markdown?: string;
   notebook?: string;
-  baseline?: string;
-  taskKey?: string;
-  summary?: string;
-  alpha?: string;
-  correction?: string;
-  margin?: string;
-  paired?: boolean;
-  diverged?: string;
-  seed?: string;
-  failOn?: string;
   quiet?: boolean;
 }
 
@@ -45,24 +37,15 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
     .option('-o, --out <file>', 'write the HTML report to FILE')
     .option('--json <file>', 'write results.json (the machine-readable results) to FILE')
     .option('--markdown <file>', 'write a Markdown verdict summary (for a pull request) to FILE')
-    .option('--notebook <file>', 'render this notebook instead of the default one')
-    .option('--baseline <selector>', 'key=value[,key=value]: the baseline config, or the baseline value of some keys')
-    .option('--task-key <key>', 'a config key whose values are tasks: compare per task and aggregate across tasks')
-    .option('--summary <how>', 'per-run value: final | last:P% | best | auc | reach:VALUE | step:N (default final)')
-    .option('--alpha <a>', 'significance level (default 0.05)')
-    .option('--correction <c>', 'multiple comparisons: holm | bh | none (default holm)')
-    .option('--margin <m>', 'non-inferiority margin in metric units (one-sided Welch)')
-    .option('--paired', 'pair runs by seed across configs (paired t, Wilcoxon signed-rank)')
-    .option('--diverged <policy>', 'diverged runs: exclude | worst (default exclude)')
-    .option('--seed <n>', 'seed of every resampling (default 1)')
-    .option('--fail-on <gate>', 'exit 1 when a comparison is worse | not-better')
+    .option('--notebook <file>', 'render this notebook instead of the default one (e.g. study.md)')
     .option('--quiet', 'print nothing but errors');
-  addIngestOptions(command);
-  command.action(async (paths: string[], raw: RawReportOptions) => {
+  addTableOptions(command, 'report');
+  command.action(async (paths: string[], raw: OutputOptions & Record<string, unknown>) => {
     const notebookFile = raw.notebook ?? DEFAULT_NOTEBOOK;
     const notebookSource = readNotebook(notebookFile);
     const front = parseNotebook(notebookSource, raw.notebook ?? 'templates/notebook.md').options;
-    const scores = raw.scores ?? front.scores;
+    const reading = rawIngestOptions(raw, front);
+    const scores = reading.scores;
     const runPaths = paths.length > 0 || scores !== undefined ? paths : notebookRuns(front, notebookFile);
     const named = { html: raw.out, json: raw.json, markdown: raw.markdown };
     const outputs =
@@ -71,7 +54,7 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
         : named;
     // Heavy modules (DuckDB, Vega) load only when the command runs, so --help starts fast.
     const { reportDate, reportPipeline } = await import('../pipeline.js');
-    const ingestOptions = resolveIngestOptions(mergeIngest(front, raw));
+    const ingestOptions = resolveIngestOptions(reading);
     const files = [outputs.html, outputs.json, outputs.markdown].filter((f): f is string => f !== undefined);
     const twice = files.find((f, k) => files.findIndex((g) => resolve(g) === resolve(f)) !== k);
     if (twice !== undefined)
@@ -84,7 +67,7 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
       hooks: progress.hooks,
       paths: runPaths,
       ingest: ingestOptions,
-      report: mergeReport(front, raw),
+      report: tableValues(ANALYSIS_OPTIONS, raw, front),
       notebook: { source: notebookSource, file: raw.notebook ?? 'templates/notebook.md' },
       generated: reportDate(io.env),
       version: version(),
@@ -136,46 +119,6 @@ function notebookRuns(front: NotebookOptions, notebookFile: string): string[] {
   }
   const base = dirname(notebookFile);
   return front.runs.map((p) => (isAbsolute(p) ? p : relative('.', join(base, p)) || '.'));
-}
-
-/** Command-line options override the front matter's. */
-function mergeIngest(front: NotebookOptions, raw: RawReportOptions): RawIngestOptions {
-  const pick = <K extends keyof RawIngestOptions & keyof NotebookOptions>(key: K): RawIngestOptions[K] =>
-    (raw[key] ?? front[key]) as RawIngestOptions[K];
-  const merged: RawIngestOptions = {};
-  for (const key of ['layout', 'seedColumn', 'seedColumns', 'manifest', 'step', 'columns', 'scores', 'by'] as const) {
-    const value = pick(key);
-    if (value !== undefined) merged[key] = value;
-  }
-  // Goals: the command line's --metric wins per metric name.
-  const goals = new Map<string, string>();
-  for (const spec of [...(front.metric ?? []), ...(raw.metric ?? [])])
-    goals.set(spec.slice(0, spec.lastIndexOf(':')), spec);
-  if (goals.size > 0) merged.metric = [...goals.values()];
-  return merged;
-}
-
-function mergeReport(front: NotebookOptions, raw: RawReportOptions): ReportOptions {
-  return {
-    alpha: raw.alpha ?? front.alpha,
-    seed: raw.seed ?? front.seed,
-    correction: raw.correction ?? front.correction,
-    summary: raw.summary ?? front.summary,
-    baseline: raw.baseline ?? front.baseline ?? null,
-    taskKey: raw.taskKey ?? front.taskKey ?? null,
-    margin: raw.margin ?? front.margin ?? null,
-    paired: raw.paired ?? front.paired,
-    diverged: raw.diverged ?? front.diverged,
-    failOn: raw.failOn ?? front.failOn ?? null,
-    level: front.level,
-    resamples: front.resamples,
-    bandResamples: front.bandResamples,
-    bins: front.bins,
-    bootstrapFrom: front.bootstrapFrom,
-    haltingThresholds: front.haltingThresholds,
-    haltingReference: front.haltingReference,
-    calibrationBins: front.calibrationBins,
-  };
 }
 
 function outcomeLine(results: Results, written: readonly string[]): string {

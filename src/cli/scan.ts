@@ -1,7 +1,7 @@
 /** `seedsift scan PATH...`: what was found, as text or JSON. */
 import { Command } from 'commander';
 import { SeedsiftError } from '../problems.js';
-import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
+import { addIngestOptions, rawIngestOptions, resolveIngestOptions } from './ingestOptions.js';
 import { inputFiles } from './inputFiles.js';
 import { progressDisplay } from './progress.js';
 import type { Io } from './io.js';
@@ -13,8 +13,8 @@ export function scanCommand(io: Io, done: (code: number) => void): Command {
     .argument('[paths...]', 'folders or files of run logs (none with --scores)')
     .option('--json <file>', "write the scan as JSON to FILE ('-' for standard output)")
     .option('--quiet', 'no progress display while reading');
-  addIngestOptions(command);
-  command.action(async (paths: string[], raw: RawIngestOptions & { json?: string; quiet?: boolean }) => {
+  addIngestOptions(command, 'scan');
+  command.action(async (paths: string[], raw: Record<string, unknown> & { json?: string; quiet?: boolean }) => {
     // Heavy modules (DuckDB) load only when the command runs, so --help and --version start fast.
     const [{ ingest }, { inventory }, { scanJson }, { scanText }] = await Promise.all([
       import('../ingest/ingest.js'),
@@ -22,7 +22,7 @@ export function scanCommand(io: Io, done: (code: number) => void): Command {
       import('../report/scanJson.js'),
       import('../report/scanText.js'),
     ]);
-    const options = resolveIngestOptions(raw);
+    const options = resolveIngestOptions(rawIngestOptions(raw));
     if (paths.length === 0 && options.scores === null)
       throw new SeedsiftError('usage', 'scan: expected PATH... (folders or files of run logs) or --scores FILE');
     const progress = progressDisplay(io, raw.quiet === true);

@@ -7,11 +7,11 @@ import { resolveOptions } from '../analysis/options.js';
 import { matchesSelector, parseSelector } from '../analysis/selectors.js';
 import { seedsNeeded, type SeedsAnswer, type SeedsQuestion } from '../analysis/seedsNeeded.js';
 import { SeedsiftError } from '../problems.js';
-import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
+import { addIngestOptions, rawIngestOptions, resolveIngestOptions } from './ingestOptions.js';
 import type { Io } from './io.js';
 import { version } from './version.js';
 
-interface RawSeedsOptions extends RawIngestOptions {
+interface RawSeedsOptions extends Record<string, unknown> {
   sd?: string;
   effect?: string;
   alpha?: string;
@@ -44,7 +44,7 @@ export function seedsCommand(io: Io, done: (code: number) => void): Command {
     .option('--candidate <selector>', 'pilot candidate config (key=value,...); without it, give --effect')
     .option('--summary <how>', 'per-run value of the pilot runs (as in report; default final)')
     .option('--json', 'print the answer as JSON');
-  addIngestOptions(command);
+  addIngestOptions(command, 'seeds');
   command.action(async (paths: string[], raw: RawSeedsOptions) => {
     const alpha = number(raw.alpha, '--alpha', 0.05) as number;
     const power = number(raw.power, '--power', 0.8) as number;
@@ -82,7 +82,7 @@ async function pilot(
     import('../ingest/ingest.js'),
     import('../analysis/analyze.js'),
   ]);
-  const runSet = await ingest(paths, resolveIngestOptions(raw));
+  const runSet = await ingest(paths, resolveIngestOptions(rawIngestOptions(raw)));
   if (!runSet.metrics.some((m) => m.name === raw.for && m.kind === 'scalar')) {
     throw new SeedsiftError(
       'usage',
