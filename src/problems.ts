@@ -139,6 +139,12 @@ export const PROBLEM_CODES = {
     means: 'Whether higher or lower is better was guessed from the metric name.',
     action: 'If the guess is wrong, say --metric NAME:max or NAME:min.',
   },
+  'goal-unknown': {
+    severity: 'note',
+    means:
+      'No name rule says whether higher or lower is better for this metric, and no --metric option names it; its comparisons say only which way the difference goes (higher, lower), never better or worse.',
+    action: 'Say --metric NAME:max or NAME:min (or metrics: in the notebook front matter).',
+  },
   'run-diverged': {
     severity: 'warning',
     means:
@@ -194,6 +200,44 @@ export const PROBLEM_CODES = {
     severity: 'note',
     means: 'Welch, permutation and Mann-Whitney disagree about significance at alpha.',
     action: 'Treat the verdict as fragile.',
+  },
+  'column-set-aside': {
+    severity: 'note',
+    means:
+      'A numeric column looks like bookkeeping, not a result: its name marks time, epochs, counts or a schedule (wall time, timestamp, elapsed, epoch, preemptions, lr), or its values never decrease (or never change) within a run while no name rule gives it a goal. It is not compared.',
+    action:
+      'To compare it anyway, name it: --as-metric NAME, or --metrics NAME, or give its goal with --metric NAME:max or NAME:min.',
+  },
+  'seed-repeated': {
+    severity: 'warning',
+    means:
+      'After --drop-keys or --keep-keys, two runs from different files share a config and a seed; both are kept as separate runs (the second id ends in #2).',
+    action:
+      'Check whether the ignored key told real replicates apart (a machine flag) or whether one run is a copy; give distinct seeds if they are replicates.',
+  },
+  'arm-keys': {
+    severity: 'note',
+    means:
+      "For --baseline KEY=VALUE, some config keys take values that change only together with KEY (attributes of the arm, such as one algorithm's own hyperparameters); counterparts were matched ignoring them.",
+    action:
+      'Nothing, if those keys belong to the arms; otherwise run the missing configs, or drop the keys with --drop-keys.',
+  },
+  'series-identical': {
+    severity: 'warning',
+    means:
+      "Two runs logged identical series (every step and value of every metric the same), within one config or across configs: most likely one run's files were copied for another.",
+    action: 'Check the files named; remove the copy or re-run it. Comparisons that use a copied run are not evidence.',
+  },
+  'run-single-step': {
+    severity: 'warning',
+    means: 'A run logged a single step: a crash at start, or an evaluation-only file; its value is a single point.',
+    action: 'Check whether the run failed; it is kept, and counted in its config.',
+  },
+  'config-all-failed': {
+    severity: 'warning',
+    means:
+      'Every run of a config failed (diverged, short, rejected or a single logged step): that config has no usable value, and its comparisons rest on failures.',
+    action: "Check the config's runs; fix and re-run before reading its comparisons.",
   },
 } as const satisfies Record<string, { severity: Severity; means: string; action: string }>;
 

@@ -13,7 +13,7 @@
  * is derived from `options.seed` and a label naming what it is for.
  */
 import type { MetricInfo, Run, RunSet } from '../ingest/types.js';
-import { problem, SeedsiftError, type Problem } from '../problems.js';
+import { problem, type Problem } from '../problems.js';
 import { calibrationCurves } from './calibration.js';
 import { configValues } from './configValues.js';
 import { compareFamily, type ArmRun, type ComparisonRequest, type PowerCache } from './compare.js';
@@ -37,7 +37,13 @@ import type {
   TickCurve,
 } from './results.js';
 import { metricValues } from './runValues.js';
-import { checkSelector, matchesSelector } from './selectors.js';
+import { matchesSelector } from './selectors.js';
+import { checkOptions } from './checkOptions.js';
+import { chooseMetrics } from './chooseMetrics.js';
+import { directionOnly } from './directionOnly.js';
+import { dedupeProblems, withoutRepeatedGoals } from './dedupeProblems.js';
+import { selectRuns } from './selectRuns.js';
+import { withoutUncomparedGoals } from './setAside.js';
 import { summaryGoal } from './summarySpec.js';
 import { taskAggregates, type TaskScore } from './tasks.js';
 import { tickCurves } from './ticks.js';
@@ -59,25 +65,29 @@ export interface AnalyzeMeta {
  * Example: `analyze(runSet, resolveOptions({ baseline: 'memory=4' }), meta).comparisons`.
  */
 export function analyze(
-  runSet: RunSet,
+  input: RunSet,
   options: ResolvedOptions,
   meta: AnalyzeMeta,
   progress: ProgressHook = () => undefined,
 ): Results {
-  // 1. inventory
+  // 1. select and inventory: the runs, configs and metrics the options choose
+  checkOptions(options, input);
+  const selection = selectRuns(input, options);
+  const runSet = selection.runSet;
+  const choice = chooseMetrics(runSet, options);
   const inv = inventory(runSet);
   const runs = orderRuns(runSet);
-  if (options.taskKey !== null && !runSet.keys.includes(options.taskKey)) {
-    throw new SeedsiftError(
-      'usage',
-      `--task-key: expected one of the config keys (${runSet.keys.join(', ') || 'none'}), got '${options.taskKey}'`,
-    );
-  }
-  if (options.baseline !== null) checkSelector(options.baseline, inv.configs, runSet.keys, options.taskKey);
+  const problems: Problem[] = [...selection.problems, ...choice.problems];
 
   // 2. pairing
-  const pairing = pairConfigs(inv.configs, runSet.keys, options.baseline, options.taskKey);
-  const problems: Problem[] = [];
+  const pairing = pairConfigs(inv.configs, runSet.keys, options.baseline, options.taskKey, options.candidates);
+  if (pairing.armKeys.length > 0)
+    problems.push(
+      problem(
+        'arm-keys',
+        `counterparts for --baseline ${options.baseline?.text ?? ''} were matched ignoring ${pairing.armKeys.join(', ')}: their values change only with ${options.baseline?.pairs.map((p) => p.key).join(', ') ?? ''} (attributes of the arm)`,
+      ),
+    );
   for (const m of pairing.missing) {
     const where = m.task === null ? '' : ` (task ${m.task})`;
     problems.push(
@@ -101,9 +111,9 @@ export function analyze(
   const ticks: TickCurve[] = [];
   const cache: PowerCache = new Map();
   const runsByConfig = groupRuns(runs);
-  for (const [i, info] of runSet.metrics.entries()) {
-    progress('comparing', i, runSet.metrics.length);
-    const record = inv.metrics[i] as MetricRecord;
+  for (const [i, info] of choice.metrics.entries()) {
+    progress('comparing', i, choice.metrics.length);
+    const record = inv.metrics.find((m) => m.name === info.name && m.kind === info.kind) as MetricRecord;
     if (info.kind === 'tick') {
       metrics.push(record);
       ticks.push(
@@ -118,10 +128,12 @@ export function analyze(
     }
     const horizon = commonHorizon(horizonRuns, info.name, runSet.mode);
     metrics.push({ ...record, horizon: horizon.step });
+    // A metric whose goal is unknown is summarised and compared as "higher" (direction only).
+    const direction = info.goal ?? 'max';
     const mv = metricValues(
       runs,
       info.name,
-      info.goal,
+      direction,
       options.summary,
       options.summaryText,
       { horizon: horizon.step, firstStep: horizon.firstStep },
@@ -140,7 +152,7 @@ export function analyze(
     for (const family of families(pairing)) {
       const requests: ComparisonRequest[] = family.map((p) => ({
         metric: info.name,
-        goal: summaryGoal(options.summary, info.goal),
+        goal: summaryGoal(options.summary, direction),
         goalInferred: info.goalSource === 'inferred',
         summary: options.summaryText,
         reachValue: options.summary.kind === 'reach' ? options.summary.value : null,
@@ -151,7 +163,7 @@ export function analyze(
         candidateRuns: armOf(p.candidateConfig),
       }));
       const result = compareFamily(requests, options, cache);
-      comparisons.push(...result.comparisons);
+      comparisons.push(...(info.goal === null ? result.comparisons.map(directionOnly) : result.comparisons));
       problems.push(...result.problems);
     }
     if (runSet.mode === 'logs') {
@@ -160,13 +172,16 @@ export function analyze(
     if (options.taskKey !== null) tasks.push(...metricTasks(info, runs, mv.byRun, pairing, options));
   }
 
-  progress('comparing', runSet.metrics.length, runSet.metrics.length);
+  progress('comparing', choice.metrics.length, choice.metrics.length);
 
   // 4. ticks: per-sample dumps
   const { halting, calibration } = dumpAnalyses(runSet, options, problems);
 
   // 5. assemble
-  const allProblems = dedupe([...runSet.problems, ...withoutRepeatedGoals(problems, runSet)]);
+  const allProblems = withoutUncomparedGoals(
+    dedupeProblems([...runSet.problems, ...withoutRepeatedGoals(problems, runSet)]),
+    choice.metrics.map((m) => m.name),
+  );
   const byRun = new Map<string, string[]>();
   for (const p of allProblems) if (p.run !== undefined) byRun.set(p.run, [...(byRun.get(p.run) ?? []), p.message]);
   return {
@@ -183,6 +198,7 @@ export function analyze(
     },
     configs: inv.configs,
     metrics,
+    setAside: choice.setAside.map(({ name, reason }) => ({ name, reason })),
     runs: inv.runs.map((r) => ({ ...r, problems: byRun.get(r.id) ?? [] })),
     values,
     configValues: perConfig,
@@ -245,7 +261,14 @@ function metricTasks(
   const baselineOf = new Map<string, string>();
   if (options.baseline !== null)
     for (const p of pairing.pairs) if (!baselineOf.has(p.candidate)) baselineOf.set(p.candidate, p.baseline);
-  return taskAggregates(info.name, summaryGoal(options.summary, info.goal), groups, scores, baselineOf, options);
+  return taskAggregates(
+    info.name,
+    summaryGoal(options.summary, info.goal ?? 'max'),
+    groups,
+    scores,
+    baselineOf,
+    options,
+  );
 }
 
 function dumpAnalyses(
@@ -268,25 +291,4 @@ function dumpAnalyses(
     problems.push(problem('tick-dump-invalid', `halting and calibration were not computed: ${error.message}`));
     return { halting: [], calibration: [] };
   }
-}
-
-/** Analysis 'goal-inferred' problems for metrics that ingest already reported as guessed are dropped. */
-function withoutRepeatedGoals(problems: readonly Problem[], runSet: RunSet): Problem[] {
-  const told = runSet.problems.filter((p) => p.code === 'goal-inferred');
-  if (told.length === 0) return [...problems];
-  const metricOf = (p: Problem): string => p.message.slice(0, p.message.indexOf(':'));
-  return problems.filter((p) => p.code !== 'goal-inferred' || !told.some((t) => t.message.includes(metricOf(p))));
-}
-
-/** Problems without repeats (same code, message and place), in first-seen order. */
-function dedupe(problems: readonly Problem[]): Problem[] {
-  const seen = new Set<string>();
-  const out: Problem[] = [];
-  for (const p of problems) {
-    const key = JSON.stringify([p.code, p.message, p.file ?? null, p.line ?? null, p.run ?? null]);
-    if (seen.has(key)) continue;
-    seen.add(key);
-    out.push(p);
-  }
-  return out;
 }

@@ -8,12 +8,14 @@
  * the code that uses its value; the compiler checks that the resolved record has every field.
  */
 import { SeedsiftError } from '../problems.js';
+import { parseSelector, type Selector } from './selectors.js';
 
 /** Commands that take options from the table. */
 export type CommandName = 'scan' | 'report' | 'digest' | 'seeds';
 
 /** The shape of a value in notebook front matter. */
-export type FrontShape = 'text' | 'number' | 'boolean' | 'csv' | 'goals';
+/** `csv`: a YAML list or comma-separated text, joined with commas; `list`: a YAML list or one text, kept as a list (for values that hold commas, such as selectors). */
+export type FrontShape = 'text' | 'number' | 'boolean' | 'csv' | 'list' | 'goals';
 
 /** A value as given: a string (or list of strings, for a repeatable option) from the command line; YAML scalars from front matter. */
 export type RawValue = string | number | boolean | readonly string[];
@@ -185,6 +187,12 @@ export function splitList(raw: RawValue): string[] {
   const parts = typeof raw === 'object' ? raw.flatMap((r) => String(r).split(',')) : String(raw).split(',');
   return parts.map((s) => s.trim()).filter((s) => s !== '');
 }
+
+/** Selectors (`key=value[,key=value]`), one per value of a repeated option or per item of a YAML list. */
+export const selectors =
+  () =>
+  (raw: RawValue, option: string): readonly Selector[] =>
+    (typeof raw === 'object' ? raw : [String(raw)]).map((t) => parseSelector(String(t).trim(), option));
 
 /** A non-empty comma-separated list of names. */
 export const names =

@@ -6,11 +6,9 @@
  * rejected with the option's name: "--alpha: expected a number in (0, 1), got 2".
  */
 import type { RunSet } from '../ingest/types.js';
-import { SeedsiftError } from '../problems.js';
 import { ANALYSIS_OPTIONS } from './analysisOptions.js';
-import { inventory } from './inventory.js';
+import { checkOptions } from './checkOptions.js';
 import { type RawBy, type ResolvedBy, resolveTable, type SettingsBy, settingsOfTable } from './optionSpec.js';
-import { checkSelector } from './selectors.js';
 
 /** Options as given: strings from the command line, numbers or strings from YAML front matter. */
 export type ReportOptions = RawBy<typeof ANALYSIS_OPTIONS>;
@@ -36,22 +34,11 @@ export const DEFAULT_OPTIONS = Object.fromEntries(
 export function resolveOptions(input: ReportOptions, runSet?: RunSet): ResolvedOptions {
   const table = resolveTable(ANALYSIS_OPTIONS, input);
   const resolved: ResolvedOptions = { ...table, summaryText: table.summary.text };
-  if (runSet !== undefined) checkAgainst(resolved, runSet);
+  if (runSet !== undefined) checkOptions(resolved, runSet);
   return resolved;
 }
 
 /** The settings block of results.json for resolved options. */
 export function optionSettings(options: ResolvedOptions): OptionSettings {
   return settingsOfTable(ANALYSIS_OPTIONS, options);
-}
-
-function checkAgainst(options: ResolvedOptions, runSet: RunSet): void {
-  if (options.taskKey !== null && !runSet.keys.includes(options.taskKey)) {
-    throw new SeedsiftError(
-      'usage',
-      `--task-key: expected one of the config keys (${runSet.keys.join(', ') || 'none'}), got '${options.taskKey}'`,
-    );
-  }
-  if (options.baseline !== null)
-    checkSelector(options.baseline, inventory(runSet).configs, runSet.keys, options.taskKey);
 }

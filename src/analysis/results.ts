@@ -4,7 +4,7 @@
  * exist (an interval with one seed, a p-value that cannot be computed) are `null`, never NaN.
  * Keys never change meaning within version 1; new keys may be added.
  */
-import type { Goal, IdentitySource, RunStatus } from '../ingest/types.js';
+import type { Goal, GoalSource, IdentitySource, RunStatus } from '../ingest/types.js';
 import type { OptionSettings } from './options.js';
 import type { Problem } from '../problems.js';
 
@@ -55,8 +55,9 @@ export interface ConfigRecord {
 
 export interface MetricRecord {
   readonly name: string;
-  readonly goal: Goal;
-  readonly goalSource: 'option' | 'inferred';
+  /** Whether higher or lower is better; null when neither the user nor a name rule says (direction only). */
+  readonly goal: Goal | null;
+  readonly goalSource: GoalSource;
   readonly kind: 'scalar' | 'tick';
   readonly ticks: number;
   /** Last step every compared run reached for this metric (null for score tables). */
@@ -288,7 +289,10 @@ export interface Results {
     readonly filesRead: number;
   };
   readonly configs: readonly ConfigRecord[];
+  /** The metrics compared, in the order every output shows them (the primary metric first). */
   readonly metrics: readonly MetricRecord[];
+  /** Numeric columns not compared because they look like bookkeeping (`column-set-aside` says how to include each). */
+  readonly setAside: readonly { readonly name: string; readonly reason: 'name' | 'counter' | 'constant' }[];
   readonly runs: readonly RunRecord[];
   readonly values: readonly RunValue[];
   /** Per config and metric: mean of the per-run values with its interval. */

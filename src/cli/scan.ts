@@ -1,6 +1,6 @@
 /** `seedsift scan PATH...`: what was found, as text or JSON. */
 import { Command } from 'commander';
-import { SeedsiftError } from '../problems.js';
+import { problem, SeedsiftError } from '../problems.js';
 import { addIngestOptions, rawIngestOptions, resolveIngestOptions } from './ingestOptions.js';
 import { inputFiles } from './inputFiles.js';
 import { progressDisplay } from './progress.js';
@@ -16,23 +16,35 @@ export function scanCommand(io: Io, done: (code: number) => void): Command {
   addIngestOptions(command, 'scan');
   command.action(async (paths: string[], raw: Record<string, unknown> & { json?: string; quiet?: boolean }) => {
     // Heavy modules (DuckDB) load only when the command runs, so --help and --version start fast.
-    const [{ ingest }, { inventory }, { scanJson }, { scanText }] = await Promise.all([
-      import('../ingest/ingest.js'),
-      import('../analysis/inventory.js'),
-      import('../report/scanJson.js'),
-      import('../report/scanText.js'),
-    ]);
+    const [{ ingest }, { inventory }, { setAsideColumns, withoutUncomparedGoals }, { scanJson }, { scanText }] =
+      await Promise.all([
+        import('../ingest/ingest.js'),
+        import('../analysis/inventory.js'),
+        import('../analysis/setAside.js'),
+        import('../report/scanJson.js'),
+        import('../report/scanText.js'),
+      ]);
     const options = resolveIngestOptions(rawIngestOptions(raw));
     if (paths.length === 0 && options.scores === null)
       throw new SeedsiftError('usage', 'scan: expected PATH... (folders or files of run logs) or --scores FILE');
     const progress = progressDisplay(io, raw.quiet === true);
-    const runSet = await ingest(paths, options, progress.hooks).finally(() => progress.done());
+    const read = await ingest(paths, options, progress.hooks).finally(() => progress.done());
+    // Bookkeeping columns are listed as report would set them aside, each with how to include it.
+    const setAside = setAsideColumns(read);
+    const compared = read.metrics.map((m) => m.name).filter((name) => !setAside.some((s) => s.name === name));
+    const runSet = {
+      ...read,
+      problems: [
+        ...withoutUncomparedGoals(read.problems, compared),
+        ...setAside.map((s) => problem('column-set-aside', s.message)),
+      ],
+    };
     const inv = inventory(runSet);
-    if (raw.json === '-') io.stdout(scanJson(runSet, inv));
+    if (raw.json === '-') io.stdout(scanJson(runSet, inv, setAside));
     else {
       io.stdout(scanText(runSet, inv));
       if (raw.json !== undefined)
-        writeOutput(raw.json, scanJson(runSet, inv), inputFiles(runSet, [options.manifest, options.scores]));
+        writeOutput(raw.json, scanJson(runSet, inv, setAside), inputFiles(runSet, [options.manifest, options.scores]));
     }
     done(0);
   });

@@ -18,7 +18,7 @@ import type { ProgressHook } from '../progress.js';
 import { planColumns, type ColumnPlan } from './columns.js';
 import { findDigests, readDigest } from './digestRead.js';
 import { closeEngine, openEngine, type Engine } from './duckdb.js';
-import { metricGoal } from './goals.js';
+import { bookkeepingName, metricGoal } from './goals.js';
 import { locate, type Located } from './locate.js';
 import { fileDrafts, headerDrift, notNumericDrafts } from './loadChecks.js';
 import { loadFiles, type FileData, type FileToRead } from './loadFiles.js';
@@ -33,7 +33,8 @@ import type { FileRecord, IngestOptions, MetricInfo, Run, RunSet, RunSource } fr
 
 /**
  * Metrics found in the runs, in first-seen order (scalars and per-tick metrics separately, a name
- * may be both), with their goals; a `goal-inferred` note for each name whose goal was guessed.
+ * may be both), with their goals; a `goal-inferred` note for each name whose goal a name rule gave, a
+ * `goal-unknown` note for each name no rule knows.
  * Pure. Example: runs with `val_loss` give `{ name: 'val_loss', goal: 'min', goalSource: 'inferred', kind: 'scalar', ticks: 0 }`.
  */
 export function metricInfos(
@@ -48,8 +49,20 @@ export function metricInfos(
       ticks.set(name, Math.max(ticks.get(name) ?? 0, t.values.length));
   }
   const metrics: MetricInfo[] = [
-    ...[...scalars].map((name) => ({ name, ...metricGoal(name, options), kind: 'scalar' as const, ticks: 0 })),
-    ...[...ticks].map(([name, count]) => ({ name, ...metricGoal(name, options), kind: 'tick' as const, ticks: count })),
+    ...[...scalars].map((name) => ({
+      name,
+      ...metricGoal(name, options),
+      bookkeeping: bookkeepingName(name),
+      kind: 'scalar' as const,
+      ticks: 0,
+    })),
+    ...[...ticks].map(([name, count]) => ({
+      name,
+      ...metricGoal(name, options),
+      bookkeeping: false,
+      kind: 'tick' as const,
+      ticks: count,
+    })),
   ];
   const inferred = [...new Set(metrics.filter((m) => m.goalSource === 'inferred').map((m) => m.name))];
   const problems = inferred.map((name) => {
@@ -59,6 +72,13 @@ export function metricInfos(
       `${name}: ${goal === 'min' ? 'lower' : 'higher'} is taken to be better (from its name); say --metric ${name}:${goal === 'min' ? 'max' : 'min'} if that is wrong`,
     );
   });
+  for (const name of new Set(metrics.filter((m) => m.goalSource === 'unknown').map((m) => m.name)))
+    problems.push(
+      problem(
+        'goal-unknown',
+        `${name}: no name rule says whether higher or lower is better; its comparisons show the direction only (say --metric ${name}:max or ${name}:min)`,
+      ),
+    );
   return { metrics, problems };
 }
 

@@ -168,7 +168,8 @@ function mergeMetrics(
   const problems: Problem[] = [];
   const scalars = new Map<string, MetricInfo>();
   const ticks = new Map<string, MetricInfo>();
-  const says = (g: Goal, p: RunSetPart): string => `${label(p)} says ${g === 'max' ? 'higher' : 'lower'} is better`;
+  const says = (g: Goal | null, p: RunSetPart): string =>
+    `${label(p)} says ${g === null ? 'no goal is known' : `${g === 'max' ? 'higher' : 'lower'} is better`}`;
   for (const part of parts) {
     for (const info of part.runSet.metrics) {
       const kept = first.get(info.name);

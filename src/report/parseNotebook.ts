@@ -155,12 +155,12 @@ function readValue(
       return `${String(name)}:${goal}`;
     });
   }
-  if (kind === 'paths' || kind === 'csv') {
+  if (kind === 'paths' || kind === 'csv' || kind === 'list') {
     const items = isSeq(node) ? node.items.map((n) => scalarOf(n as Node | null)) : [scalarOf(node)];
     if (items.some((v) => typeof v !== 'string' && typeof v !== 'number'))
       return fail(kind === 'paths' ? 'a path or a list of paths' : 'a list or comma-separated text');
     const texts = items.map((v) => String(v));
-    return kind === 'paths' ? texts : texts.join(',');
+    return kind === 'csv' ? texts.join(',') : texts;
   }
   const v = scalarOf(node);
   if (v === undefined || v === null) return fail('a single value');

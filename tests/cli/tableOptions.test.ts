@@ -81,9 +81,10 @@ describe('the options tables', () => {
   it("results.json settings are the table's entries with a setting, and match the schema's", () => {
     const schema = JSON.parse(
       readFileSync(new URL('../../src/report/results.schema.json', import.meta.url), 'utf8'),
-    ) as { properties: { settings: { required: string[] } } };
+    ) as { properties: { settings: { required: string[]; properties: Record<string, unknown> } } };
     const settings = optionSettings(resolveOptions({ baseline: 'memory=4', summary: 'last:10%' }));
     expect(Object.keys(settings).sort()).toEqual([...schema.properties.settings.required].sort());
+    expect(Object.keys(schema.properties.settings.properties)).toEqual(Object.keys(settings));
     expect(settings).toMatchObject({ baseline: 'memory=4', summary: 'last:10%', alpha: 0.05, failOn: null });
     const withSetting = Object.entries(ANALYSIS_OPTIONS).filter(([, s]) => 'setting' in s);
     expect(Object.keys(settings)).toEqual(withSetting.map(([k]) => k));

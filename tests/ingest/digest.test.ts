@@ -185,9 +185,9 @@ describe('a digest keeps a RunSet exactly', () => {
         },
       ],
       metrics: [
-        { name: '1', goal: 'max', goalSource: 'inferred', kind: 'scalar', ticks: 0 },
-        { name: "lo'ss", goal: 'max', goalSource: 'option', kind: 'scalar', ticks: 0 },
-        { name: 'acc', goal: 'max', goalSource: 'inferred', kind: 'tick', ticks: 2 },
+        { name: '1', goal: 'max', goalSource: 'inferred', bookkeeping: false, kind: 'scalar', ticks: 0 },
+        { name: "lo'ss", goal: 'max', goalSource: 'option', bookkeeping: false, kind: 'scalar', ticks: 0 },
+        { name: 'acc', goal: 'max', goalSource: 'inferred', bookkeeping: false, kind: 'tick', ticks: 2 },
       ],
       tickDumps: [
         {
@@ -278,10 +278,11 @@ describe('a digest keeps a RunSet exactly', () => {
           name: `m${k}`,
           goal: 'max' as const,
           goalSource: 'option' as const,
+          bookkeeping: false,
           kind: 'scalar' as const,
           ticks: 0,
         })),
-        { name: 'acc', goal: 'max', goalSource: 'option', kind: 'tick', ticks: 2 },
+        { name: 'acc', goal: 'max', goalSource: 'option', bookkeeping: false, kind: 'tick', ticks: 2 },
       ],
       tickDumps: [],
       files: [],
@@ -337,6 +338,7 @@ describe('a digest keeps a RunSet exactly', () => {
         name,
         goal: 'max' as const,
         goalSource: 'option' as const,
+        bookkeeping: false,
         kind: 'scalar' as const,
         ticks: 0,
       })),
@@ -482,6 +484,7 @@ describe('ingest reads digests beside raw logs', () => {
       name: 'loss',
       goal: 'max',
       goalSource: 'option',
+      bookkeeping: false,
       kind: 'scalar',
       ticks: 0,
     });
