@@ -239,6 +239,13 @@ export const PROBLEM_CODES = {
       'Every run of a config failed (diverged, short, rejected or a single logged step): that config has no usable value, and its comparisons rest on failures.',
     action: "Check the config's runs; fix and re-run before reading its comparisons.",
   },
+  'path-key': {
+    severity: 'note',
+    means:
+      "Two PATHs given on the command line hold runs with the same config and seed (two method folders with nothing in their names that reads as a config); so that they do not merge into one run, each PATH's runs got the config key path=PATH.",
+    action:
+      'Nothing, if the PATHs are different methods; name the config in the folders (method=ours) or with --layout to give the key a better name.',
+  },
 } as const satisfies Record<string, { severity: Severity; means: string; action: string }>;
 
 export type ProblemCode = keyof typeof PROBLEM_CODES;

@@ -42,6 +42,7 @@ import { checkOptions } from './checkOptions.js';
 import { chooseMetrics } from './chooseMetrics.js';
 import { directionOnly } from './directionOnly.js';
 import { dedupeProblems, withoutRepeatedGoals } from './dedupeProblems.js';
+import { sanityChecks } from './sanityChecks.js';
 import { selectRuns } from './selectRuns.js';
 import { withoutUncomparedGoals } from './setAside.js';
 import { summaryGoal } from './summarySpec.js';
@@ -77,7 +78,7 @@ export function analyze(
   const choice = chooseMetrics(runSet, options);
   const inv = inventory(runSet);
   const runs = orderRuns(runSet);
-  const problems: Problem[] = [...selection.problems, ...choice.problems];
+  const problems: Problem[] = [...selection.problems, ...sanityChecks(runSet), ...choice.problems];
 
   // 2. pairing
   const pairing = pairConfigs(inv.configs, runSet.keys, options.baseline, options.taskKey, options.candidates);

@@ -16,14 +16,21 @@ export function scanCommand(io: Io, done: (code: number) => void): Command {
   addIngestOptions(command, 'scan');
   command.action(async (paths: string[], raw: Record<string, unknown> & { json?: string; quiet?: boolean }) => {
     // Heavy modules (DuckDB) load only when the command runs, so --help and --version start fast.
-    const [{ ingest }, { inventory }, { setAsideColumns, withoutUncomparedGoals }, { scanJson }, { scanText }] =
-      await Promise.all([
-        import('../ingest/ingest.js'),
-        import('../analysis/inventory.js'),
-        import('../analysis/setAside.js'),
-        import('../report/scanJson.js'),
-        import('../report/scanText.js'),
-      ]);
+    const [
+      { ingest },
+      { inventory },
+      { setAsideColumns, withoutUncomparedGoals },
+      { sanityChecks },
+      { scanJson },
+      { scanText },
+    ] = await Promise.all([
+      import('../ingest/ingest.js'),
+      import('../analysis/inventory.js'),
+      import('../analysis/setAside.js'),
+      import('../analysis/sanityChecks.js'),
+      import('../report/scanJson.js'),
+      import('../report/scanText.js'),
+    ]);
     const options = resolveIngestOptions(rawIngestOptions(raw));
     if (paths.length === 0 && options.scores === null)
       throw new SeedsiftError('usage', 'scan: expected PATH... (folders or files of run logs) or --scores FILE');
@@ -36,6 +43,7 @@ export function scanCommand(io: Io, done: (code: number) => void): Command {
       ...read,
       problems: [
         ...withoutUncomparedGoals(read.problems, compared),
+        ...sanityChecks(read),
         ...setAside.map((s) => problem('column-set-aside', s.message)),
       ],
     };

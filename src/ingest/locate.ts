@@ -36,6 +36,7 @@ import { fileFormat } from './fileFormat.js';
 import { hivePairs } from './hive.js';
 import { compileLayout, type Layout } from './layout.js';
 import { readManifest } from './manifest.js';
+import { separatePaths } from './pathKey.js';
 import { mergeSidecar, readSidecar, SIDECAR_NAME, type Identity, type Sidecar } from './sidecar.js';
 import type { FileRecord, IdentitySource, IngestOptions, RunSource } from './types.js';
 import { skippedFile, walk, type WalkedFile } from './walk.js';
@@ -115,7 +116,7 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
 
   const files: FileRecord[] = [...(manifest?.skipped ?? []), ...walked.skipped];
   const problems: Problem[] = [...(manifest?.problems ?? []), ...walked.problems];
-  const pending: { source: Omit<RunSource, 'seed'> & { seed: string | null }; line?: number }[] = [];
+  const pending: { source: Omit<RunSource, 'seed'> & { seed: string | null }; line?: number; root?: number }[] = [];
   const sidecars = new Map<string, Sidecar | null>();
   const sidecarFor = async (file: string): Promise<Sidecar | null> => {
     const path = join(dirname(file), SIDECAR_NAME);
@@ -194,7 +195,7 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
     const seedFrom: SeedOrigin = fromPath.seedFrom ?? (merged.seed !== null ? 'params' : null);
     const configFrom: IdentitySource = layout !== null ? 'layout' : hivePairs(f.file).length > 0 ? 'hive' : 'none';
     const source: IdentitySource = seedInFile ?? (seedFrom === 'hive' || seedFrom === 'layout' ? seedFrom : configFrom);
-    pending.push({ source: { file: f.file, relPath: f.relPath, ...kind, ...merged, identity: source } });
+    pending.push({ source: { file: f.file, relPath: f.relPath, ...kind, ...merged, identity: source }, root: f.root });
   }
   walked.roots.forEach((kind, k) => {
     if (kind !== 'repeated' && logsPerRoot[k] === 0) {
@@ -208,7 +209,7 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
   });
 
   let auto = 0;
-  const sources: RunSource[] = pending.map(({ source, line }) => {
+  const found: RunSource[] = pending.map(({ source, line }) => {
     if (source.seed !== null || seedInFile !== null) return source;
     const seed = `auto-${++auto}`;
     const where = line === undefined ? { file: source.file } : { file: options.manifest as string, line };
@@ -221,6 +222,14 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
     );
     return { ...source, seed };
   });
+  // Runs of two PATHs never merge silently (pathKey.ts).
+  const separated = separatePaths(
+    found,
+    pending.map((p) => p.root ?? null),
+    paths,
+  );
+  const sources = separated.sources;
+  problems.push(...separated.problems);
   const seen = new Set<string>();
   const unique = problems.filter((p) => {
     const key = JSON.stringify([p.code, p.file, p.line, p.message]);
