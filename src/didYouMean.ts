@@ -1,25 +1,33 @@
 /**
  * "Did you mean": the closest of the names that exist to a name that does not, for the error an
  * option that names nothing stops with (a column, metric, key or value that exists nowhere).
- * Closeness is the Levenshtein edit distance (insertions, deletions, substitutions; Levenshtein
- * 1966) on lower-cased names, a name that contains or is contained by the given one counting as
+ * Closeness is an edit distance (insertions, deletions, substitutions and swaps of neighbouring
+ * characters: the optimal string alignment variant of Damerau 1964 and Levenshtein 1966) on
+ * lower-cased names, a name that contains or is contained by the given one counting as
  * distance 1; a name is offered when its distance is at most a third of the longer name's length
  * (at least 1). Shared by every stage, like problems.ts. Pure; cost O(names x length^2).
  */
 import { SeedsiftError } from './problems.js';
 
-/** Levenshtein distance between two strings (two-row dynamic programme). */
+/**
+ * Edit distance between two strings counting insertions, deletions, substitutions and swaps of two
+ * neighbouring characters as one edit each (the optimal string alignment distance, Damerau's
+ * variant of Levenshtein's). O(|a| x |b|).
+ * Example: `editDistance('stpe', 'step')` is 1; `editDistance('kitten', 'sitting')` is 3.
+ */
 export function editDistance(a: string, b: string): number {
-  let previous = Array.from({ length: b.length + 1 }, (_, j) => j);
-  for (let i = 1; i <= a.length; i++) {
-    const current = [i];
+  const rows = Array.from({ length: a.length + 1 }, (_, i) =>
+    Array.from({ length: b.length + 1 }, (_, j) => (i === 0 ? j : j === 0 ? i : 0)),
+  );
+  const at = (i: number, j: number): number => (rows[i] as number[])[j] as number;
+  for (let i = 1; i <= a.length; i++)
     for (let j = 1; j <= b.length; j++) {
-      const substitution = (previous[j - 1] as number) + (a[i - 1] === b[j - 1] ? 0 : 1);
-      current.push(Math.min((previous[j] as number) + 1, (current[j - 1] as number) + 1, substitution));
+      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
+      let d = Math.min(at(i - 1, j) + 1, at(i, j - 1) + 1, at(i - 1, j - 1) + cost);
+      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) d = Math.min(d, at(i - 2, j - 2) + 1);
+      (rows[i] as number[])[j] = d;
     }
-    previous = current;
-  }
-  return previous[b.length] as number;
+  return at(a.length, b.length);
 }
 
 /**

@@ -2,12 +2,15 @@ import { describe, expect, it } from 'vitest';
 import { closestNames, didYouMean, editDistance, unknownName } from '../src/didYouMean.js';
 
 describe('editDistance', () => {
-  it('is the Levenshtein distance', () => {
+  it('counts insertions, deletions, substitutions and neighbour swaps (optimal string alignment)', () => {
     // The textbook example (common practice): kitten -> sitting takes 3 edits (k->s, e->i, +g).
     expect(editDistance('kitten', 'sitting')).toBe(3);
     expect(editDistance('', 'abc')).toBe(3);
     expect(editDistance('flaw', 'lawn')).toBe(2);
     expect(editDistance('same', 'same')).toBe(0);
+    // A swap of neighbours is one edit (Damerau); plain Levenshtein would count 2.
+    expect(editDistance('stpe', 'step')).toBe(1);
+    expect(editDistance('ca', 'abc')).toBe(3); // the optimal string alignment value (a true Damerau distance would be 2)
   });
 });
 

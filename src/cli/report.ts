@@ -11,13 +11,14 @@ import type { Results } from '../analysis/results.js';
 import { SeedsiftError } from '../problems.js';
 import { parseNotebook, type NotebookOptions } from '../report/parseNotebook.js';
 import { DEFAULT_NOTEBOOK } from '../report/templatePaths.js';
-import { failedGate } from './gate.js';
+import { failedGate, ungated } from './gate.js';
 import { progressDisplay } from './progress.js';
 import { rawIngestOptions, resolveIngestOptions } from './ingestOptions.js';
 import { addTableOptions, tableValues } from './tableOptions.js';
 import { inputFiles } from './inputFiles.js';
 import type { Io } from './io.js';
-import { EXIT_GATE } from './exitCodes.js';
+import { EXIT_GATE, EXIT_NO_EVIDENCE } from './exitCodes.js';
+import { STDOUT } from './writeOutput.js';
 import { version } from './version.js';
 import { writeOutput } from './writeOutput.js';
 
@@ -34,9 +35,12 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
   const command = new Command('report')
     .description('the whole job: compare configurations and write report.html (and/or --json, --markdown)')
     .argument('[paths...]', "folders or files of run logs (default: the notebook's runs:)")
-    .option('-o, --out <file>', 'write the HTML report to FILE')
-    .option('--json <file>', 'write results.json (the machine-readable results) to FILE')
-    .option('--markdown <file>', 'write a Markdown verdict summary (for a pull request) to FILE')
+    .option('-o, --out <file>', "write the HTML report to FILE ('-' for standard output)")
+    .option('--json <file>', "write results.json (the machine-readable results) to FILE ('-' for standard output)")
+    .option(
+      '--markdown <file>',
+      "write a Markdown verdict summary (for a pull request) to FILE ('-' for standard output)",
+    )
     .option('--notebook <file>', 'render this notebook instead of the default one (e.g. study.md)')
     .option('--quiet', 'print nothing but errors');
   addTableOptions(command, 'report');
@@ -85,10 +89,19 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
       [outputs.markdown, result.markdown],
     ] as const) {
       if (file === undefined || text === null) continue;
-      writeOutput(file, text, inputs);
-      written.push(file);
+      if (file === STDOUT) io.stdout(text);
+      else writeOutput(file, text, inputs);
+      written.push(file === STDOUT ? 'standard output' : file);
     }
-    if (raw.quiet !== true) io.stdout(outcomeLine(result.results, written));
+    // With an output on standard output, the outcome line goes to stderr so it does not mix in.
+    const toStdout = [outputs.html, outputs.json, outputs.markdown].includes(STDOUT);
+    if (raw.quiet !== true) (toStdout ? io.stderr : io.stdout)(outcomeLine(result.results, written));
+    const nothing = result.results.settings.failOn === null ? null : ungated(result.results);
+    if (nothing !== null) {
+      io.stderr(`seedsift: --fail-on ${result.results.settings.failOn}: ${nothing}\n`);
+      done(EXIT_NO_EVIDENCE);
+      return;
+    }
     const gate = failedGate(result.results);
     if (gate !== null) {
       io.stderr(`seedsift: --fail-on ${result.results.settings.failOn}: ${gate}\n`);

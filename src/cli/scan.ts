@@ -5,7 +5,7 @@ import { addIngestOptions, rawIngestOptions, resolveIngestOptions } from './inge
 import { inputFiles } from './inputFiles.js';
 import { progressDisplay } from './progress.js';
 import type { Io } from './io.js';
-import { writeOutput } from './writeOutput.js';
+import { STDOUT, writeOutput } from './writeOutput.js';
 
 export function scanCommand(io: Io, done: (code: number) => void): Command {
   const command = new Command('scan')
@@ -48,7 +48,7 @@ export function scanCommand(io: Io, done: (code: number) => void): Command {
       ],
     };
     const inv = inventory(runSet);
-    if (raw.json === '-') io.stdout(scanJson(runSet, inv, setAside));
+    if (raw.json === STDOUT) io.stdout(scanJson(runSet, inv, setAside));
     else {
       io.stdout(scanText(runSet, inv));
       if (raw.json !== undefined)

@@ -19,6 +19,7 @@ import { planColumns, type ColumnPlan } from './columns.js';
 import { findDigests, readDigest } from './digestRead.js';
 import { closeEngine, openEngine, type Engine } from './duckdb.js';
 import { bookkeepingName, metricGoal } from './goals.js';
+import { checkGoalNames, checkLayoutMatched, checkNamedColumns } from './namedColumns.js';
 import { locate, type Located } from './locate.js';
 import { fileDrafts, headerDrift, notNumericDrafts } from './loadChecks.js';
 import { loadFiles, type FileData, type FileToRead } from './loadFiles.js';
@@ -167,6 +168,7 @@ export async function ingest(
     if (options.scores !== null) return await ingestScores(engine, options);
     // 1. locate (digests are set aside for step 6)
     const found = await locate(paths, options);
+    checkLayoutMatched(options, found.sources, found.problems);
     const digests = await findDigests(
       engine,
       found.sources.filter((s) => s.format === 'parquet' && !s.gzip).map((s) => s.file),
@@ -187,6 +189,7 @@ export async function ingest(
     };
     // 2. headers and column plans
     const toRead: FileToRead[] = [];
+    const seen = new Set<string>();
     const headers = await readHeaders(located.sources, options, engine, progress);
     for (const [i, source] of located.sources.entries()) {
       const header = headers[i] as HeaderResult;
@@ -205,6 +208,7 @@ export async function ingest(
         continue;
       }
       const plan: ColumnPlan = planColumns(header.header.names, options);
+      for (const name of plan.names) seen.add(name);
       if (plan.kind === 'log' && plan.step === null) {
         const wanted =
           options.step === null
@@ -223,6 +227,7 @@ export async function ingest(
       }
       toRead.push({ header: header.header, plan });
     }
+    checkNamedColumns(options, seen);
     drafts.push(...headerDrift(toRead));
     // 3. load
     const loaded = await loadFiles(engine, toRead, undefined, (done) => progress('reading', done, toRead.length));
@@ -274,7 +279,9 @@ export async function ingest(
       problems: [...located.problems, ...lineProblems, ...problems],
     };
     // 6. digests
-    return digests.size === 0 ? logs : await withDigests(engine, found, logs, digests, options);
+    const runSet = digests.size === 0 ? logs : await withDigests(engine, found, logs, digests, options);
+    checkGoalNames(options, runSet);
+    return runSet;
   } finally {
     closeEngine(engine);
   }

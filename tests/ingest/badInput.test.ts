@@ -172,14 +172,6 @@ const CASES: readonly Case[] = [
     expect: [{ code: 'params-mismatch', file: 'lr=0.1/seed=1/params.json', line: 1, message: /lr=0\.2.*lr=0\.1/ }],
   },
   {
-    name: 'layout-matches-nothing',
-    args: ['--layout', '{model}-{seed}/log.csv'],
-    expect: [
-      { code: 'layout-unmatched', file: 'runA_1/log.csv' },
-      { code: 'layout-unmatched', file: 'runB_2/log.csv' },
-    ],
-  },
-  {
     name: 'manifest-missing-files',
     args: ['--manifest', '{case}/runs.csv'],
     expect: [
@@ -492,6 +484,12 @@ interface UsageCase {
 }
 
 const USAGE: readonly UsageCase[] = [
+  {
+    // A layout that matches no file at all stops (issue 14); one that misses some files is a problem per file.
+    name: 'a --layout that matches no file',
+    argv: () => ['scan', join(BAD, 'layout-matches-nothing'), '--layout', '{model}-{seed}/log.csv'],
+    says: /--layout: '\{model\}-\{seed\}\/log\.csv' matches none of the 2 files found \(first: .*runA_1\/log\.csv\)/,
+  },
   {
     name: 'a PATH that does not exist',
     argv: () => ['scan', join(BAD, 'does-not-exist')],
