@@ -92,7 +92,7 @@ async function pilot(
         .join(', ')}), got '${raw.for}'`,
     );
   }
-  const options = resolveOptions({ summary: raw.summary, seed: 1 }, runSet);
+  const options = resolveOptions({ summary: raw.summary, seed: 1, asMetric: raw.for }, runSet);
   const results = analyze(runSet, options, { paths, generated: new Date(0).toISOString(), version: version() });
   const paramsOf = new Map(results.configs.map((c) => [c.id, c.params]));
   const armValues = (selectorText: string, option: string): number[] => {
