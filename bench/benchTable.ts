@@ -48,7 +48,10 @@ export function summarize(samples: readonly Sample[]): { wall: number; cpu: numb
 /** Left-aligned first column, right-aligned others, two spaces between columns. */
 export function formatColumns(rows: readonly (readonly string[])[], leftColumns = 1): string {
   const widths: number[] = [];
-  for (const row of rows) row.forEach((cell, i) => (widths[i] = Math.max(widths[i] ?? 0, cell.length)));
+  for (const row of rows)
+    row.forEach((cell, i) => {
+      widths[i] = Math.max(widths[i] ?? 0, cell.length);
+    });
   return rows
     .map((row) =>
       row
@@ -136,7 +139,8 @@ export function ratioTable(results: readonly SizeResult[]): string {
       html === null ? '-' : `${html.peakMiB - own.peak >= 0 ? '+' : ''}${mib(html.peakMiB - own.peak)}`,
       a === null
         ? '-'
-        : `${a.matched} matched, ${a.unmatched} not; max |diff gap| ${a.maxDifferenceGap.toExponential(1)}, max |Welch p gap| ${a.maxWelchPGap.toExponential(1)} (${a.welchUndefined} without a Welch p on one side)`,
+        : `${a.matched} matched, ${a.unmatched} not; max |diff gap| ${a.maxDifferenceGap.toExponential(1)}, ` +
+          `max |Welch p gap| ${a.maxWelchPGap.toExponential(1)} (${a.welchUndefined} without a Welch p on one side)`,
     ]);
   }
   return formatColumns(rows, 1);

@@ -24,6 +24,7 @@ import { permutationTest } from '../src/stats/permutation.js';
 import { createRandom, deriveSeed, type Random } from '../src/stats/random.js';
 import { tInterval } from '../src/stats/tInterval.js';
 import { welch } from '../src/stats/welch.js';
+import { differenceCoverage } from './differenceCoverage.js';
 
 /** A Monte Carlo proportion: hits / trials with standard error sqrt(p (1 - p) / trials). */
 export interface Proportion {
@@ -269,7 +270,7 @@ const HELP = `npm run calibrate -- [options]
   --permutation-resamples M  random relabelings when a permutation test cannot enumerate (default 2000)
   --sizes LIST               seeds per arm (default 3,5,10,20)
   --seed S                   seed (default 1)
-  --only WHAT                type-i, coverage or both (default both)`;
+  --only WHAT                type-i, coverage, difference or both (default both: all three)`;
 
 function main(argv: readonly string[]): void {
   const { values } = parseArgs({
@@ -302,8 +303,8 @@ function main(argv: readonly string[]): void {
   };
   const sizes = values.sizes.split(',').map((s) => integer('sizes', s.trim(), 2));
   const only = values.only;
-  if (!['type-i', 'coverage', 'both'].includes(only))
-    throw new RangeError(`--only: expected type-i, coverage or both, got ${only}`);
+  if (!['type-i', 'coverage', 'difference', 'both'].includes(only))
+    throw new RangeError(`--only: expected type-i, coverage, difference or both, got ${only}`);
   const started = performance.now();
   console.log(
     `seedsift calibration: ${opts.reps} replications per cell, B = ${opts.resamples} bootstrap resamples, ` +
@@ -312,7 +313,31 @@ function main(argv: readonly string[]): void {
   console.log('Each cell: Monte Carlo proportion ± its standard error sqrt(p(1-p)/reps).\n');
   const comparisons: Comparison[] = [];
 
-  if (only !== 'coverage') {
+  if (only === 'both' || only === 'difference') {
+    console.log('Coverage of nominal 95% intervals for a difference of means (n v n seeds, equal means)');
+    const rows: string[][] = [];
+    for (const distribution of ['normal', 'lognormal'] as const) {
+      for (const n of [10, 20, 30]) {
+        const r = differenceCoverage(distribution, n, opts);
+        const welchOk = Math.abs(r['welch-t'].rate - 0.95) <= 0.015;
+        rows.push([
+          `${n} v ${n}`,
+          distribution === 'lognormal' ? 'lognormal(0,1)' : 'normal',
+          fmt(r['welch-t']),
+          fmt(r.bca),
+          distribution === 'normal' && n >= 20
+            ? welchOk
+              ? 'Welch within 0.95 ± 0.015'
+              : 'Welch OUTSIDE 0.95 ± 0.015'
+            : '',
+        ]);
+      }
+    }
+    console.log(table(['n', 'data', 'Welch t-interval', 'BCa bootstrap', 'target'], rows));
+    console.log();
+  }
+
+  if (only === 'both' || only === 'type-i') {
     console.log(`Type-I error of two-sided tests at alpha = ${opts.alpha} (n seeds per arm, equal means)`);
     const rows: string[][] = [];
     for (const n of sizes) {
@@ -325,12 +350,14 @@ function main(argv: readonly string[]): void {
     }
     console.log(table(['n', 'scenario', 'Welch t', 'permutation', 'Mann-Whitney', 'bootstrap CI excludes 0'], rows));
     console.log(
-      `(permutation: exact while C(2n, n) <= 200,000, so up to n = 10; Monte Carlo with ${opts.permutationResamples} relabelings above. ` +
-        'Mann-Whitney: exact distribution, the data have no ties. Bootstrap: percentile interval of the difference, resampling within arms.)\n',
+      `(permutation: exact while C(2n, n) <= 200,000, so up to n = 10; Monte Carlo with ` +
+        `${opts.permutationResamples} relabelings above. ` +
+        'Mann-Whitney: exact distribution, the data have no ties. Bootstrap: percentile interval of the difference, ' +
+        'resampling within arms.)\n',
     );
   }
 
-  if (only !== 'type-i') {
+  if (only === 'both' || only === 'coverage') {
     console.log('Coverage of nominal 95% intervals for a mean');
     const rows: string[][] = [];
     for (const distribution of ['normal', 'lognormal'] as const) {
@@ -372,13 +399,15 @@ function main(argv: readonly string[]): void {
 
 function printNote(comparisons: readonly Comparison[], opts: SimulationOptions): void {
   console.log(
-    `Comparison with METHODS.md's table (${METHODS_REPS.toLocaleString('en')} replications, B = 2,000): ${comparisons.length} cells in common.`,
+    `Comparison with METHODS.md's table (${METHODS_REPS.toLocaleString('en')} replications, B = 2,000): ` +
+      `${comparisons.length} cells in common.`,
   );
   if (comparisons.length === 0) return;
   const off = comparisons.filter((c) => Math.abs(c.z) > 3);
   const worst = comparisons.reduce((a, b) => (Math.abs(b.z) > Math.abs(a.z) ? b : a));
   console.log(
-    `Largest difference: ${worst.where}: ${worst.ours.rate.toFixed(3)} here vs ${worst.methods.toFixed(3)} in METHODS.md (z = ${worst.z.toFixed(1)}).`,
+    `Largest difference: ${worst.where}: ${worst.ours.rate.toFixed(3)} here vs ${worst.methods.toFixed(3)} in ` +
+      `METHODS.md (z = ${worst.z.toFixed(1)}).`,
   );
   if (off.length === 0) {
     console.log('Every common cell agrees within 3 combined Monte Carlo standard errors.');
@@ -386,7 +415,8 @@ function printNote(comparisons: readonly Comparison[], opts: SimulationOptions):
     console.log(`${off.length} cells differ by more than 3 combined Monte Carlo standard errors:`);
     for (const c of off)
       console.log(
-        `  ${c.where}: ${c.ours.rate.toFixed(3)} ±${c.ours.se.toFixed(3)} vs ${c.methods.toFixed(3)} (z = ${c.z.toFixed(1)})`,
+        `  ${c.where}: ${c.ours.rate.toFixed(3)} ±${c.ours.se.toFixed(3)} vs ${c.methods.toFixed(3)} ` +
+          `(z = ${c.z.toFixed(1)})`,
       );
   }
   if (opts.resamples !== 2000) {

@@ -73,7 +73,9 @@ function main(argv: readonly string[]): void {
   for (const n of profile.nodes) for (const c of n.children ?? []) parent.set(c, n.id);
 
   const self = new Map<number, number>();
-  profile.samples.forEach((id, i) => self.set(id, (self.get(id) ?? 0) + (profile.timeDeltas[i] ?? 0)));
+  profile.samples.forEach((id, i) => {
+    self.set(id, (self.get(id) ?? 0) + (profile.timeDeltas[i] ?? 0));
+  });
   const total = [...self.values()].reduce((a, b) => a + b, 0);
   const ms = (us: number): string =>
     `${(us / 1000).toFixed(0).padStart(7)} ms ${((100 * us) / total).toFixed(1).padStart(5)}%`;

@@ -118,7 +118,8 @@ function sample(command: string, args: readonly string[]): Sample {
 function progress(size: string, tool: string, label: string, s: Sample): void {
   const m = s.measurement;
   console.log(
-    `  ${size} ${tool} ${label}: wall ${m.wallSeconds.toFixed(2)} s, CPU ${m.cpuSeconds.toFixed(2)} s, peak ${m.peakMiB.toFixed(0)} MiB, load ${s.loadBefore.toFixed(2)}`,
+    `  ${size} ${tool} ${label}: wall ${m.wallSeconds.toFixed(2)} s, CPU ${m.cpuSeconds.toFixed(2)} s, peak ` +
+      `${m.peakMiB.toFixed(0)} MiB, load ${s.loadBefore.toFixed(2)}`,
   );
 }
 
@@ -129,7 +130,10 @@ function benchSize(size: BenchSize, options: BenchOptions, seedsift: readonly st
   const dataMiB = bytesOnDisk(dir) / 2 ** 20;
   const baseline = peerBaseline(configsOnDisk(dir));
   console.log(
-    `${size.name}: ${runCount(size.spec)} runs (${size.spec.configs} configs x ${size.spec.seeds} seeds) x ${size.spec.steps} steps, ${size.spec.metrics} metrics, ${size.spec.ticks} ticks; ${dataMiB.toFixed(0)} MiB ${generated ? `generated in ${((performance.now() - started) / 1000).toFixed(1)} s` : 'reused'}; baseline ${baseline}`,
+    `${size.name}: ${runCount(size.spec)} runs (${size.spec.configs} configs x ${size.spec.seeds} seeds) x ` +
+      `${size.spec.steps} steps, ${size.spec.metrics} metrics, ${size.spec.ticks} ticks; ${dataMiB.toFixed(0)} MiB ` +
+      `${generated ? `generated in ${((performance.now() - started) / 1000).toFixed(1)} s` : 'reused'}; ` +
+      `baseline ${baseline}`,
   );
 
   const out = join(OUT, size.name);
@@ -219,7 +223,8 @@ function main(argv: readonly string[]): void {
       .join(' ')}`,
     `seedsift: ${seedsift.label} report DIR --json OUT --baseline B   (HTML run adds -o report.html)`,
     `peer:     ${SYSTEM_PYTHON} bench/peer/reference_pipeline.py DIR --out OUT --baseline B`,
-    `${options.repeats} timed runs of each tool per data set, in turns (ABBA), after ${options.warmup} untimed warm-up run(s); wall = median; peak = largest of the runs (GNU time, max RSS)`,
+    `${options.repeats} timed runs of each tool per data set, in turns (ABBA), after ${options.warmup} untimed ` +
+      `warm-up run(s); wall = median; peak = largest of the runs (GNU time, max RSS)`,
   ].join('\n');
   console.log(header);
   const results = BENCH_SIZES.filter((s) => options.groups.includes(s.group)).map((s) =>

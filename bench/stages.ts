@@ -27,8 +27,10 @@ async function stage<T>(name: string, work: () => T | Promise<T>): Promise<T> {
   const used = process.cpuUsage(cpu);
   const memory = process.memoryUsage();
   console.log(
-    `${name.padEnd(10)} wall ${wall.toFixed(0).padStart(6)} ms  CPU ${((used.user + used.system) / 1000).toFixed(0).padStart(6)} ms  ` +
-      `RSS after ${(memory.rss / MiB).toFixed(0).padStart(5)} MiB (JS heap ${(memory.heapUsed / MiB).toFixed(0)}, array buffers ${(memory.arrayBuffers / MiB).toFixed(0)})  ` +
+    `${name.padEnd(10)} wall ${wall.toFixed(0).padStart(6)} ms  CPU ` +
+      `${((used.user + used.system) / 1000).toFixed(0).padStart(6)} ms  ` +
+      `RSS after ${(memory.rss / MiB).toFixed(0).padStart(5)} MiB (JS heap ${(memory.heapUsed / MiB).toFixed(0)}, ` +
+      `array buffers ${(memory.arrayBuffers / MiB).toFixed(0)})  ` +
       `peak so far ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MiB`,
   );
   return result;
@@ -50,7 +52,8 @@ async function main(argv: readonly string[]): Promise<void> {
   );
   const json = await stage('json', () => resultsJson(results));
   console.log(
-    `           results.json ${(json.length / MiB).toFixed(1)} MiB; ${results.comparisons.length} comparisons, ${results.curves.length} curves`,
+    `           results.json ${(json.length / MiB).toFixed(1)} MiB; ${results.comparisons.length} comparisons, ` +
+      `${results.curves.length} curves`,
   );
   if (values.html) {
     const html = await stage('html', () =>

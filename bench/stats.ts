@@ -42,7 +42,8 @@ const median = (sorted: readonly number[]): number => {
 function report(label: string, ms: readonly number[], detail: string): void {
   const f = (v: number): string => v.toFixed(1);
   console.log(
-    `${label}: median ${f(median(ms))} ms (min ${f(ms[0] as number)}, max ${f(ms[ms.length - 1] as number)}, ${ms.length} runs)  ${detail}`,
+    `${label}: median ${f(median(ms))} ms (min ${f(ms[0] as number)}, max ${f(ms[ms.length - 1] as number)}, ` +
+      `${ms.length} runs)  ${detail}`,
   );
 }
 

@@ -68,12 +68,16 @@ export function checkTargets(results: readonly SizeResult[]): TargetCheck[] {
   }
 
   const large = find('large');
-  const limit = `large: seedsift peak under 1.5 GB (${LARGE_PEAK_LIMIT_MiB.toFixed(0)} MiB), the HTML report (the default output) included`;
+  const limit =
+    `large: seedsift peak under 1.5 GB (${LARGE_PEAK_LIMIT_MiB.toFixed(0)} MiB), ` +
+    'the HTML report (the default output) included';
   if (large) {
     const json = summarize(large.seedsift).peak;
     const html = large.html === null || typeof large.html === 'string' ? null : large.html.measurement.peakMiB;
     const peak = Math.max(json, html ?? 0);
-    const measured = `${json.toFixed(0)} MiB with --json only; ${html === null ? 'HTML run not measured' : `${html.toFixed(0)} MiB with the HTML report`}`;
+    const measured =
+      `${json.toFixed(0)} MiB with --json only; ` +
+      `${html === null ? 'HTML run not measured' : `${html.toFixed(0)} MiB with the HTML report`}`;
     checks.push({ target: limit, measured, met: html === null ? null : peak < LARGE_PEAK_LIMIT_MiB });
   } else {
     checks.push({ target: limit, measured: 'not run (--large)', met: null });

@@ -7,15 +7,13 @@ import { existsSync, readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
-let cached: string | null = null;
-
+/** Throws when no package.json named seedsift is found above this module (a broken install). */
 export function packageRoot(): string {
-  if (cached !== null) return cached;
   let dir = dirname(fileURLToPath(import.meta.url));
   for (;;) {
     const manifest = join(dir, 'package.json');
     if (existsSync(manifest) && (JSON.parse(readFileSync(manifest, 'utf8')) as { name?: string }).name === 'seedsift')
-      return (cached = dir);
+      return dir;
     const parent = dirname(dir);
     if (parent === dir)
       throw new Error(`seedsift: cannot find its own package.json above ${fileURLToPath(import.meta.url)}`);

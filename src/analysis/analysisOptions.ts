@@ -5,8 +5,18 @@
  * Defaults are those of METHODS.md ("Defaults"); the halting grid is ours (0.05 to 0.95 by 0.05,
  * and 0.99).
  */
-import type { Correction, DivergedPolicy, FailOn, SummarySpec } from './results.js';
-import { booleanOf, type CommandName, integerIn, numberIn, oneOf, option, splitList, text } from './optionSpec.js';
+import type { Correction, FailedPolicy, FailOn, FamilyScope, IntervalChoice, SummarySpec } from './results.js';
+import {
+  alias,
+  booleanOf,
+  type CommandName,
+  integerIn,
+  numberIn,
+  oneOf,
+  option,
+  splitList,
+  text,
+} from './optionSpec.js';
 import { parseSelector } from './selectors.js';
 import { parseSummary } from './summarySpec.js';
 import { SeedsiftError } from '../problems.js';
@@ -108,15 +118,27 @@ export const ANALYSIS_OPTIONS = {
     parse: booleanOf(),
     setting: (v) => v,
   }),
-  diverged: option({
+  failed: option({
+    flag: '--failed <policy>',
+    help:
+      'failed runs (diverged, or stopped short): exclude | worst (default exclude; counted either way, ' +
+      'failure counts compared with Fisher)',
+    commands: REPORT,
+    front: 'failed',
+    shape: 'text',
+    fallback: 'exclude' as FailedPolicy,
+    parse: oneOf(['exclude', 'worst'] as const),
+    setting: (v) => v,
+  }),
+  diverged: alias({
     flag: '--diverged <policy>',
-    help: 'diverged runs: exclude | worst (default exclude)',
+    help: 'the old name of --failed (e.g. --diverged worst)',
     commands: REPORT,
     front: 'diverged',
     shape: 'text',
-    fallback: 'exclude' as DivergedPolicy,
+    fallback: 'exclude' as FailedPolicy,
     parse: oneOf(['exclude', 'worst'] as const),
-    setting: (v) => v,
+    aliasOf: 'failed',
   }),
   failOn: option({
     flag: '--fail-on <gate>',
@@ -126,6 +148,26 @@ export const ANALYSIS_OPTIONS = {
     shape: 'text',
     fallback: null as FailOn | null,
     parse: oneOf(['worse', 'not-better'] as const),
+    setting: (v) => v,
+  }),
+  family: option({
+    flag: '--family <scope>',
+    help: 'the family of each correction: study (one metric and summary over all tasks) | task (default study)',
+    commands: REPORT,
+    front: 'family',
+    shape: 'text',
+    fallback: 'study' as FamilyScope,
+    parse: oneOf(['study', 'task'] as const),
+    setting: (v) => v,
+  }),
+  interval: option({
+    flag: '--interval <kind>',
+    help: "the headline interval of a difference: welch (Welch's t at every n) | bca (bootstrap) (default welch)",
+    commands: REPORT,
+    front: 'interval',
+    shape: 'text',
+    fallback: 'welch' as IntervalChoice,
+    parse: oneOf(['welch', 'bca'] as const),
     setting: (v) => v,
   }),
   ...SELECTION_OPTIONS,
@@ -151,21 +193,22 @@ export const ANALYSIS_OPTIONS = {
   }),
   bootstrapFrom: option({
     flag: '--bootstrap-from <n>',
-    help: 'runs per arm (or per curve bin) from which intervals switch from t to BCa bootstrap (default 20)',
+    help: "runs per arm from which the BCa interval of a difference is shown beside Welch's (default 10)",
     commands: FRONT_ONLY,
     front: 'bootstrap-from',
     shape: 'number',
-    fallback: 20,
+    fallback: 10,
     parse: integerIn(2, 1_000_000),
     setting: (v) => v,
   }),
   level: option({
     flag: '--level <l>',
-    help: 'confidence level of every interval (default 0.95)',
+    help: 'confidence level of every interval (default 1 - alpha: the intervals are unadjusted)',
     commands: FRONT_ONLY,
     front: 'level',
     shape: 'number',
-    fallback: 0.95,
+    // null: 1 - alpha, filled in by resolveOptions.
+    fallback: null as number | null,
     parse: numberIn(0, 1, 'open'),
     setting: (v) => v,
   }),

@@ -4,8 +4,9 @@
  *   1. inventory      configs, runs and metrics in a stable order (configs by parameter values in
  *                     key order, numeric-aware; metrics in first-seen order)
  *   2. pairing        which config is compared with which (`--baseline`, `--task-key`)
- *   3. per metric     common horizon, per-run summary values, comparisons per task (one family per
- *                     metric, summary and task), learning curves (logs only), task aggregates
+ *   3. per metric     per-run summary values (each config at its own step), comparisons (each at
+ *                     its own step; one family per metric and summary over all tasks, or per task
+ *                     under --family task), learning curves (logs only), task aggregates
  *   4. ticks          accuracy by tick, halting and calibration (`ticks.ts`, `halting.ts`, `calibration.ts`)
  *   5. assemble       settings, records, problems (ingest's, then analysis', deduplicated)
  *
@@ -16,10 +17,9 @@ import type { MetricInfo, Run, RunSet } from '../ingest/types.js';
 import { problem, type Problem } from '../problems.js';
 import { calibrationCurves } from './calibration.js';
 import { configValues } from './configValues.js';
-import { compareFamily, type ArmRun, type ComparisonRequest, type PowerCache } from './compare.js';
+import type { PowerCache } from './compare.js';
 import { learningCurves } from './curves.js';
 import { haltingCurves } from './halting.js';
-import { commonHorizon } from './horizon.js';
 import { inventory, orderRuns } from './inventory.js';
 import { optionSettings, type ResolvedOptions } from './options.js';
 import { pairConfigs, type Pairing } from './pairing.js';
@@ -36,6 +36,7 @@ import type {
   TaskAggregate,
   TickCurve,
 } from './results.js';
+import { metricComparisons } from './metricComparisons.js';
 import { metricValues } from './runValues.js';
 import { matchesSelector } from './selectors.js';
 import { checkOptions } from './checkOptions.js';
@@ -100,7 +101,6 @@ export function analyze(
   }
   const compared = new Set<string>();
   for (const p of pairing.pairs) compared.add(p.baselineConfig).add(p.candidateConfig);
-  const horizonRuns = compared.size === 0 ? runs : runs.filter((r) => compared.has(r.config));
 
   // 3. per metric
   const metrics: MetricRecord[] = [];
@@ -127,9 +127,7 @@ export function analyze(
       );
       continue;
     }
-    const horizon = commonHorizon(horizonRuns, info.name, runSet.mode);
-    metrics.push({ ...record, horizon: horizon.step });
-    // A metric whose goal is unknown is summarised and compared as "higher" (direction only).
+    // A metric whose goal is unknown is summarised as "higher" (direction only, metricComparisons.ts).
     const direction = info.goal ?? 'max';
     const mv = metricValues(
       runs,
@@ -137,36 +135,18 @@ export function analyze(
       direction,
       options.summary,
       options.summaryText,
-      { horizon: horizon.step, firstStep: horizon.firstStep },
-      options.diverged,
+      options.failed,
       compared,
       runSet.mode,
     );
     values.push(...mv.values);
     perConfig.push(...configValues(mv.values, options));
     problems.push(...mv.problems);
-    const armOf = (config: string): ArmRun[] =>
-      (runsByConfig.get(config) ?? []).map((run) => {
-        const v = mv.byRun.get(run.id);
-        return { run: run.id, seed: run.seed, value: v?.value ?? null, diverged: v?.diverged ?? false };
-      });
-    for (const family of families(pairing)) {
-      const requests: ComparisonRequest[] = family.map((p) => ({
-        metric: info.name,
-        goal: summaryGoal(options.summary, direction),
-        goalInferred: info.goalSource === 'inferred',
-        summary: options.summaryText,
-        reachValue: options.summary.kind === 'reach' ? options.summary.value : null,
-        task: p.task,
-        baseline: p.baseline,
-        candidate: p.candidate,
-        baselineRuns: armOf(p.baselineConfig),
-        candidateRuns: armOf(p.candidateConfig),
-      }));
-      const result = compareFamily(requests, options, cache);
-      comparisons.push(...(info.goal === null ? result.comparisons.map(directionOnly) : result.comparisons));
-      problems.push(...result.problems);
-    }
+    const result = metricComparisons(info, runsByConfig, pairing, options, runSet.mode, cache);
+    comparisons.push(...result.comparisons);
+    problems.push(...result.problems);
+    const steps = new Set(result.comparisons.map((c) => c.step));
+    metrics.push({ ...record, horizon: steps.size === 1 ? ([...steps][0] ?? null) : null });
     if (runSet.mode === 'logs') {
       curves.push(...learningCurves(runs, info.name, options));
     }
@@ -224,11 +204,6 @@ function groupRuns(runs: readonly Run[]): Map<string, Run[]> {
   return out;
 }
 
-/** Pairs grouped into families: one per task (the metric and summary are fixed by the caller). */
-function families(pairing: Pairing): Pairing['pairs'][] {
-  return pairing.tasks.map((task) => pairing.pairs.filter((p) => p.task === task)).filter((f) => f.length > 0);
-}
-
 /** The one config the selector picks, for the per-tick comparison (null when it picks several or none). */
 function tickBaseline(
   configs: readonly { readonly id: string; readonly params: Readonly<Record<string, string>> }[],
@@ -243,7 +218,7 @@ function tickBaseline(
 function metricTasks(
   info: MetricInfo,
   runs: readonly Run[],
-  byRun: ReadonlyMap<string, { readonly value: number | null; readonly diverged: boolean }>,
+  byRun: ReadonlyMap<string, { readonly value: number | null; readonly failed: boolean }>,
   pairing: Pairing,
   options: ResolvedOptions,
 ): TaskAggregate[] {
@@ -255,7 +230,7 @@ function metricTasks(
   for (const run of runs) {
     const group = groupOf.get(run.config);
     const v = byRun.get(run.id);
-    if (group === undefined || v === undefined || v.value === null || v.diverged) continue;
+    if (group === undefined || v === undefined || v.value === null || v.failed) continue;
     if (!groups.includes(group)) groups.push(group);
     scores.push({ task: run.params[taskKey] ?? '', group, value: v.value });
   }

@@ -8,7 +8,8 @@
  */
 import type { Goal } from '../ingest/types.js';
 import { problem, type Problem } from '../problems.js';
-import type { DivergedPolicy, Verdict } from './results.js';
+import type { FailureCounts } from './comparisonTypes.js';
+import type { FailedPolicy, Verdict } from './results.js';
 
 export interface CautionFacts {
   readonly metric: string;
@@ -23,8 +24,8 @@ export interface CautionFacts {
   readonly reachValue: number | null;
   readonly baselineValues: ArrayLike<number>;
   readonly candidateValues: ArrayLike<number>;
-  readonly diverged: { readonly baseline: number; readonly candidate: number };
-  readonly divergedPolicy: DivergedPolicy;
+  readonly failures: FailureCounts;
+  readonly failedPolicy: FailedPolicy;
   /** Runs with no value (censored, missing), not counting diverged ones. */
   readonly noValue: { readonly baseline: number; readonly candidate: number };
   readonly alpha: number;
@@ -33,6 +34,8 @@ export interface CautionFacts {
     readonly permutation: number | null;
     readonly mannWhitney: number | null;
   };
+  /** Both arms have zero spread and differ: the exact permutation test decided. */
+  readonly zeroSpread: boolean;
   readonly verdict: Verdict;
   /** Why a test or interval could not run, already in plain words. */
   readonly reasons: readonly string[];
@@ -128,7 +131,9 @@ export function comparisonCautions(f: CautionFacts): { lines: string[]; problems
   const nc = f.candidateValues.length;
 
   if (f.reachValue !== null)
-    add(`the summary is the step at which ${f.metric} first reaches ${f.reachValue}: fewer steps is better`);
+    add(
+      `the summary is the number of steps until ${f.metric} first reaches ${f.reachValue} (reaching sooner is better); runs that have not reached it are censored at the comparison's step and kept (log-rank test)`,
+    );
   if (f.goalInferred) {
     const flip = f.goal === 'max' ? 'min' : 'max';
     add(
@@ -159,16 +164,25 @@ export function comparisonCautions(f: CautionFacts): { lines: string[]; problems
     );
   }
   if (nb !== nc && nb > 0 && nc > 0) add(`unequal seed counts (${nc} candidate v ${nb} baseline)`, 'unequal-seeds');
-  const dv = f.diverged.baseline + f.diverged.candidate;
-  if (dv > 0) {
+  const fb = f.failures.baseline;
+  const fc = f.failures.candidate;
+  const failed = fb.diverged + fb.short + fc.diverged + fc.short;
+  if (failed > 0) {
     const what =
-      f.divergedPolicy === 'exclude'
-        ? 'left out of the tests'
-        : 'counted as the worst value observed in this comparison';
+      f.failedPolicy === 'exclude' ? 'left out of the values' : 'scored as the worst value observed in this comparison';
+    const arm = (a: typeof fb): string => {
+      const kinds = [a.diverged > 0 ? `${a.diverged} diverged` : '', a.short > 0 ? `${a.short} short` : ''];
+      return `${a.diverged + a.short} of ${a.runs} failed${a.diverged + a.short > 0 ? ` (${kinds.filter((k) => k !== '').join(', ')})` : ''}`;
+    };
     add(
-      `${dv} diverged run${dv === 1 ? '' : 's'} ${what} (baseline ${f.diverged.baseline}, candidate ${f.diverged.candidate})`,
+      `${failed} failed run${failed === 1 ? '' : 's'} ${what}: baseline ${arm(fb)}, candidate ${arm(fc)}; Fisher's exact test on the failure counts p = ${f.failures.fisherP === null ? '—' : formatNumber(f.failures.fisherP)}`,
     );
   }
+  if (f.zeroSpread)
+    add(
+      `zero spread in both arms and the arms differ: Welch's test is undefined, so the exact permutation test decides (p = ${f.p.permutation === null ? '—' : formatNumber(f.p.permutation)})`,
+      'zero-spread',
+    );
   const nv = f.noValue.baseline + f.noValue.candidate;
   if (nv > 0) {
     add(

@@ -1,17 +1,17 @@
 /**
  * Per-config summary of the per-run values of one metric: the mean across seeds with its interval
- * by METHODS.md's rule (t-interval of the mean below `bootstrapFrom` runs, BCa bootstrap at or
- * above; no interval from one run), for the report's per-seed values chart. Between-seed spread
+ * by METHODS.md's rule (t-interval of the mean at every n, BCa bootstrap under `--interval bca`
+ * from 4 runs; no interval from one run), for the report's per-seed values chart. Between-seed spread
  * only: it says how well the config's mean is pinned down, not how two configs differ (that is the
  * comparison's difference interval).
  */
 import { createRandom, deriveSeed } from '../stats/random.js';
 import { binBand, freshDraws } from './curves.js';
-import type { ConfigValue, RunValue } from './results.js';
+import type { ConfigValue, IntervalChoice, RunValue } from './results.js';
 
 export interface ConfigValueSettings {
   readonly level: number;
-  readonly bootstrapFrom: number;
+  readonly interval: IntervalChoice;
   readonly bandResamples: number;
   readonly seed: number;
 }

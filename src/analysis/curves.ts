@@ -7,34 +7,35 @@
  * step, past its last step, or between sparse logs) is null: nothing is carried forward.
  *
  * Per config and bin, across the runs that logged there: the mean, and a band by METHODS.md's rule
- * (the t-interval of the mean while fewer than `bootstrapFrom` (20) runs contribute; the BCa
- * bootstrap of the mean with `bandResamples` (2,000) resamples at or above, falling back to the t
- * interval if BCa fails, e.g. on identical values), n per bin, and the method per bin. Bands are
+ * (the t-interval of the mean at every n; under `--interval bca` the BCa bootstrap of the mean with
+ * `bandResamples` (2,000) resamples from 4 runs, falling back to the t interval if BCa fails,
+ * e.g. on identical values), n per bin, and the method per bin. Bands are
  * for looking; tests decide. The bootstrap resamples the seeds as whole curves: one table of
  * resample counts per curve (per number of runs present in a bin) serves every bin, so a bin
  * costs one dot product per resample rather than random draws and look-ups (one 40-run x 400-bin
  * curve: about 4x faster), and neighbouring bins move together, as the runs behind them do.
  *
- * Diverged runs are kept as thin per-seed lines; under `--diverged exclude` they do not enter the
+ * Diverged runs are kept as thin per-seed lines; under `--failed exclude` they do not enter the
  * mean, band or n, under `worst` their logged (finite) values do, up to where they stop.
  *
  * Cost O(points + runs x bins) per config, plus bootstrap work in bins with 20+ runs; work buffers
  * (Float64Array) are allocated once per curve.
  */
 import type { Run, Series } from '../ingest/types.js';
-import { bootstrapMeanFromCounts, resampleCounts } from '../stats/bootstrap.js';
+import { bootstrapMeanFromCounts, resampleCounts } from '../stats/bootstrapMeanFromCounts.js';
 import { createRandom, deriveSeed, type Random } from '../stats/random.js';
+import { createTQuantileCache, type TQuantile } from '../stats/studentTQuantile.js';
 import { tInterval } from '../stats/tInterval.js';
-import { isDiverged } from './horizon.js';
-import type { Curve, DivergedPolicy, IntervalMethod } from './results.js';
+import { isDiverged } from './comparisonStep.js';
+import type { Curve, FailedPolicy, IntervalChoice, IntervalMethod } from './results.js';
 
 export interface CurveSettings {
   readonly bins: number;
   readonly level: number;
-  readonly bootstrapFrom: number;
+  readonly interval: IntervalChoice;
   readonly bandResamples: number;
   readonly seed: number;
-  readonly diverged: DivergedPolicy;
+  readonly failed: FailedPolicy;
 }
 
 export interface StepGrid {
@@ -137,7 +138,7 @@ function configCurve(
     accumulate(s.steps, s.values, grid.first, grid.width, k, sums, counts);
     perRun.push({ run: run.id, seed: run.seed, values: binMeans(sums, counts, matrix, j * k) });
   }
-  const counted = runs.map((run) => settings.diverged === 'worst' || !isDiverged(run, metric));
+  const counted = runs.map((run) => settings.failed === 'worst' || !isDiverged(run, metric));
   const random = createRandom(deriveSeed(settings.seed, `curve|${metric}|${config}`));
   const { mean, low, high, n, bandByBin } = binBands(
     matrix,
@@ -208,13 +209,14 @@ function binBands(
   const high: (number | null)[] = [];
   const n: number[] = [];
   const bandByBin: IntervalMethod[] = [];
+  const quantile = createTQuantileCache().quantile; // bins of a curve share a few (level, df) pairs
   for (let b = 0; b < k; b++) {
     let m = 0;
     for (let j = 0; j < r; j++) {
       const v = matrix[j * k + b] as number;
       if (counted[j] === true && !Number.isNaN(v)) column[m++] = v;
     }
-    const band = binBand(column.subarray(0, m), settings, draws);
+    const band = binBand(column.subarray(0, m), settings, draws, quantile);
     mean.push(band.mean);
     low.push(band.low);
     high.push(band.high);
@@ -258,13 +260,21 @@ export function freshDraws(random: Random, resamples: number): Draws {
   return (m) => resampleCounts(random, m, resamples);
 }
 
-/** The band of one bin: t-interval below `bootstrapFrom` runs, BCa bootstrap (resample counts from `draws`) at or above. */
-export function binBand(x: Float64Array, settings: Pick<CurveSettings, 'level' | 'bootstrapFrom'>, draws: Draws): Band {
+/** Runs from which `--interval bca` gives a BCa band (a bootstrap of 3 values covers at most 75%: METHODS.md). */
+export const BCA_BAND_FROM = 4;
+
+/** The band of one bin: the t-interval; under `--interval bca`, BCa bootstrap (resample counts from `draws`) from 4 runs. */
+export function binBand(
+  x: Float64Array,
+  settings: Pick<CurveSettings, 'level' | 'interval'>,
+  draws: Draws,
+  quantile?: TQuantile,
+): Band {
   const m = x.length;
   if (m === 0) return { mean: null, low: null, high: null, method: 'none' };
   if (m === 1) return { mean: x[0] as number, low: null, high: null, method: 'none' };
-  const t = tInterval(x, settings.level);
-  if (m >= settings.bootstrapFrom) {
+  const t = tInterval(x, settings.level, quantile);
+  if (settings.interval === 'bca' && m >= BCA_BAND_FROM) {
     try {
       const boot = bootstrapMeanFromCounts(x, draws(m), { method: 'bca', level: settings.level });
       if (Number.isFinite(boot.low) && Number.isFinite(boot.high))

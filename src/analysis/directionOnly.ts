@@ -10,7 +10,7 @@ import type { Comparison } from './results.js';
  * inconclusive, with a caution that says whether the candidate is higher or lower.
  */
 export function directionOnly(c: Comparison): Comparison {
-  if (c.verdict !== 'better' && c.verdict !== 'worse') return c;
+  if ((c.verdict !== 'better' && c.verdict !== 'worse') || c.difference.estimate === null) return c;
   const way = c.difference.estimate > 0 ? 'higher' : 'lower';
   return {
     ...c,

@@ -44,6 +44,11 @@ export interface OptionSpec<T> {
   merge?(front: RawValue, cli: RawValue): RawValue;
   /** Its entry in `results.json` settings, when it has one. */
   setting?(value: T): SettingValue;
+  /**
+   * The key of the entry this one is an older name of (`--diverged` for `--failed`): given while
+   * that entry is not, its parsed value becomes that entry's; it resolves to no field of its own.
+   */
+  readonly aliasOf?: string;
 }
 
 /** An entry that appears in `results.json` settings, with the type of its setting kept. */
@@ -59,11 +64,25 @@ export function option<T>(spec: OptionSpec<T>): OptionSpec<T> {
   return spec;
 }
 
+/** An entry that is an older name of another (see `aliasOf`); kept out of the resolved record. */
+export type AliasSpec<T> = OptionSpec<T> & { readonly aliasOf: string };
+
+/** An older name of the entry `aliasOf` (see `OptionSpec.aliasOf`). */
+export function alias<T>(spec: AliasSpec<T>): AliasSpec<T> {
+  return spec;
+}
+
 /** Any entry. */
 export type AnyOption = OptionSpec<unknown>;
 
 /** The resolved record a table describes. */
-export type ResolvedBy<Table> = { readonly [K in keyof Table]: Table[K] extends OptionSpec<infer T> ? T : never };
+export type ResolvedBy<Table> = {
+  readonly [K in keyof Table as Table[K] extends { readonly aliasOf: string } ? never : K]: Table[K] extends OptionSpec<
+    infer T
+  >
+    ? T
+    : never;
+};
 
 /** Raw values keyed like the table (every field optional; null or '' count as not given). */
 export type RawBy<Table> = { readonly [K in keyof Table]?: RawValue | null | undefined };
@@ -96,8 +115,14 @@ export function resolveTable<Table extends Record<string, AnyOption>>(
 ): ResolvedBy<Table> {
   const out: Record<string, unknown> = {};
   for (const [key, spec] of Object.entries(table)) {
+    if (spec.aliasOf !== undefined) continue;
     const value = raw[key as keyof Table];
     out[key] = given(value) ? spec.parse(value, longName(spec.flag)) : spec.fallback;
+  }
+  for (const [key, spec] of Object.entries(table)) {
+    const value = raw[key as keyof Table];
+    if (spec.aliasOf === undefined || !given(value) || given(raw[spec.aliasOf as keyof Table])) continue;
+    out[spec.aliasOf] = spec.parse(value, longName(spec.flag));
   }
   return out as ResolvedBy<Table>;
 }
@@ -109,7 +134,7 @@ export function settingsOfTable<Table extends Record<string, AnyOption>>(
 ): SettingsBy<Table> {
   const out: Record<string, SettingValue> = {};
   for (const [key, spec] of Object.entries(table))
-    if (spec.setting !== undefined) out[key] = spec.setting(resolved[key as keyof Table]);
+    if (spec.setting !== undefined) out[key] = spec.setting((resolved as Record<string, unknown>)[key]);
   return out as SettingsBy<Table>;
 }
 

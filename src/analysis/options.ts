@@ -8,20 +8,35 @@
 import type { RunSet } from '../ingest/types.js';
 import { ANALYSIS_OPTIONS } from './analysisOptions.js';
 import { checkOptions } from './checkOptions.js';
+import { describeSummary } from './summaryKinds.js';
 import { type RawBy, type ResolvedBy, resolveTable, type SettingsBy, settingsOfTable } from './optionSpec.js';
 
 /** Options as given: strings from the command line, numbers or strings from YAML front matter. */
 export type ReportOptions = RawBy<typeof ANALYSIS_OPTIONS>;
 
-/** Every option set (one field per entry of the table), plus `summaryText`, the summary as typed. */
-export type ResolvedOptions = ResolvedBy<typeof ANALYSIS_OPTIONS> & { readonly summaryText: string };
+/**
+ * Every option set (one field per entry of the table, `level` filled in: 1 - alpha unless given,
+ * so the intervals are unadjusted), plus `summaryText`, the summary as typed.
+ */
+export type ResolvedOptions = Omit<ResolvedBy<typeof ANALYSIS_OPTIONS>, 'level'> & {
+  readonly level: number;
+  readonly summaryText: string;
+};
 
 /** The settings block of results.json: the table's entries with a `setting`. */
 export type OptionSettings = SettingsBy<typeof ANALYSIS_OPTIONS>;
 
+/**
+ * What ran, as results.json records it: the table's settings (`level` as used, 1 - alpha unless
+ * given) and the summary in words.
+ */
+export type Settings = Omit<OptionSettings, 'level'> & { readonly level: number; readonly summaryDescription: string };
+
 /** The defaults, from the table. */
 export const DEFAULT_OPTIONS = Object.fromEntries(
-  Object.entries(ANALYSIS_OPTIONS).map(([key, spec]) => [key, spec.fallback]),
+  Object.entries(ANALYSIS_OPTIONS)
+    .filter(([, spec]) => !('aliasOf' in spec))
+    .map(([key, spec]) => [key, spec.fallback]),
 ) as ResolvedBy<typeof ANALYSIS_OPTIONS>;
 
 /**
@@ -33,12 +48,21 @@ export const DEFAULT_OPTIONS = Object.fromEntries(
  */
 export function resolveOptions(input: ReportOptions, runSet?: RunSet): ResolvedOptions {
   const table = resolveTable(ANALYSIS_OPTIONS, input);
-  const resolved: ResolvedOptions = { ...table, summaryText: table.summary.text };
+  const resolved: ResolvedOptions = {
+    ...table,
+    level: table.level ?? 1 - table.alpha,
+    summaryText: table.summary.text,
+  };
   if (runSet !== undefined) checkOptions(resolved, runSet);
   return resolved;
 }
 
-/** The settings block of results.json for resolved options. */
-export function optionSettings(options: ResolvedOptions): OptionSettings {
-  return settingsOfTable(ANALYSIS_OPTIONS, options);
+/**
+ * The settings block of results.json for resolved options: the table's settings in table order,
+ * with the summary in words (`summaryDescription`, from the summary kinds table) after `summary`.
+ */
+export function optionSettings(options: ResolvedOptions): Settings {
+  const { alpha, seed, correction, summary, ...rest } = settingsOfTable(ANALYSIS_OPTIONS, options);
+  const summaryDescription = describeSummary(options.summary);
+  return { alpha, seed, correction, summary, summaryDescription, ...rest, level: options.level };
 }

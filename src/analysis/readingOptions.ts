@@ -1,8 +1,11 @@
 /**
  * The reading options (scan, report, digest, seeds): one table entry each (see `optionSpec.ts`),
- * resolved into the `IngestOptions` record that ingest takes. The table is typed by
- * `IngestOptions`, so a field without an entry (or an entry without a field) does not compile.
+ * resolved into `ReadingValues`: the reading-mode flags (`ReadingFlags`, from which
+ * `readingMode` in src/ingest/readingMode.ts chooses and checks the one mode) and the rest of
+ * `IngestOptions`. The table is typed by `ReadingValues`, so a field without an entry (or an
+ * entry without a field) does not compile.
  */
+import type { ReadingFlags } from '../ingest/readingMode.js';
 import type { Goal, IngestOptions } from '../ingest/types.js';
 import { SeedsiftError } from '../problems.js';
 import { type CommandName, names, type OptionSpec, option, type RawValue, splitList, text } from './optionSpec.js';
@@ -32,8 +35,11 @@ function mergeGoals(front: RawValue, cli: RawValue): RawValue {
 
 const textOrNull = (raw: RawValue, name: string): string | null => text()(raw, name);
 
+/** What the reading options resolve to before the reading mode is chosen from the flags. */
+export type ReadingValues = ReadingFlags & Pick<IngestOptions, 'step' | 'columns' | 'metricGoals'>;
+
 /** The reading options, in the order `--help` lists them. */
-export const READING_OPTIONS: { readonly [K in keyof IngestOptions]-?: OptionSpec<IngestOptions[K]> } = {
+export const READING_OPTIONS: { readonly [K in keyof ReadingValues]-?: OptionSpec<ReadingValues[K]> } = {
   layout: option<string | null>({
     flag: '--layout <template>',
     help: "path template with {field} captures, * and ** (e.g. '{model}/{task}_{seed}/eval.csv')",
@@ -59,12 +65,8 @@ export const READING_OPTIONS: { readonly [K in keyof IngestOptions]-?: OptionSpe
     front: 'seed-columns',
     shape: 'text',
     fallback: null,
-    parse: (raw, name) => {
-      const v = text()(raw, name);
-      if (!v.includes('{seed}'))
-        throw new SeedsiftError('usage', `${name}: expected a pattern with a {seed} capture, got '${String(raw)}'`);
-      return v;
-    },
+    // Its {seed} capture is checked by readingMode, with the other reading flags.
+    parse: textOrNull,
   }),
   manifest: option<string | null>({
     flag: '--manifest <file>',

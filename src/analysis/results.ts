@@ -5,14 +5,29 @@
  * Keys never change meaning within version 1; new keys may be added.
  */
 import type { Goal, GoalSource, IdentitySource, RunStatus } from '../ingest/types.js';
-import type { OptionSettings } from './options.js';
+import type { Settings as OptionSettings } from './options.js';
 import type { Problem } from '../problems.js';
 
 export type Verdict = 'better' | 'worse' | 'inconclusive';
 export type Correction = 'holm' | 'bh' | 'none';
-export type DivergedPolicy = 'exclude' | 'worst';
+/** What happens to failed runs (diverged, short): left out, or scored as the worst value of the comparison. */
+export type FailedPolicy = 'exclude' | 'worst';
+/** The family a correction runs over: one metric and summary over all tasks, or each task alone. */
+export type FamilyScope = 'study' | 'task';
+/** The headline interval: Welch's t at every n, or BCa bootstrap (from 4 runs per arm) by option. */
+export type IntervalChoice = 'welch' | 'bca';
 export type FailOn = 'worse' | 'not-better';
 export type IntervalMethod = 'welch-t' | 't' | 'bca' | 'percentile' | 'expanded-percentile' | 'bootstrap-t' | 'none';
+export type {
+  Comparison,
+  Difference,
+  Family,
+  FailureCounts,
+  RunUse,
+  TimeToEventArm,
+  TimeToEventResult,
+} from './comparisonTypes.js';
+import type { Comparison } from './comparisonTypes.js';
 
 /** A run summary: how one run's curve becomes one number (DESIGN.md `--summary`). */
 export type SummarySpec =
@@ -25,7 +40,8 @@ export type SummarySpec =
 
 /**
  * What ran, as the user gave it: one field per entry of the analysis options table that has a
- * `setting` (`analysisOptions.ts`), in table order; the JSON schema's settings are checked against it.
+ * `setting` (`analysisOptions.ts`), in table order, and `summaryDescription` (the summary in words,
+ * for every rendering); the JSON schema's settings are checked against it.
  */
 export type Settings = OptionSettings;
 
@@ -60,7 +76,7 @@ export interface MetricRecord {
   readonly goalSource: GoalSource;
   readonly kind: 'scalar' | 'tick';
   readonly ticks: number;
-  /** Last step every compared run reached for this metric (null for score tables). */
+  /** The step of this metric's comparisons when they all share one, else null (each comparison has its own `step`). */
   readonly horizon: number | null;
   readonly firstStep: number | null;
   readonly lastStep: number | null;
@@ -74,89 +90,29 @@ export interface RunValue {
   readonly config: string;
   readonly seed: string;
   readonly value: number | null;
+  /** The step the config's values are taken at: the last step all its non-failed runs reached (null for score tables). */
+  readonly step: number | null;
+  /** The step the value was logged at. */
+  readonly loggedAt: number | null;
   /** Why there is no value, or how it was obtained (e.g. `diverged: counted as worst`). */
   readonly note: string | null;
   readonly usedInTests: boolean;
 }
 
-/** Mean across seeds of one config's per-run values, with its interval (t below 20 runs, BCa at 20 or more). */
+/** Mean across seeds of one config's per-run values, with its t-interval (BCa under `--interval bca`). */
 export interface ConfigValue {
   readonly metric: string;
   readonly summary: string;
   readonly config: string;
   /** Runs with a value. */
   readonly n: number;
-  /** Runs without a value (diverged, censored, missing). */
+  /** Runs without a value (failed, missing). */
   readonly missing: number;
   readonly mean: number | null;
   readonly low: number | null;
   readonly high: number | null;
   readonly level: number;
   readonly method: IntervalMethod;
-}
-
-/** A difference with its interval: candidate - baseline, in the metric's units. */
-export interface Difference {
-  readonly estimate: number;
-  readonly low: number | null;
-  readonly high: number | null;
-  readonly level: number;
-  readonly method: IntervalMethod;
-}
-
-export interface Comparison {
-  readonly metric: string;
-  readonly goal: Goal;
-  readonly summary: string;
-  /** Task value when --task-key is used, else null. */
-  readonly task: string | null;
-  readonly baseline: string;
-  readonly candidate: string;
-  readonly n: { readonly baseline: number; readonly candidate: number };
-  readonly mean: { readonly baseline: number | null; readonly candidate: number | null };
-  readonly sd: { readonly baseline: number | null; readonly candidate: number | null };
-  /** Diverged runs in each arm (excluded, or counted as worst under --diverged worst). */
-  readonly diverged: { readonly baseline: number; readonly candidate: number };
-  readonly difference: Difference;
-  readonly tests: {
-    readonly welch: { readonly statistic: number | null; readonly df: number | null; readonly p: number | null };
-    readonly permutation: { readonly p: number | null; readonly exact: boolean };
-    readonly mannWhitney: { readonly u: number | null; readonly p: number | null; readonly exact: boolean };
-    /** Under --paired: paired t and Wilcoxon signed-rank on seeds present in both arms. */
-    readonly paired?: {
-      readonly t: number | null;
-      readonly df: number | null;
-      readonly p: number | null;
-      readonly wilcoxonP: number | null;
-      readonly pairs: number;
-    };
-  };
-  /** The primary test's p (Welch, or paired t under --paired) and its adjusted value. */
-  readonly p: number | null;
-  readonly pAdjusted: number | null;
-  readonly verdict: Verdict;
-  /** Under --margin: one-sided Welch test that the candidate is not worse by more than the margin. */
-  readonly nonInferiority: { readonly margin: number; readonly p: number | null; readonly holds: boolean } | null;
-  readonly effect: {
-    readonly hedgesG: number | null;
-    readonly hedgesGLow: number | null;
-    readonly hedgesGHigh: number | null;
-    /** P(candidate better than baseline) + ties/2, in the goal's direction. */
-    readonly probabilityOfImprovement: number | null;
-    readonly cliffsDelta: number | null;
-    readonly cliffsDeltaLow: number | null;
-    readonly cliffsDeltaHigh: number | null;
-  };
-  readonly detectable: {
-    /** Pooled between-seed standard deviation used for power. */
-    readonly sd: number | null;
-    /** Smallest difference detectable with 80% power at the current seed counts (metric units). */
-    readonly minimumEffect: number | null;
-    /** Seeds per arm to detect the observed difference with 80% power (null when it is 0 or undefined). */
-    readonly seedsFor80: number | null;
-  };
-  /** Plain-language caution lines (few seeds, skew, tests disagree, unequal seeds, inferred goal, ...). */
-  readonly cautions: readonly string[];
 }
 
 /** A learning curve of one config for one metric on the shared step grid. */
@@ -172,7 +128,7 @@ export interface Curve {
   readonly n: readonly number[];
   /** The band method of most bins (see `bandByBin`). */
   readonly band: IntervalMethod;
-  /** Band method per bin: 't' below `bootstrapFrom` runs, 'bca' at or above, 'none' for fewer than 2 runs. */
+  /** Band method per bin: 't' (BCa under `--interval bca` from 4 runs), 'none' for fewer than 2 runs. */
   readonly bandByBin?: readonly IntervalMethod[];
   readonly level: number;
   /** Per-run binned values (for thin per-seed lines): run id → values per bin. */

@@ -4,32 +4,29 @@
  * noncentral t (Cohen 1988, ch. 2; for training runs, Colas, Sigaud & Oudeyer 2018, "How many
  * random seeds? Statistical power analysis in deep reinforcement learning experiments").
  *
- * Three ways to ask:
- * - `pilot`: values of two pilot arms (baseline, candidate): the pooled sd and the observed
- *   difference (candidate - baseline) are the inputs;
- * - `pilot-one`: values of one config's pilot runs for the sd, and a target difference;
+ * Two ways to ask, always for a difference the user names (never "seeds to detect the observed
+ * difference", which is post-hoc power: Hoenig & Heisey 2001):
+ * - `pilot`: pilot runs grouped by config; the between-seed sd is pooled within configs, never
+ *   across them (the spread between configs is not seed noise);
  * - `figures`: a standard deviation and a difference given directly (metric units).
+ * With several comparisons planned (`comparisons` m > 1), the test is planned at the family's
+ * corrected alpha, alpha / m (Bonferroni: the first step of Holm).
  * The answer is a plain record the command line prints. A pilot's sd is itself uncertain (with 5
  * runs its relative standard error is about 35%), so the figure is a planning guide, not a promise.
  */
 import { SeedsiftError } from '../problems.js';
-import { mean, variance, type Numbers } from '../stats/moments.js';
+import { variance, type Numbers } from '../stats/moments.js';
 import { seedsPerArm, welchPower } from '../stats/power.js';
 
 export type SeedsQuestion =
   | {
       readonly kind: 'pilot';
-      readonly baseline: Numbers;
-      readonly candidate: Numbers;
-      readonly alpha: number;
-      readonly power: number;
-    }
-  | {
-      readonly kind: 'pilot-one';
-      readonly values: Numbers;
+      /** Pilot values per config (each at least 1 run; configs with 2 or more give the sd). */
+      readonly groups: readonly Numbers[];
       readonly effect: number;
       readonly alpha: number;
       readonly power: number;
+      readonly comparisons?: number;
     }
   | {
       readonly kind: 'figures';
@@ -37,6 +34,7 @@ export type SeedsQuestion =
       readonly effect: number;
       readonly alpha: number;
       readonly power: number;
+      readonly comparisons?: number;
     };
 
 export interface SeedsAnswer {
@@ -48,7 +46,10 @@ export interface SeedsAnswer {
   readonly sdFrom: string;
   /** Difference to detect (metric units, sign kept). */
   readonly effect: number;
-  readonly effectFrom: 'observed' | 'given';
+  readonly effectFrom: 'given';
+  /** Comparisons in the family the plan is for, and the per-test alpha used (alpha / m). */
+  readonly comparisons: number;
+  readonly testAlpha: number;
   /** |effect| / sd (Cohen's d). */
   readonly standardized: number;
   readonly alpha: number;
@@ -75,36 +76,37 @@ export function seedsNeeded(q: SeedsQuestion): SeedsAnswer {
   if (!(q.power > q.alpha && q.power < 1))
     throw new SeedsiftError('usage', `--power: expected a number in (alpha, 1), got ${q.power}`);
   const notes: string[] = [];
+  const m = q.comparisons ?? 1;
+  if (!(Number.isInteger(m) && m >= 1))
+    throw new SeedsiftError('usage', `--comparisons: expected an integer >= 1, got ${m}`);
   let sd: number;
   let sdFrom: string;
-  let effect: number;
-  let effectFrom: 'observed' | 'given';
+  const effect = checkEffect(q.effect);
+  const effectFrom = 'given' as const;
   if (q.kind === 'pilot') {
-    pilotArm(q.baseline, 'baseline');
-    pilotArm(q.candidate, 'candidate');
-    const df = q.baseline.length + q.candidate.length - 2;
-    sd = Math.sqrt(
-      ((q.baseline.length - 1) * variance(q.baseline) + (q.candidate.length - 1) * variance(q.candidate)) / df,
-    );
-    sdFrom = `pooled sd of ${q.baseline.length} + ${q.candidate.length} pilot runs`;
-    effect = mean(q.candidate) - mean(q.baseline);
-    effectFrom = 'observed';
-    notes.push(
-      'the observed pilot difference is itself noisy: a larger pilot difference than the true one makes this count too small',
-    );
-  } else if (q.kind === 'pilot-one') {
-    pilotArm(q.values, 'pilot');
-    sd = Math.sqrt(variance(q.values));
-    sdFrom = `sd of ${q.values.length} pilot runs`;
-    effect = checkEffect(q.effect);
-    effectFrom = 'given';
+    let ss = 0;
+    let df = 0;
+    let runs = 0;
+    let used = 0;
+    for (const g of q.groups) {
+      runs += g.length;
+      if (g.length < 2) continue;
+      ss += (g.length - 1) * variance(g);
+      df += g.length - 1;
+      used++;
+    }
+    if (df < 1)
+      throw new SeedsiftError(
+        'input',
+        `pilot: expected a config with at least 2 pilot runs with a value, got ${runs} runs`,
+      );
+    sd = Math.sqrt(ss / df);
+    sdFrom = `sd pooled within ${used} config${used === 1 ? '' : 's'} (${runs} pilot runs, ${df} df)`;
   } else {
     if (!(Number.isFinite(q.sd) && q.sd > 0))
       throw new SeedsiftError('usage', `--sd: expected a positive number, got ${q.sd}`);
     sd = q.sd;
     sdFrom = 'given';
-    effect = checkEffect(q.effect);
-    effectFrom = 'given';
   }
   if (!(sd > 0))
     throw new SeedsiftError(
@@ -116,17 +118,22 @@ export function seedsNeeded(q: SeedsQuestion): SeedsAnswer {
       `the sd comes from a pilot; with few pilot runs it is uncertain (relative standard error about 1/sqrt(2(n-1)))`,
     );
   const d = Math.abs(effect) / sd;
+  const testAlpha = q.alpha / m;
+  if (m > 1)
+    notes.push(
+      `planned at alpha ${q.alpha} / ${m} comparisons = ${Number(testAlpha.toPrecision(4))} per test (Bonferroni, Holm's first step)`,
+    );
   let seeds: number | null = null;
   if (d === 0) notes.push('a difference of 0 cannot be detected with any number of seeds');
   else {
     try {
-      seeds = seedsPerArm(d, q.alpha, q.power);
+      seeds = seedsPerArm(d, testAlpha, q.power);
     } catch (error) {
       if (!(error instanceof RangeError)) throw error;
       notes.push(`the difference is so small against the sd that more than 2^40 seeds per arm would be needed`);
     }
   }
-  const powerAt = POWER_TABLE_SEEDS.map((n) => ({ seeds: n, power: welchPower(d, n, n, q.alpha) }));
+  const powerAt = POWER_TABLE_SEEDS.map((n) => ({ seeds: n, power: welchPower(d, n, n, testAlpha) }));
   return {
     method: 'noncentral-t',
     kind: q.kind,
@@ -134,6 +141,8 @@ export function seedsNeeded(q: SeedsQuestion): SeedsAnswer {
     sdFrom,
     effect,
     effectFrom,
+    comparisons: m,
+    testAlpha,
     standardized: d,
     alpha: q.alpha,
     power: q.power,
@@ -141,11 +150,6 @@ export function seedsNeeded(q: SeedsQuestion): SeedsAnswer {
     powerAt,
     notes,
   };
-}
-
-function pilotArm(x: Numbers, name: string): void {
-  if (x.length < 2)
-    throw new SeedsiftError('input', `${name}: expected at least 2 pilot runs with a value, got ${x.length}`);
 }
 
 function checkEffect(effect: number): number {

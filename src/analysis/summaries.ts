@@ -1,80 +1,66 @@
 /**
  * Per-run summary values: one number per run and metric, from its series (steps sorted, finite
- * values only), as `--summary` asks (grammar in `summarySpec.ts`). Everything that compares runs
- * does so at a common horizon (`horizon.ts`), so that a longer run gets no extra chances.
+ * values only), as `--summary` asks. Each kind's rule lives in `summaryKinds.ts` (one table keyed
+ * by kind); this file holds the dispatch and the numeric helpers the rules share.
  *
- * - `final`: the last value at or before the horizon.
- * - `last:P%`: the mean of the values logged in the last P% of [first step, horizon], where the
- *   first step is the metric's first step across the compared runs (one window for every run).
- * - `best`: the best value up to the horizon in the goal's direction. Optimistic: choosing the best
- *   checkpoint on the evaluation data selects on noise (the caller records 'summary-optimistic').
- * - `auc`: trapezoid area of the curve from the run's first step to the horizon (linearly
- *   interpolated at the horizon when it falls between two logged steps), divided by that span:
- *   the curve's average height.
- * - `reach:VALUE`: the first logged step at or before the horizon whose value reaches VALUE in
- *   the goal's direction; a run that never does is censored (value null).
- * - `step:N`: the value at the last logged step <= N (the horizon is not used).
+ * Everything that compares runs does so at the comparison's step (`comparisonStep.ts`), passed
+ * here as `window.horizon`, so that a longer run gets no extra chances. Besides the value, each
+ * result keeps the step the value was logged at (`loggedAt`), so a value logged long before the
+ * comparison's step can be flagged, and says whether the run is short for this comparison
+ * (`step:N` beyond its last step) or censored (`reach:VALUE` not reached).
  *
  * A score table has one point per run; its value is that point whatever the summary.
  * Cost O(log n) for final and step, O(n) otherwise; no allocation.
  */
 import type { Goal, Series } from '../ingest/types.js';
 import type { SummarySpec } from './results.js';
+import { kindOf } from './summaryKinds.js';
 
 export interface SummaryValue {
+  /** The run's value; for `reach:VALUE` the steps to reach, or the censoring step when `censored`. */
   readonly value: number | null;
+  /** Step of the last logged point the value uses (null when there is no value). */
+  readonly loggedAt: number | null;
   /** Why there is no value, or how it was obtained. */
   readonly note: string | null;
-  /** `reach:VALUE` never reached by the horizon. */
+  /** `reach:VALUE` not reached by the comparison's step: `value` is the censoring step. */
   readonly censored: boolean;
+  /** `step:N` beyond the run's last step: the run is short for this comparison. */
+  readonly short: boolean;
 }
 
-/** Where the summaries look: the common horizon and the metric's first step (null for score tables). */
+/** Where the summaries look: the comparison's step and the first step of the window (null for score tables). */
 export interface SummaryWindow {
+  /** The comparison's step (the end of every summary's window). */
   readonly horizon: number | null;
+  /** First step of the metric across the compared runs (start of `last:P%`). */
   readonly firstStep: number | null;
 }
 
 /**
  * Summarise one run's series of a metric. Never throws on data: a run without a value in the
  * window gets `value: null` and a note saying why.
- * Example: steps [0, 10, 20], values [1, 2, 4], horizon 20 → final 4, last:50% 3, best (max) 4, auc 2.25.
+ * Example: steps [0, 10, 20], values [1, 2, 4], step 20 → final 4, last:50% 3, best (max) 4, auc 2.25.
  */
 export function summarizeSeries(series: Series, spec: SummarySpec, goal: Goal, window: SummaryWindow): SummaryValue {
   const { steps, values } = series;
   const n = steps.length;
   if (n === 0) return none('no finite value for this metric');
   const horizon = window.horizon;
-  if (horizon === null) return ok(values[n - 1] as number);
-  if (spec.kind === 'step') {
-    const i = lastIndexAtOrBefore(steps, spec.step);
-    if (i < 0) return none(`no value logged at or before step ${spec.step} (first step ${steps[0]})`);
-    const last = steps[n - 1] as number;
+  if (horizon === null)
     return {
-      value: values[i] as number,
-      note: last < spec.step ? `run ends at step ${last}, before step ${spec.step}` : null,
+      value: values[n - 1] as number,
+      loggedAt: steps[n - 1] as number,
+      note: null,
       censored: false,
+      short: false,
     };
-  }
-  const end = lastIndexAtOrBefore(steps, horizon);
-  if (end < 0) return none(`no value logged at or before the horizon (step ${horizon})`);
-  switch (spec.kind) {
-    case 'final':
-      return ok(values[end] as number);
-    case 'best':
-      return ok(bestUpTo(values, end, goal));
-    case 'auc':
-      return ok(averageHeight(steps, values, end, horizon));
-    case 'last':
-      return lastPercent(steps, values, end, horizon, window.firstStep ?? (steps[0] as number), spec.percent);
-    case 'reach': {
-      for (let i = 0; i <= end; i++) {
-        const v = values[i] as number;
-        if (goal === 'max' ? v >= spec.value : v <= spec.value) return ok(steps[i] as number);
-      }
-      return { value: null, note: `never reached ${spec.value} by step ${horizon} (censored)`, censored: true };
-    }
-  }
+  const entry = kindOf(spec) as {
+    compute: (s: Series, spec: SummarySpec, g: Goal, w: { horizon: number; firstStep: number | null }) => SummaryValue;
+  };
+  if (spec.kind !== 'step' && lastIndexAtOrBefore(steps, horizon) < 0)
+    return none(`no value logged at or before the comparison's step ${horizon}`);
+  return entry.compute(series, spec, goal, { horizon, firstStep: window.firstStep });
 }
 
 /** Index of the last step <= limit in sorted steps, or -1 (binary search). */
@@ -89,15 +75,12 @@ export function lastIndexAtOrBefore(steps: Float64Array, limit: number): number 
   return lo - 1;
 }
 
-function ok(value: number): SummaryValue {
-  return { value, note: null, censored: false };
-}
-
 function none(note: string): SummaryValue {
-  return { value: null, note, censored: false };
+  return { value: null, loggedAt: null, note, censored: false, short: false };
 }
 
-function bestUpTo(values: Float64Array, end: number, goal: Goal): number {
+/** The best of values[0..end] in the goal's direction. */
+export function bestUpTo(values: Float64Array, end: number, goal: Goal): number {
   let best = values[0] as number;
   for (let i = 1; i <= end; i++) {
     const v = values[i] as number;
@@ -106,7 +89,8 @@ function bestUpTo(values: Float64Array, end: number, goal: Goal): number {
   return best;
 }
 
-function averageHeight(steps: Float64Array, values: Float64Array, end: number, horizon: number): number {
+/** Trapezoid area from the first step to `horizon` (interpolated there when it falls between steps), over the span. */
+export function averageHeight(steps: Float64Array, values: Float64Array, end: number, horizon: number): number {
   const start = steps[0] as number;
   if (horizon <= start) return values[0] as number;
   let area = 0;
@@ -125,7 +109,8 @@ function averageHeight(steps: Float64Array, values: Float64Array, end: number, h
   return area / (lastStep - start || 1);
 }
 
-function lastPercent(
+/** Mean of the values in the last `percent`% of [first, horizon]; the last value before it when none. */
+export function lastPercent(
   steps: Float64Array,
   values: Float64Array,
   end: number,
@@ -140,12 +125,15 @@ function lastPercent(
     total += values[i] as number;
     count++;
   }
+  const loggedAt = steps[end] as number;
   if (count === 0) {
     return {
       value: values[end] as number,
-      note: `no step logged in the last ${percent}% (from step ${from}); used the last value before the horizon`,
+      loggedAt,
+      note: `no step logged in the last ${percent}% (from step ${from}); used the last value before the comparison's step`,
       censored: false,
+      short: false,
     };
   }
-  return ok(total / count);
+  return { value: total / count, loggedAt, note: null, censored: false, short: false };
 }

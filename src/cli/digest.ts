@@ -1,16 +1,17 @@
 /**
  * `seedsift digest PATH... --out FILE.parquet`: read the runs under PATH... (every reading option
  * applies) and save them, exactly, as one digest file; `report`, `scan` and `seeds` read digests
- * beside or instead of raw logs (src/ingest/digestWrite.ts, digestRead.ts). The digest is written
+ * beside or instead of raw logs (src/ingest/digest/writeDigest.ts, digest/readDigest.ts). The digest is written
  * to a temporary file beside FILE and renamed into place, and never over one of its inputs.
  */
 import { existsSync, realpathSync, renameSync, rmSync, statSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { Command } from 'commander';
 import { ingest } from '../ingest/ingest.js';
-import { writeDigest } from '../ingest/digestWrite.js';
+import { writeDigest } from '../ingest/digest/writeDigest.js';
 import { SeedsiftError } from '../problems.js';
 import { addIngestOptions, rawIngestOptions, resolveIngestOptions } from './ingestOptions.js';
+import { modeFiles } from '../ingest/readingMode.js';
 import { inputFiles } from './inputFiles.js';
 import type { Io } from './io.js';
 import { progressDisplay } from './progress.js';
@@ -39,12 +40,12 @@ export function digestCommand(io: Io, done: (code: number) => void): Command {
         `--out: expected a file name ending in .parquet (so that report and scan find it), got '${raw.out}'`,
       );
     const options = resolveIngestOptions(rawIngestOptions(raw));
-    if (paths.length === 0 && options.scores === null)
+    if (paths.length === 0 && options.mode.kind !== 'scores')
       throw new SeedsiftError('usage', 'digest: expected PATH... (folders or files of run logs) or --scores FILE');
     const progress = progressDisplay(io, raw.quiet === true);
     const runSet = await ingest(paths, options, progress.hooks).finally(() => progress.done());
     const target = identity(raw.out);
-    if (inputFiles(runSet, [options.manifest, options.scores]).some((f) => identity(f) === target))
+    if (inputFiles(runSet, modeFiles(options.mode)).some((f) => identity(f) === target))
       throw new SeedsiftError('output', `refusing to write over an input file: ${raw.out}`);
     const temp = join(dirname(target), `.${basename(target)}.${process.pid}.tmp.parquet`);
     try {

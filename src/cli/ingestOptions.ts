@@ -4,12 +4,11 @@
  * set; bad values are rejected with the option's name.
  */
 import type { Command } from 'commander';
-import type { RawBy } from '../analysis/optionSpec.js';
+import type { CommandName, RawBy } from '../analysis/optionSpec.js';
 import { resolveTable } from '../analysis/optionSpec.js';
 import { READING_OPTIONS } from '../analysis/readingOptions.js';
-import type { CommandName } from '../analysis/optionSpec.js';
+import { readingMode } from '../ingest/readingMode.js';
 import type { IngestOptions } from '../ingest/types.js';
-import { SeedsiftError } from '../problems.js';
 import { addTableOptions, tableValues } from './tableOptions.js';
 
 /** Raw reading values, keyed like the table. */
@@ -28,11 +27,16 @@ export function rawIngestOptions(
   return tableValues(READING_OPTIONS, opts, front as Record<string, never>);
 }
 
-/** Resolve raw reading options; throws SeedsiftError('usage') naming the option on a bad value. */
+/**
+ * Resolve raw reading options from their table, the reading mode chosen and checked from the
+ * flags here, once (readingMode.ts); throws SeedsiftError('usage') naming the option on a bad
+ * value or a contradictory combination.
+ */
 export function resolveIngestOptions(raw: RawIngestOptions): IngestOptions {
-  const resolved = resolveTable(READING_OPTIONS, raw);
-  const identity = [resolved.seedColumn, resolved.seedColumns, resolved.manifest].filter((v) => v !== null);
-  if (identity.length > 1)
-    throw new SeedsiftError('usage', '--seed-column, --seed-columns and --manifest: expected at most one of them');
-  return resolved;
+  const { layout, seedColumn, seedColumns, manifest, scores, by, step, columns, metricGoals } = resolveTable(
+    READING_OPTIONS,
+    raw,
+  );
+  const mode = readingMode({ layout, seedColumn, seedColumns, manifest, scores, by });
+  return { mode, step, columns, metricGoals };
 }

@@ -5,7 +5,7 @@
  * name: the manifest, the score table, the notebook.
  */
 import { dirname, join } from 'node:path';
-import { SIDECAR_NAME } from '../ingest/sidecar.js';
+import { SIDECAR_NAME } from '../ingest/locate/sidecar.js';
 import type { RunSet } from '../ingest/types.js';
 
 /**

@@ -15,6 +15,7 @@ import { failedGate, ungated } from './gate.js';
 import { progressDisplay } from './progress.js';
 import { rawIngestOptions, resolveIngestOptions } from './ingestOptions.js';
 import { addTableOptions, tableValues } from './tableOptions.js';
+import { modeFiles } from '../ingest/readingMode.js';
 import { inputFiles } from './inputFiles.js';
 import type { Io } from './io.js';
 import { EXIT_GATE, EXIT_NO_EVIDENCE } from './exitCodes.js';
@@ -81,7 +82,7 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
         markdown: outputs.markdown !== undefined,
       },
     }).finally(() => progress.done());
-    const inputs = inputFiles(result.runSet, [ingestOptions.manifest, ingestOptions.scores, notebookFile]);
+    const inputs = inputFiles(result.runSet, [...modeFiles(ingestOptions.mode), notebookFile]);
     const written: string[] = [];
     for (const [file, text] of [
       [outputs.html, result.html],

@@ -2,6 +2,7 @@
 import { Command } from 'commander';
 import { problem, SeedsiftError } from '../problems.js';
 import { addIngestOptions, rawIngestOptions, resolveIngestOptions } from './ingestOptions.js';
+import { modeFiles } from '../ingest/readingMode.js';
 import { inputFiles } from './inputFiles.js';
 import { progressDisplay } from './progress.js';
 import type { Io } from './io.js';
@@ -32,7 +33,7 @@ export function scanCommand(io: Io, done: (code: number) => void): Command {
       import('../report/scanText.js'),
     ]);
     const options = resolveIngestOptions(rawIngestOptions(raw));
-    if (paths.length === 0 && options.scores === null)
+    if (paths.length === 0 && options.mode.kind !== 'scores')
       throw new SeedsiftError('usage', 'scan: expected PATH... (folders or files of run logs) or --scores FILE');
     const progress = progressDisplay(io, raw.quiet === true);
     const read = await ingest(paths, options, progress.hooks).finally(() => progress.done());
@@ -52,7 +53,7 @@ export function scanCommand(io: Io, done: (code: number) => void): Command {
     else {
       io.stdout(scanText(runSet, inv));
       if (raw.json !== undefined)
-        writeOutput(raw.json, scanJson(runSet, inv, setAside), inputFiles(runSet, [options.manifest, options.scores]));
+        writeOutput(raw.json, scanJson(runSet, inv, setAside), inputFiles(runSet, modeFiles(options.mode)));
     }
     done(0);
   });

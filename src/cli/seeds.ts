@@ -21,6 +21,7 @@ interface RawSeedsOptions extends Record<string, unknown> {
   candidate?: string;
   summary?: string;
   json?: boolean;
+  comparisons?: string;
 }
 
 const number = (text: string | undefined, option: string, fallback: number | null): number | null => {
@@ -41,7 +42,8 @@ export function seedsCommand(io: Io, done: (code: number) => void): Command {
     .option('--power <p>', 'power wanted (default 0.8)')
     .option('--for <metric>', 'the metric of the pilot runs')
     .option('--baseline <selector>', 'pilot baseline config (key=value,...)')
-    .option('--candidate <selector>', 'pilot candidate config (key=value,...); without it, give --effect')
+    .option('--candidate <selector>', 'another pilot config whose runs also give the sd (pooled within configs)')
+    .option('--comparisons <m>', 'comparisons in the family the plan is for: plan at alpha / m (default 1)')
     .option('--summary <how>', 'per-run value of the pilot runs (as in report; default final)')
     .option('--json', 'print the answer as JSON');
   addIngestOptions(command, 'seeds');
@@ -66,7 +68,14 @@ function figures(raw: RawSeedsOptions, alpha: number, power: number): SeedsQuest
       'seeds: expected --sd and --effect, or pilot runs (PATH... --for METRIC --baseline SEL [--candidate SEL | --effect X])',
     );
   }
-  return { kind: 'figures', sd, effect, alpha, power };
+  return {
+    kind: 'figures',
+    sd,
+    effect,
+    alpha,
+    power,
+    comparisons: number(raw.comparisons, '--comparisons', 1) as number,
+  };
 }
 
 async function pilot(
@@ -93,24 +102,32 @@ async function pilot(
     );
   }
   const options = resolveOptions({ summary: raw.summary, seed: 1, asMetric: raw.for }, runSet);
+  const comparisons = number(raw.comparisons, '--comparisons', 1) as number;
   const results = analyze(runSet, options, { paths, generated: new Date(0).toISOString(), version: version() });
   const paramsOf = new Map(results.configs.map((c) => [c.id, c.params]));
-  const armValues = (selectorText: string, option: string): number[] => {
+  // Values per config: the sd is pooled within configs, never across them (a selector naming
+  // fewer keys, --baseline memory=4, matches several configs, whose differences are not seed noise).
+  const armGroups = (selectorText: string, option: string): number[][] => {
     const selector = parseSelector(selectorText, option);
-    const values = results.values.filter(
-      (v) => v.metric === raw.for && v.value !== null && matchesSelector(paramsOf.get(v.config) ?? {}, selector),
-    );
-    if (values.length === 0)
+    const byConfig = new Map<string, number[]>();
+    for (const v of results.values) {
+      if (v.metric !== raw.for || v.value === null || !matchesSelector(paramsOf.get(v.config) ?? {}, selector))
+        continue;
+      byConfig.set(v.config, [...(byConfig.get(v.config) ?? []), v.value]);
+    }
+    if (byConfig.size === 0)
       throw new SeedsiftError('usage', `${option}: no run with a value of ${raw.for} matches '${selectorText}'`);
-    return values.map((v) => v.value as number);
+    return [...byConfig.values()];
   };
-  const baseline = armValues(raw.baseline, '--baseline');
-  if (raw.candidate !== undefined)
-    return { kind: 'pilot', baseline, candidate: armValues(raw.candidate, '--candidate'), alpha, power };
+  const groups = armGroups(raw.baseline, '--baseline');
+  if (raw.candidate !== undefined) groups.push(...armGroups(raw.candidate, '--candidate'));
   const effect = number(raw.effect, '--effect', null);
   if (effect === null)
-    throw new SeedsiftError('usage', 'seeds: expected --candidate SELECTOR or --effect X with pilot runs');
-  return { kind: 'pilot-one', values: baseline, effect, alpha, power };
+    throw new SeedsiftError(
+      'usage',
+      'seeds: expected --effect X (the difference to detect, in metric units); seedsift never plans for the observed pilot difference (post-hoc power)',
+    );
+  return { kind: 'pilot', groups, effect, alpha, power, comparisons };
 }
 
 function seedsText(a: SeedsAnswer): string {
@@ -118,7 +135,7 @@ function seedsText(a: SeedsAnswer): string {
   const lines = [
     a.seedsPerArm === null
       ? `No finite number of seeds detects a difference of ${fmt(a.effect)}.`
-      : `${a.seedsPerArm} seeds per arm detect a difference of ${fmt(a.effect)} (${a.effectFrom}) with ${Math.round(a.power * 100)}% power at alpha ${a.alpha}, two-sided.`,
+      : `${a.seedsPerArm} seeds per arm detect a difference of ${fmt(a.effect)} (${a.effectFrom}) with ${Math.round(a.power * 100)}% power at alpha ${a.alpha}${a.comparisons > 1 ? ` / ${a.comparisons} comparisons` : ''}, two-sided.`,
     `  sd between seeds ${fmt(a.sd)} (${a.sdFrom}); standardized difference d = ${fmt(a.standardized)}; method: ${a.method}`,
     `  power with this difference at n seeds per arm: ${a.powerAt.map((p) => `${p.seeds}: ${p.power.toFixed(2)}`).join(', ')}`,
     ...a.notes.map((n) => `  note: ${n}`),

@@ -4,6 +4,7 @@
  * per step, missing cells already removed (and counted in problems).
  */
 import type { Problem } from '../problems.js';
+import type { ReadingMode } from './readingMode.js';
 
 export type Goal = 'max' | 'min';
 export type GoalSource = 'option' | 'inferred' | 'unknown';
@@ -101,7 +102,10 @@ export interface MetricInfo {
   readonly goal: Goal | null;
   /** `option` when given by --metric, `inferred` from a name rule, `unknown` when no rule knows the name. */
   readonly goalSource: GoalSource;
-  /** Its name marks a bookkeeping column (wall time, epoch, ...: `bookkeepingName` in goals.ts); analysis sets it aside. */
+  /**
+   * Its name marks a bookkeeping column (wall time, epoch, ...: `bookkeepingName` in plan/goals.ts);
+   * analysis sets it aside.
+   */
   readonly bookkeeping: boolean;
   /** Scalar metric, or a per-tick metric (name without the `@k`). */
   readonly kind: 'scalar' | 'tick';
@@ -133,13 +137,11 @@ export interface RunSet {
 
 /** Ingest options, resolved once at the edge (every field set). */
 export interface IngestOptions {
-  readonly layout: string | null;
-  readonly seedColumn: string | null;
-  readonly seedColumns: string | null;
-  readonly manifest: string | null;
+  /** How runs are named: from paths, a seed column, per-seed columns, a manifest, a score table. */
+  readonly mode: ReadingMode;
+  /** `--step`: the step column's name; null to take the first of the usual names. */
   readonly step: string | null;
+  /** `--columns`: the column names of headerless files. */
   readonly columns: readonly string[] | null;
-  readonly scores: string | null;
-  readonly by: readonly string[] | null;
   readonly metricGoals: Readonly<Record<string, Goal>>;
 }

@@ -3,7 +3,7 @@
  * one for intervals, so the HTML page and summary.md say the same thing. Missing numbers (null,
  * NaN) read as an em dash. Formatting computes nothing statistical.
  */
-import type { Comparison, DivergedPolicy, Difference } from '../analysis/results.js';
+import type { Comparison, Difference, FailedPolicy } from '../analysis/results.js';
 import { intervalLabel } from './charts/intervalLabel.js';
 
 export { formatLevel } from './charts/intervalLabel.js';
@@ -63,7 +63,7 @@ export function comparisonDecimals(c: Comparison): number {
   if (d.low !== null && d.high !== null && Number.isFinite(d.high - d.low) && d.high > d.low)
     return decimalsFor((d.high - d.low) / 2);
   if (c.detectable.sd !== null && c.detectable.sd > 0) return decimalsFor(c.detectable.sd);
-  return decimalsFor(Math.abs(d.estimate));
+  return decimalsFor(Math.abs(d.estimate ?? 0));
 }
 
 /**
@@ -78,17 +78,40 @@ export function formatDifference(d: Difference, decimals: number): string {
 }
 
 /**
- * Seeds behind a comparison, baseline first: `5 v 7`, and the diverged runs with what happened to
+ * Seeds behind a comparison, baseline first: `5 v 7`, and the failed runs with what happened to
  * them: `5 v 4 (1 diverged in the candidate, excluded)`.
  * Cost O(1). Never throws.
  */
-export function formatSeeds(c: Comparison, policy: DivergedPolicy): string {
+export function formatSeeds(c: Comparison, policy: FailedPolicy): string {
   const base = `${c.n.baseline} v ${c.n.candidate}`;
   const parts: string[] = [];
-  if (c.diverged.baseline > 0) parts.push(`${c.diverged.baseline} diverged in the baseline`);
-  if (c.diverged.candidate > 0) parts.push(`${c.diverged.candidate} diverged in the candidate`);
+  const f = c.failures;
+  for (const arm of ['baseline', 'candidate'] as const) {
+    if (f[arm].diverged > 0) parts.push(`${f[arm].diverged} diverged in the ${arm}`);
+    if (f[arm].short > 0) parts.push(`${f[arm].short} short in the ${arm}`);
+  }
   if (parts.length === 0) return base;
   return `${base} (${parts.join(', ')}, ${policy === 'worst' ? 'counted as worst' : 'excluded'})`;
+}
+
+/**
+ * The failure counts beside a verdict, with Fisher's exact test: `failed 0/5 v 2/5, Fisher p 0.44`;
+ * null when no run of either arm failed.
+ * Cost O(1). Never throws.
+ */
+export function formatFailures(c: Comparison): string | null {
+  const f = c.failures;
+  if (f.fisherP === null) return null;
+  const count = (a: typeof f.baseline): string => `${a.diverged + a.short}/${a.runs}`;
+  return `failed ${count(f.baseline)} v ${count(f.candidate)}, Fisher p ${formatP(f.fisherP)}`;
+}
+
+/**
+ * The comparison's step: `step 12000`, or an empty string for score tables.
+ * Cost O(1). Never throws.
+ */
+export function formatStep(c: Comparison): string {
+  return c.step === null ? '' : `step ${formatNumber(c.step, 0)}`;
 }
 
 /**

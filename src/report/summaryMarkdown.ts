@@ -10,11 +10,21 @@ import { escapeMarkdown } from './escape.js';
 import {
   comparisonDecimals,
   formatDifference,
+  formatFailures,
+  formatLevel,
   formatIntervalKind,
   formatNumber,
   formatP,
   formatSeeds,
+  formatSigned,
 } from './format.js';
+
+/** The family of a group's comparisons in words. */
+function familyText(comparisons: readonly Comparison[]): string {
+  const c = comparisons[0];
+  if (c === undefined) return '';
+  return `family of ${c.family.size} comparison${c.family.size === 1 ? '' : 's'}${c.family.scope === 'study' ? (c.task === null ? '' : ' over all tasks') : ' in this task'}`;
+}
 import {
   cautionScope,
   comparisonGroups,
@@ -31,13 +41,21 @@ const NAME_LIMIT = 200;
 
 const name = (text: string): string => escapeMarkdown(text, NAME_LIMIT);
 const CORRECTION_WORDS = { holm: 'Holm-adjusted', bh: 'Benjamini-Hochberg-adjusted', none: 'unadjusted' } as const;
+const PRIMARY = {
+  welch: "Welch's t",
+  'paired-t': 'paired t',
+  permutation: 'exact permutation, zero spread',
+  'log-rank': 'log-rank',
+} as const;
 
 function row(cells: readonly string[]): string {
   return `| ${cells.join(' | ')} |`;
 }
 
 function verdictCell(c: Comparison): string {
-  const words = [VERDICT_LABELS[c.verdict]];
+  const words = [VERDICT_LABELS[c.verdict], `(${PRIMARY[c.primary]})`];
+  const failures = formatFailures(c);
+  if (failures !== null) words.push(`(${failures})`);
   if (c.nonInferiority !== null) {
     words.push(
       c.nonInferiority.holds
@@ -54,7 +72,8 @@ function groupTable(results: Results, g: ComparisonGroup): string[] {
   const head = [
     'Baseline',
     'Candidate',
-    shared === null ? 'Difference [interval]' : `Difference [${shared}]`,
+    'Step',
+    shared === null ? 'Difference [interval, unadjusted]' : `Difference [${shared}, unadjusted]`,
     `p (${CORRECTION_WORDS[results.settings.correction]})`,
     'Verdict',
     'Seeds',
@@ -68,28 +87,47 @@ function groupTable(results: Results, g: ComparisonGroup): string[] {
       row([
         name(c.baseline),
         name(c.candidate),
+        c.step === null ? '—' : formatNumber(c.step, 0),
         difference,
         formatP(c.pAdjusted),
         verdictCell(c),
-        formatSeeds(c, results.settings.diverged),
+        formatSeeds(c, results.settings.failed),
       ]),
     );
   }
   const title = [
     `### ${name(g.metric)}`,
-    `(${goalWords(g.goal, g.goalSource, ', guessed from the name')}; summary ${name(g.summary)}${withTask ? `; task ${name(g.task ?? '')}` : ''})`,
+    `(${goalWords(g.goal, g.goalSource, ', guessed from the name')}; summary ${name(g.summary)}${withTask ? `; task ${name(g.task ?? '')}` : ''}; ${familyText(g.comparisons)})`,
   ];
   const cautions = groupCautions(g.comparisons).map((c) => `- ${cautionScope(c, name)}: ${escapeMarkdown(c.line)}`);
   const means = g.comparisons.map((c) => {
     const d = comparisonDecimals(c);
+    if (c.timeToEvent !== null) {
+      const k = c.timeToEvent;
+      const arm = (a: typeof k.baseline): string =>
+        `${a.reached}/${a.runs} reached, median ${a.medianSteps === null ? 'not reached' : formatNumber(a.medianSteps, 0)} steps`;
+      return `${name(c.candidate)} ${arm(k.candidate)} v ${name(c.baseline)} ${arm(k.baseline)} (log-rank p ${formatP(k.logRank.p)})`;
+    }
     return `${name(c.candidate)} ${formatNumber(c.mean.candidate, d)} v ${name(c.baseline)} ${formatNumber(c.mean.baseline, d)}`;
   });
+  const effects = g.comparisons
+    .filter((c) => c.timeToEvent === null)
+    .map(
+      (c) =>
+        `${name(c.candidate)} v ${name(c.baseline)}: Hedges' g ${formatSigned(c.effect.hedgesG, 2)}, Cliff's delta ${formatSigned(c.effect.cliffsDelta, 2)}, P(candidate better) ${formatNumber(c.effect.probabilityOfImprovement, 2)}`,
+    );
   return [
     title.join(' '),
     '',
     ...lines,
     '',
     `Means: ${means.join('; ')}.`,
+    ...(effects.length > 0
+      ? [
+          '',
+          `Effect sizes (candidate minus baseline, in the metric's own direction; P(candidate better) follows the goal): ${effects.join('; ')}.`,
+        ]
+      : []),
     ...(cautions.length > 0 ? ['', 'Cautions:', '', ...cautions] : []),
     '',
   ];
@@ -114,8 +152,8 @@ export function summaryMarkdown(results: Results): string {
   const out: string[] = ['## seedsift verdicts', ''];
   out.push(
     `${results.runs.length} runs in ${results.configs.length} configs, generated ${results.generated.slice(0, 10)} by seedsift ${escapeMarkdown(results.tool.version)}. ` +
-      `Welch t-test on per-run values (summary ${name(s.summary)}), alpha ${s.alpha}, ${CORRECTION_WORDS[s.correction]} p-values` +
-      `${s.baseline === null ? ', every pair of configs' : `, baseline ${name(s.baseline)}`}${s.paired ? ', paired by seed' : ''}.`,
+      `${s.paired ? 'Paired t-test' : "Welch's t-test"} on per-run values (summary ${name(s.summary)}: ${escapeMarkdown(s.summaryDescription)}), each comparison at its own step, alpha ${s.alpha}, ${CORRECTION_WORDS[s.correction]} p-values over ${s.family === 'study' ? 'each metric and summary across all tasks' : 'each task alone'}` +
+      `${s.baseline === null ? ', every pair of configs' : `, baseline ${name(s.baseline)}`}. Intervals are ${formatLevel(s.level)} and unadjusted; the verdict accounts for the family.`,
     '',
   );
   const groups = comparisonGroups(results);

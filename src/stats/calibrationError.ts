@@ -89,7 +89,8 @@ export function calibrationFromBinSums(sums: CalibrationBinSums): CalibrationErr
   const bins = count.length;
   if (bins === 0 || confidenceSum.length !== bins || correctSum.length !== bins) {
     throw new RangeError(
-      `calibrationFromBinSums: expected three non-empty arrays of one length, got ${bins}, ${confidenceSum.length}, ${correctSum.length}`,
+      `calibrationFromBinSums: expected three non-empty arrays of one length, got ${bins}, ${confidenceSum.length}, ` +
+        `${correctSum.length}`,
     );
   }
   let n = 0;

@@ -87,7 +87,7 @@ function logitRow(z: Numbers, start: number, classes: number): { entropy: number
 }
 
 function clampUnit(v: number): number {
-  return v < 0 ? 0 : v > 1 ? 1 : v;
+  return Math.min(Math.max(v, 0), 1);
 }
 
 /**

@@ -32,7 +32,8 @@ export interface CliffsDeltaResult {
  * Cost O(n1 n2) time, O(n1 + n2) memory. Throws a RangeError when a group has fewer than 2 values,
  * a value is NaN, or level is not in (0, 1).
  * Example: `cliffsDelta([10, 10, 20, 20, 20, 30, 30, 30, 40, 50], [10, 20, 30, 40, 40, 50])` is
- * { delta: -0.25, probabilityOfImprovement: 0.375, variance: 0.1060572..., low: -0.7125350951..., high: 0.3639998950... }.
+ * { delta: -0.25, probabilityOfImprovement: 0.375, variance: 0.1060572..., low: -0.7125350951...,
+ *   high: 0.3639998950... }.
  */
 export function cliffsDelta(x: Numbers, y: Numbers, level = 0.95): CliffsDeltaResult {
   const n1 = x.length;

@@ -28,7 +28,10 @@ export interface MannWhitneyResult {
   readonly method: 'exact' | 'exact-conditional' | 'asymptotic';
 }
 
-/** Largest C(n1 + n2, n1) for which 'auto' counts the exact conditional distribution (ties) or the exact one beyond n = 50. */
+/**
+ * Largest C(n1 + n2, n1) for which 'auto' counts the exact conditional distribution (ties) or the exact
+ * one beyond n = 50.
+ */
 const MAX_EXACT_SPLITS = 200_000;
 /** Largest group size for which 'auto' uses the exact distribution without ties. */
 const MAX_EXACT_GROUP = 50;

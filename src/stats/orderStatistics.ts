@@ -88,7 +88,10 @@ function extreme(a: Float64Array, left: number, right: number, smallest: boolean
   return at;
 }
 
-/** Move the k-th smallest of a[left..right] to k, smaller ones before it and larger ones after (Hoare partition, median of three). */
+/**
+ * Move the k-th smallest of a[left..right] to k, smaller ones before it and larger ones after (Hoare partition, median
+ * of three).
+ */
 function select(a: Float64Array, left: number, right: number, k: number): void {
   while (right > left) {
     const mid = (left + right) >>> 1;

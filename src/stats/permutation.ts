@@ -30,7 +30,9 @@ export interface PermutationResult {
   readonly splits: number;
   /** mean(x) - mean(y). */
   readonly statistic: number;
-  /** Splits at least as extreme as the observed one (exact: including the observed split itself; Monte Carlo: b of M). */
+  /**
+   * Splits at least as extreme as the observed one (exact: including the observed split itself; Monte Carlo: b of M).
+   */
   readonly atLeast: number;
 }
 
@@ -184,7 +186,11 @@ function subsetSums(values: Float64Array, maxSize: number): Float64Array[] {
     const v = values[i] as number;
     const next = bySize.map((list) => list.slice());
     for (let a = 0; a < bySize.length && a < maxSize; a++) {
-      const target = next[a + 1] ?? (next[a + 1] = []);
+      let target = next[a + 1];
+      if (target === undefined) {
+        target = [];
+        next[a + 1] = target;
+      }
       for (const s of bySize[a] as number[]) target.push(s + v);
     }
     bySize = next;

@@ -20,6 +20,17 @@ function checkAlpha(alpha: number, who: string): void {
   if (!(alpha > 0 && alpha < 1)) throw new RangeError(`${who}: alpha must be in (0, 1), got ${alpha}`);
 }
 
+/**
+ * The two-sided critical value t_{1 - alpha/2, df}. Below alpha/2 = 1e-6 it is computed as
+ * -t_{alpha/2, df}: 1 - alpha/2 is rounded to the nearest double, which at alpha 1e-11 moves the
+ * quantile by 4e-8 relative and below alpha 2.2e-16 makes it 1 exactly (quantile Infinity). Above,
+ * the two forms differ only in the last bits, and the upper form is kept so that results do not
+ * move. Infinity when alpha/2 underflows to 0.
+ */
+function criticalT(alpha: number, df: number): number {
+  return alpha / 2 < 1e-6 ? -studentTQuantile(alpha / 2, df) : studentTQuantile(1 - alpha / 2, df);
+}
+
 function checkArm(n: number, who: string): void {
   if (!(Number.isInteger(n) && n >= 2)) throw new RangeError(`${who}: seeds per arm must be an integer >= 2, got ${n}`);
 }
@@ -40,7 +51,8 @@ export function welchPower(effect: number, n1: number, n2: number, alpha = 0.05)
   checkAlpha(alpha, 'welchPower');
   const df = n1 + n2 - 2;
   const ncp = effect * Math.sqrt((n1 * n2) / (n1 + n2));
-  const critical = studentTQuantile(1 - alpha / 2, df);
+  const critical = criticalT(alpha, df);
+  if (critical === Infinity) return 0;
   return 1 - noncentralTCdf(critical, df, ncp) + noncentralTCdf(-critical, df, ncp);
 }
 
@@ -50,22 +62,29 @@ export function welchPower(effect: number, n1: number, n2: number, alpha = 0.05)
  * bracketed by doubling from d = 1 and found by bisection to 1e-12 relative (about 45 power
  * evaluations).
  *
+ * It is 0 when power <= alpha (the test has power alpha already at d = 0), and Infinity when alpha
+ * is so small that the critical value overflows (alpha/2 below the smallest double). Any other
+ * alpha in (0, 1) gives a finite effect: at 2 v 2 and alpha 1e-11 it is about 4e5 (the noncentral
+ * t CDF switches to its integral form there, see `noncentralTCdf`).
+ *
  * Throws a RangeError when n1 or n2 is not an integer >= 2, alpha is not in (0, 1), or power is
- * not in (alpha, 1) (power alpha is reached at d = 0).
+ * not in (0, 1).
  * Example: `minimumDetectableEffect(10, 10)` is 1.32494739257... (R pwr.t.test: 1.324947).
  */
 export function minimumDetectableEffect(n1: number, n2: number, alpha = 0.05, power = 0.8): number {
   checkArm(n1, 'minimumDetectableEffect');
   checkArm(n2, 'minimumDetectableEffect');
   checkAlpha(alpha, 'minimumDetectableEffect');
-  if (!(power > alpha && power < 1))
-    throw new RangeError(`minimumDetectableEffect: power must be in (alpha, 1), got ${power}`);
+  if (!(power > 0 && power < 1)) throw new RangeError(`minimumDetectableEffect: power must be in (0, 1), got ${power}`);
+  if (power <= alpha) return 0;
+  if (criticalT(alpha, n1 + n2 - 2) === Infinity) return Infinity;
   let lo = 0;
   let hi = 1;
   while (welchPower(hi, n1, n2, alpha) < power) {
     lo = hi;
     hi *= 2;
-    if (hi > 1e6) throw new RangeError('minimumDetectableEffect: no effect below 1e6 reaches that power');
+    // A finite critical value is reached by a finite effect (at most about 1e162 at the smallest alpha).
+    if (hi > 1e300) throw new RangeError('minimumDetectableEffect: no effect below 1e300 reaches that power');
   }
   // Invariant: power(lo) < target <= power(hi).
   for (let i = 0; i < 200 && hi - lo > 1e-12 * hi; i++) {
@@ -91,14 +110,18 @@ const EXACT_SEARCH_LIMIT = 2 ** 20;
  * against a 30-digit integral). Returns Infinity for effect 0 (no finite n suffices) and when n
  * overflows (effects below about 1e-154). The sign of the effect does not matter.
  *
+ * When power <= alpha every n has enough power (even at effect 0), so the answer is 2, the
+ * smallest arm.
+ *
  * Cost: at most about 45 power evaluations. Throws a RangeError when effect is not finite, alpha
- * is not in (0, 1), or power is not in (alpha, 1).
+ * is not in (0, 1), or power is not in (0, 1).
  * Example: `seedsPerArm(0.5)` is 64 (METHODS.md check value).
  */
 export function seedsPerArm(effect: number, alpha = 0.05, power = 0.8): number {
   if (!Number.isFinite(effect)) throw new RangeError(`seedsPerArm: effect must be finite, got ${effect}`);
   checkAlpha(alpha, 'seedsPerArm');
-  if (!(power > alpha && power < 1)) throw new RangeError(`seedsPerArm: power must be in (alpha, 1), got ${power}`);
+  if (!(power > 0 && power < 1)) throw new RangeError(`seedsPerArm: power must be in (0, 1), got ${power}`);
+  if (power <= alpha) return 2;
   if (effect === 0) return Infinity;
   const enough = (n: number): boolean => welchPower(effect, n, n, alpha) >= power;
   if (enough(2)) return 2;
@@ -120,7 +143,7 @@ export function seedsPerArm(effect: number, alpha = 0.05, power = 0.8): number {
 
 /** ceil(n_z + z^2/4), n_z solving the two-tailed normal-test power (see `seedsPerArm`). */
 function largeSampleSeeds(effect: number, alpha: number, power: number): number {
-  const z = normalQuantile(1 - alpha / 2, 0, 1);
+  const z = alpha / 2 < 1e-6 ? -normalQuantile(alpha / 2, 0, 1) : normalQuantile(1 - alpha / 2, 0, 1);
   const normalPower = (n: number): number => {
     const shift = Math.abs(effect) * Math.sqrt(n / 2);
     return normalCdf(shift - z, 0, 1) + normalCdf(-shift - z, 0, 1);

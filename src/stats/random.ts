@@ -12,7 +12,10 @@
 export interface Random {
   /** A uniform double in [0, 1) with 32 bits of randomness. */
   next(): number;
-  /** A uniform integer in [0, n) for 1 <= n <= 2^32 (Lemire's nearly divisionless method is not needed at these sizes; multiply-shift). */
+  /**
+   * A uniform integer in [0, n) for 1 <= n <= 2^32 (Lemire's nearly divisionless method is not needed at these sizes;
+   * multiply-shift).
+   */
   int(n: number): number;
 }
 

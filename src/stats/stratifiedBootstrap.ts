@@ -37,8 +37,8 @@ export interface StratifiedBootstrapResult {
  * Cost O(B (sum of n_h + cost of statistic)) time, O(B + sum of n_h) memory; the input is not changed.
  * Throws a RangeError when there is no stratum, a stratum is empty or holds a non-finite value,
  * an option is invalid, or the statistic returns a non-finite value.
- * Example: `stratifiedBootstrap([[0.2, 0.4, 0.9], [0.5, 0.7]], (s) => (mean(s[0]!) + mean(s[1]!)) / 2, createRandom(1))`
- * gives { estimate: 0.55, low, high, level: 0.95 } with 0.35 <= low <= 0.55 <= high <= 0.8.
+ * Example: `stratifiedBootstrap([[0.2, 0.4, 0.9], [0.5, 0.7]], (s) => (mean(s[0]!) + mean(s[1]!)) / 2,
+ * createRandom(1))` gives { estimate: 0.55, low, high, level: 0.95 } with 0.35 <= low <= 0.55 <= high <= 0.8.
  */
 export function stratifiedBootstrap(
   strata: readonly Numbers[],

@@ -1,11 +1,11 @@
 /**
  * Student t confidence intervals (Student 1908; any statistics handbook): estimate +- t quantile x
- * standard error, with the t quantile from @stdlib (inverse regularized incomplete beta), remembered
- * per probability and df (`studentTQuantile`).
+ * standard error, with the t quantile from @stdlib (inverse regularized incomplete beta,
+ * `studentTQuantile`), or from a caller's cache of it (`createTQuantileCache`) passed as `quantile`.
  */
 import type { Alternative } from './alternative.js';
 import { mean, standardDeviation, type Numbers } from './moments.js';
-import { studentTQuantile } from './studentTQuantile.js';
+import { studentTQuantile, type TQuantile } from './studentTQuantile.js';
 
 export interface TInterval {
   readonly estimate: number;
@@ -23,12 +23,12 @@ export interface TInterval {
  * Cost O(n). Throws a RangeError when n < 2 or level is not in (0, 1).
  * Example: `tInterval([-1, 1])` is { estimate: 0, low: -12.706..., high: 12.706..., df: 1, level: 0.95 }.
  */
-export function tInterval(x: Numbers, level = 0.95): TInterval {
+export function tInterval(x: Numbers, level = 0.95, quantile: TQuantile = studentTQuantile): TInterval {
   const n = x.length;
   if (n < 2) throw new RangeError(`tInterval requires at least 2 values, got ${n}`);
   const estimate = mean(x);
   const se = standardDeviation(x) / Math.sqrt(n);
-  const { low, high } = studentTBounds(estimate, se, n - 1, level, 'two-sided');
+  const { low, high } = studentTBounds(estimate, se, n - 1, level, 'two-sided', quantile);
   return { estimate, low, high, df: n - 1, level };
 }
 
@@ -47,18 +47,19 @@ export function studentTBounds(
   df: number,
   level: number,
   alternative: Alternative,
+  quantile: TQuantile = studentTQuantile,
 ): { low: number; high: number } {
   if (!(level > 0 && level < 1)) throw new RangeError(`confidence level must be in (0, 1), got ${level}`);
   if (!(df > 0)) throw new RangeError(`t bounds: degrees of freedom must be positive, got ${df}`);
   if (!(se >= 0)) throw new RangeError(`t bounds: standard error must be >= 0, got ${se}`);
   switch (alternative) {
     case 'two-sided': {
-      const half = studentTQuantile((1 + level) / 2, df) * se;
+      const half = quantile((1 + level) / 2, df) * se;
       return { low: estimate - half, high: estimate + half };
     }
     case 'greater':
-      return { low: estimate - studentTQuantile(level, df) * se, high: Infinity };
+      return { low: estimate - quantile(level, df) * se, high: Infinity };
     case 'less':
-      return { low: -Infinity, high: estimate + studentTQuantile(level, df) * se };
+      return { low: -Infinity, high: estimate + quantile(level, df) * se };
   }
 }

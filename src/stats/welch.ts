@@ -66,7 +66,8 @@ function welchParts(x: Numbers, y: Numbers, who: string): WelchParts {
  * Cost O(n_x + n_y); the inputs are not changed. Throws a RangeError when a group has fewer than 2
  * values, when both groups have zero variance (t would be 0/0 or +-Infinity), or when level or
  * alternative is invalid. A zero variance in one group only is fine.
- * Example: `welch([71.2, 69.8, 73.1, 70.4, 72.0], [68.9, 70.1, 69.5, 71.0, 67.8, 70.6, 69.2]).p` is 0.04418107272139468.
+ * Example: `welch([71.2, 69.8, 73.1, 70.4, 72.0], [68.9, 70.1, 69.5, 71.0, 67.8, 70.6, 69.2]).p` is
+ * 0.04418107272139468.
  */
 export function welch(x: Numbers, y: Numbers, opts: WelchOptions = {}): WelchResult {
   const alternative = checkAlternative(opts.alternative ?? 'two-sided', 'welch');

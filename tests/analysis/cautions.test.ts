@@ -19,8 +19,13 @@ const base: CautionFacts = {
   reachValue: null,
   baselineValues: [1, 2, 3, 4, 5],
   candidateValues: [2, 3, 4, 5, 6],
-  diverged: { baseline: 0, candidate: 0 },
-  divergedPolicy: 'exclude',
+  failures: {
+    baseline: { runs: 5, diverged: 0, short: 0 },
+    candidate: { runs: 5, diverged: 0, short: 0 },
+    fisherP: null,
+  },
+  failedPolicy: 'exclude',
+  zeroSpread: false,
   noValue: { baseline: 0, candidate: 0 },
   alpha: 0.05,
   p: { welch: 0.3, permutation: 0.3, mannWhitney: 0.3 },
@@ -93,14 +98,19 @@ describe('comparisonCautions', () => {
       goal: 'min',
       goalInferred: true,
       reachValue: 0.9,
-      diverged: { baseline: 1, candidate: 1 },
+      failures: {
+        baseline: { runs: 6, diverged: 1, short: 0 },
+        candidate: { runs: 7, diverged: 0, short: 1 },
+        // scipy.stats.fisher_exact([[1, 5], [1, 6]]) (two-sided) is 1.0
+        fisherP: 1,
+      },
       noValue: { baseline: 0, candidate: 1 },
       reasons: ["Welch's test could not run: because"],
     });
     expect(r.lines).toEqual([
-      'the summary is the step at which acc first reaches 0.9: fewer steps is better',
+      "the summary is the number of steps until acc first reaches 0.9 (reaching sooner is better); runs that have not reached it are censored at the comparison's step and kept (log-rank test)",
       "lower is better was inferred from the name 'acc'; say --metric acc:max if that is wrong",
-      '2 diverged runs left out of the tests (baseline 1, candidate 1)',
+      "2 failed runs left out of the values: baseline 1 of 6 failed (1 diverged), candidate 1 of 7 failed (1 short); Fisher's exact test on the failure counts p = 1",
       '1 run has no value for this summary and is left out (baseline 0, candidate 1)',
       "Welch's test could not run: because",
     ]);

@@ -9,7 +9,7 @@ import { configValues } from '../../src/analysis/configValues.js';
 import type { RunValue } from '../../src/analysis/results.js';
 
 const A = [71.2, 69.8, 73.1, 70.4, 72.0];
-const settings = { level: 0.95, bootstrapFrom: 20, bandResamples: 500, seed: 1 };
+const settings = { level: 0.95, interval: 'bca' as const, bandResamples: 500, seed: 1 };
 
 function runValues(config: string, values: readonly (number | null)[]): RunValue[] {
   return values.map((value, i) => ({
@@ -20,13 +20,15 @@ function runValues(config: string, values: readonly (number | null)[]): RunValue
     seed: String(i),
     value,
     note: value === null ? 'diverged: excluded' : null,
+    step: 100,
+    loggedAt: 100,
     usedInTests: value !== null,
   }));
 }
 
 describe('configValues', () => {
-  it('gives the t-interval of the mean below 20 runs (scipy 1.10.1 t.interval)', () => {
-    const [a] = configValues(runValues('a', [...A, null]), settings);
+  it('gives the t-interval of the mean by default (scipy 1.10.1 t.interval)', () => {
+    const [a] = configValues(runValues('a', [...A, null]), { ...settings, interval: 'welch' });
     expect(a?.n).toBe(5);
     expect(a?.missing).toBe(1);
     expect(a?.method).toBe('t');
@@ -35,7 +37,7 @@ describe('configValues', () => {
     expect(a?.high).toBeCloseTo(72.9189317847087, 10);
   });
 
-  it('switches to a BCa bootstrap at 20 runs, and gives no interval for one run', () => {
+  it('gives a BCa bootstrap under --interval bca, and no interval for one run', () => {
     const twenty = Array.from({ length: 20 }, (_, i) => 0.8 + 0.001 * ((i * 7) % 20));
     const out = configValues([...runValues('many', twenty), ...runValues('one', [0.5])], settings);
     expect(out.map((c) => [c.config, c.method])).toEqual([

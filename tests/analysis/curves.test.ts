@@ -5,10 +5,10 @@ import { runSet, series, type RunSpec } from './runSetBuilder.js';
 const settings = {
   bins: 400,
   level: 0.95,
-  bootstrapFrom: 20,
+  interval: 'bca',
   bandResamples: 2000,
   seed: 1,
-  diverged: 'exclude',
+  failed: 'exclude',
 } as const;
 const steps = (last: number): number[] => Array.from({ length: last / 10 + 1 }, (_, i) => i * 10);
 
@@ -49,7 +49,7 @@ describe('learningCurves', () => {
     expect(curve?.mean[5]).toBeCloseTo((0.5 + 1) / 2, 14);
   });
 
-  it('band: t-interval of the mean below 20 runs (scipy t.interval), BCa bootstrap from 20 runs', () => {
+  it('band: t-interval of the mean at every n by default (scipy t.interval); BCa from 4 runs under --interval bca', () => {
     const specs: RunSpec[] = [];
     // 4 runs with these values in one bin; scipy 1.10.1 stats.t.interval(0.95, 3, mean, sem) of
     // [0.61, 0.64, 0.58, 0.66] is (0.5668071896575351, 0.678192810342465) to 1e-14 (tests/reference/analysis_reference.py)
@@ -66,16 +66,18 @@ describe('learningCurves', () => {
       });
     }
     const set = runSet(['m'], specs, [{ name: 'acc', goal: 'max' }]);
-    const [small, big] = learningCurves(set.runs, 'acc', settings);
+    const [small, big] = learningCurves(set.runs, 'acc', { ...settings, interval: 'welch' });
     expect(small?.config).toBe('m=small');
     expect(small?.n[0]).toBe(4);
     expect(small?.low[0]).toBeCloseTo(0.5668071896575351, 12);
     expect(small?.high[0]).toBeCloseTo(0.678192810342465, 12);
     expect(small?.band).toBe('t');
     expect(big?.n).toEqual([20, 19]);
-    expect(big?.bandByBin).toEqual(['bca', 't']);
-    expect(big?.low[0]).toBeLessThan(big?.mean[0] as number);
-    expect(big?.high[0]).toBeGreaterThan(big?.mean[0] as number);
+    expect(big?.bandByBin).toEqual(['t', 't']);
+    const [, boot] = learningCurves(set.runs, 'acc', settings);
+    expect(boot?.bandByBin).toEqual(['bca', 'bca']);
+    expect(boot?.low[0]).toBeLessThan(boot?.mean[0] as number);
+    expect(boot?.high[0]).toBeGreaterThan(boot?.mean[0] as number);
   });
 
   it('leaves diverged runs out of mean and n under exclude, keeps their thin line', () => {
@@ -92,7 +94,7 @@ describe('learningCurves', () => {
     expect(ex?.n).toEqual([2, 2]);
     expect(ex?.mean[0]).toBeCloseTo(0.3, 14);
     expect(ex?.runs).toHaveLength(3);
-    const [worst] = learningCurves(set.runs, 'acc', { ...settings, diverged: 'worst' });
+    const [worst] = learningCurves(set.runs, 'acc', { ...settings, failed: 'worst' });
     expect(worst?.n).toEqual([3, 2]);
   });
 

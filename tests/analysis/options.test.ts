@@ -16,13 +16,15 @@ describe('resolveOptions', () => {
       taskKey: null,
       margin: null,
       paired: false,
-      diverged: 'exclude',
+      failed: 'exclude',
+      family: 'study',
+      interval: 'welch',
       failOn: null,
       level: 0.95,
       resamples: 10000,
       bandResamples: 2000,
       bins: 400,
-      bootstrapFrom: 20,
+      bootstrapFrom: 10,
       calibrationBins: 15,
     });
     expect(o.haltingThresholds).toEqual(DEFAULT_OPTIONS.haltingThresholds);
@@ -51,7 +53,7 @@ describe('resolveOptions', () => {
     expect(o.baseline?.pairs).toEqual([{ key: 'memory', value: '4' }]);
     expect(o.margin).toBe(0.5);
     expect(o.paired).toBe(true);
-    expect(o.diverged).toBe('worst');
+    expect(o.failed).toBe('worst');
     expect(o.failOn).toBe('not-better');
     expect(o.bins).toBe(100);
     expect(o.haltingThresholds).toEqual([0.5, 0.9]);
@@ -68,6 +70,11 @@ describe('resolveOptions', () => {
       '--summary: expected final, last:P%, best, auc, reach:VALUE or step:N',
     );
     expect(() => resolveOptions({ diverged: 'drop' })).toThrow('--diverged');
+    expect(() => resolveOptions({ failed: 'drop' })).toThrow('--failed');
+    expect(() => resolveOptions({ family: 'metric' })).toThrow('--family');
+    expect(() => resolveOptions({ interval: 'percentile' })).toThrow('--interval');
+    // intervals follow alpha (METHODS.md: level 1 - alpha) unless a level is given
+    expect(resolveOptions({ alpha: '0.01' }).level).toBeCloseTo(0.99, 15);
     expect(() => resolveOptions({ failOn: 'better' })).toThrow('--fail-on');
     expect(() => resolveOptions({ margin: -1 })).toThrow('--margin');
     expect(() => resolveOptions({ level: 1 })).toThrow('--level');

@@ -14,7 +14,6 @@ const set = runSet(
   [{ name: 'acc', goal: 'max' }],
 );
 const compared = new Set(['m=a', 'm=b']);
-const window = { horizon: 20, firstStep: 0 };
 
 describe('metricValues', () => {
   it('counts censored reach runs in one summary-censored problem', () => {
@@ -24,34 +23,35 @@ describe('metricValues', () => {
       'max',
       { kind: 'reach', value: 0.65 },
       'reach:0.65',
-      window,
       'exclude',
       compared,
       'logs',
     );
-    expect(r.values.map((v) => v.value)).toEqual([20, 20, null, null, null]);
+    // run 3 never reaches 0.65: censored at the config's step 20 and kept (value 20, time to event)
+    expect(r.values.map((v) => v.value)).toEqual([20, 20, 20, null, null]);
     const censored = r.problems.filter((p) => p.code === 'summary-censored');
     expect(censored).toHaveLength(1);
-    expect(censored[0]?.message).toContain('1 of 3 runs never reached 0.65');
-    expect(r.values[2]?.note).toBe('never reached 0.65 by step 20 (censored)');
-    expect(r.values[2]?.usedInTests).toBe(false);
+    expect(censored[0]?.message).toContain('1 of 3 runs had not reached 0.65');
+    expect(r.values[2]?.note).toBe('had not reached 0.65 by step 20 (censored there)');
+    expect(r.values[2]?.usedInTests).toBe(true);
   });
 
   it('warns once per metric that best is optimistic', () => {
-    const r = metricValues(set.runs, 'acc', 'max', { kind: 'best' }, 'best', window, 'exclude', compared, 'logs');
+    const r = metricValues(set.runs, 'acc', 'max', { kind: 'best' }, 'best', 'exclude', compared, 'logs');
     expect(r.problems.map((p) => p.code)).toEqual(['summary-optimistic']);
     expect(r.values[0]?.value).toBe(0.9);
   });
 
   it('diverged runs: no value of their own; used in tests only under worst', () => {
-    const ex = metricValues(set.runs, 'acc', 'max', { kind: 'final' }, 'final', window, 'exclude', compared, 'logs');
+    const ex = metricValues(set.runs, 'acc', 'max', { kind: 'final' }, 'final', 'exclude', compared, 'logs');
     expect(ex.values[3]).toMatchObject({
       value: null,
       note: 'diverged at step 15: left out of the tests',
+      step: null,
       usedInTests: false,
     });
-    expect(ex.byRun.get('m=b,seed=1')).toEqual({ value: null, diverged: true });
-    const worst = metricValues(set.runs, 'acc', 'max', { kind: 'final' }, 'final', window, 'worst', compared, 'logs');
+    expect(ex.byRun.get('m=b,seed=1')).toEqual({ value: null, failed: true });
+    const worst = metricValues(set.runs, 'acc', 'max', { kind: 'final' }, 'final', 'worst', compared, 'logs');
     expect(worst.values[3]).toMatchObject({
       value: null,
       note: 'diverged at step 15: counted as the worst value of each comparison',
@@ -61,17 +61,7 @@ describe('metricValues', () => {
   });
 
   it('runs of configs outside every comparison are not used in tests', () => {
-    const r = metricValues(
-      set.runs,
-      'acc',
-      'max',
-      { kind: 'final' },
-      'final',
-      window,
-      'exclude',
-      new Set(['m=b']),
-      'logs',
-    );
+    const r = metricValues(set.runs, 'acc', 'max', { kind: 'final' }, 'final', 'exclude', new Set(['m=b']), 'logs');
     expect(r.values[0]).toMatchObject({ value: 0.9, usedInTests: false });
   });
 });

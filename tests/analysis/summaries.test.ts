@@ -43,15 +43,23 @@ describe('summarizeSeries', () => {
     expect(summarizeSeries(s, { kind: 'reach', value: 0.45 }, 'max', window).value).toBe(10);
     expect(summarizeSeries(s, { kind: 'reach', value: 0.4 }, 'min', { horizon: 30, firstStep: 0 }).value).toBe(0);
     const never = summarizeSeries(s, { kind: 'reach', value: 0.65 }, 'max', { horizon: 20, firstStep: 0 });
-    expect(never).toEqual({ value: null, note: 'never reached 0.65 by step 20 (censored)', censored: true });
+    expect(never).toEqual({
+      value: 20,
+      loggedAt: 20,
+      note: 'had not reached 0.65 by step 20 (censored there)',
+      censored: true,
+      short: false,
+    });
   });
 
   it('step:N: the value at the last logged step <= N, whatever the horizon', () => {
     expect(summarizeSeries(s, { kind: 'step', step: 35 }, 'max', window).value).toBe(0.7);
     expect(summarizeSeries(s, { kind: 'step', step: 40 }, 'max', window).value).toBe(0.6);
+    // past the run's end: no value, short for this comparison (METHODS.md), never its last value
     const past = summarizeSeries(s, { kind: 'step', step: 100 }, 'max', window);
-    expect(past.value).toBe(0.6);
-    expect(past.note).toBe('run ends at step 40, before step 100');
+    expect(past.value).toBeNull();
+    expect(past.short).toBe(true);
+    expect(past.note).toBe('run ends at step 40, before step 100: short for this comparison');
     expect(summarizeSeries(series([5], [1]), { kind: 'step', step: 2 }, 'max', window).value).toBeNull();
   });
 

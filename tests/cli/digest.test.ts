@@ -20,8 +20,8 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Results } from '../../src/analysis/results.js';
 import { run } from '../../src/cli/program.js';
-import { DIGEST_KEY } from '../../src/ingest/digestWrite.js';
-import { closeEngine, openEngine } from '../../src/ingest/duckdb.js';
+import { DIGEST_KEY } from '../../src/ingest/digest/digestFormat.js';
+import { closeEngine, openEngine } from '../../src/ingest/load/duckdb.js';
 import type { Problem } from '../../src/problems.js';
 import { memoryIo } from './memoryIo.js';
 

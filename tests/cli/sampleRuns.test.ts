@@ -63,7 +63,11 @@ describe('the demo study', () => {
     const dup = r.problems.filter((p) => p.code === 'steps-duplicated');
     expect(dup).toHaveLength(1);
     expect(dup[0]?.file).toContain('ticks=16/memory=4/seed=2');
-    // The short run sets the common horizon; the report says where it is.
-    expect(r.metrics.find((m) => m.name === 'val_acc' && m.kind === 'scalar')?.horizon).toBe(1300);
+    // The short run (it stops at 1300) is a failure of its arm and moves no comparison: every
+    // comparison is made at 2000, where all the other runs end; it is counted beside the verdict.
+    expect(r.metrics.find((m) => m.name === 'val_acc' && m.kind === 'scalar')?.horizon).toBe(2000);
+    const withShort = r.comparisons.find((c) => c.metric === 'val_acc' && c.candidate === 'ticks=8,memory=12');
+    expect(withShort?.step).toBe(2000);
+    expect(withShort?.failures.candidate).toEqual({ runs: 5, diverged: 0, short: 1 });
   });
 });

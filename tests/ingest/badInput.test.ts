@@ -9,10 +9,12 @@
  * does with bad input" (every excluded run, row or file is a coded problem); the line numbers are
  * counted by hand in the fixture texts.
  */
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { execFile } from 'node:child_process';
+import { chmodSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { promisify } from 'node:util';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Results } from '../../src/analysis/results.js';
 import { run } from '../../src/cli/program.js';
@@ -33,7 +35,15 @@ const out = mkdtempSync(join(tmpdir(), 'seedsift-bad-out-'));
 beforeAll(async () => {
   generated = mkdtempSync(join(tmpdir(), 'seedsift-bad-'));
   unmade = await makeBadCases(generated);
-  for (const u of unmade) console.log(`bad-input case ${u.name} skipped: ${u.reason}`);
+  for (const u of unmade)
+    console.log(
+      `bad-input case ${u.name}: ${u.reason}; ${u.needsOrdinaryUser === true ? `runs as uid ${NOBODY}` : 'fails'}`,
+    );
+  // The cases that need an ordinary user run in a child process as `nobody`, which must reach them.
+  if (unmade.some((u) => u.needsOrdinaryUser === true)) {
+    chmodSync(generated, 0o755);
+    chmodSync(out, 0o777);
+  }
 });
 afterAll(() => {
   rmSync(generated, { recursive: true, force: true });
@@ -319,7 +329,8 @@ function expectProblems(problems: readonly Problem[], c: Case): void {
     );
     expect(
       hit,
-      `${c.name}: expected ${JSON.stringify({ ...e, message: e.message?.source })}\namong ${JSON.stringify(problems, null, 1)}`,
+      `${c.name}: expected ${JSON.stringify({ ...e, message: e.message?.source })}\namong ` +
+        `${JSON.stringify(problems, null, 1)}`,
     ).toBeDefined();
   }
 }
@@ -333,43 +344,85 @@ function expectNoWarnings(problems: readonly Problem[], c: Case): void {
     ).toEqual([]);
 }
 
-const skipped = (c: Case): boolean => unmade.some((u) => u.name === c.name);
+/** The user id a case that needs an ordinary user runs as when the tests run as root (`nobody` on Debian). */
+const NOBODY = 65534;
+const SEEDSIFT = fileURLToPath(new URL('../../src/cli/seedsift.js', import.meta.url));
+
+interface Outcome {
+  readonly code: number;
+  readonly out: string;
+  readonly err: string;
+}
+
+/**
+ * Run `seedsift ARGS` for case `c`: in-process as usual; a case make.ts could only make for an
+ * ordinary user (`unreadable-permissions` under root, who reads a file whatever its mode) in a child
+ * process with privileges dropped to `nobody`; any other case make.ts could not make fails with its
+ * reason, so that no case counts as passed without having run.
+ */
+async function runCase(c: Case, args: readonly string[]): Promise<Outcome> {
+  const u = unmade.find((x) => x.name === c.name);
+  if (u === undefined) {
+    const io = memoryIo();
+    const code = await run([...args], io);
+    return { code, out: io.out(), err: io.err() };
+  }
+  if (u.needsOrdinaryUser !== true) throw new Error(`bad-input case ${c.name} could not be made: ${u.reason}`);
+  try {
+    const { stdout, stderr } = await promisify(execFile)(process.execPath, [SEEDSIFT, ...args], {
+      uid: NOBODY,
+      gid: NOBODY,
+      env: { ...process.env, SEEDSIFT_FROM_SOURCE: '1', HOME: tmpdir() },
+      maxBuffer: 64 * 1024 * 1024,
+    });
+    return { code: 0, out: stdout, err: stderr };
+  } catch (error) {
+    const e = error as { code?: unknown; stdout?: string; stderr?: string; message: string };
+    if (typeof e.code !== 'number')
+      throw new Error(`bad-input case ${c.name}: could not run as uid ${NOBODY}: ${e.message}`);
+    return { code: e.code, out: e.stdout ?? '', err: e.stderr ?? '' };
+  }
+}
 
 describe('the bad-input corpus through seedsift scan --json -', () => {
-  it.each(CASES.map((c) => [c.name, c] as const))('%s', async (_name, c) => {
-    if (skipped(c)) return; // reason printed in beforeAll
-    const io = memoryIo();
-    const code = await run(['scan', casePath(c), ...argsOf(c), '--json', '-'], io);
-    expect(io.err(), `${c.name}: stderr`).toBe('');
-    expect(code).toBe(0);
-    const scan = JSON.parse(io.out()) as LossView & { problems: Problem[]; runs: { id: string; status: string }[] };
-    expectProblems(scan.problems, c);
-    expectNoWarnings(scan.problems, c);
-    expect(silentLosses(scan), c.name).toEqual([]);
-    for (const [id, status] of Object.entries(c.runs ?? {}))
-      expect(scan.runs.find((r) => r.id === id)?.status, `${c.name}: run ${id}`).toBe(status);
-  });
+  it.each(CASES.map((c) => [c.name, c] as const))(
+    '%s',
+    async (_name, c) => {
+      const o = await runCase(c, ['scan', casePath(c), ...argsOf(c), '--json', '-']);
+      expect(o.err, `${c.name}: stderr`).toBe('');
+      expect(o.code).toBe(0);
+      const scan = JSON.parse(o.out) as LossView & { problems: Problem[]; runs: { id: string; status: string }[] };
+      expectProblems(scan.problems, c);
+      expectNoWarnings(scan.problems, c);
+      expect(silentLosses(scan), c.name).toEqual([]);
+      for (const [id, status] of Object.entries(c.runs ?? {}))
+        expect(scan.runs.find((r) => r.id === id)?.status, `${c.name}: run ${id}`).toBe(status);
+    },
+    60_000,
+  ); // a case run as nobody starts a child process through tsx: 5 s or more on a loaded machine
 });
 
 describe('the bad-input corpus through seedsift report --json FILE', () => {
-  it.each(CASES.map((c) => [c.name, c] as const))('%s', async (_name, c) => {
-    if (skipped(c)) return;
-    const file = join(out, `${c.name}.json`);
-    const io = memoryIo();
-    const code = await run(['report', casePath(c), ...argsOf(c), '--json', file], io);
-    expect(io.err(), `${c.name}: stderr`).toBe('');
-    expect(code).toBe(0);
-    const results = JSON.parse(readFileSync(file, 'utf8')) as Results;
-    expectProblems(results.problems, c);
-    for (const r of results.runs)
-      if (r.status !== 'ok')
-        expect(
-          r.problems.length + results.problems.filter((p) => p.file !== undefined && r.files.includes(p.file)).length,
-          `${c.name}: run ${r.id}`,
-        ).toBeGreaterThan(0);
-    for (const [id, status] of Object.entries(c.runs ?? {}))
-      expect(results.runs.find((r) => r.id === id)?.status, `${c.name}: run ${id}`).toBe(status);
-  });
+  it.each(CASES.map((c) => [c.name, c] as const))(
+    '%s',
+    async (_name, c) => {
+      const file = join(out, `${c.name}.json`);
+      const o = await runCase(c, ['report', casePath(c), ...argsOf(c), '--json', file]);
+      expect(o.err, `${c.name}: stderr`).toBe('');
+      expect(o.code).toBe(0);
+      const results = JSON.parse(readFileSync(file, 'utf8')) as Results;
+      expectProblems(results.problems, c);
+      for (const r of results.runs)
+        if (r.status !== 'ok')
+          expect(
+            r.problems.length + results.problems.filter((p) => p.file !== undefined && r.files.includes(p.file)).length,
+            `${c.name}: run ${r.id}`,
+          ).toBeGreaterThan(0);
+      for (const [id, status] of Object.entries(c.runs ?? {}))
+        expect(results.runs.find((r) => r.id === id)?.status, `${c.name}: run ${id}`).toBe(status);
+    },
+    60_000,
+  );
 });
 
 describe('the whole corpus at once (committed and generated): still a report, nothing lost silently', () => {
@@ -420,7 +473,9 @@ describe('values of the cases that must read cleanly (checked against the fixtur
       .map((line) => parseFloat(line.split(',')[1] as string));
     const [, values] = pairs(await series(join(BAD, 'long-numbers')), 'seed=1', 'loss');
     expect(values.length).toBe(expected.length);
-    values.forEach((v, k) => expect(Object.is(v, expected[k]), `row ${k + 1}: ${v} vs ${expected[k]}`).toBe(true));
+    values.forEach((v, k) => {
+      expect(Object.is(v, expected[k]), `row ${k + 1}: ${v} vs ${expected[k]}`).toBe(true);
+    });
   });
 
   it('a BOM does not hide the step column; CRLF and CR line ends give the same rows', async () => {

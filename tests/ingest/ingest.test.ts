@@ -1,7 +1,7 @@
 import { mkdir } from 'node:fs/promises';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import { closeEngine, openEngine } from '../../src/ingest/duckdb.js';
+import { closeEngine, openEngine } from '../../src/ingest/load/duckdb.js';
 import { ingest } from '../../src/ingest/ingest.js';
 import type { RunSet } from '../../src/ingest/types.js';
 import { gz, ingestTree, makeTree, none, opts, removeTree, runById, withCode } from '../fixtures/ingest/tree.js';
@@ -56,7 +56,8 @@ describe('formats', () => {
     try {
       await mkdir(join(root, 'seed=7'));
       await engine.connection.run(
-        `COPY (SELECT * FROM (VALUES (10::BIGINT, 0.5::DOUBLE, 'a'), (20, NULL, 'b'), (30, 'nan'::DOUBLE, 'c')) t(step, loss, tag)) TO '${file}' (FORMAT parquet)`,
+        `COPY (SELECT * FROM (VALUES (10::BIGINT, 0.5::DOUBLE, 'a'), (20, NULL, 'b'), (30, 'nan'::DOUBLE, 'c')) ` +
+          `t(step, loss, tag)) TO '${file}' (FORMAT parquet)`,
       );
     } finally {
       closeEngine(engine);
@@ -252,7 +253,8 @@ describe('per-tick metrics', () => {
 describe('tick dumps', () => {
   it('sample, tick, correct, certainty, confidence, step -> sample-major arrays', async () => {
     const dump =
-      'sample,tick,correct,certainty,confidence,step\n1,0,0,0.2,0.5,100\n1,1,1,0.9,0.8,100\n0,0,1,0.4,0.6,100\n0,1,1,0.95,0.9,100\n';
+      'sample,tick,correct,certainty,confidence,step\n' +
+      '1,0,0,0.2,0.5,100\n1,1,1,0.9,0.8,100\n0,0,1,0.4,0.6,100\n0,1,1,0.95,0.9,100\n';
     const { set, at } = await ingestTree({
       'ticks=2/seed=1/log.csv': 'step,acc\n100,0.5\n',
       'ticks=2/seed=1/dump.csv.gz': gz(dump),
@@ -275,16 +277,19 @@ describe('tick dumps', () => {
     expect(withCode(set, 'run-duplicate')).toEqual([]); // a dump is not a second log of the run
   });
 
-  it('probability columns: certainty = 1 - H/ln C (METHODS.md), confidence = max p, correct = argmax == label', async () => {
-    // softmax of logits [2, 1, 0]: p below; certainty 0.24232088933841778 (computed by hand, see tickDump.test.ts)
-    const p = [0.6652409557748219, 0.24472847105479764, 0.09003057317038046];
-    const dump = `sample,tick,label,p0,p1,p2\n0,0,0,${p.join(',')}\n0,1,2,${p.join(',')}\n`;
-    const { set } = await ingestTree({ 'seed=1/dump.csv': dump });
-    const d = set.tickDumps[0];
-    expect(d?.certainty[0]).toBeCloseTo(0.24232088933841778, 14);
-    expect(d?.confidence?.[0]).toBeCloseTo(0.6652409557748219, 15);
-    expect(Array.from(d?.correct ?? [])).toEqual([1, 0]);
-  });
+  it(
+    'probability columns: certainty = 1 - H/ln C (METHODS.md), confidence = max p, correct = argmax == ' + 'label',
+    async () => {
+      // softmax of logits [2, 1, 0]: p below; certainty 0.24232088933841778 (computed by hand, see tickDump.test.ts)
+      const p = [0.6652409557748219, 0.24472847105479764, 0.09003057317038046];
+      const dump = `sample,tick,label,p0,p1,p2\n0,0,0,${p.join(',')}\n0,1,2,${p.join(',')}\n`;
+      const { set } = await ingestTree({ 'seed=1/dump.csv': dump });
+      const d = set.tickDumps[0];
+      expect(d?.certainty[0]).toBeCloseTo(0.24232088933841778, 14);
+      expect(d?.confidence?.[0]).toBeCloseTo(0.6652409557748219, 15);
+      expect(Array.from(d?.correct ?? [])).toEqual([1, 0]);
+    },
+  );
 
   it('a dump with a hole is not used and says why', async () => {
     const { set, at } = await ingestTree({

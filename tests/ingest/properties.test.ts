@@ -8,7 +8,7 @@
  * - the fields come from csv-parse (not DuckDB, which ingest uses), and every number from
  *   `parseFloat` on a cell that is a decimal number (a strict pattern below); the values ingest
  *   keeps must equal those exactly (`Object.is`: -0 and the last bit count);
- * - the messy-log policies (DESIGN.md "Messy logs", the module comments of src/ingest/messy.ts and
+ * - the messy-log policies (DESIGN.md "Messy logs", the module comments of src/ingest/assemble/messy.ts and
  *   runs.ts) are re-derived here from those fields: last row wins on a repeated step, steps sorted,
  *   empty / nan / inf / text cells missing and counted, a run diverged when its last values are
  *   non-finite, rows with an unusable step dropped and counted, malformed rows rejected with their lines;
@@ -261,7 +261,8 @@ function readReference(f: GenFile, path: string): RefFile {
   const rows: RefRow[] = [];
   const malformedLines: number[] = [];
   for (const { record, info } of data) {
-    // Extra fields that are empty (a trailing delimiter: `1,0.5,`) hold nothing; DuckDB ignores them, and so does this reading.
+    // Extra fields that are empty (a trailing delimiter: `1,0.5,`) hold nothing; DuckDB ignores them, and so does this
+    // reading.
     const extraEmpty = record.length > names.length && record.slice(names.length).every((c) => c === '');
     if (record.length !== names.length && !extraEmpty) {
       malformedLines.push(info.lines);
@@ -504,7 +505,8 @@ describe('ingest on random small studies, against csv-parse + parseFloat and the
       }),
       { numRuns: 50, seed: 20260301 },
     );
-  });
+    // 50 studies through DuckDB: about 4-15 s on a loaded 2-core machine, over vitest's 5 s default.
+  }, 120_000);
 
   it('the generators reach the cases they are for (a check on the test itself)', () => {
     const sample = fc.sample(genStudy, { numRuns: 50, seed: 20260301 }).flat();

@@ -94,7 +94,7 @@ def seeds_per_arm(effect, target=0.8):
 
 mde = optimize.brentq(lambda e: power(e, n1, n2) - 0.8, 0.01, 5, xtol=1e-14)
 check('pooled sd A,B', sp, 1.1793460657742232, digits=12)
-check('minimum detectable difference at 5 v 7, metric units (MDE d x pooled sd)', mde * sp, 2.1476019914898608, digits=6)
+check('minimum detectable difference at 5 v 7, metric units (MDE d x pooled sd)', mde * sp, 2.1476019914743016, digits=6)
 check('seeds per arm for the observed d', seeds_per_arm(d), 9)
 
 # paired: candidate P1 against baseline P0 on the same seeds
@@ -105,7 +105,9 @@ check('paired t', r.statistic, 3.362691229906825, digits=10)
 check('paired df', int(r.df), 5)
 check('paired p', r.pvalue, 0.020048922016727606, digits=10)
 ci = r.confidence_interval(0.95)
-check('paired 95% interval (scipy ttest_rel().confidence_interval)', [ci.low, ci.high], [0.16489071939106448, 1.2351092806089412], digits=10)
+# scipy 1.10.1's t.ppf is good to a few 1e-9 relative (tests/reference/README.md), so its interval can
+# only agree to 8 digits; the mpmath line below holds the test's 10.
+check('paired 95% interval (scipy ttest_rel().confidence_interval)', [ci.low, ci.high], [0.16489071939106448, 1.2351092806089412], digits=8)
 diffs = P1 - P0
 t975 = t_ppf_mpmath(0.975, 5)
 print(f'info     t quantile .975 at df 5: scipy {stats.t.ppf(0.975, 5)!r}, mpmath {t975!r}')
@@ -124,7 +126,7 @@ check('non-inferiority B v A margin 0.5 (min)', stats.ttest_ind(B - 0.5, A, equa
 print('\n# seedsNeeded.test.ts, analyze.test.ts')
 check('seeds per arm at d = 0.5, 0.8, 1, 1.5, 2, 3 (METHODS.md)', [seeds_per_arm(e) for e in (0.5, 0.8, 1, 1.5, 2, 3)], [64, 26, 17, 9, 6, 4])
 check('power at d = 0.5 with 3, 5, 10, 20, 50 per arm', [power(0.5, k, k) for k in (3, 5, 10, 20, 50)],
-      [0.0768490499603591, 0.1076859897975559, 0.1850956562911663, 0.33793902892504113, 0.6968934055333837], digits=8)
+      [0.07684904996035868, 0.10768598982105744, 0.18509565629118482, 0.33793902869253206, 0.696893405561745], digits=8)
 check('pilot: pooled sd', sp, 1.1793460657742232, digits=12)
 check('pilot: standardized difference d', d, 1.4535900564185282, digits=12)
 check('analyze.test.ts comment: power at d = 2, 5 v 5 is about 0.79', round(power(2, 5, 5), 2), 0.79)
@@ -135,6 +137,31 @@ check('skew([1, 1.1, 1.2, 1.3, 5]) (bias=True)', stats.skew([1.0, 1.1, 1.2, 1.3,
 V = np.array([0.61, 0.64, 0.58, 0.66])
 check('t.interval(0.95, 3, mean, sem) of [0.61, 0.64, 0.58, 0.66]', stats.t.interval(0.95, len(V) - 1, loc=V.mean(), scale=stats.sem(V)),
       [0.5668071896575351, 0.678192810342465], digits=12)
+
+# ---------------------------------------------------------------- analyzeChoices.test.ts: a level other than 0.95
+print('\n# analyzeChoices.test.ts (t.interval at level 0.9 and 0.95; the test holds the mpmath values to 10 digits)')
+
+
+def t_interval_mpmath(level, x):
+    x = np.asarray(x, dtype=float)
+    h = t_ppf_mpmath((1 + level) / 2, len(x) - 1) * stats.sem(x)
+    return [x.mean() - h, x.mean() + h]
+
+
+CHOICES = [
+    (0.9, [0.10, 0.20, 0.40], [-0.024185189250352207, 0.49085185591701896]),
+    (0.9, [0.60, 0.64, 0.71], [0.5561355961197778, 0.7438644038802222]),
+    (0.9, [0.15, 0.25, 0.30], [0.10457407204149055, 0.36209259462517607]),
+    (0.9, [0.66, 0.70, 0.69], [0.6482394742213973, 0.7184271924452692]),
+    (0.95, [0.60, 0.64, 0.71], [0.511689065761544, 0.788310934238456]),
+    (0.9, [0.15, 0.25], [-0.11568757573375188, 0.5156875757337519]),
+    (0.9, [0.2, 0.1875], [0.154289053033281, 0.233210946966719]),
+]
+for level, x, want in CHOICES:
+    # scipy 1.10.1's t.ppf is good to a few 1e-9 relative: 8 digits; the mpmath quantile: the test's 10.
+    check(f't.interval({level}, {len(x) - 1}, mean, sem) of {x}',
+          stats.t.interval(level, len(x) - 1, loc=np.mean(x), scale=stats.sem(x)), want, digits=8)
+    check(f'the same with the mpmath t quantile', t_interval_mpmath(level, x), want, digits=10)
 
 print(f"\n{len(MISMATCHES)} mismatch(es){': ' + '; '.join(MISMATCHES) if MISMATCHES else ''}")
 sys.exit(1 if MISMATCHES else 0)

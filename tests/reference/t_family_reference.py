@@ -139,3 +139,14 @@ for ds, c in [('0.002', 3924432), ('0.001', 15697722)]:
         crit = t_quantile('0.975', dfp)
         ncp = dd * mp.sqrt(mp.mpf(n) / 2)
         print(ds, n, mp.nstr(1 - nct_cdf(crit, dfp, ncp) + nct_cdf(-crit, dfp, ncp), 15))
+
+# studentTQuantile.test.ts 'matches 40-digit t quantiles': whole and fractional df, both tails
+print('\nstudentTQuantile cases (p, df, mpmath quantile; scipy 1.10.1 t.ppf beside it)')
+for p, df in [('0.975', 1), ('0.975', '7.5'), ('0.95', 10), ('0.995', '3.25'), ('0.025', 12)]:
+    print(p, df, f17(t_quantile(p, df)), repr(stats.t.ppf(float(p), float(df))))
+
+# tests/stats/tTable.ts and tests/report: METHODS.md's 6-decimal table of 0.975 quantiles, from 40-digit roots
+print('\n0.975 quantiles (df, 40-digit root, rounded to 6 decimals)')
+for df in [1, 2, 3, 4, 5, 6, 10, 30, 120]:
+    q = t_quantile('0.975', df)
+    print(df, f17(q), f'{float(q):.6f}')

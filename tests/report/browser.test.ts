@@ -98,6 +98,11 @@ async function marksPerChart(page: Page): Promise<number[]> {
 }
 
 const suite = available ? describe : describe.skip;
+// Outside CI a missing chromium skips the suite; say so, as scipyLive.test.ts does for scipy.
+if (!available && process.env.CI === undefined)
+  console.warn(
+    `NOTICE: browser.test.ts skipped: chromium not found at ${CHROMIUM} (apt-get install -y chromium, or set CHROMIUM_PATH); under CI this fails`,
+  );
 
 if (!available && process.env.CI !== undefined) {
   describe('browser', () => {

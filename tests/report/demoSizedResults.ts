@@ -94,7 +94,15 @@ function comparison(
     candidate,
     n: { baseline: 5, candidate: candidate === DIVERGED.config ? 4 : 5 },
     diverged: { baseline: 0, candidate: candidate === DIVERGED.config ? 1 : 0 },
-    difference: { estimate, low: estimate - half, high: estimate + half, level: 0.95, method: 'welch-t' },
+    difference: {
+      estimate,
+      low: estimate - half,
+      high: estimate + half,
+      level: 0.95,
+      method: 'welch-t',
+      simultaneous: null,
+      bca: null,
+    },
   };
 }
 
@@ -257,6 +265,8 @@ export function demoSizedResults(): Results {
         config: r.config,
         seed: r.seed,
         value: diverged ? null : m.level(1300) + 0.02 * wiggle(i, m.name.length),
+        step: 1300,
+        loggedAt: diverged ? null : 1300,
         note: diverged ? 'diverged at step 1400: left out of the tests' : null,
         usedInTests: !diverged,
       };

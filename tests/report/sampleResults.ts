@@ -12,7 +12,7 @@
  *   per-run values written here. Holm adjustments by hand from those p-values.
  * - Per-config means and their t-intervals (`configValues`) are computed here from the per-run
  *   values; they and the curve bands use the t quantiles 2.446912 (df 6), 2.776445 (df 4) and
- *   3.182446 (df 3) (any statistics handbook table).
+ *   3.182446 (df 3) (40-digit mpmath roots rounded to 6 decimals: tests/reference/t_family_reference.py).
  * - Curves, tick curves, halting and calibration are invented shapes for drawing (no test checks a
  *   statistic against them).
  *
@@ -79,7 +79,7 @@ const SEEDS: readonly (readonly string[])[] = [
 ];
 const DIVERGED_AT = 6000;
 const STEPS = Array.from({ length: 21 }, (_, i) => i * 500);
-/** t quantiles 0.975 by df (handbook table). */
+/** t quantiles 0.975 by df (mpmath roots to 6 decimals, tests/reference/t_family_reference.py). */
 const T975: Readonly<Record<number, number>> = { 3: 3.182446, 4: 2.776445, 6: 2.446912 };
 
 const runId = (config: string, seed: string): string => `${config},seed=${seed}`;
@@ -176,18 +176,35 @@ function comparison(names: SampleNames, metric: 'acc' | 'loss', s: Stats): Compa
     task: null,
     baseline: names.configs[0],
     candidate: names.configs[s.k] ?? '',
+    step: 1000,
     n: { baseline: base.length, candidate: cand.length },
     mean: { baseline: meanOf(base), candidate: meanOf(cand) },
     sd: { baseline: sdOf(base), candidate: sdOf(cand) },
     diverged: { baseline: 0, candidate: s.k === 2 ? 1 : 0 },
-    difference: { estimate: meanOf(cand) - meanOf(base), low: s.low, high: s.high, level: 0.95, method: 'welch-t' },
+    failures: {
+      baseline: { runs: base.length, diverged: 0, short: 0 },
+      candidate: { runs: cand.length + (s.k === 2 ? 1 : 0), diverged: s.k === 2 ? 1 : 0, short: 0 },
+      // scipy.stats.fisher_exact([[0, 7], [1, 5]]).pvalue (7 baseline runs, 1 of 6 candidate runs diverged)
+      fisherP: s.k === 2 ? 0.46153846153846156 : null,
+    },
+    difference: {
+      estimate: meanOf(cand) - meanOf(base),
+      low: s.low,
+      high: s.high,
+      level: 0.95,
+      method: 'welch-t',
+      simultaneous: null,
+      bca: null,
+    },
     tests: {
       welch: { statistic: s.t, df: s.df, p: s.p },
       permutation: { p: s.perm, exact: true },
       mannWhitney: { u: s.u, p: s.mwp, exact: true },
     },
+    primary: 'welch',
     p: s.p,
     pAdjusted: s.pAdjusted,
+    family: { scope: 'study', correction: 'holm', size: 2 },
     verdict: s.verdict,
     nonInferiority: null,
     effect: {
@@ -199,7 +216,9 @@ function comparison(names: SampleNames, metric: 'acc' | 'loss', s: Stats): Compa
       cliffsDeltaLow: s.cliff[1],
       cliffsDeltaHigh: s.cliff[2],
     },
-    detectable: { sd: s.sd, minimumEffect: s.mde, seedsFor80: s.seeds },
+    timeToEvent: null,
+    detectable: { sd: s.sd, minimumEffect: s.mde },
+    runs: [],
     cautions: s.cautions,
   };
 }
@@ -338,6 +357,8 @@ function values(names: SampleNames): RunValue[] {
           config,
           seed,
           value: diverged ? null : (table[k]?.[s] ?? null),
+          step: 10000,
+          loggedAt: diverged ? null : 10000,
           note: diverged ? `diverged at step ${DIVERGED_AT}: excluded` : null,
           usedInTests: !diverged,
         });
@@ -542,12 +563,15 @@ export function sampleResults(names: SampleNames = SAMPLE_NAMES): Results {
       seed: 1,
       correction: 'holm',
       summary: 'final',
+      summaryDescription: "the last logged value at or before the comparison's step",
       baseline: names.configs[0],
       taskKey: null,
       margin: null,
       paired: false,
-      diverged: 'exclude',
+      failed: 'exclude',
       failOn: null,
+      family: 'study',
+      interval: 'welch',
       metrics: null,
       primary: null,
       asMetric: [],
@@ -558,7 +582,7 @@ export function sampleResults(names: SampleNames = SAMPLE_NAMES): Results {
       keepKeys: null,
       resamples: 10000,
       bandResamples: 2000,
-      bootstrapFrom: 20,
+      bootstrapFrom: 10,
       level: 0.95,
     },
     inputs: { paths: [names.path], mode: 'logs', files: 18, filesRead: 17 },

@@ -43,29 +43,33 @@ describe('summaryMarkdown', () => {
     expect(rendered[0]?.[0]).toEqual([
       'Baseline',
       'Candidate',
-      'Difference [95% Welch t-interval]',
+      'Step',
+      'Difference [95% Welch t-interval, unadjusted]',
       'p (Holm-adjusted)',
       'Verdict',
       'Seeds',
     ]);
-    expect(md.render(text)).toContain('<h3>val_acc (higher is better; summary final)</h3>');
+    expect(md.render(text)).toContain('<h3>val_acc (higher is better; summary final; family of 2 comparisons)</h3>');
   });
 
   it('shows the METHODS.md Welch values for A v B, Holm-adjusted (scipy 1.10.1)', () => {
     expect(rendered[0]?.[1]).toEqual([
       'memory=4',
       'memory=8',
+      '1000',
       '+1.71 [0.06, 3.37]',
       '0.088',
-      '● inconclusive',
+      "● inconclusive (Welch's t)",
       '7 v 5',
     ]);
   });
 
   it('notes diverged runs in the seeds column and gives every verdict its word', () => {
-    expect(rendered[0]?.[2]?.[5]).toBe('7 v 4 (1 diverged in the candidate, excluded)');
-    expect(rendered[1]?.map((r) => r[4])).toEqual(['Verdict', '▲ better', '▼ worse']);
-    expect(rendered[1]?.[1]?.[3]).toBe('< 0.001');
+    expect(rendered[0]?.[2]?.[6]).toBe('7 v 4 (1 diverged in the candidate, excluded)');
+    // failure counts with Fisher's exact test beside the verdict (scipy fisher_exact([[0, 7], [1, 5]]) = 0.4615)
+    expect(rendered[0]?.[2]?.[5]).toBe("● inconclusive (Welch's t) (failed 0/7 v 1/5, Fisher p 0.462)");
+    expect(rendered[1]?.map((r) => r[5]?.split(' (')[0])).toEqual(['Verdict', '▲ better', '▼ worse']);
+    expect(rendered[1]?.[1]?.[4]).toBe('< 0.001');
   });
 
   it('lists the caution lines and ends with the standard caution', () => {
@@ -86,7 +90,7 @@ describe('summaryMarkdown', () => {
     const [first] = tables(hostile);
     expect(first?.[1]?.slice(0, 2)).toEqual(['a|b c', '<script>alert(1)</script>']);
     expect(first?.[2]?.[1]).toBe('*x* [y](javascript:z) @team #1');
-    for (const row of first ?? []) expect(row).toHaveLength(6);
+    for (const row of first ?? []) expect(row).toHaveLength(7);
   });
 
   it('says so when there is nothing to compare', () => {

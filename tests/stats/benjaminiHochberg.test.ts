@@ -5,9 +5,9 @@ import { holm } from '../../src/stats/holm.js';
 
 function expectAllRelative(actual: number[], expected: number[], tolerance = 1e-10): void {
   expect(actual.length).toBe(expected.length);
-  actual.forEach((a, i) =>
-    expect(Math.abs(a - (expected[i] as number))).toBeLessThanOrEqual(tolerance * Math.abs(expected[i] as number)),
-  );
+  actual.forEach((a, i) => {
+    expect(Math.abs(a - (expected[i] as number))).toBeLessThanOrEqual(tolerance * Math.abs(expected[i] as number));
+  });
 }
 
 // Benjamini & Hochberg (1995), JRSS B 57:289-300, section 4.1: the 15 p-values of their example.
@@ -16,10 +16,14 @@ const BH_1995 = Object.freeze([
 ]);
 
 describe('benjaminiHochberg', () => {
-  it('adjusts [.01, .04, .03, .005, .2, .03] to [.03, .048, .045, .03, .2, .045] (METHODS.md; statsmodels 0.13.5 multipletests fdr_bh agrees)', () => {
-    const p = Object.freeze([0.01, 0.04, 0.03, 0.005, 0.2, 0.03]);
-    expectAllRelative(benjaminiHochberg(p), [0.03, 0.048, 0.045, 0.03, 0.2, 0.045]);
-  });
+  it(
+    'adjusts [.01, .04, .03, .005, .2, .03] to [.03, .048, .045, .03, .2, .045] (METHODS.md; statsmodels 0.13.5 ' +
+      'multipletests fdr_bh agrees)',
+    () => {
+      const p = Object.freeze([0.01, 0.04, 0.03, 0.005, 0.2, 0.03]);
+      expectAllRelative(benjaminiHochberg(p), [0.03, 0.048, 0.045, 0.03, 0.2, 0.045]);
+    },
+  );
 
   it('rejects 4 of the 15 Benjamini & Hochberg (1995) p-values at .05, as in their paper', () => {
     const q = benjaminiHochberg(BH_1995);

@@ -1,53 +1,14 @@
 import normalCdf from '@stdlib/stats-base-dists-normal-cdf';
 import tQuantile from '@stdlib/stats-base-dists-t-quantile';
 import { describe, expect, it } from 'vitest';
-import {
-  BOOTSTRAP_METHODS,
-  bcaInterval,
-  bootstrapMean,
-  bootstrapMeanFromCounts,
-  bootstrapMeanDifference,
-  jackknifeAcceleration,
-  percentileInterval,
-  resampleCounts,
-} from '../../src/stats/bootstrap.js';
+import { BOOTSTRAP_METHODS, bootstrapMean, bootstrapMeanDifference } from '../../src/stats/bootstrap.js';
+import { bcaInterval } from '../../src/stats/bcaInterval.js';
+import { jackknifeAcceleration } from '../../src/stats/jackknifeAcceleration.js';
+import { percentileInterval } from '../../src/stats/percentileInterval.js';
 import { mean, standardDeviation } from '../../src/stats/moments.js';
 import { quantileSorted } from '../../src/stats/quantile.js';
 import { createRandom } from '../../src/stats/random.js';
-
-function expectRelative(actual: number, expected: number, tolerance = 1e-10): void {
-  expect(Math.abs(actual - expected)).toBeLessThanOrEqual(tolerance * Math.abs(expected));
-}
-
-// METHODS.md inputs, frozen to prove the functions do not mutate them.
-const A = Object.freeze([71.2, 69.8, 73.1, 70.4, 72.0]);
-const B = Object.freeze([68.9, 70.1, 69.5, 71.0, 67.8, 70.6, 69.2]);
-
-/** Plain left-to-right sum / n, the order numpy uses for 5 values (so floating ties match METHODS.md). */
-const plainMean = (v: ArrayLike<number>): number => {
-  let s = 0;
-  for (let i = 0; i < v.length; i++) s += v[i] as number;
-  return s / v.length;
-};
-
-/** Ideal bootstrap: the statistic on every one of the n^n resamples (test-only helper). */
-function idealBootstrapMeans(x: readonly number[]): Float64Array {
-  const n = x.length;
-  const out = new Float64Array(n ** n);
-  const pick = new Array<number>(n).fill(0);
-  for (let r = 0; r < out.length; r++) {
-    let code = r;
-    for (let i = n - 1; i >= 0; i--) {
-      pick[i] = x[code % n] as number;
-      code = Math.floor(code / n);
-    }
-    out[r] = plainMean(pick);
-  }
-  return out;
-}
-
-/** Leave-one-out means of x. */
-const leaveOneOutMeans = (x: readonly number[]): number[] => x.map((_, i) => mean(x.filter((__, j) => j !== i)));
+import { A, B, expectRelative, leaveOneOutMeans } from './idealBootstrap.js';
 
 /** Naive resampling with the same draw order as the library: for each resample, n draws random.int(n). */
 function naiveResamples(x: readonly number[], random: ReturnType<typeof createRandom>): number[] {
@@ -61,59 +22,6 @@ function studentized(diff: number, se: number): number {
 
 const tieTolerance = (stats: Float64Array, theta: number): number =>
   1e-9 * Math.max(...Array.from(stats, (v) => Math.abs(v - theta)));
-
-describe('ideal bootstrap of mean(A): all 5^5 = 3125 resamples (METHODS.md, scipy 1.10.1 conventions)', () => {
-  const stats = idealBootstrapMeans(A);
-  const theta = plainMean(A);
-  const a = jackknifeAcceleration([leaveOneOutMeans(A)]);
-
-  it('jackknife acceleration a = 0.019456097143550056', () => {
-    expectRelative(a, 0.019456097143550056);
-  });
-
-  it('percentile 95% interval (70.32, 72.34)', () => {
-    const { low, high } = percentileInterval(stats, 0.95);
-    expectRelative(low, 70.32);
-    expectRelative(high, 72.34);
-  });
-
-  it('BCa: z0 (mid-rank, exact floating-point ties) = 0.026071887453559196 and interval (70.36, 72.44)', () => {
-    expect(theta).toBe(71.3);
-    const bca = bcaInterval(stats, theta, a, 0.95);
-    expectRelative(bca.z0, 0.026071887453559196);
-    expectRelative(bca.low, 70.36);
-    expectRelative(bca.high, 72.44);
-  });
-
-  it('BCa with a tie tolerance counts the 140 resamples whose mean is 71.3 in exact arithmetic', () => {
-    // Exact integer arithmetic over all 3125 resamples (values x 10, Python itertools.product):
-    // 1523 sums below, 140 equal; z0 = Phi^-1((1523 + 70)/3125) = 0.02446713291103201 (scipy.special.ndtri).
-    const bca = bcaInterval(stats, theta, a, 0.95, 1e-9);
-    expectRelative(bca.z0, 0.02446713291103201);
-    expectRelative(bca.low, 70.36);
-    expectRelative(bca.high, 72.44);
-  });
-});
-
-describe('two-sample jackknife acceleration', () => {
-  it('for mean(A) - mean(B) is 0.013974522533729852 (METHODS.md; scipy.stats.bootstrap two-sample formula)', () => {
-    const mB = mean(B);
-    const mA = mean(A);
-    const jx = leaveOneOutMeans(A).map((m) => m - mB);
-    const jy = leaveOneOutMeans(B).map((m) => mA - m);
-    expectRelative(jackknifeAcceleration([jx, jy]), 0.013974522533729852);
-  });
-
-  it("a shift of one sample's estimates does not change a (it depends on deviations only)", () => {
-    const j = leaveOneOutMeans(A);
-    expectRelative(jackknifeAcceleration([j.map((v) => v + 1000)]), 0.019456097143550056, 1e-9);
-  });
-
-  it('throws a RangeError when every leave-one-out estimate is equal', () => {
-    expect(() => jackknifeAcceleration([[2, 2, 2]])).toThrow(/every leave-one-out estimate is equal/);
-    expect(() => jackknifeAcceleration([[2]])).toThrow(RangeError);
-  });
-});
 
 describe('bootstrapMean: Monte Carlo paths against a naive recomputation of the same resamples', () => {
   const resamples = 2000;
@@ -138,13 +46,16 @@ describe('bootstrapMean: Monte Carlo paths against a naive recomputation of the 
     expect(r).toMatchObject({ estimate: ref.theta, level: 0.95, method: 'percentile', resamples });
   });
 
-  it('expanded percentile: tail Phi(sqrt(5/4) t_{.025,4}) = 0.0009541005518824885 (Hesterberg 2015; scipy 1.10.1)', () => {
-    const tail = normalCdf(Math.sqrt(5 / 4) * tQuantile(0.025, 4), 0, 1);
-    expectRelative(tail, 0.0009541005518824885, 1e-9);
-    const r = bootstrapMean(A, createRandom(1), { method: 'expanded-percentile', resamples });
-    expectRelative(r.low, quantileSorted(ref.stats, tail), 1e-12);
-    expectRelative(r.high, quantileSorted(ref.stats, 1 - tail), 1e-12);
-  });
+  it(
+    'expanded percentile: tail Phi(sqrt(5/4) t_{.025,4}) = 0.0009541005518824885 (Hesterberg 2015; scipy ' + '1.10.1)',
+    () => {
+      const tail = normalCdf(Math.sqrt(5 / 4) * tQuantile(0.025, 4), 0, 1);
+      expectRelative(tail, 0.0009541005518824885, 1e-9);
+      const r = bootstrapMean(A, createRandom(1), { method: 'expanded-percentile', resamples });
+      expectRelative(r.low, quantileSorted(ref.stats, tail), 1e-12);
+      expectRelative(r.high, quantileSorted(ref.stats, 1 - tail), 1e-12);
+    },
+  );
 
   it('BCa: the core applied to the resample means with the jackknife acceleration', () => {
     const a = jackknifeAcceleration([leaveOneOutMeans(A)]);
@@ -277,42 +188,5 @@ describe('bootstrap: facts and failures', () => {
     expect(() => bootstrapMean([1, 2], random, { level: 1 })).toThrow(RangeError);
     expect(() => bootstrapMean([1, 2], random, { method: 'basic' as never })).toThrow(RangeError);
     expect(() => percentileInterval([], 0.95)).toThrow(RangeError);
-  });
-});
-
-describe('resampleCounts and bootstrapMeanFromCounts', () => {
-  // The counts path draws bootstrapMean's resamples and sums them in another order: the same
-  // interval up to rounding.
-  const x = [71.2, 69.8, 73.1, 70.4, 72.0, 68.9, 74.3];
-  for (const method of BOOTSTRAP_METHODS) {
-    it(`equals bootstrapMean for ${method} with a generator in the same state, up to rounding`, () => {
-      const direct = bootstrapMean(x, createRandom(7), { method, resamples: 999, level: 0.9 });
-      const counted = bootstrapMeanFromCounts(x, resampleCounts(createRandom(7), x.length, 999), {
-        method,
-        level: 0.9,
-      });
-      expect(counted.estimate).toBe(direct.estimate);
-      expect(counted.resamples).toBe(999);
-      expect(Math.abs(counted.low - direct.low)).toBeLessThan(1e-12 * Math.abs(direct.low));
-      expect(Math.abs(counted.high - direct.high)).toBeLessThan(1e-12 * Math.abs(direct.high));
-    });
-  }
-  it('counts the draws of each resample, row by row, in the order bootstrapMean draws them', () => {
-    const counts = resampleCounts(createRandom(3), 4, 50);
-    expect(counts.length).toBe(200);
-    for (let b = 0; b < 50; b++) expect(counts.subarray(b * 4, b * 4 + 4).reduce((a, c) => a + c, 0)).toBe(4);
-    const again = createRandom(3);
-    const first = [0, 0, 0, 0];
-    for (let i = 0; i < 4; i++) {
-      const k = again.int(4);
-      first[k] = (first[k] as number) + 1;
-    }
-    expect(Array.from(counts.subarray(0, 4))).toEqual(first);
-  });
-  it('refuses tables that do not fit the sample', () => {
-    expect(() => resampleCounts(createRandom(1), 0, 10)).toThrow(RangeError);
-    expect(() => resampleCounts(createRandom(1), 3, 0)).toThrow(RangeError);
-    expect(() => bootstrapMeanFromCounts([1, 2, 3], new Float64Array(10))).toThrow(/whole number of resamples/);
-    expect(() => bootstrapMeanFromCounts([1, 2, 3], Float64Array.of(1, 1, 0))).toThrow(/draws 2 values/);
   });
 });

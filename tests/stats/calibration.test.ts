@@ -25,14 +25,17 @@ describe('type-I error at 5 seeds per arm, normal vs normal, 4,000 replications'
     expect(rate).toBeGreaterThanOrEqual(0.046 - 3 * mcSe(0.046)); // 0.0361
   });
 
-  it('the exact permutation test has its exact size 12/252: rate <= alpha + 3 MC SE and within 3 MC SE of 12/252', () => {
-    // By hand: with 5 v 5 every split's complement has T* = -T, so the 252 values of |T*| come in 126
-    // equal pairs; p <= 0.05 means at most 12 splits as extreme, i.e. the observed |T| is among the 6
-    // largest pairs, which under H0 (continuous data) has probability 12/252 = 0.0476.
-    const rate = r.permutation?.rate ?? NaN;
-    expect(rate).toBeLessThanOrEqual(ALPHA + 3 * mcSe(ALPHA));
-    expect(Math.abs(rate - 12 / 252)).toBeLessThanOrEqual(3 * mcSe(12 / 252));
-  });
+  it(
+    'the exact permutation test has its exact size 12/252: rate <= alpha + 3 MC SE and within 3 MC SE of ' + '12/252',
+    () => {
+      // By hand: with 5 v 5 every split's complement has T* = -T, so the 252 values of |T*| come in 126
+      // equal pairs; p <= 0.05 means at most 12 splits as extreme, i.e. the observed |T| is among the 6
+      // largest pairs, which under H0 (continuous data) has probability 12/252 = 0.0476.
+      const rate = r.permutation?.rate ?? NaN;
+      expect(rate).toBeLessThanOrEqual(ALPHA + 3 * mcSe(ALPHA));
+      expect(Math.abs(rate - 12 / 252)).toBeLessThanOrEqual(3 * mcSe(12 / 252));
+    },
+  );
 
   it('the exact Mann-Whitney test has its exact size 8/252', () => {
     // By hand: U of 5 v 5 takes 0..25 with frequencies 1, 1, 2, 3, ... out of 252; two-sided p <= 0.05
@@ -51,13 +54,16 @@ describe('coverage of 95% intervals for a mean on normal data, 4,000 replication
     }
   });
 
-  it('the percentile bootstrap under-covers at n = 5 (about 0.84) and the expanded percentile repairs most of it', () => {
-    const r = coverage('normal', 5, options, ['percentile', 'expanded-percentile']);
-    // METHODS.md simulation (20,000 replications, B = 2,000): percentile 0.838, expanded 0.917 at n = 5.
-    // A guard that the tool knows its weakness: +/- 0.03 (about 5 MC SE at p = 0.84, covering B = 500 too).
-    expect(Math.abs((r.percentile?.rate ?? NaN) - 0.838)).toBeLessThanOrEqual(0.03);
-    expect(Math.abs((r['expanded-percentile']?.rate ?? NaN) - 0.917)).toBeLessThanOrEqual(0.03);
-  });
+  it(
+    'the percentile bootstrap under-covers at n = 5 (about 0.84) and the expanded percentile repairs most of ' + 'it',
+    () => {
+      const r = coverage('normal', 5, options, ['percentile', 'expanded-percentile']);
+      // METHODS.md simulation (20,000 replications, B = 2,000): percentile 0.838, expanded 0.917 at n = 5.
+      // A guard that the tool knows its weakness: +/- 0.03 (about 5 MC SE at p = 0.84, covering B = 500 too).
+      expect(Math.abs((r.percentile?.rate ?? NaN) - 0.838)).toBeLessThanOrEqual(0.03);
+      expect(Math.abs((r['expanded-percentile']?.rate ?? NaN) - 0.917)).toBeLessThanOrEqual(0.03);
+    },
+  );
 
   it('the percentile bootstrap cannot cover more than 1 - 2 (1/2)^3 = 0.75 at n = 3', () => {
     // METHODS.md: the interval lies inside [min, max] of the sample, which holds the mean of a

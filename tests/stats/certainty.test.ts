@@ -24,17 +24,23 @@ describe('certainty and confidence', () => {
     expect(confidence(p)).toBeCloseTo(HAND_TOP, 15);
   });
 
-  it('is 0 for a uniform distribution and 1 for a one-hot one (H ranges over [0, ln C]; Cover & Thomas thm 2.6.4)', () => {
-    expect(certainty([0.25, 0.25, 0.25, 0.25])).toBeCloseTo(0, 15);
-    expect(certainty([0, 1, 0])).toBe(1);
-    expect(certaintyFromLogits([3, 3, 3])).toBeCloseTo(0, 15);
-    expect(certaintyFromLogits([0, -Infinity, -Infinity])).toBe(1);
-  });
+  it(
+    'is 0 for a uniform distribution and 1 for a one-hot one (H ranges over [0, ln C]; Cover & Thomas thm ' + '2.6.4)',
+    () => {
+      expect(certainty([0.25, 0.25, 0.25, 0.25])).toBeCloseTo(0, 15);
+      expect(certainty([0, 1, 0])).toBe(1);
+      expect(certaintyFromLogits([3, 3, 3])).toBeCloseTo(0, 15);
+      expect(certaintyFromLogits([0, -Infinity, -Infinity])).toBe(1);
+    },
+  );
 
-  it('is shift-invariant in the logits and stable for large logits (softmax(z + c) = softmax(z), common practice)', () => {
-    expect(certaintyFromLogits([1002, 1001, 1000])).toBeCloseTo(HAND_CERTAINTY, 12);
-    expect(confidenceFromLogits([-998, -999, -1000])).toBeCloseTo(HAND_TOP, 12);
-  });
+  it(
+    'is shift-invariant in the logits and stable for large logits (softmax(z + c) = softmax(z), common ' + 'practice)',
+    () => {
+      expect(certaintyFromLogits([1002, 1001, 1000])).toBeCloseTo(HAND_CERTAINTY, 12);
+      expect(confidenceFromLogits([-998, -999, -1000])).toBeCloseTo(HAND_TOP, 12);
+    },
+  );
 
   it('averages over positions (METHODS.md: several positions -> mean)', () => {
     // Two positions of 3 classes: the hand example and a uniform row -> (0.242320889 + 0) / 2.

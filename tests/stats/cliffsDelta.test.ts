@@ -24,13 +24,16 @@ describe('cliffsDelta', () => {
     expectRelative(r.high, 0.94588140903, 1e-10);
   });
 
-  it("effsize's test data: delta -0.25 and interval (-0.7125350951, 0.3639998950) (METHODS.md, R package effsize)", () => {
-    const r = cliffsDelta(TREATMENT, CONTROL);
-    expect(r.delta).toBe(-0.25);
-    expect(r.probabilityOfImprovement).toBe(0.375);
-    expectRelative(r.low, -0.7125350951, 1e-9);
-    expectRelative(r.high, 0.363999895, 1e-9);
-  });
+  it(
+    "effsize's test data: delta -0.25 and interval (-0.7125350951, 0.3639998950) (METHODS.md, R package " + 'effsize)',
+    () => {
+      const r = cliffsDelta(TREATMENT, CONTROL);
+      expect(r.delta).toBe(-0.25);
+      expect(r.probabilityOfImprovement).toBe(0.375);
+      expectRelative(r.low, -0.7125350951, 1e-9);
+      expectRelative(r.high, 0.363999895, 1e-9);
+    },
+  );
 
   it("effsize's 'Negligible differences' data: delta -0.06666 (effsize tests/testthat/testCliff.R)", () => {
     const r = cliffsDelta([10, 20, 20, 20, 30, 30, 30, 40, 50, 100], [10, 20, 30, 40, 40, 50]);

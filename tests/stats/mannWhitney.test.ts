@@ -42,7 +42,8 @@ describe('mannWhitney: METHODS.md check values', () => {
     expectRelative(two.p, 38 / 792);
     expectRelative(two.p, 0.04797979797979798);
     expectRelative(mannWhitney(A, B, { alternative: 'greater' }).p, 0.02398989898989899);
-    // scipy 1.10.1 (Debian python3-scipy), mannwhitneyu(A, B, alternative='less', method='exact'); tests/reference/rank_resampling_reference.py
+    // scipy 1.10.1 (Debian python3-scipy), mannwhitneyu(A, B, alternative='less', method='exact');
+    // tests/reference/rank_resampling_reference.py
     expectRelative(mannWhitney(A, B, { alternative: 'less' }).p, 0.9848484848484849);
   });
 
@@ -67,15 +68,18 @@ describe('mannWhitney: METHODS.md check values', () => {
     expectRelative(mannWhitney(C, D, { method: 'asymptotic', alternative: 'less' }).p, 0.9665087973635119);
   });
 
-  it('C vs D exact conditional with ties (scipy 1.10.1: permutation_test of mannwhitneyu U over all 792 splits)', () => {
-    const two = mannWhitney(C, D);
-    expect(two.method).toBe('exact-conditional');
-    expect(two.exact).toBe(true);
-    expect(two.u).toBe(28);
-    expectRelative(two.p, 0.11363636363636363); // = 90/792
-    expectRelative(mannWhitney(C, D, { alternative: 'greater' }).p, 0.056818181818181816);
-    expectRelative(mannWhitney(C, D, { alternative: 'less' }).p, 0.9709595959595959);
-  });
+  it(
+    'C vs D exact conditional with ties (scipy 1.10.1: permutation_test of mannwhitneyu U over all 792 ' + 'splits)',
+    () => {
+      const two = mannWhitney(C, D);
+      expect(two.method).toBe('exact-conditional');
+      expect(two.exact).toBe(true);
+      expect(two.u).toBe(28);
+      expectRelative(two.p, 0.11363636363636363); // = 90/792
+      expectRelative(mannWhitney(C, D, { alternative: 'greater' }).p, 0.056818181818181816);
+      expectRelative(mannWhitney(C, D, { alternative: 'less' }).p, 0.9709595959595959);
+    },
+  );
 });
 
 describe('mannWhitney: against brute-force enumeration of every split', () => {
@@ -101,11 +105,14 @@ describe('mannWhitney: against brute-force enumeration of every split', () => {
     const counts = new Array<number>(13).fill(0);
     for (const chosen of combinations(7, 4)) {
       const y = [0, 1, 2, 3, 4, 5, 6].filter((i) => !chosen.includes(i));
-      counts[uByDefinition(chosen, y)]! += 1;
+      const u = uByDefinition(chosen, y);
+      counts[u] = (counts[u] as number) + 1;
     }
     const dist = exactUDistribution(4, 3);
     expect(dist.length).toBe(13);
-    counts.forEach((c, u) => expect(dist[u]).toBeCloseTo(c / 35, 15));
+    counts.forEach((c, u) => {
+      expect(dist[u]).toBeCloseTo(c / 35, 15);
+    });
   });
 
   it('smallest two-sided p: 3 v 3 is 0.1, 4 v 4 is 2/70 = .0286, 5 v 5 is 2/252 = .0079 (METHODS.md)', () => {

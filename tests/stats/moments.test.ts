@@ -14,7 +14,10 @@ interface StrdDataset {
   readonly data: readonly number[];
 }
 
-/** Parse one StRD file: NIST layout (certified values in the header, "Data : lines A to B") or the `name = value` layout. */
+/**
+ * Parse one StRD file: NIST layout (certified values in the header, "Data : lines A to B") or the `name = value`
+ * layout.
+ */
 function readStrd(file: string): StrdDataset {
   const text = readFileSync(NIST_DIR + file, 'utf8');
   const lines = text.split(/\r?\n/);

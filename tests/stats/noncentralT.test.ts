@@ -123,7 +123,8 @@ describe('noncentralTCdf', () => {
   it('is Phi(-ncp) at t = 0 and the central t at ncp = 0', () => {
     // P(Z + ncp <= 0) = Phi(-ncp) by definition; Phi from @stdlib.
     for (const ncp of [-3, -0.2, 0.9, 7]) expect(noncentralTCdf(0, 6, ncp)).toBeCloseTo(normalCdf(-ncp, 0, 1), 15);
-    // Central t with df 1 is Cauchy: P(T <= t) = 1/2 + atan(t) / pi (any handbook).
+    // Central t with df 1 is Cauchy: P(T <= t) = 1/2 + atan(t) / pi (first principles: the df-1 density
+    // 1 / (pi (1 + t^2)) integrates to it).
     for (const t of [-4, -1, 0.3, 2, 10]) expect(noncentralTCdf(t, 1, 0)).toBeCloseTo(0.5 + Math.atan(t) / Math.PI, 14);
   });
 
@@ -155,7 +156,66 @@ describe('noncentralTCdf', () => {
   });
 });
 
+/**
+ * [t, df, ncp, P(T <= t)] far from the centre, 40-digit mpmath integrals split at the step of the Phi
+ * factor (tests/reference/noncentral_t_far_reference.py). TC = 316227.75293206575 is scipy 1.10.1's
+ * nct.ppf(1 - 5e-12, 2, 0), close to the critical t at df 2 for two-sided alpha 1e-11 (the exact one is
+ * 316227.766...: 1 - 5e-12 is rounded in binary); the first five rows are the kind of power
+ * computation at 2 v 2 that used to end in an internal error (series did not converge).
+ */
+// Written as a string: biome's noPrecisionLoss flags 17-digit literals even where they are a double's
+// shortest form, as here. The expected values below are the script's 17 digits rounded to 16.
+const TC = Number('316227.75293206575');
+const FAR: readonly [number, number, number, number][] = [
+  [TC, 2, 200000.0, 0.6703200238452655],
+  [TC, 2, 300000.0, 0.4065696294626122],
+  [TC, 2, 400000.0, 0.201896491266265],
+  [TC, 2, 600000.0, 0.02732371430872264],
+  [-TC, 2, 300000.0, 0], // mpmath: 4.3e-19543251714
+  [2600.0, 10, 2500.0, 0.5089683639737754],
+  [-2500.0, 5, -2200.0, 0.4320117778551311],
+  [3000.0, 30, 2980.0, 0.4862004189755046],
+  [200000000.0, 2, 250000000.0, 0.2096113871510978],
+  [50.0, 4, 2500.0, 0], // mpmath: 4.9e-2165
+  [100000.0, 60, 99000.0, 0.5194291866621269],
+];
+
+describe('noncentralTCdf far from the centre (|ncp| > 2,000: the integral route)', () => {
+  it('matches 40-digit mpmath integrals to 1e-13 absolute, up to ncp 2.5e8', () => {
+    for (const [t, df, ncp, expected] of FAR) {
+      const got = noncentralTCdf(t, df, ncp);
+      expect(Math.abs(got - expected), `t ${t} df ${df} ncp ${ncp}: ${got} vs ${expected}`).toBeLessThanOrEqual(1e-13);
+    }
+  });
+
+  it('the series below 2,000 and the integral above meet: F is continuous in ncp across the switch', () => {
+    // First principles: F is smooth in ncp, so over equal steps of 0.002 its decrements change
+    // smoothly; the decrement across the switch must equal the mean of its neighbours up to the
+    // series' own error near ncp 2,000 (about 3e-9, see noncentralTCdf) and the curvature (1e-12).
+    const f = (ncp: number): number => noncentralTCdf(2000, 10, ncp);
+    const before = f(1999.997) - f(1999.999);
+    const across = f(1999.999) - f(2000.001);
+    const after = f(2000.001) - f(2000.003);
+    expect(across).toBeGreaterThan(1.7e-6); // dF/dncp about -8.8e-4 here
+    expect(Math.abs(across - (before + after) / 2)).toBeLessThan(1e-8);
+  });
+});
+
 describe('noncentralTNcpInterval', () => {
+  it('brackets limits far out (|t| 4e6 and 2e7: once a "could not bracket" error at |t| above 2e6)', () => {
+    // Definition of the limits: F(t; df, low) = (1 + level)/2 and F(t; df, high) = (1 - level)/2, with
+    // the CDF checked against mpmath far out above.
+    for (const [t, df, level] of [
+      [-4e6, 3, 0.99],
+      [2e7, 8, 0.95],
+    ] as const) {
+      const { low, high } = noncentralTNcpInterval(t, df, level);
+      expect(low).toBeLessThan(high);
+      expect(Math.abs(noncentralTCdf(t, df, low) - (1 + level) / 2)).toBeLessThan(1e-12);
+      expect(Math.abs(noncentralTCdf(t, df, high) - (1 - level) / 2)).toBeLessThan(1e-12);
+    }
+  });
+
   // METHODS.md's A vs B: pooled t = d sqrt(n1 n2 / (n1 + n2)) with d = 1.4535900564185282, n = 5 and 7.
   const scale = Math.sqrt(35 / 12);
   const t = 1.4535900564185282 * scale;

@@ -30,19 +30,23 @@ function cases(): Float64Array[] {
 }
 
 describe('OrderStatistics', () => {
-  it('gives the value a sorted copy has at each position, positions asked in any order, ties, -0 and infinities included', () => {
-    const random = createRandom(7);
-    for (const values of cases()) {
-      const sorted = Float64Array.from(values).sort();
-      const order = new OrderStatistics(Float64Array.from(values));
-      const n = values.length;
-      const asks = [0, n - 1, ...Array.from({ length: 12 }, () => random.int(n)), Math.floor(n / 2)];
-      for (const k of asks) expect(Object.is(order.at(k), sorted[k])).toBe(true);
-      // Every position asked still holds its value afterwards, and the values are the same multiset.
-      for (const k of asks) expect(Object.is(order.values[k], sorted[k])).toBe(true);
-      expect(Float64Array.from(order.values).sort()).toEqual(sorted);
-    }
-  });
+  it(
+    'gives the value a sorted copy has at each position, positions asked in any order, ties, -0 and infinities ' +
+      'included',
+    () => {
+      const random = createRandom(7);
+      for (const values of cases()) {
+        const sorted = Float64Array.from(values).sort();
+        const order = new OrderStatistics(Float64Array.from(values));
+        const n = values.length;
+        const asks = [0, n - 1, ...Array.from({ length: 12 }, () => random.int(n)), Math.floor(n / 2)];
+        for (const k of asks) expect(Object.is(order.at(k), sorted[k])).toBe(true);
+        // Every position asked still holds its value afterwards, and the values are the same multiset.
+        for (const k of asks) expect(Object.is(order.values[k], sorted[k])).toBe(true);
+        expect(Float64Array.from(order.values).sort()).toEqual(sorted);
+      }
+    },
+  );
 
   it('type-7 quantiles through quantileAt equal quantileSorted on the sorted copy', () => {
     for (const values of cases()) {

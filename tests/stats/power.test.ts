@@ -79,7 +79,14 @@ describe('seedsPerArm', () => {
   it('throws RangeError on bad arguments', () => {
     expect(() => seedsPerArm(Number.POSITIVE_INFINITY)).toThrow(/effect/);
     expect(() => seedsPerArm(1, 1.2)).toThrow(/alpha/);
-    expect(() => seedsPerArm(1, 0.05, 0.01)).toThrow(/power/);
+    expect(() => seedsPerArm(1, 0.05, 0)).toThrow(/power/);
+    expect(() => seedsPerArm(1, 0.05, 1)).toThrow(/power/);
+  });
+
+  it('power at or below alpha: every n has it, even at effect 0, so the smallest arm (2)', () => {
+    // First principles: the power of a level-alpha test is at least alpha at any effect.
+    expect(seedsPerArm(1, 0.05, 0.01)).toBe(2);
+    expect(seedsPerArm(0.1, 0.9, 0.8)).toBe(2);
   });
 });
 
@@ -105,7 +112,24 @@ describe('minimumDetectableEffect', () => {
 
   it('throws RangeError on bad arguments', () => {
     expect(() => minimumDetectableEffect(1, 5)).toThrow(RangeError);
-    expect(() => minimumDetectableEffect(5, 5, 0.05, 0.04)).toThrow(/power/);
+    expect(() => minimumDetectableEffect(5, 5, 0.05, 0)).toThrow(/power/);
     expect(() => minimumDetectableEffect(5, 5, 0.05, 1)).toThrow(/power/);
+  });
+
+  it('is 0 when power <= alpha (power alpha is reached at d = 0; first principles)', () => {
+    expect(minimumDetectableEffect(5, 5, 0.05, 0.04)).toBe(0);
+    expect(minimumDetectableEffect(2, 2, 0.999, 0.8)).toBe(0);
+  });
+
+  it('stays finite at extreme alpha: 2 v 2 at alpha 1e-11, 1e-15 and 1e-40 (once an internal error)', () => {
+    // 40-digit mpmath root of the noncentral-t power with the closed-form df-2 critical value
+    // (tests/reference/noncentral_t_far_reference.py, mde_2v2): 401178.00443595453,
+    // 40117800.44361979 and 1.2686362411795197e20 (rounded to 16 digits below).
+    expectRel(minimumDetectableEffect(2, 2, 1e-11), 401178.0044359545, 1e-9);
+    expectRel(minimumDetectableEffect(2, 2, 1e-15), 40117800.44361979, 1e-9);
+    expectRel(minimumDetectableEffect(2, 2, 1e-40), 1.26863624117952e20, 1e-9);
+    // alpha/2 below the smallest double: the critical value overflows, no finite effect.
+    expect(minimumDetectableEffect(2, 2, Number.MIN_VALUE)).toBe(Infinity);
+    expect(welchPower(1e300, 2, 2, Number.MIN_VALUE)).toBe(0);
   });
 });

@@ -32,7 +32,8 @@ const probe = spawnSync(PYTHON, ['-c', 'import scipy; print(scipy.__version__)']
 const scipyVersion = probe.status === 0 ? probe.stdout.trim() : undefined;
 const unavailable =
   scipyVersion === undefined
-    ? `${PYTHON} cannot import scipy (${probe.error?.message ?? probe.stderr.trim().split('\n').pop() ?? 'unknown error'}); ` +
+    ? `${PYTHON} cannot import scipy ` +
+      `(${probe.error?.message ?? probe.stderr.trim().split('\n').pop() ?? 'unknown error'}); ` +
       'install Debian python3-scipy: apt-get install -y python3-scipy'
     : undefined;
 const inCi = Boolean(process.env.CI);
@@ -138,51 +139,55 @@ describe.skipIf(unavailable !== undefined && !inCi)(
       expect(unavailable, unavailable).toBeUndefined();
     });
 
-    it(`agrees on ${CASES_PER_FUNCTION} fresh cases each of Welch, Mann-Whitney (asymptotic), paired t and the noncentral t CDF`, () => {
-      expect(unavailable, unavailable).toBeUndefined();
-      const cases = drawCases(20240611);
-      const { results } = askScipy(cases);
-      expect(results).toHaveLength(cases.length);
-      const counted = { welch: 0, mannWhitney: 0, pairedT: 0, nctCdf: 0 };
-      cases.forEach((c, k) => {
-        const label = `case ${k} (${c.fn})`;
-        counted[c.fn]++;
-        if (c.fn === 'nctCdf') {
-          expectP(
-            noncentralTCdf(c.t, c.df, c.ncp),
-            (results[k] as { cdf: number }).cdf,
-            `${label} cdf(${c.t}, ${c.df}, ${c.ncp})`,
-          );
-          return;
-        }
-        if (c.fn === 'mannWhitney') {
-          const answer = results[k] as MannWhitneyAnswer;
-          for (const alternative of ALTERNATIVES) {
-            const r = mannWhitney(c.x, c.y, { alternative, method: 'asymptotic' });
-            expect(r.u, label).toBe(answer.u);
-            expectP(r.p, answer.asymptotic[alternative], `${label} ${alternative}`);
+    it(
+      `agrees on ${CASES_PER_FUNCTION} fresh cases each of Welch, Mann-Whitney (asymptotic), paired t and the ` +
+        `noncentral t CDF`,
+      () => {
+        expect(unavailable, unavailable).toBeUndefined();
+        const cases = drawCases(20240611);
+        const { results } = askScipy(cases);
+        expect(results).toHaveLength(cases.length);
+        const counted = { welch: 0, mannWhitney: 0, pairedT: 0, nctCdf: 0 };
+        cases.forEach((c, k) => {
+          const label = `case ${k} (${c.fn})`;
+          counted[c.fn]++;
+          if (c.fn === 'nctCdf') {
             expectP(
-              mannWhitney(c.x, c.y, { alternative, method: 'asymptotic', continuity: false }).p,
-              answer.asymptoticNoContinuity[alternative],
-              `${label} ${alternative} without continuity`,
+              noncentralTCdf(c.t, c.df, c.ncp),
+              (results[k] as { cdf: number }).cdf,
+              `${label} cdf(${c.t}, ${c.df}, ${c.ncp})`,
             );
+            return;
           }
-          return;
-        }
-        const answer = results[k] as TestAnswer;
-        for (const alternative of ALTERNATIVES) {
-          const r = c.fn === 'welch' ? welch(c.x, c.y, { alternative }) : pairedT(c.x, c.y, { alternative });
-          expectClose(r.statistic, answer.statistic, 1e-10, 1e-12, `${label} t`);
-          expectClose(r.df, answer.df, 1e-10, 0, `${label} df`);
-          expectP(r.p, answer.p[alternative], `${label} p ${alternative}`);
-        }
-      });
-      expect(counted).toEqual({
-        welch: CASES_PER_FUNCTION,
-        mannWhitney: CASES_PER_FUNCTION,
-        pairedT: CASES_PER_FUNCTION,
-        nctCdf: CASES_PER_FUNCTION,
-      });
-    });
+          if (c.fn === 'mannWhitney') {
+            const answer = results[k] as MannWhitneyAnswer;
+            for (const alternative of ALTERNATIVES) {
+              const r = mannWhitney(c.x, c.y, { alternative, method: 'asymptotic' });
+              expect(r.u, label).toBe(answer.u);
+              expectP(r.p, answer.asymptotic[alternative], `${label} ${alternative}`);
+              expectP(
+                mannWhitney(c.x, c.y, { alternative, method: 'asymptotic', continuity: false }).p,
+                answer.asymptoticNoContinuity[alternative],
+                `${label} ${alternative} without continuity`,
+              );
+            }
+            return;
+          }
+          const answer = results[k] as TestAnswer;
+          for (const alternative of ALTERNATIVES) {
+            const r = c.fn === 'welch' ? welch(c.x, c.y, { alternative }) : pairedT(c.x, c.y, { alternative });
+            expectClose(r.statistic, answer.statistic, 1e-10, 1e-12, `${label} t`);
+            expectClose(r.df, answer.df, 1e-10, 0, `${label} df`);
+            expectP(r.p, answer.p[alternative], `${label} p ${alternative}`);
+          }
+        });
+        expect(counted).toEqual({
+          welch: CASES_PER_FUNCTION,
+          mannWhitney: CASES_PER_FUNCTION,
+          pairedT: CASES_PER_FUNCTION,
+          nctCdf: CASES_PER_FUNCTION,
+        });
+      },
+    );
   },
 );

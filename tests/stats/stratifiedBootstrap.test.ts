@@ -112,14 +112,18 @@ describe('stratifiedBootstrap', () => {
     expectRelative(r.estimate, EXPERIMENTS.reduce((acc, e) => acc + mean(e), 0) / H, 1e-14);
   });
 
-  it('throws a RangeError on no strata, an empty stratum, a non-finite value, a non-finite statistic, or bad options', () => {
-    const random = createRandom(1);
-    const stat = (s: readonly Float64Array[]): number => mean(s[0] as Float64Array);
-    expect(() => stratifiedBootstrap([], stat, random)).toThrow(/at least 1 stratum/);
-    expect(() => stratifiedBootstrap([[1], []], stat, random)).toThrow(/stratum 1 is empty/);
-    expect(() => stratifiedBootstrap([[1, Number.NaN]], stat, random)).toThrow(RangeError);
-    expect(() => stratifiedBootstrap([[1, 2]], () => Number.NaN, random)).toThrow(/statistic returned NaN/);
-    expect(() => stratifiedBootstrap([[1, 2]], stat, random, { resamples: 1.5 })).toThrow(RangeError);
-    expect(() => stratifiedBootstrap([[1, 2]], stat, random, { level: 0 })).toThrow(RangeError);
-  });
+  it(
+    'throws a RangeError on no strata, an empty stratum, a non-finite value, a non-finite statistic, or bad ' +
+      'options',
+    () => {
+      const random = createRandom(1);
+      const stat = (s: readonly Float64Array[]): number => mean(s[0] as Float64Array);
+      expect(() => stratifiedBootstrap([], stat, random)).toThrow(/at least 1 stratum/);
+      expect(() => stratifiedBootstrap([[1], []], stat, random)).toThrow(/stratum 1 is empty/);
+      expect(() => stratifiedBootstrap([[1, Number.NaN]], stat, random)).toThrow(RangeError);
+      expect(() => stratifiedBootstrap([[1, 2]], () => Number.NaN, random)).toThrow(/statistic returned NaN/);
+      expect(() => stratifiedBootstrap([[1, 2]], stat, random, { resamples: 1.5 })).toThrow(RangeError);
+      expect(() => stratifiedBootstrap([[1, 2]], stat, random, { level: 0 })).toThrow(RangeError);
+    },
+  );
 });

@@ -24,7 +24,7 @@ function unitStandardError(n: number): number[] {
 
 describe('tInterval', () => {
   it('uses the Student t quantiles of the handbook table (0.975, df 1, 2, 5, 10, 30, 120)', () => {
-    // Any statistics handbook's t table, as quoted in METHODS.md (6 decimals).
+    // METHODS.md's t table (6 decimals): 40-digit mpmath roots, rounded (tests/stats/tTable.ts).
     const table = T_TABLE_0975;
     for (const [df, q] of table) {
       const r = tInterval(Object.freeze(unitStandardError(df + 1)));
@@ -80,7 +80,7 @@ describe('tInterval', () => {
 
 describe('studentTBounds', () => {
   it('gives one-sided bounds with the level quantile and an infinite other end', () => {
-    // t_{0.95, 10} = 1.8124611228116764 (mpmath at 40 digits; handbook table 1.812).
+    // t_{0.95, 10} = 1.8124611228116764 (mpmath at 40 digits; printed t tables give 1.812, common practice).
     const greater = studentTBounds(5, 2, 10, 0.95, 'greater');
     expectRel(greater.low, 5 - 2 * 1.8124611228116764, 1e-12);
     expect(greater.high).toBe(Infinity);

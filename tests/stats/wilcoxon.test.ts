@@ -18,16 +18,20 @@ const D5 = Object.freeze([69, 70, 68, 71, 70]); // differences 3, 0, 6, -1, 2: o
 const D5b = Object.freeze([68, 71, 70, 67, 72]); // differences 4, -1, 4, 3, 0: a zero and a tie
 
 describe('wilcoxonSignedRank: exact (no zeros, no ties)', () => {
-  it("Darwin's data: W+ = 96, p two-sided 0.041259765625, greater 0.0206298828125 (scipy documentation example)", () => {
-    const two = wilcoxonSignedRank(DARWIN, ZEROS);
-    expect(two.exact).toBe(true);
-    expect(two.statistic).toBe(96);
-    expect(two.pairs).toBe(15);
-    expectRelative(two.p, 0.041259765625);
-    expectRelative(wilcoxonSignedRank(DARWIN, ZEROS, { alternative: 'greater' }).p, 0.0206298828125);
-    // scipy 1.10.1 (Debian python3-scipy): wilcoxon(d, alternative='less').pvalue; tests/reference/rank_resampling_reference.py
-    expectRelative(wilcoxonSignedRank(DARWIN, ZEROS, { alternative: 'less' }).p, 0.982330322265625);
-  });
+  it(
+    "Darwin's data: W+ = 96, p two-sided 0.041259765625, greater 0.0206298828125 (scipy documentation " + 'example)',
+    () => {
+      const two = wilcoxonSignedRank(DARWIN, ZEROS);
+      expect(two.exact).toBe(true);
+      expect(two.statistic).toBe(96);
+      expect(two.pairs).toBe(15);
+      expectRelative(two.p, 0.041259765625);
+      expectRelative(wilcoxonSignedRank(DARWIN, ZEROS, { alternative: 'greater' }).p, 0.0206298828125);
+      // scipy 1.10.1 (Debian python3-scipy): wilcoxon(d, alternative='less').pvalue;
+      // tests/reference/rank_resampling_reference.py
+      expectRelative(wilcoxonSignedRank(DARWIN, ZEROS, { alternative: 'less' }).p, 0.982330322265625);
+    },
+  );
 
   it('A vs the first 5 of B as pairs: p two-sided 0.3125, greater 0.15625 (scipy 1.10.1)', () => {
     const two = wilcoxonSignedRank(A, B5);
@@ -83,15 +87,19 @@ describe('wilcoxonSignedRank: normal approximation (zeros dropped, ties mid-rank
     expectRelative(wilcoxonSignedRank(C, D5b, { alternative: 'greater' }).p, 0.07038638668567507);
   });
 
-  it("more than 50 pairs use the approximation: Darwin's differences repeated 4 times (scipy 1.10.1, method='approx')", () => {
-    const d = [...DARWIN, ...DARWIN, ...DARWIN, ...DARWIN]; // 60 pairs, every |d| tied 4 times
-    const zeros = new Array<number>(60).fill(0);
-    const two = wilcoxonSignedRank(d, zeros);
-    expect(two.exact).toBe(false);
-    expect(two.statistic).toBe(1458);
-    expectRelative(two.p, 6.350786691903962e-5);
-    expectRelative(wilcoxonSignedRank(d, zeros, { alternative: 'greater' }).p, 3.175393345951981e-5);
-  });
+  it(
+    "more than 50 pairs use the approximation: Darwin's differences repeated 4 times (scipy 1.10.1, " +
+      "method='approx')",
+    () => {
+      const d = [...DARWIN, ...DARWIN, ...DARWIN, ...DARWIN]; // 60 pairs, every |d| tied 4 times
+      const zeros = new Array<number>(60).fill(0);
+      const two = wilcoxonSignedRank(d, zeros);
+      expect(two.exact).toBe(false);
+      expect(two.statistic).toBe(1458);
+      expectRelative(two.p, 6.350786691903962e-5);
+      expectRelative(wilcoxonSignedRank(d, zeros, { alternative: 'greater' }).p, 3.175393345951981e-5);
+    },
+  );
 });
 
 describe('wilcoxonSignedRank: edges', () => {

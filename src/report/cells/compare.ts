@@ -11,7 +11,9 @@ import { compareChart } from '../charts/compareChart.js';
 import {
   comparisonDecimals,
   formatDifference,
+  formatFailures,
   formatIntervalKind,
+  formatLevel,
   formatNumber,
   formatP,
   formatSeeds,
@@ -30,54 +32,94 @@ function withInterval(x: number | null, low: number | null, high: number | null,
     : `${formatSigned(x, decimals)} [${formatNumber(low, decimals)}, ${formatNumber(high, decimals)}]`;
 }
 
+const PRIMARY_LABEL: Readonly<Record<Comparison['primary'], string>> = {
+  welch: 'Welch t-test (decides)',
+  'paired-t': 'Welch t-test (beside the paired test)',
+  permutation: 'Welch t-test (undefined: zero spread)',
+  'log-rank': 'Welch t-test (not run: time to event)',
+};
+
 /** The quantities of one comparison, in display order: [label, cell]. */
 function quantities(r: Results, c: Comparison): [string, TableCell][] {
   const d = comparisonDecimals(c);
   const t = c.tests;
   const out: [string, TableCell][] = [
+    ['Step compared at', c.step === null ? null : formatNumber(c.step, 0)],
     ['Mean (baseline v candidate)', `${formatNumber(c.mean.baseline, d)} v ${formatNumber(c.mean.candidate, d)}`],
     [
       'SD between seeds (baseline v candidate)',
       `${formatNumber(c.sd.baseline, d)} v ${formatNumber(c.sd.candidate, d)}`,
     ],
-    ['Seeds (baseline v candidate)', formatSeeds(c, r.settings.diverged)],
-    [`Difference [${formatIntervalKind(c.difference)}]`, formatDifference(c.difference, d)],
+    ['Seeds (baseline v candidate)', formatSeeds(c, r.settings.failed)],
+    ['Failed runs (Fisher exact test)', formatFailures(c)],
     [
-      'Welch t-test (primary)',
-      `t = ${formatNumber(t.welch.statistic, 2)}, df = ${formatNumber(t.welch.df, 1)}, p = ${formatP(t.welch.p)}`,
+      `Difference, candidate minus baseline [${formatIntervalKind(c.difference)}, unadjusted]`,
+      formatDifference(c.difference, d),
+    ],
+    [
+      `Simultaneous bounds [${c.difference.simultaneous === null ? 'Bonferroni' : formatLevel(c.difference.simultaneous.level)}, family of ${c.family.size}]`,
+      c.difference.simultaneous === null
+        ? null
+        : `[${formatNumber(c.difference.simultaneous.low, d)}, ${formatNumber(c.difference.simultaneous.high, d)}]`,
+    ],
+    [
+      `BCa bootstrap interval beside (from ${r.settings.bootstrapFrom} runs per arm; does not decide)`,
+      c.difference.bca === null
+        ? null
+        : `[${formatNumber(c.difference.bca.low, d)}, ${formatNumber(c.difference.bca.high, d)}]`,
     ],
   ];
+  if (c.timeToEvent !== null) {
+    const k = c.timeToEvent;
+    const arm = (a: typeof k.baseline): string =>
+      `${a.reached} of ${a.runs} reached (Kaplan-Meier ${a.fraction === null ? '—' : formatNumber(a.fraction, 2)}), median ${a.medianSteps === null ? 'not reached' : formatNumber(a.medianSteps, 0)} steps`;
+    out.push(
+      ['Baseline: reached', arm(k.baseline)],
+      ['Candidate: reached', arm(k.candidate)],
+      [
+        `Log-rank test (decides; ${k.logRank.method === 'chi-square' ? 'chi-square, 1 df' : k.logRank.method === 'exact-permutation' ? 'exact permutation p' : 'random relabelings'})`,
+        `chi-square = ${formatNumber(k.logRank.statistic, 2)}, p = ${formatP(k.logRank.p)}; candidate reached ${formatNumber(k.logRank.observed, 0)} times, ${formatNumber(k.logRank.expected, 2)} expected`,
+      ],
+    );
+  } else {
+    out.push([
+      PRIMARY_LABEL[c.primary],
+      `t = ${formatNumber(t.welch.statistic, 2)}, df = ${formatNumber(t.welch.df, 1)}, p = ${formatP(t.welch.p)}`,
+    ]);
+  }
   if (t.paired !== undefined) {
     out.push([
-      'Paired t-test and Wilcoxon signed-rank',
+      'Paired t-test (decides) and Wilcoxon signed-rank',
       `t = ${formatNumber(t.paired.t, 2)}, df = ${formatNumber(t.paired.df, 1)}, p = ${formatP(t.paired.p)}; Wilcoxon p = ${formatP(t.paired.wilcoxonP)} (${t.paired.pairs} pairs)`,
     ]);
   }
   out.push(
     [
-      'Permutation test',
+      c.primary === 'permutation' ? 'Permutation test (decides: zero spread)' : 'Permutation test',
       `p = ${formatP(t.permutation.p)} (${t.permutation.exact ? 'exact, every split' : 'random relabelings'})`,
     ],
     [
       'Mann-Whitney U',
       `U = ${formatNumber(t.mannWhitney.u, 1)}, p = ${formatP(t.mannWhitney.p)} (${t.mannWhitney.exact ? 'exact' : 'normal approximation'})`,
     ],
-    [`p adjusted (${CORRECTION[r.settings.correction]})`, formatP(c.pAdjusted)],
+    [
+      `p adjusted (${CORRECTION[r.settings.correction]}, ${c.family.scope === 'study' ? 'all tasks' : 'this task'}: family of ${c.family.size})`,
+      formatP(c.pAdjusted),
+    ],
     ['Verdict', { html: verdictHtml(c) }],
-    ["Hedges' g [interval]", withInterval(c.effect.hedgesG, c.effect.hedgesGLow, c.effect.hedgesGHigh, 2)],
+    [
+      "Hedges' g, candidate minus baseline [interval]",
+      withInterval(c.effect.hedgesG, c.effect.hedgesGLow, c.effect.hedgesGHigh, 2),
+    ],
     [
       'P(candidate better)',
       c.effect.probabilityOfImprovement === null ? null : formatNumber(c.effect.probabilityOfImprovement, 2),
     ],
     [
-      "Cliff's delta [interval]",
+      "Cliff's delta, candidate minus baseline [interval]",
       withInterval(c.effect.cliffsDelta, c.effect.cliffsDeltaLow, c.effect.cliffsDeltaHigh, 2),
     ],
     ['Smallest difference these seeds detect (80% power)', formatNumber(c.detectable.minimumEffect, d)],
-    [
-      'Seeds per arm to detect the observed difference (80% power)',
-      c.detectable.seedsFor80 === null ? null : formatNumber(c.detectable.seedsFor80, 0),
-    ],
   );
   return out;
 }
@@ -92,7 +134,7 @@ export const compare: Cell = {
     const summary = summaryOption(state, call, m.name);
     const r = state.results;
     const mine = r.comparisons.filter((c) => c.metric === m.name && c.summary === summary);
-    const caption = `Candidate minus baseline (summary ${summary}); every statistic of each comparison is in the table below.`;
+    const caption = `Candidate minus baseline, in the metric's own units (summary ${summary}); each comparison at its own step; every statistic of each comparison is in the table below.`;
     const chart = figureHtml(
       state,
       compareChart(r, m.name, summary),

@@ -16,7 +16,9 @@ export const curves: Cell = {
     const mine = state.results.curves.filter((c) => c.metric === m.name);
     const bands = [...new Set(mine.map((c) => formatIntervalKind({ level: c.level, method: c.band })))].join(' or ');
     const horizon =
-      m.horizon === null ? '' : ` Comparisons use the common horizon, step ${formatNumber(m.horizon, 0)}.`;
+      m.horizon === null
+        ? ' Each comparison is made at its own step (see the verdicts).'
+        : ` Its comparisons are made at step ${formatNumber(m.horizon, 0)}.`;
     const caption = `The ${bands} band shows the spread between seeds: it is for looking, the tests decide. No curve runs past a run's last step.${horizon}`;
     return figureHtml(
       state,

@@ -11,30 +11,6 @@ import { textHtml } from '../html.js';
 import { standardCaution } from '../verdictWords.js';
 import type { Cell } from './cell.js';
 
-/**
- * The summary as a sentence: how one run's curve became one number.
- * Cost O(1). Never throws. Example: `summaryWords('last:10%')` → `'the mean of the last 10% of logged steps up to the common horizon'`.
- */
-export function summaryWords(summary: string): string {
-  const [kind, arg] = summary.split(/:(.*)/s) as [string, string | undefined];
-  switch (kind) {
-    case 'final':
-      return 'the last logged value at or before the common horizon (the last step every compared run reached)';
-    case 'last':
-      return `the mean of the last ${arg ?? ''} of logged steps up to the common horizon`;
-    case 'best':
-      return 'the best value up to the common horizon (optimistic: it selects on the evaluation data)';
-    case 'auc':
-      return 'the area under the curve up to the common horizon, divided by the steps covered';
-    case 'reach':
-      return `the first step at which the run reaches ${arg ?? ''} (runs that never do are censored and said so)`;
-    case 'step':
-      return `the value at step ${arg ?? ''}`;
-    default:
-      return `the summary ${summary}`;
-  }
-}
-
 /** A paragraph with a bold lead-in: `['Primary test', 'Welch's t-test ...']`. */
 const P = ([lead, text]: readonly [string, string]): string =>
   `<p><strong>${textHtml(lead)}.</strong> ${textHtml(text)}</p>`;
@@ -42,34 +18,42 @@ const P = ([lead, text]: readonly [string, string]): string =>
 function paragraphs(s: Settings): [string, string][] {
   const correction = { holm: 'Holm (1979)', bh: 'Benjamini and Hochberg (1995)', none: 'no' }[s.correction];
   const level = formatLevel(s.level);
+  const family =
+    s.family === 'study'
+      ? `across the comparisons of one metric and one summary over all tasks${s.baseline === null ? ' (every pair of configs)' : ` (every config against its baseline, ${s.baseline})`}`
+      : `within each task alone (--family task: the family is smaller, so more false calls across tasks)`;
   const out: [string, string][] = [
     [
       'Per-run values',
-      `Each run's curve becomes one number per metric: ${summaryWords(s.summary)} (--summary ${s.summary}). The tests compare these numbers across seeds, so the seed-to-seed spread is the noise they weigh.`,
+      `Each run's curve becomes one number per metric: ${s.summaryDescription} (--summary ${s.summary}). The tests compare these numbers across seeds, so the seed-to-seed spread is the noise they weigh.`,
+    ],
+    [
+      'The step of each comparison',
+      `Each comparison has its own step, stated beside its verdict: the last step that every run of both arms reached in that task, counting only runs that neither diverged nor stopped short; a crashed run elsewhere never moves it. A run's value at the step is its last value logged at or before it; a value logged more than one of the run's typical logging intervals earlier is flagged, and so is a comparison whose step lies well before the end of the longer arm's runs.`,
     ],
     [
       'Primary test',
-      `Welch's t-test, two-sided, on the per-run values (Welch 1947; Satterthwaite 1946)${s.paired ? '; under --paired, the paired t-test and the Wilcoxon signed-rank test on seeds present in both arms' : ''}. Beside it, as robustness checks: an exact permutation test on the difference of means (every split when there are at most 200,000, else 100,000 random relabelings with p = (1 + b)/(1 + M), Phipson and Smyth 2010) and the Mann-Whitney U test (exact without ties for small samples, exact conditional with ties, else the tie-corrected normal approximation). Where they disagree about significance at alpha, a caution says so.`,
+      `Welch's t-test, two-sided, on the per-run values (Welch 1947; Satterthwaite 1946)${s.paired ? '; under --paired the paired t-test on the seeds present in both arms decides instead (the Wilcoxon signed-rank test beside it), and the rows say so' : ''}. When both arms have zero spread and differ, Welch's test is undefined and the exact permutation test decides, with a caution. For reach:VALUE, the log-rank test (exact permutation p at small n) with Kaplan-Meier medians and the fraction that reached. Beside the primary test, as robustness checks: an exact permutation test on the difference of means (every split when there are at most 200,000, else 100,000 random relabelings with p = (1 + b)/(1 + M), Phipson and Smyth 2010) and the Mann-Whitney U test. Where they disagree about significance at alpha, a caution says so.`,
     ],
     [
       'Verdicts',
-      `p-values are adjusted with ${correction} correction across the comparisons of one metric and one summary${s.baseline === null ? ' (every pair of configs)' : ` (every config against the baseline ${s.baseline})`}. A verdict is better when the adjusted p is below alpha = ${s.alpha} and the difference points in the metric's goal direction, worse when it points the other way, and inconclusive otherwise.${s.margin === null ? '' : ` Non-inferiority: a one-sided Welch test that the candidate is not worse than the baseline by more than ${s.margin}.`}`,
+      `p-values are adjusted with ${correction} correction ${family}; each table gives the family's size. A verdict is better when the adjusted p is below alpha = ${s.alpha} and the difference points in the metric's goal direction, worse when it points the other way, and inconclusive otherwise.${s.margin === null ? '' : ` Non-inferiority: a one-sided Welch test at alpha/2 that the candidate is not worse than the baseline by more than ${s.margin}.`}`,
     ],
     [
       'Intervals',
-      `The interval of a difference is the Welch t-interval while either arm has fewer than ${s.bootstrapFrom} runs (it matches the test, so "the interval excludes 0" and "p < alpha" agree), and the BCa bootstrap interval (Efron 1987; ${s.resamples} resamples) at ${s.bootstrapFrom} runs or more. No resampling interval is shown for 3 runs or fewer. Learning-curve bands follow the same rule per step (t-interval of the mean across seeds below ${s.bootstrapFrom} runs, BCa bootstrap with ${s.bandResamples} resamples above, the seeds resampled as whole curves) and are labelled with their method. All intervals are ${level}. Bands are for looking; the tests decide.`,
+      `${s.interval === 'welch' ? 'The interval of a difference is the Welch t-interval at every number of seeds' : 'The interval of a difference is the BCa bootstrap interval (Efron 1987) from 4 runs per arm (--interval bca), the Welch t-interval below'}, at ${level} (1 - alpha). It is unadjusted: it does not account for the other comparisons of the family, so an interval that excludes 0 can stand beside an inconclusive verdict, and the verdict is the one to read. results.json also carries the simultaneous (Bonferroni, 1 - alpha/m for a family of m) bounds, shown in the detail tables. From ${s.bootstrapFrom} runs per arm the BCa bootstrap interval (${s.resamples} resamples) is shown beside Welch's in the detail table, labelled; it never decides (measured coverage of a nominal 95% interval for a difference on normal data, npm run calibrate, 4,000 replications: BCa .914 at 10 v 10, .936 at 20 v 20 and 30 v 30; Welch .946, .952 and .948). Learning-curve bands and per-config means use the t-interval of the mean across seeds${s.interval === 'bca' ? ' (BCa from 4 runs under --interval bca)' : ''}, labelled with their method. Bands are for looking; the tests decide.`,
     ],
     [
       'Effect sizes',
-      `The difference in the metric's units first; Hedges' g with the exact small-sample factor and a noncentral-t interval (Hedges 1981; Steiger and Fouladi 1997); the probability that a candidate run beats a baseline run, with Cliff's delta and its consistent-variance interval (Cliff 1993; Feng and Cliff 2004).`,
+      `Every signed effect is candidate minus baseline in the metric's own units and direction (positive: the candidate's value is higher, whatever the goal): the difference first; Hedges' g with the exact small-sample factor and a noncentral-t interval (Hedges 1981; Steiger and Fouladi 1997); Cliff's delta with its consistent-variance interval (Cliff 1993; Feng and Cliff 2004). P(candidate better) is oriented to the goal.`,
     ],
     [
       'Seeds',
-      `From the pooled between-seed standard deviation: the smallest difference detectable with 80% power at the seeds there are, and the seeds per arm needed to detect the observed difference with 80% power (noncentral t; Colas, Sigaud and Oudeyer 2018).`,
+      `From the between-seed standard deviation pooled within the two configs: the smallest difference detectable with 80% power at the seeds there are and alpha (noncentral t). The report never gives seeds "to detect the observed difference" (post-hoc power; Hoenig and Heisey 2001); seedsift seeds --effect plans for a difference you name.`,
     ],
     [
-      'Diverged runs',
-      `A run whose metric goes non-finite and stays so is marked diverged; ${s.diverged === 'worst' ? 'under --diverged worst it counts as the worst value observed' : 'by default it is left out of the value statistics'}, and it is counted in every table and verdict line.`,
+      'Failed runs',
+      `A run that diverged (its metric went non-finite and stayed so) or stopped short is a failure of its arm: ${s.failed === 'worst' ? 'under --failed worst it is scored as the worst value observed in its comparison' : 'by default it is left out of the values'}, counted in every table, and when any arm has failed runs the failure counts are compared with Fisher's exact test beside the verdict.`,
     ],
     [
       'Randomness',
@@ -79,7 +63,7 @@ function paragraphs(s: Settings): [string, string][] {
   if (s.taskKey !== null) {
     out.push([
       'Tasks',
-      `Comparisons run per value of ${s.taskKey}; across tasks, the interquartile mean of all task-by-run scores with a stratified bootstrap interval, the average probability of improvement, and performance profiles (Agarwal et al. 2021).`,
+      `Comparisons run per value of ${s.taskKey}, each at its own step; across tasks, the interquartile mean of all task-by-run scores with a stratified bootstrap interval, the average probability of improvement, and performance profiles (Agarwal et al. 2021).`,
     ]);
   }
   out.push([
@@ -98,7 +82,7 @@ export const methods: Cell = {
     const r = state.results;
     const caution =
       `${standardCaution(r.settings.alpha)} With 3 seeds per arm no rank or permutation test can reach p < 0.05 at all (the smallest two-sided p is 2/C(6,3) = 0.1); ` +
-      `run more seeds before a claim rests on a verdict (the Seeds rows of each comparison say how many).`;
+      `run more seeds before a claim rests on a verdict (seedsift seeds plans how many for a difference you name).`;
     const made = `Made by seedsift ${r.tool.version} on ${r.generated.slice(0, 10)} from ${r.inputs.paths.join(', ')} (${r.inputs.mode === 'scores' ? 'a score table' : 'per-step logs'}).`;
     return `<div class="methods">${paragraphs(r.settings).map(P).join('')}<p class="caution">${textHtml(caution)}</p><p class="small">${textHtml(made)}</p></div>`;
   },

@@ -5,7 +5,16 @@
  * comparison's caution lines and the caution that a test is evidence, not proof.
  */
 import type { Comparison, Results } from '../../analysis/results.js';
-import { comparisonDecimals, formatDifference, formatIntervalKind, formatP, formatSeeds } from '../format.js';
+import {
+  comparisonDecimals,
+  formatDifference,
+  formatFailures,
+  formatIntervalKind,
+  formatLevel,
+  formatNumber,
+  formatP,
+  formatSeeds,
+} from '../format.js';
 import { listHtml, nameHtml, noteHtml, tableHtml, textHtml, type TableCell } from '../html.js';
 import {
   cautionScope,
@@ -18,17 +27,30 @@ import {
 } from '../verdictWords.js';
 import { metricParam, type Cell } from './cell.js';
 
-const CORRECTION_HEAD = { holm: 'p (Holm)', bh: 'p (BH)', none: 'p' } as const;
+const CORRECTION_HEAD = { holm: 'p (Holm)', bh: 'p (BH)', none: 'p (unadjusted)' } as const;
+
+/** Which test decided, in a few words under the verdict. */
+export const PRIMARY_WORDS: Readonly<Record<Comparison['primary'], string>> = {
+  welch: "Welch's t",
+  'paired-t': 'paired t',
+  permutation: 'exact permutation (zero spread)',
+  'log-rank': 'log-rank',
+};
 
 /** The verdict badge of a comparison, with the non-inferiority result when a margin was set. */
 export function verdictHtml(c: Comparison): string {
   const badge = `<span class="verdict verdict-${c.verdict}">${VERDICT_LABELS[c.verdict]}</span>`;
-  if (c.nonInferiority === null) return badge;
+  const notes: string[] = [PRIMARY_WORDS[c.primary]];
+  const failures = formatFailures(c);
+  if (failures !== null) notes.push(failures);
   const ni = c.nonInferiority;
-  const words = ni.holds
-    ? `not worse by more than ${ni.margin} (p ${formatP(ni.p)})`
-    : `not shown to be within ${ni.margin} (p ${formatP(ni.p)})`;
-  return `${badge}<br><span class="small">${textHtml(words)}</span>`;
+  if (ni !== null)
+    notes.push(
+      ni.holds
+        ? `not worse by more than ${ni.margin} (p ${formatP(ni.p)})`
+        : `not shown to be within ${ni.margin} (p ${formatP(ni.p)})`,
+    );
+  return `${badge}${notes.map((n) => `<br><span class="small">${textHtml(n)}</span>`).join('')}`;
 }
 
 function rows(
@@ -49,7 +71,7 @@ function rows(
       const metricCell: TableCell =
         i === 0
           ? {
-              html: `${nameHtml(g.metric)}<br><span class="small">${textHtml(goal)};<br>${textHtml(`summary ${g.summary}`)}</span>`,
+              html: `${nameHtml(g.metric)}<br><span class="small">${textHtml(goal)};<br>${textHtml(`summary ${g.summary}`)};<br>${textHtml(familyWords(c))}</span>`,
             }
           : { html: '' };
       const difference =
@@ -59,16 +81,22 @@ function rows(
         ...(withTask ? [c.task === null ? null : { html: nameHtml(c.task) }] : []),
         { html: nameHtml(c.baseline) },
         { html: nameHtml(c.candidate) },
+        c.step === null ? null : formatNumber(c.step, 0),
         difference,
         formatP(c.pAdjusted),
         { html: verdictHtml(c) },
-        formatSeeds(c, results.settings.diverged),
+        formatSeeds(c, results.settings.failed),
       ]);
       classes.push(i === 0 ? `row-${c.verdict} group-start` : `row-${c.verdict}`);
     });
     for (const c of groupCautions(g.comparisons)) cautions.push(`${g.metric}, ${cautionScope(c, (n) => n)}: ${c.line}`);
   }
   return { rows: out, classes, cautions, withTask, interval };
+}
+
+/** The family a comparison was adjusted in: `family: 6 comparisons over all tasks`. */
+export function familyWords(c: Comparison): string {
+  return `family: ${c.family.size} comparison${c.family.size === 1 ? '' : 's'}${c.family.scope === 'study' ? (c.task === null ? '' : ' over all tasks') : ' of this task'}`;
 }
 
 export const verdicts: Cell = {
@@ -92,7 +120,10 @@ export const verdicts: Cell = {
       ...(t.withTask ? ['Task'] : []),
       'Baseline',
       'Candidate',
-      t.interval === null ? 'Difference [interval]' : `Difference [${t.interval}]`,
+      'Step',
+      {
+        html: `${textHtml(t.interval === null ? 'Difference [interval]' : `Difference [${t.interval}]`)}<br>${textHtml('unadjusted')}`,
+      },
       CORRECTION_HEAD[r.settings.correction],
       'Verdict',
       'Seeds',
@@ -102,10 +133,10 @@ export const verdicts: Cell = {
       className: 'verdicts',
       head,
       rows: t.rows,
-      numeric: [3 + offset, 4 + offset],
+      numeric: [3 + offset, 4 + offset, 5 + offset],
       rowClasses: t.classes,
     });
-    const lead = `Candidate minus baseline on per-run values; verdict at alpha ${r.settings.alpha} on the adjusted p of Welch's t-test${r.settings.paired ? ' (paired t under --paired)' : ''}.`;
+    const lead = `Candidate minus baseline on per-run values, each comparison at its own step; verdict at alpha ${r.settings.alpha} on the adjusted p of the test named under it. The interval is unadjusted (${formatLevel(r.settings.level)}): the verdict, not the interval, accounts for the family.`;
     return `<div class="verdicts-cell">${noteHtml(lead, 'lead')}${table}${listHtml(t.cautions)}${noteHtml(standardCaution(r.settings.alpha), 'caution')}</div>`;
   },
 };

@@ -26,7 +26,7 @@ export const SEED_LINE_POINTS = 200;
  * `bandByBin` when present, else `band`; each bin's method also in the tooltip) where either end is
  * null, and each seed's line (`Curve.runs`) where its value is null. Hover points on the mean
  * carry tooltips (step, mean, interval, runs in the bin). A dashed vertical rule marks the metric's
- * common horizon (`MetricRecord.horizon`), where the runs are compared. A layer with nothing to
+ * step where the metric's comparisons are made (`MetricRecord.horizon`, when they share one). A layer with nothing to
  * draw is left out.
  * Clicking a config in the legend fades the others (`withLegendToggle`).
  * Data is stored compactly: one row per run (seed lines) or per config (mean and band) holding
@@ -120,7 +120,7 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
       mark: { type: 'rule', color: REFERENCE_INK, strokeDash: [4, 4], strokeWidth: 1 },
       encoding: {
         x,
-        tooltip: [{ field: 'step', type: 'quantitative', title: 'common horizon (step)', format: STEP_FORMAT }],
+        tooltip: [{ field: 'step', type: 'quantitative', title: 'step compared at', format: STEP_FORMAT }],
       },
     });
   }
@@ -192,7 +192,7 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
         band === ''
           ? 'No band: too few seeds per step for an interval.'
           : `Band: ${band} of the mean across seeds, per step.`,
-        ...(horizon === null ? [] : [`Dashed line: the common horizon (step ${horizon}), where runs are compared.`]),
+        ...(horizon === null ? [] : [`Dashed line: step ${horizon}, where this metric's comparisons are made.`]),
       ],
       description: `Learning curves of ${metric} against step for ${curves.length} config${curves.length === 1 ? '' : 's'}: mean across seeds${band === '' ? '' : ` with a ${band} band`}, and ${runCount} single-seed lines.`,
     }),

@@ -24,13 +24,16 @@ describe('{{compare}}', () => {
       '7 v 5',
       '7 v 4 (1 diverged in the candidate, excluded)',
     ]);
-    expect(column(html, 'Welch t-test (primary)')[0]).toBe('t = 2.40, df = 7.7, p = 0.044');
+    expect(column(html, 'Welch t-test (decides)')[0]).toBe('t = 2.40, df = 7.7, p = 0.044');
+    expect(column(html, 'Step compared at')).toEqual(['1000', '1000']);
+    expect(column(html, 'Failed runs (Fisher exact test)')[1]).toBe('failed 0/7 v 1/5, Fisher p 0.462');
     expect(column(html, 'Permutation test')[0]).toBe('p = 0.034 (exact, every split)');
     expect(column(html, 'Mann-Whitney U')[0]).toBe('U = 30.0, p = 0.048 (exact)');
-    expect(column(html, "Hedges' g [interval]")[0]).toBe('+1.34 [0.11, 2.52]');
-    expect(column(html, "Cliff's delta [interval]")[0]).toBe('+0.71 [0.00, 0.95]');
-    expect(column(html, 'p adjusted (Holm)')).toEqual(['0.088', '0.617']);
-    expect(column(html, 'Seeds per arm to detect the observed difference (80% power)')).toEqual(['9', '168']);
+    expect(column(html, "Hedges' g, candidate minus baseline [interval]")[0]).toBe('+1.34 [0.11, 2.52]');
+    expect(column(html, "Cliff's delta, candidate minus baseline [interval]")[0]).toBe('+0.71 [0.00, 0.95]');
+    expect(column(html, 'p adjusted (Holm, all tasks: family of 2)')).toEqual(['0.088', '0.617']);
+    // no post-hoc power (METHODS.md "How many seeds")
+    expect(html).not.toContain('to detect the observed difference');
     expect(html.match(/<figure class="chart"/g)).toHaveLength(1);
   });
 
@@ -40,9 +43,13 @@ describe('{{compare}}', () => {
     const paired: Comparison = {
       ...first,
       tests: { ...first.tests, paired: { t: 3.1, df: 4, p: 0.036, wilcoxonP: 0.0625, pairs: 5 } },
+      primary: 'paired-t',
     };
     const html = await renderCells('{{compare "val_acc"}}', { ...r, comparisons: [paired, ...r.comparisons.slice(1)] });
-    expect(column(html, 'Paired t-test and Wilcoxon signed-rank')[0]).toBe(
+    // a paired verdict is labelled paired, never "Welch t-test (primary)"
+    expect(html).not.toContain('Welch t-test (decides)');
+    expect(column(html, 'Welch t-test (beside the paired test)')[0]).toBe('t = 2.40, df = 7.7, p = 0.044');
+    expect(column(html, 'Paired t-test (decides) and Wilcoxon signed-rank')[0]).toBe(
       't = 3.10, df = 4.0, p = 0.036; Wilcoxon p = 0.063 (5 pairs)',
     );
   });

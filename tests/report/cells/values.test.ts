@@ -2,7 +2,7 @@
  * The values cell: every per-run value by seed, unused values marked, and each config's mean with
  * its interval as Results.configValues holds it. Expected numbers: memory=4's val_acc values are
  * METHODS.md's sample B, mean 69.5857; the fixture's 95% t-interval uses t(0.975, 6) = 2.446912
- * (handbook table): 69.5857 ± 2.446912 x 1.08847 / sqrt(7) = [68.58, 70.59].
+ * (40-digit mpmath root rounded, tests/reference/t_family_reference.py): 69.5857 ± 2.446912 x 1.08847 / sqrt(7) = [68.58, 70.59].
  */
 import { describe, expect, it } from 'vitest';
 import { sampleResults } from '../sampleResults.js';

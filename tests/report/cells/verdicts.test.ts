@@ -17,12 +17,13 @@ describe('{{verdicts}}', () => {
     const r = rows(html);
     expect(r).toHaveLength(4);
     expect(r[0]).toBe(
-      'val_acc higher is better; summary final memory=4 memory=8 +1.71 [0.06, 3.37] 0.088 ● inconclusive 7 v 5',
+      "val_acc higher is better; summary final; family: 2 comparisons memory=4 memory=8 1000 +1.71 [0.06, 3.37] 0.088 ● inconclusive Welch's t 7 v 5",
     );
     expect(r[3]).toBe(
-      'memory=4 memory=12 +0.01514 [0.00588, 0.02441] 0.0052 ▼ worse 7 v 4 (1 diverged in the candidate, excluded)',
+      "memory=4 memory=12 1000 +0.01514 [0.00588, 0.02441] 0.0052 ▼ worse Welch's t failed 0/7 v 1/5, Fisher p 0.462 7 v 4 (1 diverged in the candidate, excluded)",
     );
-    expect(html).toContain('<th scope="col" class="num">Difference [95% Welch t-interval]</th>');
+    expect(html).toContain('<th scope="col" class="num">Difference [95% Welch t-interval]<br>unadjusted</th>');
+    expect(html).toContain('<th scope="col" class="num">Step</th>');
     expect(textOf(html)).toContain('A statistical test is evidence, not proof');
     expect(textOf(html)).toContain('val_acc, memory=8 v memory=4: Unequal seeds: 7 v 5.');
   });

@@ -180,11 +180,9 @@ describe('curvesChart', () => {
     ).toHaveLength(4);
   });
 
-  it('marks the common horizon with a dashed rule and says so', async () => {
+  it("marks the step of the metric's comparisons (when they share one) with a dashed rule and says so", async () => {
     const spec = curvesChart(results, 'val_acc') as TopLevelSpec & { title: { subtitle: string[] } };
-    expect(spec.title.subtitle.join(' ')).toContain(
-      'Dashed line: the common horizon (step 400), where runs are compared.',
-    );
+    expect(spec.title.subtitle.join(' ')).toContain("Dashed line: step 400, where this metric's comparisons are made.");
     const svg = await renderSvg(spec);
     const rule = markItems(svg, 'horizon');
     expect(rule).toHaveLength(1);
