@@ -2,7 +2,8 @@
  * The command line of the option tables (`src/analysis/readingOptions.ts`, `analysisOptions.ts`):
  * `addTableOptions` declares a command's entries on commander, and `tableValues` reads what was
  * typed back under the tables' keys, merged over the notebook front matter's values (the command
- * line wins; an entry's `merge` may combine the two, as `--metric` does per metric name).
+ * line wins; an entry's `merge` may combine the two, as `--metric` does per metric name; an older
+ * name typed on the command line, such as `--diverged`, beats its option's front-matter value).
  */
 import { type Command, Option } from 'commander';
 import { ANALYSIS_OPTIONS } from '../analysis/analysisOptions.js';
@@ -50,6 +51,12 @@ export function tableValues<Table extends Record<string, OptionSpec<unknown>>>(
         ? spec.merge(written, typed)
         : (typed ?? written);
     if (value !== undefined) out[key] = value;
+  }
+  // An older name typed on the command line beats its option written in the front matter.
+  for (const spec of Object.values(table)) {
+    if (spec.aliasOf === undefined || opts[new Option(spec.flag).attributeName()] === undefined) continue;
+    const target = table[spec.aliasOf];
+    if (target !== undefined && opts[new Option(target.flag).attributeName()] === undefined) delete out[spec.aliasOf];
   }
   return out as RawBy<Table>;
 }

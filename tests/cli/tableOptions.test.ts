@@ -78,6 +78,25 @@ describe('the options tables', () => {
     expect(merged).toEqual({ alpha: '0.01', seed: 3, metricGoals: ['acc:min', 'loss:min'] });
   });
 
+  it('--diverged, the old name of --failed, gives failed and loses to --failed (README report options)', () => {
+    const failed = (opts: Record<string, unknown>, front: Record<string, string> = {}): string =>
+      resolveOptions(tableValues(ANALYSIS_OPTIONS, opts, front)).failed;
+    expect(failed({})).toBe('exclude');
+    expect(failed({ diverged: 'worst' })).toBe('worst');
+    expect(failed({ failed: 'exclude', diverged: 'worst' })).toBe('exclude');
+    expect(failed({}, { diverged: 'worst' })).toBe('worst');
+    // Typed on the command line, the old name beats the front matter's failed, as any typed option does.
+    expect(failed({ diverged: 'worst' }, { failed: 'exclude' })).toBe('worst');
+    expect(failed({}, { failed: 'worst', diverged: 'exclude' })).toBe('worst');
+    expect(() => failed({ diverged: 'keep' })).toThrow("--diverged: expected exclude, worst, got 'keep'");
+    expect(Object.keys(resolveOptions({}))).not.toContain('diverged');
+  });
+
+  it('level is 1 - alpha unless given (the intervals are unadjusted; METHODS.md "Defaults")', () => {
+    expect(resolveOptions({ alpha: '0.1' }).level).toBeCloseTo(0.9, 15);
+    expect(resolveOptions({ alpha: '0.1', level: 0.8 }).level).toBe(0.8);
+  });
+
   it("results.json settings are the table's entries with a setting, and match the schema's", () => {
     const schema = JSON.parse(
       readFileSync(new URL('../../src/report/results.schema.json', import.meta.url), 'utf8'),
