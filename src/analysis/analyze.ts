@@ -14,14 +14,14 @@
  * is derived from `options.seed` and a label naming what it is for.
  */
 import type { MetricInfo, Run, RunSet } from '../ingest/types.js';
-import { problem, SeedsiftError, type Problem } from '../problems.js';
+import { problem, type Problem } from '../problems.js';
 import { calibrationCurves } from './calibration.js';
 import { configValues } from './configValues.js';
 import type { PowerCache } from './compare.js';
 import { learningCurves } from './curves.js';
 import { haltingCurves } from './halting.js';
 import { inventory, orderRuns } from './inventory.js';
-import type { ResolvedOptions } from './options.js';
+import { optionSettings, type ResolvedOptions } from './options.js';
 import { pairConfigs, type Pairing } from './pairing.js';
 import type {
   CalibrationCurve,
@@ -38,8 +38,14 @@ import type {
 } from './results.js';
 import { metricComparisons } from './metricComparisons.js';
 import { metricValues } from './runValues.js';
-import { checkSelector, matchesSelector } from './selectors.js';
-import { describeSummary } from './summaryKinds.js';
+import { matchesSelector } from './selectors.js';
+import { checkOptions } from './checkOptions.js';
+import { chooseMetrics } from './chooseMetrics.js';
+import { directionOnly } from './directionOnly.js';
+import { dedupeProblems, withoutRepeatedGoals } from './dedupeProblems.js';
+import { sanityChecks } from './sanityChecks.js';
+import { selectRuns } from './selectRuns.js';
+import { withoutUncomparedGoals } from './setAside.js';
 import { summaryGoal } from './summarySpec.js';
 import { normaliseTaskScores, taskAggregates, type TaskScore } from './tasks.js';
 import { tickCurves } from './ticks.js';
@@ -61,25 +67,29 @@ export interface AnalyzeMeta {
  * Example: `analyze(runSet, resolveOptions({ baseline: 'memory=4' }), meta).comparisons`.
  */
 export function analyze(
-  runSet: RunSet,
+  input: RunSet,
   options: ResolvedOptions,
   meta: AnalyzeMeta,
   progress: ProgressHook = () => undefined,
 ): Results {
-  // 1. inventory
+  // 1. select and inventory: the runs, configs and metrics the options choose
+  checkOptions(options, input);
+  const selection = selectRuns(input, options);
+  const runSet = selection.runSet;
+  const choice = chooseMetrics(runSet, options);
   const inv = inventory(runSet);
   const runs = orderRuns(runSet);
-  if (options.taskKey !== null && !runSet.keys.includes(options.taskKey)) {
-    throw new SeedsiftError(
-      'usage',
-      `--task-key: expected one of the config keys (${runSet.keys.join(', ') || 'none'}), got '${options.taskKey}'`,
-    );
-  }
-  if (options.baseline !== null) checkSelector(options.baseline, inv.configs, runSet.keys, options.taskKey);
+  const problems: Problem[] = [...selection.problems, ...sanityChecks(runSet), ...choice.problems];
 
   // 2. pairing
-  const pairing = pairConfigs(inv.configs, runSet.keys, options.baseline, options.taskKey);
-  const problems: Problem[] = [];
+  const pairing = pairConfigs(inv.configs, runSet.keys, options.baseline, options.taskKey, options.candidates);
+  if (pairing.armKeys.length > 0)
+    problems.push(
+      problem(
+        'arm-keys',
+        `counterparts for --baseline ${options.baseline?.text ?? ''} were matched ignoring ${pairing.armKeys.join(', ')}: their values change only with ${options.baseline?.pairs.map((p) => p.key).join(', ') ?? ''} (attributes of the arm)`,
+      ),
+    );
   for (const m of pairing.missing) {
     const where = m.task === null ? '' : ` (task ${m.task})`;
     problems.push(
@@ -102,9 +112,9 @@ export function analyze(
   const ticks: TickCurve[] = [];
   const cache: PowerCache = new Map();
   const runsByConfig = groupRuns(runs);
-  for (const [i, info] of runSet.metrics.entries()) {
-    progress('comparing', i, runSet.metrics.length);
-    const record = inv.metrics[i] as MetricRecord;
+  for (const [i, info] of choice.metrics.entries()) {
+    progress('comparing', i, choice.metrics.length);
+    const record = inv.metrics.find((m) => m.name === info.name && m.kind === info.kind) as MetricRecord;
     if (info.kind === 'tick') {
       metrics.push(record);
       ticks.push(
@@ -117,10 +127,12 @@ export function analyze(
       );
       continue;
     }
+    // A metric whose goal is unknown is summarised as "higher" (direction only, metricComparisons.ts).
+    const direction = info.goal ?? 'max';
     const mv = metricValues(
       runs,
       info.name,
-      info.goal,
+      direction,
       options.summary,
       options.summaryText,
       options.failed,
@@ -141,13 +153,16 @@ export function analyze(
     if (options.taskKey !== null) tasks.push(...metricTasks(info, runs, mv.byRun, pairing, options));
   }
 
-  progress('comparing', runSet.metrics.length, runSet.metrics.length);
+  progress('comparing', choice.metrics.length, choice.metrics.length);
 
   // 4. ticks: per-sample dumps
   const { halting, calibration } = dumpAnalyses(runSet, options, problems);
 
   // 5. assemble
-  const allProblems = dedupe([...runSet.problems, ...withoutRepeatedGoals(problems, runSet)]);
+  const allProblems = withoutUncomparedGoals(
+    dedupeProblems([...runSet.problems, ...withoutRepeatedGoals(problems, runSet)]),
+    choice.metrics.map((m) => m.name),
+  );
   const byRun = new Map<string, string[]>();
   for (const p of allProblems) if (p.run !== undefined) byRun.set(p.run, [...(byRun.get(p.run) ?? []), p.message]);
   return {
@@ -164,6 +179,7 @@ export function analyze(
     },
     configs: inv.configs,
     metrics,
+    setAside: choice.setAside.map(({ name, reason }) => ({ name, reason })),
     runs: inv.runs.map((r) => ({ ...r, problems: byRun.get(r.id) ?? [] })),
     values,
     configValues: perConfig,
@@ -177,27 +193,9 @@ export function analyze(
   };
 }
 
-/** The settings block of Results (what ran, as the user gave it). */
+/** The settings block of Results (what ran, as the user gave it), from the options table. */
 export function settingsOf(o: ResolvedOptions): Settings {
-  return {
-    alpha: o.alpha,
-    seed: o.seed,
-    correction: o.correction,
-    summary: o.summaryText,
-    summaryDescription: describeSummary(o.summary),
-    baseline: o.baseline?.text ?? null,
-    taskKey: o.taskKey,
-    margin: o.margin,
-    paired: o.paired,
-    failed: o.failed,
-    failOn: o.failOn,
-    family: o.family,
-    interval: o.interval,
-    resamples: o.resamples,
-    bandResamples: o.bandResamples,
-    bootstrapFrom: o.bootstrapFrom,
-    level: o.level,
-  };
+  return optionSettings(o);
 }
 
 function groupRuns(runs: readonly Run[]): Map<string, Run[]> {
@@ -243,7 +241,7 @@ function metricTasks(
   const settings = { ...options, leftOut: normal.leftOut };
   return taskAggregates(
     info.name,
-    summaryGoal(options.summary, info.goal),
+    summaryGoal(options.summary, info.goal ?? 'max'),
     groups,
     normal.scores,
     baselineOf,
@@ -271,25 +269,4 @@ function dumpAnalyses(
     problems.push(problem('tick-dump-invalid', `halting and calibration were not computed: ${error.message}`));
     return { halting: [], calibration: [] };
   }
-}
-
-/** Analysis 'goal-inferred' problems for metrics that ingest already reported as guessed are dropped. */
-function withoutRepeatedGoals(problems: readonly Problem[], runSet: RunSet): Problem[] {
-  const told = runSet.problems.filter((p) => p.code === 'goal-inferred');
-  if (told.length === 0) return [...problems];
-  const metricOf = (p: Problem): string => p.message.slice(0, p.message.indexOf(':'));
-  return problems.filter((p) => p.code !== 'goal-inferred' || !told.some((t) => t.message.includes(metricOf(p))));
-}
-
-/** Problems without repeats (same code, message and place), in first-seen order. */
-function dedupe(problems: readonly Problem[]): Problem[] {
-  const seen = new Set<string>();
-  const out: Problem[] = [];
-  for (const p of problems) {
-    const key = JSON.stringify([p.code, p.message, p.file ?? null, p.line ?? null, p.run ?? null]);
-    if (seen.has(key)) continue;
-    seen.add(key);
-    out.push(p);
-  }
-  return out;
 }

@@ -4,13 +4,16 @@
  * step-related problems are recorded ('step-early' when one arm's runs all stop well before the
  * other's, 'value-stale' when a value was logged more than one typical logging interval before
  * the step, 'step-beyond-run' when `step:N` lies past a run's end), then `compareMetric` tests,
- * adjusts across the family and decides. Pure.
+ * adjusts across the family and decides. A metric whose goal is unknown is summarised and
+ * compared as if higher were better, and its comparisons say the direction only (`directionOnly.ts`).
+ * Pure.
  */
 import type { MetricInfo, Run } from '../ingest/types.js';
 import { problem, type Problem } from '../problems.js';
 import { compareMetric, type ComparisonRequest, type PowerCache } from './compare.js';
 import { comparisonStep } from './comparisonStep.js';
 import type { Comparison } from './comparisonTypes.js';
+import { directionOnly } from './directionOnly.js';
 import type { ResolvedOptions } from './options.js';
 import type { Pairing } from './pairing.js';
 import { runOutcome } from './runValues.js';
@@ -34,14 +37,16 @@ export function metricComparisons(
 ): { comparisons: Comparison[]; problems: Problem[] } {
   const problems: Problem[] = [];
   const spec = options.summary;
-  const goal = summaryGoal(spec, info.goal);
+  // A metric whose goal is unknown is summarised and compared as "higher" (direction only).
+  const direction = info.goal ?? 'max';
+  const goal = summaryGoal(spec, direction);
   const requests: ComparisonRequest[] = [];
   for (const p of pairing.pairs) {
     const baseRuns = runsByConfig.get(p.baselineConfig) ?? [];
     const candRuns = runsByConfig.get(p.candidateConfig) ?? [];
     const step = comparisonStep([...baseRuns, ...candRuns], info.name, spec, mode);
     const window = { horizon: step.step, firstStep: step.firstStep };
-    const outcome = (run: Run) => runOutcome(run, info.name, info.goal, spec, window, mode);
+    const outcome = (run: Run) => runOutcome(run, info.name, direction, spec, window, mode);
     const request: ComparisonRequest = {
       metric: info.name,
       goal,
@@ -95,5 +100,6 @@ export function metricComparisons(
     }
   }
   const result = compareMetric(requests, options, cache);
-  return { comparisons: result.comparisons, problems: [...problems, ...result.problems] };
+  const comparisons = info.goal === null ? result.comparisons.map(directionOnly) : result.comparisons;
+  return { comparisons, problems: [...problems, ...result.problems] };
 }

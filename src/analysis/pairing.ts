@@ -9,6 +9,11 @@
  * - Without a selector, every pair of configs (the earlier one in config order as the baseline).
  * - With a task key, the key is not part of the comparison: configs are grouped by their other
  *   keys (the *group* id, e.g. `method=ours`) and pairs are formed within each task value.
+ * - Keys of the arm: with a selector naming fewer keys, a key whose value is fixed by the values
+ *   of the selector's keys and differs between them (`lr` when each `algo` has its own `lr`) is an
+ *   attribute of the arm, not a condition to match: counterparts are matched ignoring it, and it
+ *   is returned in `armKeys` for the report to say so.
+ * - Candidates (`--candidate`): only configs that match one of them are compared with the baseline.
  *
  * Pure; cost O(configs^2) at most.
  */
@@ -42,6 +47,31 @@ export interface Pairing {
   readonly missing: readonly MissingCounterpart[];
   /** Task values in natural order ([null] without a task key). */
   readonly tasks: readonly (string | null)[];
+  /** Keys ignored in counterpart matching because they belong to the arm (see the module comment). */
+  readonly armKeys: readonly string[];
+}
+
+/**
+ * Keys whose value is fixed by the values of the selector's keys, and not the same everywhere
+ * (see the module comment). Empty without a selector or when it names every key but the task key.
+ * Example: configs (algo=a, lr=1), (algo=b, lr=2), with selector algo=a, give ['lr'].
+ */
+export function armKeys(
+  configs: readonly ConfigLike[],
+  keys: readonly string[],
+  selector: Selector | null,
+  taskKey: string | null,
+): string[] {
+  if (selector === null) return [];
+  const named = selector.pairs.map((p) => p.key);
+  const arm = (c: ConfigLike): string => JSON.stringify(named.map((k) => c.params[k] ?? null));
+  return keys.filter((key) => {
+    if (key === taskKey || named.includes(key)) return false;
+    const byArm = new Map<string, Set<string>>();
+    for (const c of configs) byArm.set(arm(c), (byArm.get(arm(c)) ?? new Set()).add(c.params[key] ?? ''));
+    const all = new Set(configs.map((c) => c.params[key] ?? ''));
+    return all.size > 1 && [...byArm.values()].every((values) => values.size === 1);
+  });
 }
 
 /** The group id of a config: its `key=value` pairs in key order, without the task key. */
@@ -68,12 +98,14 @@ export function pairConfigs(
   keys: readonly string[],
   selector: Selector | null,
   taskKey: string | null,
+  candidates: readonly Selector[] = [],
 ): Pairing {
+  const ignored = armKeys(configs, keys, selector, taskKey);
   const tasks =
     taskKey === null ? [null] : [...new Set(configs.map((c) => c.params[taskKey] ?? ''))].sort(naturalCompare);
   const pairs: Pair[] = [];
   const missing: MissingCounterpart[] = [];
-  const groupKeys = keys.filter((k) => k !== taskKey);
+  const groupKeys = keys.filter((k) => k !== taskKey && !ignored.includes(k));
   for (const task of tasks) {
     const inTask = taskKey === null ? configs : configs.filter((c) => (c.params[taskKey] ?? '') === task);
     const groups = inTask.map((c) => ({ config: c, id: taskKey === null ? c.id : groupId(c.params, keys, taskKey) }));
@@ -95,6 +127,7 @@ export function pairConfigs(
     }
     for (const g of groups) {
       if (matchesSelector(g.config.params, selector)) continue;
+      if (candidates.length > 0 && !candidates.some((c) => matchesSelector(g.config.params, c))) continue;
       const wanted: Record<string, string> = {};
       for (const key of groupKeys) {
         const v = g.config.params[key];
@@ -122,7 +155,7 @@ export function pairConfigs(
       }
     }
   }
-  return { pairs, missing, tasks };
+  return { pairs, missing, tasks, armKeys: ignored };
 }
 
 function sameParams(

@@ -4,7 +4,8 @@
  * exist (an interval with one seed, a p-value that cannot be computed) are `null`, never NaN.
  * Keys never change meaning within version 1; new keys may be added.
  */
-import type { Goal, IdentitySource, RunStatus } from '../ingest/types.js';
+import type { Goal, GoalSource, IdentitySource, RunStatus } from '../ingest/types.js';
+import type { Settings as OptionSettings } from './options.js';
 import type { Problem } from '../problems.js';
 
 export type Verdict = 'better' | 'worse' | 'inconclusive';
@@ -37,33 +38,12 @@ export type SummarySpec =
   | { readonly kind: 'reach'; readonly value: number }
   | { readonly kind: 'step'; readonly step: number };
 
-export interface Settings {
-  readonly alpha: number;
-  readonly seed: number;
-  readonly correction: Correction;
-  /** The summary as typed, e.g. `last:10%`. */
-  readonly summary: string;
-  /** The summary in words (from the summary kinds table), for every rendering. */
-  readonly summaryDescription: string;
-  readonly baseline: string | null;
-  readonly taskKey: string | null;
-  readonly margin: number | null;
-  readonly paired: boolean;
-  /** Failed runs (diverged or short): excluded or scored worst (`--failed`). */
-  readonly failed: FailedPolicy;
-  readonly failOn: FailOn | null;
-  /** The family of each correction (`--family`). */
-  readonly family: FamilyScope;
-  /** The headline interval (`--interval`). */
-  readonly interval: IntervalChoice;
-  /** Bootstrap resamples for intervals (10,000) and for bands (2,000). */
-  readonly resamples: number;
-  readonly bandResamples: number;
-  /** Runs per arm from which the BCa interval of a difference is shown beside Welch's (10). */
-  readonly bootstrapFrom: number;
-  /** Level of every interval shown: 1 - alpha unless set (they are unadjusted). */
-  readonly level: number;
-}
+/**
+ * What ran, as the user gave it: one field per entry of the analysis options table that has a
+ * `setting` (`analysisOptions.ts`), in table order, and `summaryDescription` (the summary in words,
+ * for every rendering); the JSON schema's settings are checked against it.
+ */
+export type Settings = OptionSettings;
 
 export interface RunRecord {
   readonly id: string;
@@ -91,8 +71,9 @@ export interface ConfigRecord {
 
 export interface MetricRecord {
   readonly name: string;
-  readonly goal: Goal;
-  readonly goalSource: 'option' | 'inferred';
+  /** Whether higher or lower is better; null when neither the user nor a name rule says (direction only). */
+  readonly goal: Goal | null;
+  readonly goalSource: GoalSource;
   readonly kind: 'scalar' | 'tick';
   readonly ticks: number;
   /** The step of this metric's comparisons when they all share one, else null (each comparison has its own `step`). */
@@ -268,7 +249,10 @@ export interface Results {
     readonly filesRead: number;
   };
   readonly configs: readonly ConfigRecord[];
+  /** The metrics compared, in the order every output shows them (the primary metric first). */
   readonly metrics: readonly MetricRecord[];
+  /** Numeric columns not compared because they look like bookkeeping (`column-set-aside` says how to include each). */
+  readonly setAside: readonly { readonly name: string; readonly reason: 'name' | 'counter' | 'constant' }[];
   readonly runs: readonly RunRecord[];
   readonly values: readonly RunValue[];
   /** Per config and metric: mean of the per-run values with its interval. */

@@ -4,6 +4,7 @@
  * one that names fewer keys picks a family of baselines, each the counterpart of the configs that
  * share its other values (see `pairing.ts`).
  */
+import { didYouMean } from '../didYouMean.js';
 import { SeedsiftError } from '../problems.js';
 import { naturalCompare } from './inventory.js';
 
@@ -70,13 +71,18 @@ export function checkSelector(
       const available = keys.filter((k) => k !== taskKey);
       throw new SeedsiftError(
         'usage',
-        `${option}: no config key '${key}'; keys are ${available.length === 0 ? '(none)' : available.join(', ')}`,
+        `${option}: no config key '${key}'; keys are ${available.length === 0 ? '(none)' : available.join(', ')}; ${didYouMean(key, available)}`,
       );
     }
   }
   if (configs.some((c) => matchesSelector(c.params, selector))) return;
   const takes = selector.pairs.map(({ key }) => `${key} takes ${valuesOf(configs, key).join(', ')}`);
-  throw new SeedsiftError('usage', `${option}: ${selector.text} matches no config; ${takes.join('; ')}`);
+  const absent = selector.pairs.find(({ key, value }) => !valuesOf(configs, key).includes(value));
+  const hint =
+    absent === undefined
+      ? 'did you mean a combination that exists? (each value exists, but no config has them all)'
+      : didYouMean(absent.value, valuesOf(configs, absent.key), `${absent.key}=`);
+  throw new SeedsiftError('usage', `${option}: ${selector.text} matches no config; ${takes.join('; ')}; ${hint}`);
 }
 
 /** The distinct values of one key across configs, in natural order. */

@@ -215,8 +215,9 @@ export function tickCurves(runs: readonly Run[], metric: MetricInfo, opts: TickC
       n: cells.map((c) => c.n),
       band: 't',
       exampleHalfWidth: exampleNoise(g, means, examples),
-      earliestGood: earliestGood(g, means, metric.goal, opts.level, opts.tolerance),
-      versusBaseline: base === undefined || base === g ? null : versusBaseline(g, base, metric.goal, opts.alpha),
+      earliestGood: earliestGood(g, means, metric.goal ?? 'max', opts.level, opts.tolerance),
+      versusBaseline:
+        base === undefined || base === g ? null : versusBaseline(g, base, metric.goal ?? 'max', opts.alpha),
       diverged: g.diverged,
     };
   });

@@ -10,7 +10,7 @@ import { Command } from 'commander';
 import { ingest } from '../ingest/ingest.js';
 import { writeDigest } from '../ingest/digest/writeDigest.js';
 import { SeedsiftError } from '../problems.js';
-import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
+import { addIngestOptions, rawIngestOptions, resolveIngestOptions } from './ingestOptions.js';
 import { modeFiles } from '../ingest/readingMode.js';
 import { inputFiles } from './inputFiles.js';
 import type { Io } from './io.js';
@@ -32,14 +32,14 @@ export function digestCommand(io: Io, done: (code: number) => void): Command {
     .argument('[paths...]', 'folders or files of run logs (none with --scores)')
     .requiredOption('--out <file>', 'the digest to write (a name ending in .parquet)')
     .option('--quiet', 'print nothing but errors');
-  addIngestOptions(command);
-  command.action(async (paths: string[], raw: RawIngestOptions & { out: string; quiet?: boolean }) => {
+  addIngestOptions(command, 'digest');
+  command.action(async (paths: string[], raw: Record<string, unknown> & { out: string; quiet?: boolean }) => {
     if (!/\.parquet$/i.test(raw.out))
       throw new SeedsiftError(
         'usage',
         `--out: expected a file name ending in .parquet (so that report and scan find it), got '${raw.out}'`,
       );
-    const options = resolveIngestOptions(raw);
+    const options = resolveIngestOptions(rawIngestOptions(raw));
     if (paths.length === 0 && options.mode.kind !== 'scores')
       throw new SeedsiftError('usage', 'digest: expected PATH... (folders or files of run logs) or --scores FILE');
     const progress = progressDisplay(io, raw.quiet === true);

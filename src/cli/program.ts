@@ -3,7 +3,8 @@
  * `run(argv, io)` drives it in-process (tests use it); `main.ts` connects it to the real process.
  *
  * Exit codes: 0 done; 1 a gate failed (--fail-on); 2 a usage or input error (one line on stderr,
- * no stack trace unless --debug); 70 an internal error (a bug in seedsift: please report it).
+ * no stack trace unless --debug); 3 a --fail-on gate had nothing to judge (exitCodes.ts); 70 an
+ * internal error (a bug in seedsift: please report it).
  */
 import { Command, CommanderError } from 'commander';
 import { digestCommand } from './digest.js';

@@ -6,42 +6,32 @@
 import { readFileSync } from 'node:fs';
 import { dirname, isAbsolute, join, relative, resolve } from 'node:path';
 import { Command } from 'commander';
-import type { ReportOptions } from '../analysis/options.js';
+import { ANALYSIS_OPTIONS } from '../analysis/analysisOptions.js';
 import type { Results } from '../analysis/results.js';
 import { SeedsiftError } from '../problems.js';
 import { parseNotebook, type NotebookOptions } from '../report/parseNotebook.js';
 import { overviewText } from '../report/overviewText.js';
 import { relativePaths } from './relativePaths.js';
 import { DEFAULT_NOTEBOOK } from '../report/templatePaths.js';
-import { failedGate } from './gate.js';
+import { failedGate, ungated } from './gate.js';
 import { progressDisplay } from './progress.js';
-import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
+import { rawIngestOptions, resolveIngestOptions } from './ingestOptions.js';
+import { addTableOptions, tableValues } from './tableOptions.js';
 import { modeFiles } from '../ingest/readingMode.js';
 import { inputFiles } from './inputFiles.js';
 import type { Io } from './io.js';
-import { EXIT_GATE } from './exitCodes.js';
+import { EXIT_GATE, EXIT_NO_EVIDENCE } from './exitCodes.js';
+import { STDOUT } from './writeOutput.js';
 import { version } from './version.js';
 import { writeOutput } from './writeOutput.js';
 
-interface RawReportOptions extends RawIngestOptions {
+/** The options of `report` that are not in the option tables: where outputs go. */
+interface OutputOptions {
   out?: string;
   json?: string;
   markdown?: string;
   fullCurves?: boolean;
   notebook?: string;
-  baseline?: string;
-  taskKey?: string;
-  summary?: string;
-  alpha?: string;
-  correction?: string;
-  margin?: string;
-  paired?: boolean;
-  diverged?: string;
-  failed?: string;
-  family?: string;
-  interval?: string;
-  seed?: string;
-  failOn?: string;
   quiet?: boolean;
 }
 
@@ -49,34 +39,22 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
   const command = new Command('report')
     .description('the whole job: compare configurations and write report.html (and/or --json, --markdown)')
     .argument('[paths...]', "folders or files of run logs (default: the notebook's runs:)")
-    .option('-o, --out <file>', 'write the HTML report to FILE')
-    .option('--json <file>', 'write results.json (the machine-readable results) to FILE')
-    .option('--markdown <file>', 'write a Markdown verdict summary (for a pull request) to FILE')
-    .option('--notebook <file>', 'render this notebook instead of the default one')
-    .option('--baseline <selector>', 'key=value[,key=value]: the baseline config, or the baseline value of some keys')
-    .option('--task-key <key>', 'a config key whose values are tasks: compare per task and aggregate across tasks')
-    .option('--summary <how>', 'per-run value: final | last:P% | best | auc | reach:VALUE | step:N (default final)')
-    .option('--alpha <a>', 'significance level (default 0.05)')
-    .option('--correction <c>', 'multiple comparisons: holm | bh | none (default holm)')
-    .option('--margin <m>', 'non-inferiority margin in metric units (one-sided Welch)')
-    .option('--paired', 'pair runs by seed across configs (paired t, Wilcoxon signed-rank)')
-    .option('--failed <policy>', 'failed runs (diverged or short): exclude | worst (default exclude)')
-    .option('--diverged <policy>', 'the old name of --failed')
+    .option('-o, --out <file>', "write the HTML report to FILE ('-' for standard output)")
+    .option('--json <file>', "write results.json (the machine-readable results) to FILE ('-' for standard output)")
     .option(
-      '--family <scope>',
-      'correction family: study (each metric and summary over all tasks) | task (default study)',
+      '--markdown <file>',
+      "write a Markdown verdict summary (for a pull request) to FILE ('-' for standard output)",
     )
-    .option('--interval <kind>', 'headline interval: welch | bca (default welch)')
-    .option('--seed <n>', 'seed of every resampling (default 1)')
-    .option('--fail-on <gate>', 'exit 1 when a comparison is worse | not-better')
+    .option('--notebook <file>', 'render this notebook instead of the default one (e.g. study.md)')
     .option('--full-curves', 'write learning curves to --json on the full grid (default: at most 100 bins each)')
     .option('--quiet', 'print nothing but errors');
-  addIngestOptions(command);
-  command.action(async (paths: string[], raw: RawReportOptions) => {
+  addTableOptions(command, 'report');
+  command.action(async (paths: string[], raw: OutputOptions & Record<string, unknown>) => {
     const notebookFile = raw.notebook ?? DEFAULT_NOTEBOOK;
     const notebookSource = readNotebook(notebookFile);
     const front = parseNotebook(notebookSource, raw.notebook ?? 'templates/notebook.md').options;
-    const scores = raw.scores ?? front.scores;
+    const reading = rawIngestOptions(raw, front);
+    const scores = reading.scores;
     const runPaths = paths.length > 0 || scores !== undefined ? paths : notebookRuns(front, notebookFile);
     const named = { html: raw.out, json: raw.json, markdown: raw.markdown };
     const outputs =
@@ -85,7 +63,7 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
         : named;
     // Heavy modules (DuckDB, Vega) load only when the command runs, so --help starts fast.
     const { reportDate, reportPipeline } = await import('../pipeline.js');
-    const ingestOptions = resolveIngestOptions(mergeIngest(front, raw));
+    const ingestOptions = resolveIngestOptions(reading);
     const files = [outputs.html, outputs.json, outputs.markdown].filter((f): f is string => f !== undefined);
     const twice = files.find((f, k) => files.findIndex((g) => resolve(g) === resolve(f)) !== k);
     if (twice !== undefined)
@@ -98,7 +76,7 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
       hooks: progress.hooks,
       paths: relativePaths(runPaths, io.cwd),
       ingest: ingestOptions,
-      report: mergeReport(front, raw),
+      report: tableValues(ANALYSIS_OPTIONS, raw, front),
       notebook: { source: notebookSource, file: raw.notebook ?? 'templates/notebook.md' },
       generated: reportDate(io.env),
       jsonCurves: raw.fullCurves === true ? 'full' : 'coarse',
@@ -117,10 +95,20 @@ export function reportCommand(io: Io, done: (code: number) => void): Command {
       [outputs.markdown, result.markdown],
     ] as const) {
       if (file === undefined || text === null) continue;
-      writeOutput(file, text, inputs);
-      written.push(file);
+      if (file === STDOUT) io.stdout(text);
+      else writeOutput(file, text, inputs);
+      written.push(file === STDOUT ? 'standard output' : file);
     }
-    if (raw.quiet !== true) io.stdout(overviewText(result.results) + outcomeLine(result.results, written));
+    // With an output on standard output, the outcome line goes to stderr so it does not mix in.
+    const toStdout = [outputs.html, outputs.json, outputs.markdown].includes(STDOUT);
+    if (raw.quiet !== true)
+      (toStdout ? io.stderr : io.stdout)(overviewText(result.results) + outcomeLine(result.results, written));
+    const nothing = result.results.settings.failOn === null ? null : ungated(result.results);
+    if (nothing !== null) {
+      io.stderr(`seedsift: --fail-on ${result.results.settings.failOn}: ${nothing}\n`);
+      done(EXIT_NO_EVIDENCE);
+      return;
+    }
     const gate = failedGate(result.results);
     if (gate !== null) {
       io.stderr(`seedsift: --fail-on ${result.results.settings.failOn}: ${gate}\n`);
@@ -151,49 +139,6 @@ function notebookRuns(front: NotebookOptions, notebookFile: string): string[] {
   }
   const base = dirname(notebookFile);
   return front.runs.map((p) => (isAbsolute(p) ? p : relative('.', join(base, p)) || '.'));
-}
-
-/** Command-line options override the front matter's. */
-function mergeIngest(front: NotebookOptions, raw: RawReportOptions): RawIngestOptions {
-  const pick = <K extends keyof RawIngestOptions & keyof NotebookOptions>(key: K): RawIngestOptions[K] =>
-    (raw[key] ?? front[key]) as RawIngestOptions[K];
-  const merged: RawIngestOptions = {};
-  for (const key of ['layout', 'seedColumn', 'seedColumns', 'manifest', 'step', 'columns', 'scores', 'by'] as const) {
-    const value = pick(key);
-    if (value !== undefined) merged[key] = value;
-  }
-  // Goals: the command line's --metric wins per metric name.
-  const goals = new Map<string, string>();
-  for (const spec of [...(front.metric ?? []), ...(raw.metric ?? [])])
-    goals.set(spec.slice(0, spec.lastIndexOf(':')), spec);
-  if (goals.size > 0) merged.metric = [...goals.values()];
-  return merged;
-}
-
-function mergeReport(front: NotebookOptions, raw: RawReportOptions): ReportOptions {
-  return {
-    alpha: raw.alpha ?? front.alpha,
-    seed: raw.seed ?? front.seed,
-    correction: raw.correction ?? front.correction,
-    summary: raw.summary ?? front.summary,
-    baseline: raw.baseline ?? front.baseline ?? null,
-    taskKey: raw.taskKey ?? front.taskKey ?? null,
-    margin: raw.margin ?? front.margin ?? null,
-    paired: raw.paired ?? front.paired,
-    failed: raw.failed ?? (raw.diverged === undefined ? front.failed : undefined),
-    diverged: raw.diverged ?? front.diverged,
-    family: raw.family ?? front.family,
-    interval: raw.interval ?? front.interval,
-    failOn: raw.failOn ?? front.failOn ?? null,
-    level: front.level,
-    resamples: front.resamples,
-    bandResamples: front.bandResamples,
-    bins: front.bins,
-    bootstrapFrom: front.bootstrapFrom,
-    haltingThresholds: front.haltingThresholds,
-    haltingReference: front.haltingReference,
-    calibrationBins: front.calibrationBins,
-  };
 }
 
 function outcomeLine(results: Results, written: readonly string[]): string {

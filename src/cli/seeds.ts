@@ -7,11 +7,11 @@ import { resolveOptions } from '../analysis/options.js';
 import { matchesSelector, parseSelector } from '../analysis/selectors.js';
 import { seedsNeeded, type SeedsAnswer, type SeedsQuestion } from '../analysis/seedsNeeded.js';
 import { SeedsiftError } from '../problems.js';
-import { addIngestOptions, resolveIngestOptions, type RawIngestOptions } from './ingestOptions.js';
+import { addIngestOptions, rawIngestOptions, resolveIngestOptions } from './ingestOptions.js';
 import type { Io } from './io.js';
 import { version } from './version.js';
 
-interface RawSeedsOptions extends RawIngestOptions {
+interface RawSeedsOptions extends Record<string, unknown> {
   sd?: string;
   effect?: string;
   alpha?: string;
@@ -46,7 +46,7 @@ export function seedsCommand(io: Io, done: (code: number) => void): Command {
     .option('--comparisons <m>', 'comparisons in the family the plan is for: plan at alpha / m (default 1)')
     .option('--summary <how>', 'per-run value of the pilot runs (as in report; default final)')
     .option('--json', 'print the answer as JSON');
-  addIngestOptions(command);
+  addIngestOptions(command, 'seeds');
   command.action(async (paths: string[], raw: RawSeedsOptions) => {
     const alpha = number(raw.alpha, '--alpha', 0.05) as number;
     const power = number(raw.power, '--power', 0.8) as number;
@@ -91,7 +91,7 @@ async function pilot(
     import('../ingest/ingest.js'),
     import('../analysis/analyze.js'),
   ]);
-  const runSet = await ingest(paths, resolveIngestOptions(raw));
+  const runSet = await ingest(paths, resolveIngestOptions(rawIngestOptions(raw)));
   if (!runSet.metrics.some((m) => m.name === raw.for && m.kind === 'scalar')) {
     throw new SeedsiftError(
       'usage',
@@ -101,7 +101,7 @@ async function pilot(
         .join(', ')}), got '${raw.for}'`,
     );
   }
-  const options = resolveOptions({ summary: raw.summary, seed: 1 }, runSet);
+  const options = resolveOptions({ summary: raw.summary, seed: 1, asMetric: raw.for }, runSet);
   const comparisons = number(raw.comparisons, '--comparisons', 1) as number;
   const results = analyze(runSet, options, { paths, generated: new Date(0).toISOString(), version: version() });
   const paramsOf = new Map(results.configs.map((c) => [c.id, c.params]));

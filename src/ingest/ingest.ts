@@ -23,6 +23,7 @@ import { closeEngine, openEngine } from './load/duckdb.js';
 import { loadPlanned } from './load/loadPlanned.js';
 import { logRunSet } from './lines/logRunSet.js';
 import { locateInputs } from './locate/locateInputs.js';
+import { checkGoalNames } from './plan/namedColumns.js';
 import { planFiles } from './plan/planFiles.js';
 import { scoreRunSet } from './scores/readScores.js';
 import type { IngestOptions, RunSet } from './types.js';
@@ -69,7 +70,9 @@ export async function ingest(
     // 5. lines
     const logs = await logRunSet({ located, planned, loaded, assembly }, options);
     // 6. digest
-    return inputs.digests.size === 0 ? logs : await withDigests(engine, inputs, logs, options);
+    const runSet = inputs.digests.size === 0 ? logs : await withDigests(engine, inputs, logs, options);
+    checkGoalNames(options, runSet);
+    return runSet;
   } finally {
     closeEngine(engine);
   }

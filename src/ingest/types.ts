@@ -7,6 +7,7 @@ import type { Problem } from '../problems.js';
 import type { ReadingMode } from './readingMode.js';
 
 export type Goal = 'max' | 'min';
+export type GoalSource = 'option' | 'inferred' | 'unknown';
 export type FileFormat = 'csv' | 'tsv' | 'txt' | 'parquet';
 
 /** Where a run's identity (config and seed) came from. */
@@ -97,9 +98,15 @@ export interface TickDump {
 
 export interface MetricInfo {
   readonly name: string;
-  readonly goal: Goal;
-  /** `option` when given by --metric, `inferred` when guessed from the name. */
-  readonly goalSource: 'option' | 'inferred';
+  /** Whether higher or lower is better; null when neither the user nor a name rule says. */
+  readonly goal: Goal | null;
+  /** `option` when given by --metric, `inferred` from a name rule, `unknown` when no rule knows the name. */
+  readonly goalSource: GoalSource;
+  /**
+   * Its name marks a bookkeeping column (wall time, epoch, ...: `bookkeepingName` in plan/goals.ts);
+   * analysis sets it aside.
+   */
+  readonly bookkeeping: boolean;
   /** Scalar metric, or a per-tick metric (name without the `@k`). */
   readonly kind: 'scalar' | 'tick';
   /** Number of ticks for a tick metric, else 0. */

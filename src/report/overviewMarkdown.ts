@@ -11,7 +11,7 @@ import { comparisonDecimals, formatDifference, formatNumber, formatP } from './f
 import { countsWords, familyWords, overviewModel, type OverviewModel } from './overviewModel.js';
 import { sweepKeys } from './studyShape.js';
 import { sweepDecimals, sweepModel } from './sweepModel.js';
-import { GOAL_WORDS, sharedIntervalKind, VERDICT_LABELS } from './verdictWords.js';
+import { goalWords, sharedIntervalKind, VERDICT_LABELS } from './verdictWords.js';
 
 /** Rows of the overview tables before the rest are counted. */
 export const OVERVIEW_ROWS = 15;
@@ -171,7 +171,7 @@ export function overviewMarkdown(results: Results): string[] {
   return [
     `### Overview: ${name(m.name)}`,
     '',
-    `**${countsWords(model.counts)}** on ${name(m.name)} (${GOAL_WORDS[m.goal]}${m.goalSource === 'inferred' ? ', guessed from the name' : ''}; summary ${name(model.summary)}), ${against}; ${escapeMarkdown(familyWords(results, model))}.`,
+    `**${countsWords(model.counts)}** on ${name(m.name)} (${goalWords(m.goal, m.goalSource, ', guessed from the name')}; summary ${name(model.summary)}), ${against}; ${escapeMarkdown(familyWords(results, model))}.`,
     '',
     ...(model.mode === 'tasks' ? decidedTable(model) : metricsMatrix(model)),
     ...aggregatesLines(results, m.name),

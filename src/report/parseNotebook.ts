@@ -6,52 +6,31 @@
  * front matter, and `resolveOptions` checks the values once, at the edge. Here only the shape is
  * checked (a key we know, a scalar where a scalar belongs), with the notebook's file and line.
  *
- * Front matter keys are the long option names (`alpha`, `task-key`, `seed-column`, ...; camelCase
- * also accepted), plus `title` (the page title), `runs` (a path or a list of paths, as written: the
- * CLI resolves them against the notebook's folder) and `metrics` (`{ val_acc: max, loss: min }`,
- * returned in the `--metric NAME:GOAL` form).
+ * Front matter keys come from the option tables (`readingOptions.ts`, `analysisOptions.ts`: each
+ * entry's `front`, the long option name: `alpha`, `task-key`, `seed-column`, ...; camelCase also
+ * accepted), plus `title` (the page title) and `runs` (a path or a list of paths, as written: the
+ * CLI resolves them against the notebook's folder). `metrics: { val_acc: max, loss: min }` gives
+ * goals, returned in the `--metric NAME:GOAL` form.
  */
 import { LineCounter, parseDocument, isMap, isScalar, isSeq, type Node, type Pair } from 'yaml';
+import { ANALYSIS_OPTIONS } from '../analysis/analysisOptions.js';
+import type { FrontShape, OptionSpec, RawValue } from '../analysis/optionSpec.js';
+import { READING_OPTIONS } from '../analysis/readingOptions.js';
 import { SeedsiftError } from '../problems.js';
 
-/** Settings from a notebook's front matter (every field optional). */
-export interface NotebookOptions {
+/** Every option that front matter can give: the entries of both option tables. */
+const TABLES = { ...READING_OPTIONS, ...ANALYSIS_OPTIONS };
+type OptionKey = keyof typeof TABLES;
+
+/**
+ * Settings from a notebook's front matter (every field optional): `title`, `runs`, and options
+ * under their table keys (camelCase), values as written (`metrics: { val_acc: max }` becomes
+ * `metricGoals: ['val_acc:max']`, comma-separated lists become text as on the command line).
+ */
+export type NotebookOptions = {
   readonly title?: string;
   readonly runs?: readonly string[];
-  /** `metrics: { name: max|min }` as `--metric` values: `['val_acc:max']`. */
-  readonly metric?: readonly string[];
-  readonly baseline?: string;
-  readonly summary?: string;
-  readonly alpha?: number | string;
-  readonly correction?: string;
-  readonly margin?: number | string;
-  readonly paired?: boolean | string;
-  readonly seed?: number | string;
-  readonly diverged?: string;
-  readonly failed?: string;
-  readonly family?: string;
-  readonly interval?: string;
-  readonly taskKey?: string;
-  readonly failOn?: string;
-  readonly level?: number | string;
-  readonly resamples?: number | string;
-  readonly bandResamples?: number | string;
-  readonly bins?: number | string;
-  readonly bootstrapFrom?: number | string;
-  readonly haltingThresholds?: string;
-  readonly haltingReference?: number | string;
-  readonly calibrationBins?: number | string;
-  readonly layout?: string;
-  readonly seedColumn?: string;
-  readonly seedColumns?: string;
-  readonly manifest?: string;
-  readonly step?: string;
-  /** Comma-separated, as on the command line. */
-  readonly columns?: string;
-  readonly scores?: string;
-  /** Comma-separated, as on the command line. */
-  readonly by?: string;
-}
+} & { readonly [K in OptionKey]?: RawValue };
 
 /** A notebook split into its parts. */
 export interface Notebook {
@@ -63,43 +42,19 @@ export interface Notebook {
   readonly bodyLine: number;
 }
 
-type Kind = 'text' | 'number' | 'boolean' | 'paths' | 'goals' | 'csv';
+type Kind = FrontShape | 'paths';
 
-/** Front matter keys (long option names) → option field and the shape of its value. */
-const KEYS: Readonly<Record<string, readonly [keyof NotebookOptions, Kind]>> = {
-  title: ['title', 'text'],
-  runs: ['runs', 'paths'],
-  metrics: ['metric', 'goals'],
-  baseline: ['baseline', 'text'],
-  summary: ['summary', 'text'],
-  alpha: ['alpha', 'number'],
-  correction: ['correction', 'text'],
-  margin: ['margin', 'number'],
-  paired: ['paired', 'boolean'],
-  seed: ['seed', 'number'],
-  diverged: ['diverged', 'text'],
-  failed: ['failed', 'text'],
-  family: ['family', 'text'],
-  interval: ['interval', 'text'],
-  'task-key': ['taskKey', 'text'],
-  'fail-on': ['failOn', 'text'],
-  level: ['level', 'number'],
-  resamples: ['resamples', 'number'],
-  'band-resamples': ['bandResamples', 'number'],
-  bins: ['bins', 'number'],
-  'bootstrap-from': ['bootstrapFrom', 'number'],
-  'halting-thresholds': ['haltingThresholds', 'csv'],
-  'halting-reference': ['haltingReference', 'number'],
-  'calibration-bins': ['calibrationBins', 'number'],
-  layout: ['layout', 'text'],
-  'seed-column': ['seedColumn', 'text'],
-  'seed-columns': ['seedColumns', 'text'],
-  manifest: ['manifest', 'text'],
-  step: ['step', 'text'],
-  columns: ['columns', 'csv'],
-  scores: ['scores', 'text'],
-  by: ['by', 'csv'],
-};
+/**
+ * Front matter keys → the fields they may fill and the shape of their value there. A key shared by
+ * two options (`metrics`: a mapping of goals, or a list of metrics to compare) picks the option
+ * whose shape the value has.
+ */
+const KEYS: Readonly<Record<string, readonly (readonly [string, Kind])[]>> = (() => {
+  const out: Record<string, (readonly [string, Kind])[]> = { title: [['title', 'text']], runs: [['runs', 'paths']] };
+  for (const [field, spec] of Object.entries(TABLES) as [string, OptionSpec<unknown>][])
+    if (spec.front !== null) out[spec.front] = [...(out[spec.front] ?? []), [field, spec.shape] as const];
+  return out;
+})();
 
 const camel = (key: string): string => key.replace(/-([a-z])/g, (_m, c: string) => c.toUpperCase());
 const BY_CAMEL: Readonly<Record<string, string>> = Object.fromEntries(Object.keys(KEYS).map((k) => [camel(k), k]));
@@ -153,7 +108,9 @@ function readFrontMatter(yamlText: string, file: string, firstLine: number): Not
     const line = lineOf(keyNode?.range?.[0]);
     const key = isScalar(keyNode) ? String(keyNode.value) : '';
     const canonical = Object.hasOwn(KEYS, key) ? key : BY_CAMEL[key];
-    const entry = canonical === undefined ? undefined : KEYS[canonical];
+    const entries = canonical === undefined ? undefined : KEYS[canonical];
+    const valueNode = pair.value as Node | null;
+    const entry = entries?.find(([, kind]) => (kind === 'goals') === isMap(valueNode)) ?? entries?.[0];
     if (entry === undefined) {
       throw new SeedsiftError(
         'notebook',
@@ -162,7 +119,6 @@ function readFrontMatter(yamlText: string, file: string, firstLine: number): Not
       );
     }
     const [field, kind] = entry;
-    const valueNode = pair.value as Node | null;
     const lineAt = (node: Node | null | undefined): number =>
       lineOf(node?.range?.[0] ?? valueNode?.range?.[0] ?? keyNode?.range?.[0]);
     out[field] = readValue(canonical ?? key, kind, valueNode, file, lineAt);
@@ -199,12 +155,12 @@ function readValue(
       return `${String(name)}:${goal}`;
     });
   }
-  if (kind === 'paths' || kind === 'csv') {
+  if (kind === 'paths' || kind === 'csv' || kind === 'list') {
     const items = isSeq(node) ? node.items.map((n) => scalarOf(n as Node | null)) : [scalarOf(node)];
     if (items.some((v) => typeof v !== 'string' && typeof v !== 'number'))
       return fail(kind === 'paths' ? 'a path or a list of paths' : 'a list or comma-separated text');
     const texts = items.map((v) => String(v));
-    return kind === 'paths' ? texts : texts.join(',');
+    return kind === 'csv' ? texts.join(',') : texts;
   }
   const v = scalarOf(node);
   if (v === undefined || v === null) return fail('a single value');

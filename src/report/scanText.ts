@@ -90,7 +90,9 @@ function metricLines(inv: Inventory): string[] {
       ['name', 'goal', 'steps'],
       ...scalar.map((m) => [
         m.name,
-        `${m.goal}${m.goalSource === 'inferred' ? ' (guessed from the name)' : ''}`,
+        m.goal === null
+          ? 'unknown (say --metric)'
+          : `${m.goal}${m.goalSource === 'inferred' ? ' (guessed from the name)' : ''}`,
         range(m.firstStep, m.lastStep),
       ]),
     ]),
@@ -100,7 +102,7 @@ function metricLines(inv: Inventory): string[] {
     out.push(
       ...table([
         ['name', 'ticks', 'goal', 'steps'],
-        ...ticked.map((m) => [m.name, String(m.ticks), m.goal, range(m.firstStep, m.lastStep)]),
+        ...ticked.map((m) => [m.name, String(m.ticks), m.goal ?? 'unknown', range(m.firstStep, m.lastStep)]),
       ]),
     );
   }

@@ -33,7 +33,7 @@ import {
   cautionScope,
   comparisonGroups,
   groupCautions,
-  GOAL_WORDS,
+  goalWords,
   sharedIntervalKind,
   standardCaution,
   VERDICT_LABELS,
@@ -101,7 +101,7 @@ function groupTable(results: Results, g: ComparisonGroup): string[] {
   }
   const title = [
     `### ${name(g.metric)}`,
-    `(${GOAL_WORDS[g.goal]}${g.goalSource === 'inferred' ? ', guessed from the name' : ''}; summary ${name(g.summary)}${withTask ? `; task ${name(g.task ?? '')}` : ''}; ${familyText(g.comparisons)})`,
+    `(${goalWords(g.goal, g.goalSource, ', guessed from the name')}; summary ${name(g.summary)}${withTask ? `; task ${name(g.task ?? '')}` : ''}; ${familyText(g.comparisons)})`,
   ];
   const cautions = groupCautions(g.comparisons).map((c) => `- ${cautionScope(c, name)}: ${escapeMarkdown(c.line)}`);
   const means = g.comparisons.map((c) => {

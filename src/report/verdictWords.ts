@@ -3,7 +3,7 @@
  * phrases, the caution every report carries, and the grouping of comparisons by metric.
  */
 import type { Comparison, Results, Verdict } from '../analysis/results.js';
-import type { Goal } from '../ingest/types.js';
+import type { Goal, GoalSource } from '../ingest/types.js';
 import { formatIntervalKind } from './format.js';
 
 /** Verdict labels with a shape, so a verdict never rests on colour alone. */
@@ -15,6 +15,12 @@ export const VERDICT_LABELS: Readonly<Record<Verdict, string>> = {
 
 /** How a goal reads. */
 export const GOAL_WORDS: Readonly<Record<Goal, string>> = { max: 'higher is better', min: 'lower is better' };
+
+/** How a goal of a metric reads, with where it came from when that matters (a name rule, or no goal known). */
+export function goalWords(goal: Goal | null, source: GoalSource | null, guessed = ' (guessed)'): string {
+  if (goal === null || source === 'unknown') return 'goal not known (direction only)';
+  return `${GOAL_WORDS[goal]}${source === 'inferred' ? guessed : ''}`;
+}
 
 /**
  * The caution every report and summary ends its verdicts with.
@@ -32,7 +38,7 @@ export function standardCaution(alpha: number): string {
 export interface ComparisonGroup {
   readonly metric: string;
   readonly goal: Goal;
-  readonly goalSource: 'option' | 'inferred' | null;
+  readonly goalSource: GoalSource | null;
   readonly summary: string;
   readonly task: string | null;
   readonly comparisons: readonly Comparison[];

@@ -311,7 +311,10 @@ describe('analyze: families, diverged runs, pairing and tick analyses', () => {
       ...set,
       runs,
       tickDumps: dumps,
-      metrics: [...set.metrics, { name: 'tick_acc', goal: 'max', goalSource: 'option', kind: 'tick', ticks: 2 }],
+      metrics: [
+        ...set.metrics,
+        { name: 'tick_acc', goal: 'max', goalSource: 'option', bookkeeping: false, kind: 'tick', ticks: 2 },
+      ],
     };
     const r = analyze(withTicks, resolveOptions({ baseline: 'width=1' }), meta);
     expect(r.ticks.map((t) => t.config)).toEqual(['width=1', 'width=2', 'width=4']);

@@ -48,7 +48,7 @@ describe('resolveOptions', () => {
     expect(o.alpha).toBe(0.01);
     expect(o.seed).toBe(42);
     expect(o.correction).toBe('bh');
-    expect(o.summary).toEqual({ kind: 'last', percent: 10 });
+    expect(o.summary).toEqual({ kind: 'last', percent: 10, text: 'last:10%' });
     expect(o.summaryText).toBe('last:10%');
     expect(o.baseline?.pairs).toEqual([{ key: 'memory', value: '4' }]);
     expect(o.margin).toBe(0.5);

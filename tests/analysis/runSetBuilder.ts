@@ -62,7 +62,9 @@ export function runSet(
     };
   });
   const infos: MetricInfo[] = metrics.map((x) =>
-    'kind' in x ? x : { name: x.name, goal: x.goal, goalSource: 'option', kind: 'scalar', ticks: 0 },
+    'kind' in x
+      ? x
+      : { name: x.name, goal: x.goal, goalSource: 'option', bookkeeping: false, kind: 'scalar', ticks: 0 },
   );
   return { mode, keys, runs, metrics: infos, tickDumps: [], files: [], problems: [] };
 }

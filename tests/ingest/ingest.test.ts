@@ -108,9 +108,9 @@ describe('metrics and goals', () => {
       opts({ metricGoals: { acc: 'min' } }),
     );
     expect(set.metrics).toEqual([
-      { name: 'val_loss', goal: 'min', goalSource: 'inferred', kind: 'scalar', ticks: 0 },
-      { name: 'top1_err', goal: 'min', goalSource: 'inferred', kind: 'scalar', ticks: 0 },
-      { name: 'acc', goal: 'min', goalSource: 'option', kind: 'scalar', ticks: 0 },
+      { name: 'val_loss', goal: 'min', goalSource: 'inferred', bookkeeping: false, kind: 'scalar', ticks: 0 },
+      { name: 'top1_err', goal: 'min', goalSource: 'inferred', bookkeeping: false, kind: 'scalar', ticks: 0 },
+      { name: 'acc', goal: 'min', goalSource: 'option', bookkeeping: false, kind: 'scalar', ticks: 0 },
     ]);
     expect(withCode(set, 'goal-inferred').map((p) => p.message.split(':')[0])).toEqual(['val_loss', 'top1_err']);
     expect(withCode(set, 'column-not-numeric')).toHaveLength(1);

@@ -36,7 +36,7 @@ describe('parseNotebook', () => {
       title: 'Does a longer activation memory help?',
       runs: ['./runs'],
       baseline: 'memory=4',
-      metric: ['val_acc:max', 'train_loss:min'],
+      metricGoals: ['val_acc:max', 'train_loss:min'],
     });
     expect(nb.body.startsWith('# Memory length study\n')).toBe(true);
     expect(nb.bodyLine).toBe(7);

@@ -236,7 +236,7 @@ function typeMembers(source: string, name: string): [string, boolean][] {
 
 const INTERFACES: Record<string, string> = {
   Results: '',
-  Settings: 'settings',
+  // Settings are derived from the options table: tests/cli/tableOptions.test.ts holds the schema to it.
   ConfigRecord: 'configs[]',
   MetricRecord: 'metrics[]',
   RunRecord: 'runs[]',

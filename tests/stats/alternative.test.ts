@@ -27,12 +27,16 @@ describe('studentTPValue', () => {
     expect(Math.abs(g - 0.02209053636069734) / 0.02209053636069734).toBeLessThan(1e-10);
   });
 
-  it('is exact for the Cauchy case (df 1): P(T >= t) = 1/2 - atan(t)/pi (first principles: the df-1 density 1/(pi(1+t^2)) integrated)', () => {
-    for (const t of [-3, -0.5, 0, 1, 40]) {
-      expect(studentTPValue(t, 1, 'greater')).toBeCloseTo(0.5 - Math.atan(t) / Math.PI, 14);
-      expect(studentTPValue(t, 1, 'less')).toBeCloseTo(0.5 + Math.atan(t) / Math.PI, 14);
-    }
-  });
+  it(
+    'is exact for the Cauchy case (df 1): P(T >= t) = 1/2 - atan(t)/pi ' +
+      '(first principles: the df-1 density 1/(pi(1+t^2)) integrated)',
+    () => {
+      for (const t of [-3, -0.5, 0, 1, 40]) {
+        expect(studentTPValue(t, 1, 'greater')).toBeCloseTo(0.5 - Math.atan(t) / Math.PI, 14);
+        expect(studentTPValue(t, 1, 'less')).toBeCloseTo(0.5 + Math.atan(t) / Math.PI, 14);
+      }
+    },
+  );
 
   it('keeps small upper-tail p-values (no 1 - cdf cancellation)', () => {
     // Cauchy upper tail at t = 1e8: 1/2 - atan(1e8)/pi = atan(1e-8)/pi = 3.1830988618379067e-9.

@@ -123,7 +123,8 @@ describe('noncentralTCdf', () => {
   it('is Phi(-ncp) at t = 0 and the central t at ncp = 0', () => {
     // P(Z + ncp <= 0) = Phi(-ncp) by definition; Phi from @stdlib.
     for (const ncp of [-3, -0.2, 0.9, 7]) expect(noncentralTCdf(0, 6, ncp)).toBeCloseTo(normalCdf(-ncp, 0, 1), 15);
-    // Central t with df 1 is Cauchy: P(T <= t) = 1/2 + atan(t) / pi (first principles: the df-1 density 1 / (pi (1 + t^2)) integrates to it).
+    // Central t with df 1 is Cauchy: P(T <= t) = 1/2 + atan(t) / pi (first principles: the df-1 density
+    // 1 / (pi (1 + t^2)) integrates to it).
     for (const t of [-4, -1, 0.3, 2, 10]) expect(noncentralTCdf(t, 1, 0)).toBeCloseTo(0.5 + Math.atan(t) / Math.PI, 14);
   });
 

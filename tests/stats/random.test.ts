@@ -61,8 +61,8 @@ describe('createRandom (xoshiro128** seeded by SplitMix32)', () => {
     }
     // Mean of U(0,1) draws: 1/2 with standard error sqrt(1/12 / n); allow 4 standard errors.
     expect(Math.abs(total / draws - 0.5)).toBeLessThan(4 * Math.sqrt(1 / 12 / draws));
-    // Pearson chi-square with 9 df below its 0.999 quantile 27.877 (printed chi-square tables give 27.877, common practice;
-    // scipy 1.10.1 chi2.ppf(0.999, 9) = 27.877164871256568).
+    // Pearson chi-square with 9 df below its 0.999 quantile 27.877 (printed chi-square tables give
+    // 27.877, common practice; scipy 1.10.1 chi2.ppf(0.999, 9) = 27.877164871256568).
     const expected = draws / 10;
     const chi2 = counts.reduce((s, c) => s + (c - expected) ** 2 / expected, 0);
     expect(chi2).toBeLessThan(27.877);

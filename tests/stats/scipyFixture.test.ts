@@ -215,49 +215,52 @@ describe('pairedT against scipy 1.10.1 ttest_rel and its confidence_interval() v
   });
 });
 
-describe('mannWhitney against scipy 1.10.1 mannwhitneyu (and permutation_test for ties) via Debian python3-scipy', () => {
-  it.each(cases(fixture.mannWhitney))('case $i ($c.kind, $c.x.length v $c.y.length)', ({ c }) => {
-    const { x, y } = frozen(c);
-    for (const alternative of ALTERNATIVES) {
-      const withCorrection = mannWhitney(x, y, { alternative, method: 'asymptotic' });
-      expect(withCorrection.u).toBe(c.u); // multiples of 0.5: exact in floating point
-      expect(withCorrection.method).toBe('asymptotic');
-      expectP(withCorrection.p, c.asymptotic[alternative], `asymptotic ${alternative}`);
-      const without = mannWhitney(x, y, { alternative, method: 'asymptotic', continuity: false });
-      expectP(without.p, c.asymptoticNoContinuity[alternative], `asymptotic without continuity ${alternative}`);
-      if (c.exact !== undefined) {
-        // scipy mannwhitneyu(method='exact'): the no-ties distribution.
-        const r = mannWhitney(x, y, { alternative, method: 'exact' });
-        expect(r.method).toBe('exact');
-        expectP(r.p, c.exact[alternative], `exact ${alternative}`);
+describe(
+  'mannWhitney against scipy 1.10.1 mannwhitneyu (and permutation_test for ties) via Debian ' + 'python3-scipy',
+  () => {
+    it.each(cases(fixture.mannWhitney))('case $i ($c.kind, $c.x.length v $c.y.length)', ({ c }) => {
+      const { x, y } = frozen(c);
+      for (const alternative of ALTERNATIVES) {
+        const withCorrection = mannWhitney(x, y, { alternative, method: 'asymptotic' });
+        expect(withCorrection.u).toBe(c.u); // multiples of 0.5: exact in floating point
+        expect(withCorrection.method).toBe('asymptotic');
+        expectP(withCorrection.p, c.asymptotic[alternative], `asymptotic ${alternative}`);
+        const without = mannWhitney(x, y, { alternative, method: 'asymptotic', continuity: false });
+        expectP(without.p, c.asymptoticNoContinuity[alternative], `asymptotic without continuity ${alternative}`);
+        if (c.exact !== undefined) {
+          // scipy mannwhitneyu(method='exact'): the no-ties distribution.
+          const r = mannWhitney(x, y, { alternative, method: 'exact' });
+          expect(r.method).toBe('exact');
+          expectP(r.p, c.exact[alternative], `exact ${alternative}`);
+        }
+        if (c.exactConditional !== undefined) {
+          // scipy permutation_test over all C(N, n1) splits of the pooled mid-ranks, statistic U.
+          const r = mannWhitney(x, y, { alternative, method: 'exact' });
+          expect(r.method).toBe('exact-conditional');
+          expectP(r.p, c.exactConditional[alternative], `exact conditional ${alternative}`);
+        }
       }
-      if (c.exactConditional !== undefined) {
-        // scipy permutation_test over all C(N, n1) splits of the pooled mid-ranks, statistic U.
-        const r = mannWhitney(x, y, { alternative, method: 'exact' });
-        expect(r.method).toBe('exact-conditional');
-        expectP(r.p, c.exactConditional[alternative], `exact conditional ${alternative}`);
-      }
-    }
-    // What 'auto' picks (STATS-API.md): exact without ties up to 50 per group, exact conditional with
-    // ties up to 200,000 splits, else the tie-corrected normal approximation with continuity correction.
-    const auto = mannWhitney(x, y);
-    const expectedMethod = !c.ties
-      ? x.length <= 50 && y.length <= 50
-        ? 'exact'
-        : 'asymptotic'
-      : c.splits <= 200_000
-        ? 'exact-conditional'
-        : 'asymptotic';
-    expect(auto.method).toBe(expectedMethod);
-    const expectedP = { exact: c.exact, 'exact-conditional': c.exactConditional, asymptotic: c.asymptotic }[
-      expectedMethod
-    ];
-    // Every case carries scipy's p-value for the method auto picks (scipy_reference.py records the exact
-    // one up to 50 per group, as auto uses it); a missing one fails rather than skipping the check.
-    expect(expectedP, `fixture has scipy's ${expectedMethod} p-value`).toBeDefined();
-    expectP(auto.p, (expectedP as Record<Alternative, number>)['two-sided'], 'auto two-sided');
-  });
-});
+      // What 'auto' picks (STATS-API.md): exact without ties up to 50 per group, exact conditional with
+      // ties up to 200,000 splits, else the tie-corrected normal approximation with continuity correction.
+      const auto = mannWhitney(x, y);
+      const expectedMethod = !c.ties
+        ? x.length <= 50 && y.length <= 50
+          ? 'exact'
+          : 'asymptotic'
+        : c.splits <= 200_000
+          ? 'exact-conditional'
+          : 'asymptotic';
+      expect(auto.method).toBe(expectedMethod);
+      const expectedP = { exact: c.exact, 'exact-conditional': c.exactConditional, asymptotic: c.asymptotic }[
+        expectedMethod
+      ];
+      // Every case carries scipy's p-value for the method auto picks (scipy_reference.py records the exact
+      // one up to 50 per group, as auto uses it); a missing one fails rather than skipping the check.
+      expect(expectedP, `fixture has scipy's ${expectedMethod} p-value`).toBeDefined();
+      expectP(auto.p, (expectedP as Record<Alternative, number>)['two-sided'], 'auto two-sided');
+    });
+  },
+);
 
 describe('wilcoxonSignedRank against scipy 1.10.1 wilcoxon via Debian python3-scipy', () => {
   it.each(cases(fixture.wilcoxon))('case $i ($c.kind, $c.method)', ({ c }) => {
@@ -307,15 +310,18 @@ describe(`holm and benjaminiHochberg against ${fixture.adjustments.source}`, () 
   });
 });
 
-describe('Student t quantiles (via studentTBounds) against mpmath, scipy 1.10.1 nct.ppf(p, df, 0) (Boost) and t.ppf', () => {
-  it.each(cases(fixture.tQuantile))('case $i: p $c.p, df $c.df', ({ c }) => {
-    // 'greater' gives low = estimate - t_{level, df} se, so -low with estimate 0, se 1 is the level quantile.
-    const quantile = -studentTBounds(0, 1, c.df, c.p, 'greater').low;
-    expectClose(quantile, Number(c.mpmath), 1e-12, 0, 't quantile against mpmath (40 digits)');
-    expectClose(quantile, c.nctPpf, 1e-12, 0, "t quantile against scipy's Boost nct.ppf(p, df, 0)");
-    expectClose(quantile, c.tPpf, T_PPF, 0, "t quantile against scipy 1.10.1's t.ppf (cdflib)");
-  });
-});
+describe(
+  'Student t quantiles (via studentTBounds) against mpmath, scipy 1.10.1 nct.ppf(p, df, 0) ' + '(Boost) and t.ppf',
+  () => {
+    it.each(cases(fixture.tQuantile))('case $i: p $c.p, df $c.df', ({ c }) => {
+      // 'greater' gives low = estimate - t_{level, df} se, so -low with estimate 0, se 1 is the level quantile.
+      const quantile = -studentTBounds(0, 1, c.df, c.p, 'greater').low;
+      expectClose(quantile, Number(c.mpmath), 1e-12, 0, 't quantile against mpmath (40 digits)');
+      expectClose(quantile, c.nctPpf, 1e-12, 0, "t quantile against scipy's Boost nct.ppf(p, df, 0)");
+      expectClose(quantile, c.tPpf, T_PPF, 0, "t quantile against scipy 1.10.1's t.ppf (cdflib)");
+    });
+  },
+);
 
 describe('noncentralTCdf against scipy 1.10.1 nct.cdf (Boost) via Debian python3-scipy', () => {
   it.each(cases(fixture.noncentralTCdf))('case $i: t $c.t, df $c.df, ncp $c.ncp', ({ c }) => {
@@ -336,34 +342,41 @@ describe('noncentralTCdf within its documented 1e-12 of a 40-digit mpmath integr
   });
 });
 
-describe('power against scipy 1.10.1 nct (Boost; critical value nct.ppf(1 - alpha/2, df, 0)) via Debian python3-scipy', () => {
-  it.each(cases(fixture.power.welchPower))(
-    'welchPower case $i: d $c.effect, $c.n1 v $c.n2, alpha $c.alpha',
-    ({ c }) => {
-      expectP(welchPower(c.effect, c.n1, c.n2, c.alpha), c.power, 'power');
-    },
-  );
-  it.each(cases(fixture.power.minimumDetectableEffect))('minimumDetectableEffect case $i: $c.n1 v $c.n2', ({ c }) => {
-    // scipy brentq on the same power function to 1e-14; both roots are good to about 1e-12.
-    expectClose(minimumDetectableEffect(c.n1, c.n2, c.alpha, c.power), c.effect, 1e-9, 0, 'effect');
-  });
-  it.each(cases(fixture.power.seedsPerArm))(
-    'seedsPerArm case $i: d $c.effect, alpha $c.alpha, power $c.power',
-    ({ c }) => {
-      expect(seedsPerArm(c.effect, c.alpha, c.power)).toBe(c.seedsPerArm);
-    },
-  );
-});
+describe(
+  'power against scipy 1.10.1 nct (Boost; critical value nct.ppf(1 - alpha/2, df, 0)) via ' + 'Debian python3-scipy',
+  () => {
+    it.each(cases(fixture.power.welchPower))(
+      'welchPower case $i: d $c.effect, $c.n1 v $c.n2, alpha $c.alpha',
+      ({ c }) => {
+        expectP(welchPower(c.effect, c.n1, c.n2, c.alpha), c.power, 'power');
+      },
+    );
+    it.each(cases(fixture.power.minimumDetectableEffect))('minimumDetectableEffect case $i: $c.n1 v $c.n2', ({ c }) => {
+      // scipy brentq on the same power function to 1e-14; both roots are good to about 1e-12.
+      expectClose(minimumDetectableEffect(c.n1, c.n2, c.alpha, c.power), c.effect, 1e-9, 0, 'effect');
+    });
+    it.each(cases(fixture.power.seedsPerArm))(
+      'seedsPerArm case $i: d $c.effect, alpha $c.alpha, power $c.power',
+      ({ c }) => {
+        expect(seedsPerArm(c.effect, c.alpha, c.power)).toBe(c.seedsPerArm);
+      },
+    );
+  },
+);
 
-describe('hedgesG: d and J are formula checks (numpy, scipy.special.gammaln); the interval is a root of scipy 1.10.1 nct.cdf', () => {
-  it.each(cases(fixture.hedgesG))('case $i ($c.kind)', ({ c }) => {
-    const { x, y } = frozen(c);
-    const r = hedgesG(x, y);
-    expectClose(r.d, c.d, 1e-10, 1e-13, 'd');
-    expectClose(r.j, c.j, 1e-12, 0, 'J');
-    expectClose(r.g, c.g, 1e-10, 1e-13, 'g');
-    // Roots of F(t; v, ncp) = 0.975 and 0.025 found by scipy's brentq on scipy's nct.cdf.
-    expectClose(r.dLow, c.dLow, 1e-8, 1e-12, 'dLow');
-    expectClose(r.dHigh, c.dHigh, 1e-8, 1e-12, 'dHigh');
-  });
-});
+describe(
+  'hedgesG: d and J are formula checks (numpy, scipy.special.gammaln); the interval is a ' +
+    'root of scipy 1.10.1 nct.cdf',
+  () => {
+    it.each(cases(fixture.hedgesG))('case $i ($c.kind)', ({ c }) => {
+      const { x, y } = frozen(c);
+      const r = hedgesG(x, y);
+      expectClose(r.d, c.d, 1e-10, 1e-13, 'd');
+      expectClose(r.j, c.j, 1e-12, 0, 'J');
+      expectClose(r.g, c.g, 1e-10, 1e-13, 'g');
+      // Roots of F(t; v, ncp) = 0.975 and 0.025 found by scipy's brentq on scipy's nct.cdf.
+      expectClose(r.dLow, c.dLow, 1e-8, 1e-12, 'dLow');
+      expectClose(r.dHigh, c.dHigh, 1e-8, 1e-12, 'dHigh');
+    });
+  },
+);

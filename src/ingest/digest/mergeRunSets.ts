@@ -58,7 +58,8 @@ function mergeMetrics(
   const problems: Problem[] = [];
   const scalars = new Map<string, MetricInfo>();
   const ticks = new Map<string, MetricInfo>();
-  const says = (g: Goal, p: RunSetPart): string => `${label(p)} says ${g === 'max' ? 'higher' : 'lower'} is better`;
+  const says = (g: Goal | null, p: RunSetPart): string =>
+    `${label(p)} says ${g === null ? 'no goal is known' : `${g === 'max' ? 'higher' : 'lower'} is better`}`;
   for (const part of parts) {
     for (const info of part.runSet.metrics) {
       const kept = first.get(info.name);
@@ -95,13 +96,20 @@ function mergeMetrics(
   return { metrics, problems };
 }
 
-/** The `goal-inferred` note of each metric whose goal is still a guess, from the part that gave its goal. */
+/**
+ * The `goal-inferred` note of each metric whose goal is still a guess, then the `goal-unknown`
+ * note of each whose goal is still unknown (the order raw ingest gives them), from the part that
+ * gave its goal.
+ */
 function guessedGoals(parts: readonly RunSetPart[], metrics: readonly MetricInfo[]): Problem[] {
-  const names = [...new Set(metrics.filter((m) => m.goalSource === 'inferred').map((m) => m.name))];
-  return names.flatMap((name) => {
-    const part = parts.find((p) => p.runSet.metrics.some((m) => m.name === name));
-    const note = part?.runSet.problems.find((p) => p.code === 'goal-inferred' && p.message.startsWith(`${name}: `));
-    return note === undefined ? [] : [note];
+  return (['inferred', 'unknown'] as const).flatMap((source) => {
+    const code = source === 'inferred' ? 'goal-inferred' : 'goal-unknown';
+    const names = [...new Set(metrics.filter((m) => m.goalSource === source).map((m) => m.name))];
+    return names.flatMap((name) => {
+      const part = parts.find((p) => p.runSet.metrics.some((m) => m.name === name));
+      const note = part?.runSet.problems.find((p) => p.code === code && p.message.startsWith(`${name}: `));
+      return note === undefined ? [] : [note];
+    });
   });
 }
 
@@ -176,7 +184,7 @@ export async function mergeRunSets(
   const files: FileRecord[] = [];
   for (const { part, rename, config } of renamed) {
     for (const p of part.runSet.problems) {
-      if (p.code === 'run-short' || p.code === 'goal-inferred') continue;
+      if (p.code === 'run-short' || p.code === 'goal-inferred' || p.code === 'goal-unknown') continue;
       kept.push(p.run === undefined ? p : { ...p, run: rename(p.run) });
     }
     for (const d of part.runSet.tickDumps) tickDumps.push({ ...d, run: rename(d.run), config: config(d) });

@@ -23,6 +23,7 @@ import { problem, type Problem } from '../../problems.js';
 import { fileFormat } from './fileFormat.js';
 import { manifestIdentity, modeLayout, pathIdentity, seedInFile } from './identity.js';
 import { readManifest } from './manifest.js';
+import { separatePaths } from './pathKey.js';
 import { readSidecar, SIDECAR_NAME, type Sidecar } from './sidecar.js';
 import type { FileRecord, IngestOptions, RunSource } from '../types.js';
 import { skippedFile, walk } from './walk.js';
@@ -53,7 +54,7 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
 
   const files: FileRecord[] = [...(manifest?.skipped ?? []), ...walked.skipped];
   const problems: Problem[] = [...(manifest?.problems ?? []), ...walked.problems];
-  const pending: { source: Omit<RunSource, 'seed'> & { seed: string | null }; line?: number }[] = [];
+  const pending: { source: Omit<RunSource, 'seed'> & { seed: string | null }; line?: number; root?: number }[] = [];
   const sidecars = new Map<string, Sidecar | null>();
   const sidecarFor = async (file: string): Promise<Sidecar | null> => {
     const path = join(dirname(file), SIDECAR_NAME);
@@ -118,7 +119,7 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
     }
     const decided = pathIdentity(f.file, fields ?? {}, mode, await sidecarFor(f.file));
     problems.push(...decided.problems);
-    pending.push({ source: { file: f.file, relPath: f.relPath, ...kind, ...decided.identity } });
+    pending.push({ source: { file: f.file, relPath: f.relPath, ...kind, ...decided.identity }, root: f.root });
   }
   walked.roots.forEach((kind, k) => {
     if (kind !== 'repeated' && logsPerRoot[k] === 0) {
@@ -132,7 +133,7 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
   });
 
   let auto = 0;
-  const sources: RunSource[] = pending.map(({ source, line }) => {
+  const found: RunSource[] = pending.map(({ source, line }) => {
     if (source.seed !== null || inFile !== null) return source;
     const seed = `auto-${++auto}`;
     const where = line === undefined ? { file: source.file } : { file: manifestFile as string, line };
@@ -146,6 +147,14 @@ export async function locate(paths: readonly string[], options: IngestOptions): 
     );
     return { ...source, seed };
   });
+  // Runs of two PATHs never merge silently (pathKey.ts).
+  const separated = separatePaths(
+    found,
+    pending.map((p) => p.root ?? null),
+    paths,
+  );
+  const sources = separated.sources;
+  problems.push(...separated.problems);
   const seen = new Set<string>();
   const unique = problems.filter((p) => {
     const key = JSON.stringify([p.code, p.file, p.line, p.message]);

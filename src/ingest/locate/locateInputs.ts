@@ -1,11 +1,13 @@
 /**
- * Step 1 of ingest: locate the files (locate.ts) and set the digests among them aside for step 6.
+ * Step 1 of ingest: locate the files (locate.ts), stop when a `--layout` matched none of them
+ * (layoutMatched.ts), and set the digests among them aside for step 6.
  * A digest is a Parquet file whose metadata carries the digest marker (digest/digestFormat.ts); it
  * holds runs already read, so it is neither planned nor loaded like a log.
  */
 import { findDigests } from '../digest/readDigest.js';
 import type { Engine } from '../load/duckdb.js';
 import type { IngestOptions } from '../types.js';
+import { checkLayoutMatched } from './layoutMatched.js';
 import { locate, type Located } from './locate.js';
 
 /** What step 1 hands on: the log files to read, and the digests found beside them. */
@@ -25,6 +27,7 @@ export interface Inputs {
  */
 export async function locateInputs(engine: Engine, paths: readonly string[], options: IngestOptions): Promise<Inputs> {
   const found = await locate(paths, options);
+  checkLayoutMatched(options, found.sources, found.problems);
   const digests = await findDigests(
     engine,
     found.sources.filter((s) => s.format === 'parquet' && !s.gzip).map((s) => s.file),

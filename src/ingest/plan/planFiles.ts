@@ -2,7 +2,8 @@
  * Step 2 of ingest: read the head of every located file (header.ts) and plan its columns
  * (columns.ts). A file that cannot be read, is empty, or (a log) has no step column is set aside
  * here with its file record and a problem; the others go on to loading, and their headers are
- * compared for drift (load/checks.ts `headerDrift`).
+ * compared for drift (load/checks.ts `headerDrift`). A `--step` or `--seed-column` that is a
+ * column of no file stops the command (namedColumns.ts).
  *
  * Checks that look at a file's columns alone belong here, after `planColumns` (for example: a
  * metric asked for that no file has).
@@ -16,6 +17,7 @@ import type { FileRecord, IngestOptions, RunSource } from '../types.js';
 import { planColumns } from './columns.js';
 import { readHeader, type HeaderResult } from './header.js';
 import { mapPool } from './mapPool.js';
+import { checkNamedColumns } from './namedColumns.js';
 
 /** What step 2 hands on. */
 export interface Planned {
@@ -61,7 +63,8 @@ function record(source: RunSource, status: FileRecord['status'], kind: FileRecor
 }
 
 /**
- * Plan the files of `sources` (see the module comment). Never throws for a bad file.
+ * Plan the files of `sources` (see the module comment). Never throws for a bad file; throws
+ * SeedsiftError('usage') for a column named by an option that no file has.
  * Cost: one read of each file's head (8 text files at a time), O(columns) per plan.
  * Example: a source whose header is `step,loss` gives one `toRead` entry with `plan.step` 0.
  */
@@ -76,6 +79,7 @@ export async function planFiles(
   const records: FileRecord[] = [];
   const failed: RunSource[] = [];
   const drafts: Draft[] = [];
+  const seen = new Set<string>();
   for (const [i, source] of sources.entries()) {
     const header = headers[i] as HeaderResult;
     if (!header.ok) {
@@ -87,6 +91,7 @@ export async function planFiles(
       continue;
     }
     const plan = planColumns(header.header.names, options);
+    for (const name of plan.names) seen.add(name);
     if (plan.kind === 'log' && plan.step === null) {
       const wanted =
         options.step === null
@@ -105,6 +110,7 @@ export async function planFiles(
     }
     toRead.push({ header: header.header, plan });
   }
+  checkNamedColumns(options, seen);
   drafts.push(...headerDrift(toRead));
   return { toRead, records, failed, drafts };
 }

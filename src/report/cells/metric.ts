@@ -18,9 +18,11 @@ export const metric: Cell = {
     const m = metricParam(state, call, 0);
     const id = state.slug(`metric ${m.name}`);
     const goal =
-      m.goalSource === 'inferred'
-        ? `${GOAL_WORDS[m.goal]} (guessed from the name; if wrong, say --metric ${m.name}:${m.goal === 'max' ? 'min' : 'max'})`
-        : `${GOAL_WORDS[m.goal]} (as given)`;
+      m.goal === null
+        ? `goal not known: comparisons say higher or lower only (say --metric ${m.name}:max or ${m.name}:min)`
+        : m.goalSource === 'inferred'
+          ? `${GOAL_WORDS[m.goal]} (guessed from the name; if wrong, say --metric ${m.name}:${m.goal === 'max' ? 'min' : 'max'})`
+          : `${GOAL_WORDS[m.goal]} (as given)`;
     const parts = [goal];
     if (m.kind === 'tick') parts.push(`per-tick metric with ${m.ticks} ticks`);
     if (m.firstStep !== null && m.lastStep !== null)

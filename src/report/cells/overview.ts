@@ -11,7 +11,7 @@ import { escapeAttr, visibleText } from '../escape.js';
 import { comparisonDecimals, formatDifference, formatP } from '../format.js';
 import { nameHtml, noteHtml, tableHtml, textHtml, type TableCell } from '../html.js';
 import { countsWords, familyWords, overviewModel, type OverviewModel, type OverviewRow } from '../overviewModel.js';
-import { sharedIntervalKind, GOAL_WORDS, VERDICT_LABELS } from '../verdictWords.js';
+import { goalWords, sharedIntervalKind, VERDICT_LABELS } from '../verdictWords.js';
 import { metricParam, summaryOption, type Cell } from './cell.js';
 
 /** Up to this many columns, matrix cells show numbers; beyond, marks only. */
@@ -71,7 +71,8 @@ function fullMatrix(model: OverviewModel, rows: readonly OverviewRow[]): string 
     model.columns.length > columns.length
       ? noteHtml(`${model.columns.length - columns.length} more ${model.mode} in the details below.`, 'lead')
       : '';
-  const kind = shared === null ? '' : noteHtml(`Cells: difference, candidate minus baseline [${shared}, unadjusted].`, 'lead');
+  const kind =
+    shared === null ? '' : noteHtml(`Cells: difference, candidate minus baseline [${shared}, unadjusted].`, 'lead');
   return kind + table + more;
 }
 
@@ -135,7 +136,7 @@ export function overviewHtml(results: Results, metric?: string, summary?: string
       : results.settings.baseline === null
         ? 'every pair of configs'
         : `each config against its counterpart with ${visibleText(results.settings.baseline, 80)}`;
-  const question = `${m.name} (${GOAL_WORDS[m.goal]}${m.goalSource === 'inferred' ? ', guessed from the name' : ''}; summary ${model.summary}), ${against}`;
+  const question = `${m.name} (${goalWords(m.goal, m.goalSource, ', guessed from the name')}; summary ${model.summary}), ${against}`;
   const c = model.counts;
   const tally = `<p class="tally"><span class="verdict verdict-better">▲ ${c.better} better</span> <span class="verdict verdict-worse">▼ ${c.worse} worse</span> <span class="verdict verdict-inconclusive">● ${c.inconclusive} inconclusive</span> <span class="small">${textHtml(familyWords(results, model))}.</span></p>`;
   const marks = model.mode === 'tasks' && model.columns.length > FULL_CELLS_UP_TO;

@@ -20,7 +20,7 @@ import {
   cautionScope,
   comparisonGroups,
   groupCautions,
-  GOAL_WORDS,
+  goalWords,
   sharedIntervalKind,
   standardCaution,
   VERDICT_LABELS,
@@ -67,7 +67,7 @@ function rows(
   for (const g of groups) {
     g.comparisons.forEach((c, i) => {
       const d = comparisonDecimals(c);
-      const goal = `${GOAL_WORDS[g.goal]}${g.goalSource === 'inferred' ? ' (guessed)' : ''}`;
+      const goal = goalWords(g.goal, g.goalSource);
       const metricCell: TableCell =
         i === 0
           ? {

@@ -196,9 +196,9 @@ describe('a digest keeps a RunSet exactly', () => {
           },
         ],
         metrics: [
-          { name: '1', goal: 'max', goalSource: 'inferred', kind: 'scalar', ticks: 0 },
-          { name: "lo'ss", goal: 'max', goalSource: 'option', kind: 'scalar', ticks: 0 },
-          { name: 'acc', goal: 'max', goalSource: 'inferred', kind: 'tick', ticks: 2 },
+          { name: '1', goal: 'max', goalSource: 'inferred', bookkeeping: false, kind: 'scalar', ticks: 0 },
+          { name: "lo'ss", goal: 'max', goalSource: 'option', bookkeeping: false, kind: 'scalar', ticks: 0 },
+          { name: 'acc', goal: 'max', goalSource: 'inferred', bookkeeping: false, kind: 'tick', ticks: 2 },
         ],
         tickDumps: [
           {
@@ -293,10 +293,11 @@ describe('a digest keeps a RunSet exactly', () => {
             name: `m${k}`,
             goal: 'max' as const,
             goalSource: 'option' as const,
+            bookkeeping: false,
             kind: 'scalar' as const,
             ticks: 0,
           })),
-          { name: 'acc', goal: 'max', goalSource: 'option', kind: 'tick', ticks: 2 },
+          { name: 'acc', goal: 'max', goalSource: 'option', bookkeeping: false, kind: 'tick', ticks: 2 },
         ],
         tickDumps: [],
         files: [],
@@ -353,6 +354,7 @@ describe('a digest keeps a RunSet exactly', () => {
         name,
         goal: 'max' as const,
         goalSource: 'option' as const,
+        bookkeeping: false,
         kind: 'scalar' as const,
         ticks: 0,
       })),
@@ -520,6 +522,7 @@ describe('ingest reads digests beside raw logs', () => {
         name: 'loss',
         goal: 'max',
         goalSource: 'option',
+        bookkeeping: false,
         kind: 'scalar',
         ticks: 0,
       });

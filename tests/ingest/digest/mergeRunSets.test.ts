@@ -120,7 +120,9 @@ describe('renaming and metric infos', () => {
     expect(merged.tickDumps.map((d) => [d.run, d.config])).toEqual(raw.tickDumps.map((d) => [d.run, d.config]));
     expect(merged.tickDumps[0]).toMatchObject({ run: 'x=4,y=3,seed=1', config: 'x=4,y=3' });
     expect(merged.files.map((f) => f.runs)).toEqual(raw.files.map((f) => f.runs));
-    expect(merged.metrics).toEqual([{ name: 'acc', goal: 'max', goalSource: 'inferred', kind: 'tick', ticks: 2 }]);
+    expect(merged.metrics).toEqual([
+      { name: 'acc', goal: 'max', goalSource: 'inferred', bookkeeping: false, kind: 'tick', ticks: 2 },
+    ]);
     expect(merged.metrics).toEqual(raw.metrics);
   });
 });

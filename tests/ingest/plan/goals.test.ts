@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { inferGoal, metricGoal } from '../../../src/ingest/plan/goals.js';
+import { bookkeepingName, inferGoal, metricGoal } from '../../../src/ingest/plan/goals.js';
 
 // The rule: DESIGN.md "Inputs" (loss, error, err, perplexity, wer, regret -> min; otherwise max),
 // matched as whole words of the name (src/ingest/plan/goals.ts documents the word split).
@@ -14,9 +14,12 @@ describe('inferGoal', () => {
     ['test_wer', 'min'],
     ['cum_regret', 'min'],
     ['val_acc', 'max'],
-    ['certainty', 'max'],
-    ['ppl', 'max'], // not in the list: say --metric ppl:min
-    ['losses', 'max'], // whole words only
+    ['certainty', null], // no rule knows it: goal unknown, comparisons show the direction only
+    ['ppl', null], // not in the list: say --metric ppl:min
+    ['losses', null], // whole words only
+    ['score', null], // a score may be elapsed time (issue 14): no rule
+    ['val_acc', 'max'],
+    ['acc_loss', 'min'], // a min word wins over a max word
     ['bleu', 'max'],
   ] as const)('%s -> %s', (name, goal) => {
     expect(inferGoal(name)).toBe(goal);
@@ -29,6 +32,23 @@ describe('metricGoal', () => {
     expect(metricGoal('val_loss', { metricGoals: {} })).toEqual({ goal: 'min', goalSource: 'inferred' });
   });
   it('does not read inherited properties as options', () => {
-    expect(metricGoal('toString', { metricGoals: {} })).toEqual({ goal: 'max', goalSource: 'inferred' });
+    expect(metricGoal('toString', { metricGoals: {} })).toEqual({ goal: null, goalSource: 'unknown' });
+  });
+});
+
+describe('bookkeepingName', () => {
+  it.each([
+    ['wall_time', true],
+    ['timestamp', true],
+    ['elapsed_sec', true],
+    ['epoch', true],
+    ['preemptions', true],
+    ['learning_rate', true],
+    ['lr', true],
+    ['epoch_loss', false], // a metric word wins
+    ['val_acc', false],
+    ['score', false], // no bookkeeping word: judged by its values (analysis/setAside.ts)
+  ] as const)('%s -> %s', (name, expected) => {
+    expect(bookkeepingName(name)).toBe(expected);
   });
 });
