@@ -5,6 +5,7 @@
  * `SCREEN_LINES` lines in all, and what was left out counted. Names are shown with hidden
  * characters made visible. Reads `Results`; computes nothing.
  */
+import { goalWords } from './verdictWords.js';
 import type { Comparison, Results } from '../analysis/results.js';
 import { visibleText } from './escape.js';
 import { comparisonDecimals, formatDifference, formatP } from './format.js';
@@ -33,7 +34,7 @@ export function overviewText(results: Results): string {
   if (model === null) return '';
   const shared = model.sharedBaseline !== null;
   const head = [
-    `${visibleText(model.metric.name, 80)} (${model.metric.goal === 'max' ? 'higher' : 'lower'} is better; summary ${model.summary})${shared ? ` against ${visibleText(model.sharedBaseline ?? '', 80)}` : ''}: ${countsWords(model.counts)}`,
+    `${visibleText(model.metric.name, 80)} (${goalWords(model.metric.goal, model.metric.goalSource, '')}; summary ${model.summary})${shared ? ` against ${visibleText(model.sharedBaseline ?? '', 80)}` : ''}: ${countsWords(model.counts)}`,
     `  ${familyWords(results, model)}`,
   ];
   const room = SCREEN_LINES - head.length - 1;

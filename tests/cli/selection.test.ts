@@ -149,7 +149,10 @@ describe('selection options', () => {
     for (const list of lists) expect(new Set(list.map((x) => x.metric ?? x.name))).toEqual(new Set(['val_acc']));
     expect(r.settings.metrics).toEqual(['val_acc']);
     const markdown = readFileSync(md, 'utf8');
-    expect([...markdown.matchAll(/^### (\S+)/gm)].map((m) => m[1])).toEqual(['val\\_acc']);
+    // Headings: the overview, the sweeps and the one metric section, each of val_acc only.
+    const headings = [...markdown.matchAll(/^### (.+)$/gm)].map((m) => m[1] as string);
+    expect(headings.filter((h) => /^val\\_acc \(/.test(h))).toHaveLength(1);
+    for (const h of headings) expect(h).toMatch(/(^|: )val\\_acc( |$)/);
     expect(markdown).not.toMatch(/train\\?_loss|val\\?_loss|certainty/);
     const page = readFileSync(html, 'utf8');
     expect([...page.matchAll(/class="metric-heading"><bdi class="name">([^<]+)</g)].map((m) => m[1])).toEqual([
