@@ -18,6 +18,7 @@ export type IntervalChoice = 'welch' | 'bca';
 export type FailOn = 'worse' | 'not-better';
 export type IntervalMethod = 'welch-t' | 't' | 'bca' | 'percentile' | 'expanded-percentile' | 'bootstrap-t' | 'none';
 export type {
+  CautionKind,
   Comparison,
   Difference,
   Family,

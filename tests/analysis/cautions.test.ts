@@ -68,7 +68,7 @@ describe('pooledSkewness', () => {
 
 describe('comparisonCautions', () => {
   it('says nothing for a plain 5 v 5 comparison', () => {
-    expect(comparisonCautions(base)).toEqual({ lines: [], problems: [] });
+    expect(comparisonCautions(base)).toEqual({ lines: [], kinds: [], problems: [] });
   });
 
   it('few seeds, skew, unequal seeds, disagreeing tests, fragile better: lines and problems', () => {
@@ -86,6 +86,7 @@ describe('comparisonCautions', () => {
       'the tests disagree at alpha 0.05 (Welch p = 0.04, the permutation test p = 0.2); treat the verdict as fragile',
       "the 'better' verdict rests on 6 v 3 seeds: fragile; confirm it with more seeds before claiming it",
     ]);
+    expect(r.kinds).toEqual(['few-seeds', 'skewed', 'unequal-seeds', 'tests-disagree', 'fragile']);
     expect(r.problems.map((p) => p.code)).toEqual(['few-seeds', 'skewed-values', 'unequal-seeds', 'tests-disagree']);
     expect(r.problems[0]?.message).toBe(
       'acc (final), c v b: only 3 seeds in the baseline arm: intervals are wide and one more seed can turn the verdict',
@@ -114,6 +115,7 @@ describe('comparisonCautions', () => {
       '1 run has no value for this summary and is left out (baseline 0, candidate 1)',
       "Welch's test could not run: because",
     ]);
+    expect(r.kinds).toEqual(['reach-summary', 'goal-guessed', 'failed-runs', 'no-value', 'not-run']);
     expect(r.problems.map((p) => [p.code, p.message])).toEqual([
       ['goal-inferred', "acc: lower is better was inferred from the name 'acc'; say --metric acc:max if that is wrong"],
     ]);

@@ -15,16 +15,9 @@ import {
   formatP,
   formatSeeds,
 } from '../format.js';
-import { listHtml, nameHtml, noteHtml, tableHtml, textHtml, type TableCell } from '../html.js';
-import {
-  cautionScope,
-  comparisonGroups,
-  groupCautions,
-  GOAL_WORDS,
-  sharedIntervalKind,
-  standardCaution,
-  VERDICT_LABELS,
-} from '../verdictWords.js';
+import { nameHtml, noteHtml, tableHtml, textHtml, type TableCell } from '../html.js';
+import { cautionListHtml } from '../cautionGroups.js';
+import { comparisonGroups, GOAL_WORDS, sharedIntervalKind, standardCaution, VERDICT_LABELS } from '../verdictWords.js';
 import { metricParam, type Cell } from './cell.js';
 
 const CORRECTION_HEAD = { holm: 'p (Holm)', bh: 'p (BH)', none: 'p (unadjusted)' } as const;
@@ -56,14 +49,13 @@ export function verdictHtml(c: Comparison): string {
 function rows(
   results: Results,
   metric: string | undefined,
-): { rows: TableCell[][]; classes: string[]; cautions: string[]; withTask: boolean; interval: string | null } {
+): { rows: TableCell[][]; classes: string[]; cautions: string; withTask: boolean; interval: string | null } {
   const groups = comparisonGroups(results, metric);
   const all = groups.flatMap((g) => g.comparisons);
   const interval = sharedIntervalKind(all);
   const withTask = groups.some((g) => g.task !== null);
   const out: TableCell[][] = [];
   const classes: string[] = [];
-  const cautions: string[] = [];
   for (const g of groups) {
     g.comparisons.forEach((c, i) => {
       const d = comparisonDecimals(c);
@@ -89,8 +81,8 @@ function rows(
       ]);
       classes.push(i === 0 ? `row-${c.verdict} group-start` : `row-${c.verdict}`);
     });
-    for (const c of groupCautions(g.comparisons)) cautions.push(`${g.metric}, ${cautionScope(c, (n) => n)}: ${c.line}`);
   }
+  const cautions = cautionListHtml(all, new Set(all.map((c) => c.metric)).size > 1);
   return { rows: out, classes, cautions, withTask, interval };
 }
 
@@ -137,6 +129,6 @@ export const verdicts: Cell = {
       rowClasses: t.classes,
     });
     const lead = `Candidate minus baseline on per-run values, each comparison at its own step; verdict at alpha ${r.settings.alpha} on the adjusted p of the test named under it. The interval is unadjusted (${formatLevel(r.settings.level)}): the verdict, not the interval, accounts for the family.`;
-    return `<div class="verdicts-cell">${noteHtml(lead, 'lead')}${table}${listHtml(t.cautions)}${noteHtml(standardCaution(r.settings.alpha), 'caution')}</div>`;
+    return `<div class="verdicts-cell">${noteHtml(lead, 'lead')}${table}${t.cautions}${noteHtml(standardCaution(r.settings.alpha), 'caution')}</div>`;
   },
 };
