@@ -125,7 +125,7 @@ export function cautionListHtml(comparisons: readonly Comparison[], metricToo = 
       t.items.length === 1 && first !== undefined
         ? ` ${line(first)}`
         : `<ul>${t.items.map((i) => `<li>${line(i)}</li>`).join('')}</ul>`;
-    return `<li><strong>${textHtml(t.head)}</strong>.${body}</li>`;
+    return `<li><strong>${textHtml(t.head)}.</strong>${body}</li>`;
   });
   return `<ul class="cautions">${items.join('')}</ul>`;
 }

@@ -76,7 +76,7 @@ describe('groupCautionsByKind', () => {
   it('HTML: escaped, the metric named when the list spans metrics', () => {
     const html = cautionListHtml([comparison(1, [['not-run', '<b>x</b>']])], true);
     expect(html).toBe(
-      `<ul class="cautions"><li><strong>tests or intervals not computed: 1 comparison</strong>. ` +
+      `<ul class="cautions"><li><strong>tests or intervals not computed: 1 comparison.</strong> ` +
         `${template.metric}, c1 v base: &lt;b&gt;x&lt;/b&gt;</li></ul>`,
     );
     expect(cautionListHtml([comparison(1, [])])).toBe('');

@@ -57,26 +57,26 @@ function rows(
   const out: TableCell[][] = [];
   const classes: string[] = [];
   for (const g of groups) {
+    // The baseline is said once per group when the group has one (else beside each candidate).
+    const baselines = new Set(g.comparisons.map((c) => c.baseline));
+    const shared = baselines.size === 1 ? (g.comparisons[0]?.baseline ?? null) : null;
     g.comparisons.forEach((c, i) => {
       const d = comparisonDecimals(c);
       const goal = `${GOAL_WORDS[g.goal]}${g.goalSource === 'inferred' ? ' (guessed)' : ''}`;
+      const words = [goal, `summary ${g.summary}`, familyWords(c)].map(textHtml).join(';<br>');
+      const against = shared === null ? '' : `<br><span class="small">against</span> ${nameHtml(shared)}`;
       const metricCell: TableCell =
-        i === 0
-          ? {
-              html: `${nameHtml(g.metric)}<br><span class="small">${textHtml(goal)};<br>${textHtml(`summary ${g.summary}`)};<br>${textHtml(familyWords(c))}</span>`,
-            }
-          : { html: '' };
+        i === 0 ? { html: `${nameHtml(g.metric)}<br><span class="small">${words}</span>${against}` } : { html: '' };
+      const versus = shared === null ? `<br><span class="small">v</span> ${nameHtml(c.baseline)}` : '';
       const difference =
         formatDifference(c.difference, d) + (interval === null ? ` (${formatIntervalKind(c.difference)})` : '');
       out.push([
         metricCell,
         ...(withTask ? [c.task === null ? null : { html: nameHtml(c.task) }] : []),
-        { html: nameHtml(c.baseline) },
-        { html: nameHtml(c.candidate) },
+        { html: `${nameHtml(c.candidate)} ${verdictHtml(c)}${versus}` },
         c.step === null ? null : formatNumber(c.step, 0),
         difference,
         formatP(c.pAdjusted),
-        { html: verdictHtml(c) },
         formatSeeds(c, results.settings.failed),
       ]);
       classes.push(i === 0 ? `row-${c.verdict} group-start` : `row-${c.verdict}`);
@@ -108,16 +108,14 @@ export const verdicts: Cell = {
       );
     }
     const head = [
-      'Metric',
+      'Metric and baseline',
       ...(t.withTask ? ['Task'] : []),
-      'Baseline',
-      'Candidate',
+      'Candidate and verdict',
       'Step',
       {
         html: `${textHtml(t.interval === null ? 'Difference [interval]' : `Difference [${t.interval}]`)}<br>${textHtml('unadjusted')}`,
       },
       CORRECTION_HEAD[r.settings.correction],
-      'Verdict',
       'Seeds',
     ];
     const offset = t.withTask ? 1 : 0;
@@ -125,7 +123,7 @@ export const verdicts: Cell = {
       className: 'verdicts',
       head,
       rows: t.rows,
-      numeric: [3 + offset, 4 + offset, 5 + offset],
+      numeric: [2 + offset, 3 + offset, 4 + offset],
       rowClasses: t.classes,
     });
     const lead = `Candidate minus baseline on per-run values, each comparison at its own step; verdict at alpha ${r.settings.alpha} on the adjusted p of the test named under it. The interval is unadjusted (${formatLevel(r.settings.level)}): the verdict, not the interval, accounts for the family.`;
