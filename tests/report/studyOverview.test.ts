@@ -179,7 +179,9 @@ describe('the overview in the terminal', () => {
     const score = tasks.comparisons.filter((c) => c.metric === 'score');
     const decided = score.filter((c) => c.verdict !== 'inconclusive').length;
     expect(lines[0]).toContain(
-      `score (higher is better; summary final) against method=base: ${decided - score.filter((c) => c.verdict === 'worse').length} better`,
+      `score (higher is better; summary final) against method=base: ${
+        decided - score.filter((c) => c.verdict === 'worse').length
+      } better`,
     );
     const rows = lines.filter((l) => /^ {2}[▲▼●] /.test(l));
     const firstInconclusive = rows.findIndex((l) => l.includes('●'));

@@ -22,7 +22,10 @@ function decode(html: string): string {
     .replace(/&amp;/g, '&');
 }
 
-/** Verdict tables of the rendered Markdown (those headed Baseline; the overview's come before them): rows of cell texts (header row first). */
+/**
+ * Verdict tables of the rendered Markdown (those headed Baseline; the overview's come before them):
+ * rows of cell texts (header row first).
+ */
 function tables(markdown: string): string[][][] {
   return allTables(markdown).filter((t) => t[0]?.[0] === 'Baseline');
 }
