@@ -48,7 +48,7 @@ import { selectRuns } from './selectRuns.js';
 import { withoutUncomparedGoals } from './setAside.js';
 import { summaryGoal } from './summarySpec.js';
 import { normaliseTaskScores, taskAggregates, type TaskScore } from './tasks.js';
-import { tickCurves } from './ticks.js';
+import { ACCURACY_NAME, examplesFromDumps, tickCurves } from './ticks.js';
 import type { ProgressHook } from '../progress.js';
 
 export interface AnalyzeMeta {
@@ -95,7 +95,8 @@ export function analyze(
     problems.push(
       problem(
         'counterpart-missing',
-        `${m.config}${where} has no counterpart ${m.counterpart} for --baseline ${options.baseline?.text ?? ''}; it is not compared`,
+        `${m.config}${where} has no counterpart ${m.counterpart} for --baseline ${options.baseline?.text ?? ''}; ` +
+          'it is not compared',
       ),
     );
   }
@@ -123,6 +124,8 @@ export function analyze(
           level: options.level,
           alpha: options.alpha,
           baseline: tickBaseline(inv.configs, options),
+          // A between-example band is a binomial one: only for a share of correct examples (an accuracy).
+          ...(ACCURACY_NAME.test(info.name) ? { examplesByConfig: examplesFromDumps(runSet.tickDumps) } : {}),
         }),
       );
       continue;

@@ -8,7 +8,7 @@
  */
 import type { Goal } from '../ingest/types.js';
 import { problem, type Problem } from '../problems.js';
-import type { FailureCounts } from './comparisonTypes.js';
+import type { CautionKind, FailureCounts } from './comparisonTypes.js';
 import type { FailedPolicy, Verdict } from './results.js';
 
 export interface CautionFacts {
@@ -41,7 +41,10 @@ export interface CautionFacts {
   readonly reasons: readonly string[];
 }
 
-/** Sample skewness g1 = m3 / m2^(3/2) with population moments (scipy.stats.skew, bias=True); null when n < 3 or all equal. */
+/**
+ * Sample skewness g1 = m3 / m2^(3/2) with population moments (scipy.stats.skew, bias=True); null
+ * when n < 3 or all equal.
+ */
 export function sampleSkewness(x: ArrayLike<number>): number | null {
   const n = x.length;
   if (n < 3) return null;
@@ -118,12 +121,15 @@ export function formatNumber(x: number): string {
  * Example: 3 v 3 seeds at alpha 0.05 gives the line
  * "with 3 v 3 seeds no rank or permutation test can reach p < 0.05 (smallest two-sided p = 0.1)".
  */
-export function comparisonCautions(f: CautionFacts): { lines: string[]; problems: Problem[] } {
+export function comparisonCautions(f: CautionFacts): { lines: string[]; kinds: CautionKind[]; problems: Problem[] } {
   const lines: string[] = [];
+  const kinds: CautionKind[] = [];
   const problems: Problem[] = [];
-  const where = `${f.metric} (${f.summary}${f.task === null ? '' : `, task ${f.task}`}), ${f.candidate} v ${f.baseline}`;
-  const add = (line: string, code?: Parameters<typeof problem>[0]): void => {
+  const task = f.task === null ? '' : `, task ${f.task}`;
+  const where = `${f.metric} (${f.summary}${task}), ${f.candidate} v ${f.baseline}`;
+  const add = (kind: CautionKind, line: string, code?: Parameters<typeof problem>[0]): void => {
     lines.push(line);
+    kinds.push(kind);
     // A guessed goal concerns the metric, not the comparison: one problem per metric (after deduplication).
     if (code !== undefined) problems.push(problem(code, `${code === 'goal-inferred' ? f.metric : where}: ${line}`));
   };
@@ -132,12 +138,16 @@ export function comparisonCautions(f: CautionFacts): { lines: string[]; problems
 
   if (f.reachValue !== null)
     add(
-      `the summary is the number of steps until ${f.metric} first reaches ${f.reachValue} (reaching sooner is better); runs that have not reached it are censored at the comparison's step and kept (log-rank test)`,
+      'reach-summary',
+      `the summary is the number of steps until ${f.metric} first reaches ${f.reachValue} (reaching sooner is ` +
+        "better); runs that have not reached it are censored at the comparison's step and kept (log-rank test)",
     );
   if (f.goalInferred) {
     const flip = f.goal === 'max' ? 'min' : 'max';
     add(
-      `${f.goal === 'max' ? 'higher' : 'lower'} is better was inferred from the name '${f.metric}'; say --metric ${f.metric}:${flip} if that is wrong`,
+      'goal-guessed',
+      `${f.goal === 'max' ? 'higher' : 'lower'} is better was inferred from the name '${f.metric}'; ` +
+        `say --metric ${f.metric}:${flip} if that is wrong`,
       'goal-inferred',
     );
   }
@@ -145,12 +155,15 @@ export function comparisonCautions(f: CautionFacts): { lines: string[]; problems
     const smallest = smallestTwoSidedP(nc, nb);
     if (smallest >= f.alpha) {
       add(
-        `with ${nc} v ${nb} seeds no rank or permutation test can reach p < ${f.alpha} (smallest two-sided p = ${formatNumber(smallest)})`,
+        'few-seeds',
+        `with ${nc} v ${nb} seeds no rank or permutation test can reach p < ${f.alpha} ` +
+          `(smallest two-sided p = ${formatNumber(smallest)})`,
         'few-seeds',
       );
     } else if (Math.min(nb, nc) < 4) {
       const arm = nb < nc ? 'baseline' : 'candidate';
       add(
+        'few-seeds',
         `only ${Math.min(nb, nc)} seeds in the ${arm} arm: intervals are wide and one more seed can turn the verdict`,
         'few-seeds',
       );
@@ -159,11 +172,15 @@ export function comparisonCautions(f: CautionFacts): { lines: string[]; problems
   const skew = pooledSkewness(f.baselineValues, f.candidateValues);
   if (skew !== null && Math.abs(skew.g1) > 2 * skew.se) {
     add(
-      `the values are skewed within the arms (sample skewness ${formatNumber(skew.g1)} of the ${skew.n} values centred on their arm means, beyond ${formatNumber(2 * skew.se)}, twice its standard error under normality): t-based intervals may under-cover; read the rank and permutation tests beside Welch`,
+      'skewed',
+      `the values are skewed within the arms (sample skewness ${formatNumber(skew.g1)} of the ${skew.n} values ` +
+        `centred on their arm means, beyond ${formatNumber(2 * skew.se)}, twice its standard error under ` +
+        'normality): t-based intervals may under-cover; read the rank and permutation tests beside Welch',
       'skewed-values',
     );
   }
-  if (nb !== nc && nb > 0 && nc > 0) add(`unequal seed counts (${nc} candidate v ${nb} baseline)`, 'unequal-seeds');
+  if (nb !== nc && nb > 0 && nc > 0)
+    add('unequal-seeds', `unequal seed counts (${nc} candidate v ${nb} baseline)`, 'unequal-seeds');
   const fb = f.failures.baseline;
   const fc = f.failures.candidate;
   const failed = fb.diverged + fb.short + fc.diverged + fc.short;
@@ -172,24 +189,33 @@ export function comparisonCautions(f: CautionFacts): { lines: string[]; problems
       f.failedPolicy === 'exclude' ? 'left out of the values' : 'scored as the worst value observed in this comparison';
     const arm = (a: typeof fb): string => {
       const kinds = [a.diverged > 0 ? `${a.diverged} diverged` : '', a.short > 0 ? `${a.short} short` : ''];
-      return `${a.diverged + a.short} of ${a.runs} failed${a.diverged + a.short > 0 ? ` (${kinds.filter((k) => k !== '').join(', ')})` : ''}`;
+      const which = a.diverged + a.short > 0 ? ` (${kinds.filter((k) => k !== '').join(', ')})` : '';
+      return `${a.diverged + a.short} of ${a.runs} failed${which}`;
     };
     add(
-      `${failed} failed run${failed === 1 ? '' : 's'} ${what}: baseline ${arm(fb)}, candidate ${arm(fc)}; Fisher's exact test on the failure counts p = ${f.failures.fisherP === null ? '—' : formatNumber(f.failures.fisherP)}`,
+      'failed-runs',
+      `${failed} failed run${failed === 1 ? '' : 's'} ${what}: baseline ${arm(fb)}, candidate ${arm(fc)}; ` +
+        `Fisher's exact test on the failure counts p = ${
+          f.failures.fisherP === null ? '—' : formatNumber(f.failures.fisherP)
+        }`,
     );
   }
   if (f.zeroSpread)
     add(
-      `zero spread in both arms and the arms differ: Welch's test is undefined, so the exact permutation test decides (p = ${f.p.permutation === null ? '—' : formatNumber(f.p.permutation)})`,
+      'zero-spread',
+      "zero spread in both arms and the arms differ: Welch's test is undefined, so the exact permutation test " +
+        `decides (p = ${f.p.permutation === null ? '—' : formatNumber(f.p.permutation)})`,
       'zero-spread',
     );
   const nv = f.noValue.baseline + f.noValue.candidate;
   if (nv > 0) {
     add(
-      `${nv} run${nv === 1 ? ' has' : 's have'} no value for this summary and ${nv === 1 ? 'is' : 'are'} left out (baseline ${f.noValue.baseline}, candidate ${f.noValue.candidate})`,
+      'no-value',
+      `${nv} run${nv === 1 ? ' has' : 's have'} no value for this summary and ${nv === 1 ? 'is' : 'are'} left out ` +
+        `(baseline ${f.noValue.baseline}, candidate ${f.noValue.candidate})`,
     );
   }
-  for (const reason of f.reasons) add(reason);
+  for (const reason of f.reasons) add('not-run', reason);
   const tests: [string, number | null][] = [
     ['Welch', f.p.welch],
     ['the permutation test', f.p.permutation],
@@ -199,10 +225,17 @@ export function comparisonCautions(f: CautionFacts): { lines: string[]; problems
   const significant = run.filter((t) => t[1] < f.alpha);
   if (significant.length > 0 && significant.length < run.length) {
     const list = run.map(([name, p]) => `${name} p = ${formatNumber(p)}`).join(', ');
-    add(`the tests disagree at alpha ${f.alpha} (${list}); treat the verdict as fragile`, 'tests-disagree');
+    add(
+      'tests-disagree',
+      `the tests disagree at alpha ${f.alpha} (${list}); treat the verdict as fragile`,
+      'tests-disagree',
+    );
   }
   if (f.verdict === 'better' && Math.min(nb, nc) < 5) {
-    add(`the 'better' verdict rests on ${nc} v ${nb} seeds: fragile; confirm it with more seeds before claiming it`);
+    add(
+      'fragile',
+      `the 'better' verdict rests on ${nc} v ${nb} seeds: fragile; confirm it with more seeds before claiming it`,
+    );
   }
-  return { lines, problems };
+  return { lines, kinds, problems };
 }

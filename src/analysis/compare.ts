@@ -220,6 +220,7 @@ function finish(
     detectable: v?.detectable ?? { sd: null, minimumEffect: null },
     runs: d.arms.uses,
     cautions: cautions.lines,
+    cautionKinds: cautions.kinds,
   };
   return { comparison, problems: cautions.problems };
 }

@@ -142,4 +142,33 @@ export interface Comparison {
   readonly runs: readonly RunUse[];
   /** Plain-language caution lines (few seeds, skew, tests disagree, unequal seeds, inferred goal, ...). */
   readonly cautions: readonly string[];
+  /** The kind of each caution line, index for index: what a report groups them by. */
+  readonly cautionKinds: readonly CautionKind[];
 }
+
+/**
+ * What a caution is about, so that a report can group the same concern over many comparisons:
+ * - `reach-summary`: the summary is steps-to-reach, runs censored (log-rank);
+ * - `goal-guessed`: higher or lower is better was inferred from the metric's name;
+ * - `few-seeds`: too few seeds for a rank or permutation test to reach alpha, or under 4 in an arm;
+ * - `skewed`: values skewed within the arms beyond twice the standard error of skewness;
+ * - `unequal-seeds`: the arms have different numbers of seeds;
+ * - `failed-runs`: diverged or short runs, with their handling and Fisher's test;
+ * - `zero-spread`: no spread in either arm, the exact permutation test decided;
+ * - `no-value`: runs without a value for this summary;
+ * - `not-run`: a test or interval that could not be computed, and why;
+ * - `tests-disagree`: the tests disagree about significance at alpha;
+ * - `fragile`: a `better` resting on fewer than 5 seeds per arm.
+ */
+export type CautionKind =
+  | 'reach-summary'
+  | 'goal-guessed'
+  | 'few-seeds'
+  | 'skewed'
+  | 'unequal-seeds'
+  | 'failed-runs'
+  | 'zero-spread'
+  | 'no-value'
+  | 'not-run'
+  | 'tests-disagree'
+  | 'fragile';

@@ -27,7 +27,7 @@
  *
  * Cost O(runs x ticks) for the curves plus one Welch test per tick per config.
  */
-import type { MetricInfo, Run, TickSeries } from '../ingest/types.js';
+import type { MetricInfo, Run, TickDump, TickSeries } from '../ingest/types.js';
 import { holm } from '../stats/holm.js';
 import { binomialHalfWidth } from '../stats/binomialHalfWidth.js';
 import { mean, variance } from '../stats/moments.js';
@@ -42,6 +42,11 @@ export interface TickCurveOptions {
   readonly baseline: string | null;
   readonly tolerance?: number;
   readonly examples?: number | null;
+  /**
+   * Examples evaluated per config (from its per-sample tick dumps), taking precedence over
+   * `examples` for the configs it names.
+   */
+  readonly examplesByConfig?: ReadonlyMap<string, number>;
 }
 
 /** The runs of one config: each used run's tick values (NaN where missing) at its summary step. */
@@ -214,11 +219,26 @@ export function tickCurves(runs: readonly Run[], metric: MetricInfo, opts: TickC
       high: cells.map((c) => c.high),
       n: cells.map((c) => c.n),
       band: 't',
-      exampleHalfWidth: exampleNoise(g, means, examples),
+      exampleHalfWidth: exampleNoise(g, means, opts.examplesByConfig?.get(g.config) ?? examples),
       earliestGood: earliestGood(g, means, metric.goal ?? 'max', opts.level, opts.tolerance),
       versusBaseline:
         base === undefined || base === g ? null : versusBaseline(g, base, metric.goal ?? 'max', opts.alpha),
       diverged: g.diverged,
     };
   });
+}
+
+/** A tick metric whose name reads as a share of correct examples (acc, accuracy, correct). */
+export const ACCURACY_NAME = /acc|correct/i;
+
+/**
+ * The number of examples each config's evaluation used, as its per-sample tick dumps show it: the
+ * fewest samples in any of its dumps (a smaller m gives the wider between-example band).
+ * Cost O(dumps). Never throws.
+ * Example: dumps of 300 and 280 samples for config a → `Map { 'a' => 280 }`.
+ */
+export function examplesFromDumps(dumps: readonly TickDump[]): Map<string, number> {
+  const out = new Map<string, number>();
+  for (const d of dumps) if (d.samples > 0) out.set(d.config, Math.min(out.get(d.config) ?? d.samples, d.samples));
+  return out;
 }

@@ -34,7 +34,8 @@ function oneLine(command: string): (text: string, write: (text: string) => void)
 export function buildProgram(io: Io, done: (code: number) => void): Command {
   const program = new Command('seedsift')
     .description(
-      "Does a change beat seed noise? Reads many runs' per-step logs, tests configurations against each other, and writes a self-contained report.",
+      "Does a change beat seed noise? Reads many runs' per-step logs, tests configurations against each other, " +
+        'and writes a self-contained report.',
     )
     .version(version(), '-V, --version')
     .option('--debug', 'show the stack trace of an error')
@@ -60,7 +61,8 @@ export function buildProgram(io: Io, done: (code: number) => void): Command {
     `
 Examples:
   seedsift scan sample-runs
-  seedsift report sample-runs --baseline ticks=8,memory=4 -o report.html --json results.json --markdown summary.md
+  seedsift report sample-runs --baseline ticks=8,memory=4 --task-key task ` +
+      `-o report.html --json results.json --markdown summary.md
   seedsift report runs/ --baseline memory=4 --summary last:10% --fail-on worse
   seedsift digest runs/shard-3 --out digests/3.parquet && seedsift report digests/*.parquet
   seedsift notebook new study.md

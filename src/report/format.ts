@@ -35,6 +35,17 @@ export function formatNumber(x: number | null, decimals = 2): string {
 }
 
 /**
+ * A value with its interval, `0.769 [0.762, 0.776]`; the value alone when a limit is missing.
+ * Cost O(1). Never throws. Example: `withInterval(0.5, 0.4, 0.6, 1)` → `'0.5 [0.4, 0.6]'`.
+ */
+export function withInterval(x: number | null, low: number | null, high: number | null, decimals: number): string {
+  const value = formatNumber(x, decimals);
+  return low === null || high === null
+    ? value
+    : `${value} [${formatNumber(low, decimals)}, ${formatNumber(high, decimals)}]`;
+}
+
+/**
  * A signed number (`+1.71`, `-0.32`, `0.00`).
  * Cost O(1). Never throws. Example: `formatSigned(1.714, 2)` → `'+1.71'`.
  */
@@ -69,7 +80,9 @@ export function comparisonDecimals(c: Comparison): number {
 /**
  * A difference with its interval, `+1.71 [0.06, 3.37]`, or the estimate alone when the interval
  * is missing.
- * Cost O(1). Never throws. Example: `formatDifference({ estimate: 1.714, low: 0.0575, high: 3.371, level: 0.95, method: 'welch-t' }, 2)` → `'+1.71 [0.06, 3.37]'`.
+ * Cost O(1). Never throws. Example:
+ * `formatDifference({ estimate: 1.714, low: 0.0575, high: 3.371, level: 0.95, method: 'welch-t' }, 2)`
+ * → `'+1.71 [0.06, 3.37]'`.
  */
 export function formatDifference(d: Difference, decimals: number): string {
   const estimate = formatSigned(d.estimate, decimals);

@@ -7,7 +7,7 @@
  */
 import type { Comparison, Results } from '../analysis/results.js';
 import { escapeMarkdown } from './escape.js';
-import { comparisonDecimals, formatDifference, formatNumber, formatP } from './format.js';
+import { comparisonDecimals, formatDifference, formatNumber, formatP, withInterval } from './format.js';
 import { countsWords, familyWords, overviewModel, type OverviewModel } from './overviewModel.js';
 import { sweepKeys } from './studyShape.js';
 import { sweepDecimals, sweepModel } from './sweepModel.js';
@@ -78,7 +78,9 @@ function metricsMatrix(model: OverviewModel): string[] {
   const more = model.rows.length - shown.length;
   const kind = sharedIntervalKind(model.comparisons);
   return [
-    `Cells: ▲ better, ▼ worse, ● inconclusive; difference, candidate minus baseline${kind === null ? '' : ` [${kind}, unadjusted]`}.`,
+    `Cells: ▲ better, ▼ worse, ● inconclusive; difference, candidate minus baseline${
+      kind === null ? '' : ` [${kind}, unadjusted]`
+    }.`,
     '',
     ...lines,
     ...(more > 0 ? ['', `${more} more candidates in report.html.`] : []),
@@ -92,19 +94,21 @@ function aggregatesLines(results: Results, metric: string): string[] {
   const tasks = Math.max(...aggs.map((a) => a.tasks));
   const leftOut = aggs.find((a) => a.leftOut !== undefined)?.leftOut ?? [];
   const normalised = aggs.some((a) => a.normalisation !== undefined);
+  const scores = normalised ? 'Scores normalised per task (min-max over all runs of the task)' : 'Raw scores';
+  const listed = leftOut.slice(0, 12).map(name).join(', ');
+  const more = leftOut.length > 12 ? ` and ${leftOut.length - 12} more` : '';
+  const left = leftOut.length > 0 ? ` Left out (some config has no score there): ${listed}${more}.` : '';
   const lines = [
     `### Across ${tasks} tasks: ${name(metric)}`,
     '',
-    `${normalised ? 'Scores normalised per task (min-max over all runs of the task)' : 'Raw scores'}; interquartile mean with its 95% stratified bootstrap interval; P(candidate better) averaged over tasks.${leftOut.length > 0 ? ` Left out (some config has no score there): ${leftOut.slice(0, 12).map(name).join(', ')}${leftOut.length > 12 ? ` and ${leftOut.length - 12} more` : ''}.` : ''}`,
+    `${scores}; interquartile mean with its 95% stratified bootstrap interval; ` +
+      `P(candidate better) averaged over tasks.${left}`,
     '',
     row(['Config', 'Interquartile mean [interval]', 'P(candidate better)', 'Tasks']),
     rule(4),
   ];
   for (const a of aggs.slice(0, OVERVIEW_ROWS)) {
-    const iqm =
-      a.interquartileMean === null
-        ? '—'
-        : `${formatNumber(a.interquartileMean, 3)}${a.low === null || a.high === null ? '' : ` [${formatNumber(a.low, 3)}, ${formatNumber(a.high, 3)}]`}`;
+    const iqm = a.interquartileMean === null ? '—' : withInterval(a.interquartileMean, a.low, a.high, 3);
     const poi =
       a.probabilityOfImprovement === null
         ? a.baseline === null
@@ -125,19 +129,22 @@ export function sweepLines(results: Results, metric: string, summary: string): s
     if (sweep === null || sweep.xs.length < 2) continue;
     const xs = sweep.xs.slice(0, SWEEP_COLUMNS);
     const decimals = sweepDecimals(sweep);
+    const rowKeys = sweep.taskKey === null ? sweep.others : [...sweep.others, sweep.taskKey];
     out.push(
       `### ${name(metric)} against ${name(key)}`,
       '',
-      `Mean across seeds of each config's ${name(summary)} value [its interval between seeds], one row per ${sweep.others.map(name).join(', ') || 'config'}.`,
+      `Mean across seeds of each config's ${name(summary)} value [its interval between seeds], one row per ${
+        rowKeys.map(name).join(', ') || 'config'
+      }.`,
       '',
-      row([sweep.others.map(name).join(', ') || 'configs', ...xs.map((x) => `${name(key)}=${x}`)]),
+      row([rowKeys.map(name).join(', ') || 'configs', ...xs.map((x) => `${name(key)}=${x}`)]),
       rule(xs.length + 1),
     );
     for (const s of sweep.series.slice(0, SWEEP_ROWS)) {
       const cells = xs.map((x) => {
         const p = s.points.find((q) => q.x === x);
         if (p === undefined) return '—';
-        return `${formatNumber(p.mean, decimals)}${p.low === null || p.high === null ? '' : ` [${formatNumber(p.low, decimals)}, ${formatNumber(p.high, decimals)}]`}`;
+        return withInterval(p.mean, p.low, p.high, decimals);
       });
       out.push(row([name(s.label === '' ? 'all' : s.label), ...cells]));
     }
@@ -146,7 +153,9 @@ export function sweepLines(results: Results, metric: string, summary: string): s
     if (more > 0 || moreX > 0)
       out.push(
         '',
-        `${[more > 0 ? `${more} more rows` : '', moreX > 0 ? `${moreX} more values of ${name(key)}` : ''].filter((x) => x !== '').join(' and ')} in report.html.`,
+        `${[more > 0 ? `${more} more rows` : '', moreX > 0 ? `${moreX} more values of ${name(key)}` : '']
+          .filter((x) => x !== '')
+          .join(' and ')} in report.html.`,
       );
     out.push('');
   }
@@ -156,7 +165,8 @@ export function sweepLines(results: Results, metric: string, summary: string): s
 /**
  * The overview lines of summary.md (empty when nothing was compared).
  * Cost O(comparisons log comparisons + configs). Never throws.
- * Example: demo results → `['### Overview: val_acc', '', 'val_acc (higher is better, ...): 4 better, 0 worse, 1 inconclusive ...', ...]`.
+ * Example: demo results → `['### Overview: val_acc', '',
+ * '**8 better, 0 worse, 7 inconclusive** on val_acc (higher is better, ...', ...]`.
  */
 export function overviewMarkdown(results: Results): string[] {
   const model = overviewModel(results);
@@ -171,10 +181,11 @@ export function overviewMarkdown(results: Results): string[] {
   return [
     `### Overview: ${name(m.name)}`,
     '',
-    `**${countsWords(model.counts)}** on ${name(m.name)} (${goalWords(m.goal, m.goalSource, ', guessed from the name')}; summary ${name(model.summary)}), ${against}; ${escapeMarkdown(familyWords(results, model))}.`,
+    `**${countsWords(model.counts)}** on ${name(m.name)} (${goalWords(m.goal, m.goalSource, ', guessed from the name')}; ` +
+      `summary ${name(model.summary)}), ${against}; ${escapeMarkdown(familyWords(results, model))}.`,
     '',
     ...(model.mode === 'tasks' ? decidedTable(model) : metricsMatrix(model)),
     ...aggregatesLines(results, m.name),
-    ...(results.settings.taskKey === null ? sweepLines(results, m.name, model.summary) : []),
+    ...sweepLines(results, m.name, model.summary),
   ];
 }

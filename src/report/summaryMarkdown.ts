@@ -7,6 +7,7 @@
  * or mention can form; newlines become spaces). Renders `Results`; computes nothing statistical.
  */
 import type { Comparison, Results } from '../analysis/results.js';
+import { cautionListMarkdown } from './cautionGroups.js';
 import { escapeMarkdown } from './escape.js';
 import { fitGroups, SUMMARY_LIMIT } from './fitMarkdown.js';
 import { overviewMarkdown } from './overviewMarkdown.js';
@@ -30,9 +31,7 @@ function familyText(comparisons: readonly Comparison[]): string {
   return `family of ${c.family.size} comparison${c.family.size === 1 ? '' : 's'}${c.family.scope === 'study' ? (c.task === null ? '' : ' over all tasks') : ' in this task'}`;
 }
 import {
-  cautionScope,
   comparisonGroups,
-  groupCautions,
   goalWords,
   sharedIntervalKind,
   standardCaution,
@@ -103,7 +102,7 @@ function groupTable(results: Results, g: ComparisonGroup): string[] {
     `### ${name(g.metric)}`,
     `(${goalWords(g.goal, g.goalSource, ', guessed from the name')}; summary ${name(g.summary)}${withTask ? `; task ${name(g.task ?? '')}` : ''}; ${familyText(g.comparisons)})`,
   ];
-  const cautions = groupCautions(g.comparisons).map((c) => `- ${cautionScope(c, name)}: ${escapeMarkdown(c.line)}`);
+  const cautions = cautionListMarkdown(g.comparisons, name);
   const means = g.comparisons.map((c) => {
     const d = comparisonDecimals(c);
     if (c.timeToEvent !== null) {

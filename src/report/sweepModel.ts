@@ -1,10 +1,16 @@
 /**
  * A sweep: a metric's summary value against one numeric config key (`sweepKeys`), one series per
  * combination of the other keys, each point the mean across seeds with its interval as
- * `Results.configValues` holds it. Rendered as a chart (`charts/sweepChart.ts`), in the page
- * (`cells/sweep.ts`) and as a table in summary.md. Reads `Results`; computes no statistic.
+ * `Results.configValues` holds it. With a task key, each task has its own series (a config's
+ * values are only comparable within its task), drawn as one panel per task with its own axis, and
+ * only for studies of at most `SWEEP_TASKS` tasks. Rendered as a chart (`charts/sweepChart.ts`), in
+ * the page (`cells/sweep.ts`) and as a table in summary.md. Reads `Results`; computes no statistic.
  */
 import type { IntervalMethod, Results } from '../analysis/results.js';
+import { taskNames } from './studyShape.js';
+
+/** Most tasks a sweep is drawn for (one panel each); beyond, the across-task aggregates speak. */
+export const SWEEP_TASKS = 6;
 
 export interface SweepPoint {
   readonly x: number;
@@ -16,8 +22,9 @@ export interface SweepPoint {
 }
 
 export interface SweepSeries {
-  /** The other keys' values, `memory=4,width=128` (empty when the key is the only one). */
+  /** The other keys' values, `memory=4,width=128` (empty when the key is the only one), then the task's. */
   readonly label: string;
+  /** The other keys' values, and the task key's when there is one. */
   readonly params: Readonly<Record<string, string>>;
   readonly points: readonly SweepPoint[];
 }
@@ -28,6 +35,8 @@ export interface Sweep {
   readonly key: string;
   /** The other config keys (task key excluded), in key order. */
   readonly others: readonly string[];
+  /** The task key when the series are per task (one panel each), else null. */
+  readonly taskKey: string | null;
   /** The key's values, ascending. */
   readonly xs: readonly number[];
   readonly series: readonly SweepSeries[];
@@ -37,13 +46,14 @@ export interface Sweep {
 }
 
 /**
- * The sweep of `metric` under `summary` against `key`, or null when no config value has a mean.
- * Series in the order their first config appears in `Results.configs`; points by ascending key.
- * Cost O(configs + configValues). Never throws.
+ * The sweep of `metric` under `summary` against `key`, or null when no config value has a mean (or
+ * the study has more than `SWEEP_TASKS` tasks). Series in the order their first config appears in
+ * `Results.configs`; points by ascending key. Cost O(configs + configValues). Never throws.
  * Example: demo results, val_acc, key ticks → two series (memory=4, memory=12) of three points (8, 16, 32).
  */
 export function sweepModel(results: Results, metric: string, summary: string, key: string): Sweep | null {
   const taskKey = results.settings.taskKey;
+  if (taskKey !== null && taskNames(results).length > SWEEP_TASKS) return null;
   const means = new Map(
     (results.configValues ?? [])
       .filter((v) => v.metric === metric && v.summary === summary && v.mean !== null)
@@ -58,9 +68,10 @@ export function sweepModel(results: Results, metric: string, summary: string, ke
   for (const c of results.configs) {
     const v = means.get(c.id);
     const raw = c.params[key];
-    if (v === undefined || v.mean === null || raw === undefined || taskKey !== null) continue;
-    const params = Object.fromEntries(others.map((k) => [k, c.params[k] ?? '']));
-    const label = others.map((k) => `${k}=${params[k]}`).join(',');
+    if (v === undefined || v.mean === null || raw === undefined) continue;
+    const kept = taskKey === null ? others : [...others, taskKey];
+    const params = Object.fromEntries(kept.map((k) => [k, c.params[k] ?? '']));
+    const label = kept.map((k) => `${k}=${params[k]}`).join(',');
     const s = series.get(label) ?? { params, points: [] };
     s.points.push({ x: Number(raw), config: c.id, mean: v.mean, low: v.low, high: v.high, n: v.n });
     series.set(label, s);
@@ -74,6 +85,7 @@ export function sweepModel(results: Results, metric: string, summary: string, ke
     summary,
     key,
     others,
+    taskKey,
     xs,
     level,
     method,

@@ -95,32 +95,3 @@ export function sharedIntervalKind(comparisons: readonly Comparison[]): string |
   const kinds = new Set(comparisons.map((c) => formatIntervalKind(c.difference)));
   return kinds.size === 1 ? ([...kinds][0] ?? null) : null;
 }
-
-/** One caution line and the comparisons it concerns (`all` when it concerns every one given). */
-export interface GroupedCaution {
-  readonly line: string;
-  readonly comparisons: readonly Comparison[];
-  readonly all: boolean;
-}
-
-/**
- * The caution lines of some comparisons, each once, in first-seen order, with the comparisons it
- * concerns: a reader sees "all 5 comparisons: the goal was guessed" once instead of five times.
- */
-export function groupCautions(comparisons: readonly Comparison[]): GroupedCaution[] {
-  const byLine = new Map<string, Comparison[]>();
-  for (const c of comparisons) for (const line of c.cautions) byLine.set(line, [...(byLine.get(line) ?? []), c]);
-  return [...byLine].map(([line, list]) => ({
-    line,
-    comparisons: list,
-    all: list.length === comparisons.length && list.length > 1,
-  }));
-}
-
-/** "all 5 comparisons" or "b v a; c v a", with names passed through `name` (escaping is the caller's). */
-export function cautionScope(g: GroupedCaution, name: (text: string) => string): string {
-  if (g.all) return `all ${g.comparisons.length} comparisons`;
-  return g.comparisons
-    .map((c) => `${name(c.candidate)} v ${name(c.baseline)}${c.task === null ? '' : ` (${name(c.task)})`}`)
-    .join('; ');
-}

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import type { MetricInfo, Run, RunStatus } from '../../src/ingest/types.js';
-import { tickCurves } from '../../src/analysis/ticks.js';
+import type { MetricInfo, Run, RunStatus, TickDump } from '../../src/ingest/types.js';
+import { ACCURACY_NAME, examplesFromDumps, tickCurves } from '../../src/analysis/ticks.js';
 
 /** A run whose tick metric `acc` is logged at steps 100, 200, 300; `rows[i]` holds the ticks at step i. */
 function run(config: string, seed: number, rows: number[][], status: RunStatus = 'ok', steps = [100, 200, 300]): Run {
@@ -172,6 +172,35 @@ describe('tickCurves', () => {
       tickCurves(percent, ACC, { step: null, level: 0.95, alpha: 0.05, baseline: null, examples: 1000 })[0]
         ?.exampleHalfWidth,
     ).toBeNull();
+  });
+
+  it('takes m per config from its tick dumps (the fewest samples of its dumps), before a study-wide m', () => {
+    const dump = (config: string, samples: number): TickDump => ({
+      run: `${config},seed=1`,
+      config,
+      seed: '1',
+      file: 'x.csv',
+      step: null,
+      samples,
+      ticks: 1,
+      correct: new Uint8Array(samples),
+      certainty: new Float64Array(samples),
+      confidence: null,
+    });
+    const byConfig = examplesFromDumps([dump('ticks=8', 300), dump('ticks=8', 280), dump('ticks=4', 0)]);
+    expect([...byConfig]).toEqual([['ticks=8', 280]]);
+    const opts = { step: null, level: 0.95, alpha: 0.05, baseline: null, examples: 1000 };
+    const [a, b] = tickCurves(RUNS, ACC, { ...opts, examplesByConfig: byConfig });
+    // sqrt(p(1-p)/m) by its definition: m = 280 for ticks=8 (its dumps), 1000 (study-wide) for ticks=4.
+    for (const [k, m] of B_MEAN.entries()) {
+      expect(b?.exampleHalfWidth?.[k]).toBeCloseTo(Math.sqrt((m * (1 - m)) / 280), 15);
+    }
+    expect(a?.mean.length).toBe(4);
+    for (const [k, m] of (a?.mean ?? []).entries()) {
+      expect(a?.exampleHalfWidth?.[k]).toBeCloseTo(Math.sqrt(((m as number) * (1 - (m as number))) / 1000), 15);
+    }
+    expect(ACCURACY_NAME.test('val_acc') && ACCURACY_NAME.test('correct@k')).toBe(true);
+    expect(ACCURACY_NAME.test('certainty')).toBe(false);
   });
 
   it('throws a RangeError on bad options', () => {

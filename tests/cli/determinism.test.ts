@@ -3,10 +3,11 @@
  * report.html, results.json and summary.md, and the date shown comes from SOURCE_DATE_EPOCH
  * (the reproducible-builds convention: seconds since 1970-01-01 UTC; common practice).
  *
- * The demo study (sample-runs/, 5 seeds per arm) uses no resampling that the seed changes, so a
- * second check uses a score table with 25 seeds per arm, where the difference interval is a BCa
- * bootstrap and the permutation test is Monte Carlo: there the seed must matter, and the same seed
- * must still give the same bytes.
+ * The demo study (sample-runs/, 5 seeds per arm, three tasks) is reported as `npm start` does,
+ * with --task-key: its comparisons use no resampling that the seed changes (only the across-task
+ * stratified bootstrap does), so a second check uses a score table with 25 seeds per arm, where the
+ * difference interval is a BCa bootstrap and the permutation test is Monte Carlo: there the seed
+ * must matter, and the same seed must still give the same bytes.
  */
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -34,7 +35,7 @@ async function report(tag: string, argv: readonly string[]): Promise<{ html: Buf
 
 describe('two runs with the same inputs and seed give byte-identical files', () => {
   it('the demo study (sample-runs) with SOURCE_DATE_EPOCH set', async () => {
-    const argv = ['report', 'sample-runs', '--baseline', 'ticks=8,memory=4', '--seed', '7'];
+    const argv = ['report', 'sample-runs', '--baseline', 'ticks=8,memory=4', '--task-key', 'task', '--seed', '7'];
     const a = await report('demo-a', argv);
     const b = await report('demo-b', argv);
     expect(a.html.equals(b.html), 'report.html').toBe(true);
@@ -44,6 +45,7 @@ describe('two runs with the same inputs and seed give byte-identical files', () 
     expect(results.generated).toBe('2025-12-01T00:00:00.000Z');
     expect(a.html.toString('utf8')).toContain('2025-12-01');
     expect(results.comparisons.length).toBeGreaterThan(0);
+    expect(results.tasks.length).toBeGreaterThan(0);
   }, 120_000);
 
   it('a study that resamples: the seed changes the intervals, the same seed gives the same bytes', async () => {

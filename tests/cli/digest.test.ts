@@ -1,8 +1,9 @@
 /**
  * `seedsift digest`, and reports from digests (the acceptance test of "Scaling out" in the
- * README). The reference is `seedsift report sample-runs` on the raw logs: the demo study split
- * into two shards (ticks=16 and ticks=32 in one digest, ticks=8 in the other, named in the order
- * the raw folder lists them), digested, and reported from the digests must give the same results.
+ * README). The reference is `seedsift report sample-runs --task-key task` on the raw logs: the
+ * demo study split into two shards (tasks count and count-dense in one digest, count-sparse in the
+ * other, named in the order the raw folder lists them), digested, and reported from the digests
+ * must give the same results.
  *
  * What may differ, and only that, is what comes from which inputs were named:
  * - `inputs.paths` (the PATHs typed) and the file counts `inputs.files`/`inputs.filesRead`: the
@@ -29,7 +30,7 @@ const dir = mkdtempSync(join(tmpdir(), 'seedsift-digest-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 const at = (name: string): string => join(dir, name);
 
-const shards = [['sample-runs/ticks=16', 'sample-runs/ticks=32'], ['sample-runs/ticks=8']];
+const shards = [['sample-runs/task=count', 'sample-runs/task=count-dense'], ['sample-runs/task=count-sparse']];
 const digests = [at('a.parquet'), at('b.parquet')];
 
 async function cli(...argv: string[]): Promise<{ code: number; out: string; err: string }> {
@@ -57,7 +58,7 @@ beforeAll(async () => {
     expect(r.code).toBe(0);
     digestOut.push(r.out);
   }
-  const baseline = ['--baseline', 'ticks=8,memory=4'];
+  const baseline = ['--baseline', 'ticks=8,memory=4', '--task-key', 'task'];
   for (const [tag, inputs] of [
     ['1', digests],
     ['2', ['sample-runs']],
@@ -82,9 +83,9 @@ beforeAll(async () => {
 describe('seedsift digest', () => {
   it('writes one Parquet file per shard with the marker, and says what it wrote', async () => {
     expect(digestOut[0]).toMatch(
-      new RegExp(`^20 runs from \\d+ files read, \\d+ problems\\nwrote ${digests[0]} \\(\\d+\\.\\d (KiB|MiB)\\)\\n$`),
+      new RegExp(`^60 runs from \\d+ files read, \\d+ problems\\nwrote ${digests[0]} \\(\\d+\\.\\d (KiB|MiB)\\)\\n$`),
     );
-    expect(digestOut[1]).toMatch(/^10 runs from /);
+    expect(digestOut[1]).toMatch(/^30 runs from /);
     const engine = await openEngine();
     try {
       for (const file of digests) {
@@ -108,9 +109,18 @@ describe('seedsift digest', () => {
     const { inputs: i1, problems: p1, problemCodes: _c1, ...rest1 } = r1;
     const { inputs: i2, problems: p2, problemCodes: _c2, ...rest2 } = r2;
     expect(rest1).toEqual(rest2);
-    // Not vacuous: the study has comparisons, curves, tick analyses, halting and calibration.
-    for (const key of ['comparisons', 'curves', 'ticks', 'halting', 'calibration', 'values', 'configValues'] as const)
-      expect(r1[key].length, key).toBeGreaterThan(0);
+    // Not vacuous: the study has comparisons, curves, tick analyses, halting, calibration and task aggregates.
+    const keys = [
+      'comparisons',
+      'curves',
+      'ticks',
+      'halting',
+      'calibration',
+      'values',
+      'configValues',
+      'tasks',
+    ] as const;
+    for (const key of keys) expect(r1[key].length, key).toBeGreaterThan(0);
     expect(i1.paths).toEqual(digests);
     expect(i2.paths).toEqual(['sample-runs']);
     expect(i1.mode).toBe(i2.mode);
@@ -136,24 +146,29 @@ describe('seedsift digest', () => {
     expect(m1[line]).not.toBe(m2[line]);
   });
 
-  it('scan sees the same runs, metrics and dumps; its file list differs only by the digests and the files outside the shards', () => {
-    const s1 = json<ScanJson>('s1.json');
-    const s2 = json<ScanJson>('s2.json');
-    const { files: f1, problems: p1, ...rest1 } = s1;
-    const { files: f2, problems: p2, ...rest2 } = s2;
-    expect(rest1).toEqual(rest2);
-    expect(f1.filter((f) => !digests.includes(f.file))).toEqual(f2.filter((f) => inShards(f.file)));
-    expect(f1.filter((f) => digests.includes(f.file)).map((f) => f.file)).toEqual(digests);
-    expect(p1).toEqual(p2.filter((p) => !outside(p)));
-  });
+  it(
+    'scan sees the same runs, metrics and dumps; its file list differs only by the digests and the files outside the ' +
+      'shards',
+    () => {
+      const s1 = json<ScanJson>('s1.json');
+      const s2 = json<ScanJson>('s2.json');
+      const { files: f1, problems: p1, ...rest1 } = s1;
+      const { files: f2, problems: p2, ...rest2 } = s2;
+      expect(rest1).toEqual(rest2);
+      expect(f1.filter((f) => !digests.includes(f.file))).toEqual(f2.filter((f) => inShards(f.file)));
+      expect(f1.filter((f) => digests.includes(f.file)).map((f) => f.file)).toEqual(digests);
+      expect(p1).toEqual(p2.filter((p) => !outside(p)));
+    },
+  );
 });
 
 describe('seedsift digest: errors', () => {
   it('--out must end in .parquet (so that report finds it); a digest never overwrites one of its inputs', async () => {
-    const bad = await cli('digest', 'sample-runs/ticks=8', '--out', at('x.csv'));
+    const bad = await cli('digest', 'sample-runs/task=count-sparse', '--out', at('x.csv'));
     expect(bad.code).toBe(2);
     expect(bad.err).toBe(
-      `seedsift: --out: expected a file name ending in .parquet (so that report and scan find it), got '${at('x.csv')}'\n`,
+      'seedsift: --out: expected a file name ending in .parquet (so that report and scan find it), ' +
+        `got '${at('x.csv')}'\n`,
     );
     const over = await cli('digest', digests[1] as string, '--out', digests[1] as string);
     expect(over.code).toBe(2);
@@ -174,7 +189,8 @@ describe('seedsift digest: errors', () => {
     const engine = await openEngine();
     try {
       await engine.connection.run(
-        `COPY (SELECT * FROM read_parquet('${digests[1]}')) TO '${v9}' (FORMAT parquet, KV_METADATA {'${DIGEST_KEY}': '9'})`,
+        `COPY (SELECT * FROM read_parquet('${digests[1]}')) TO '${v9}' ` +
+          `(FORMAT parquet, KV_METADATA {'${DIGEST_KEY}': '9'})`,
       );
     } finally {
       closeEngine(engine);
@@ -182,7 +198,8 @@ describe('seedsift digest: errors', () => {
     const r = await cli('report', v9, '--json', at('never.json'));
     expect(r.code).toBe(2);
     expect(r.err).toBe(
-      `seedsift: ${v9}: not a usable seedsift digest: expected format version 1, got "9" (make the digest again with this seedsift) (${v9})\n`,
+      `seedsift: ${v9}: not a usable seedsift digest: expected format version 1, got "9" ` +
+        `(make the digest again with this seedsift) (${v9})\n`,
     );
   });
 });

@@ -19,13 +19,13 @@ async function seeds(...args: string[]): Promise<{ code: number; answer: SeedsAn
 }
 
 describe('seedsift seeds on pilot runs', () => {
-  it('--baseline memory=4 matches three configs: the sd is pooled within them (12 df), not taken across', async () => {
+  it('--baseline memory=4 matches nine configs (3 tasks x 3 ticks): pooled within them (36 df)', async () => {
     const r = await seeds('sample-runs', '--for', 'val_acc', '--baseline', 'memory=4', '--effect', '0.01', '--json');
     expect(r.code).toBe(0);
-    // 3 configs x 5 runs: (5 - 1) x 3 = 12 degrees of freedom within configs (first principles)
-    expect(r.answer?.sdFrom).toContain('(15 pilot runs, 12 df)');
+    // 9 configs x 5 runs: (5 - 1) x 9 = 36 degrees of freedom within configs (first principles)
+    expect(r.answer?.sdFrom).toContain('(45 pilot runs, 36 df)');
     // The same values from `report --json`: pooled within configs sqrt(sum (n_i - 1) s_i^2 / sum (n_i - 1)),
-    // and the sd of all 15 taken as one group (what pooling across configs gave), first principles.
+    // and the sd of all 45 taken as one group (what pooling across configs gave), first principles.
     const dir = mkdtempSync(join(tmpdir(), 'seedsift-seeds-'));
     const file = join(dir, 'r.json');
     expect(await run(['report', 'sample-runs', '--json', file], memoryIo())).toBe(0);
@@ -62,6 +62,7 @@ describe('seedsift seeds on pilot runs', () => {
     expect(r.err).toContain('post-hoc');
     const m = await seeds('--sd', '1', '--effect', '0.5', '--comparisons', '5', '--json');
     expect(m.answer?.testAlpha).toBeCloseTo(0.01, 15);
-    expect(m.answer?.seedsPerArm).toBe(96); // statsmodels 0.13.5 TTestIndPower().solve_power(0.5, alpha=0.01, power=0.8) = 95.10
+    // statsmodels 0.13.5 TTestIndPower().solve_power(0.5, alpha=0.01, power=0.8) = 95.10
+    expect(m.answer?.seedsPerArm).toBe(96);
   });
 });

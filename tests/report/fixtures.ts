@@ -119,6 +119,7 @@ function comparison(
     detectable: { sd: 0.01, minimumEffect: 0.03 },
     runs: [],
     cautions: [],
+    cautionKinds: [],
   };
 }
 

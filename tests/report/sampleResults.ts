@@ -21,6 +21,7 @@
  */
 import type {
   CalibrationCurve,
+  CautionKind,
   Comparison,
   ConfigRecord,
   ConfigValue,
@@ -164,6 +165,7 @@ interface Stats {
   readonly mde: number;
   readonly seeds: number;
   readonly cautions: readonly string[];
+  readonly cautionKinds: readonly CautionKind[];
 }
 
 function comparison(names: SampleNames, metric: 'acc' | 'loss', s: Stats): Comparison {
@@ -220,6 +222,7 @@ function comparison(names: SampleNames, metric: 'acc' | 'loss', s: Stats): Compa
     detectable: { sd: s.sd, minimumEffect: s.mde },
     runs: [],
     cautions: s.cautions,
+    cautionKinds: s.cautionKinds,
   };
 }
 
@@ -248,6 +251,7 @@ function comparisons(names: SampleNames): Comparison[] {
         'Unequal seeds: 7 v 5.',
         'The raw Welch p (0.044) is below alpha, but not after Holm adjustment across 2 comparisons.',
       ],
+      cautionKinds: ['unequal-seeds', 'fragile'],
     }),
     // scipy 1.10.1 on ACC[2] vs ACC[0].
     comparison(names, 'acc', {
@@ -272,6 +276,7 @@ function comparisons(names: SampleNames): Comparison[] {
         '1 diverged run in the candidate was excluded.',
         'Only 4 runs in the candidate: a verdict at this size is fragile.',
       ],
+      cautionKinds: ['failed-runs', 'few-seeds'],
     }),
     // scipy 1.10.1 on LOSS[1] vs LOSS[0]; Holm over [1.027e-5, 0.00523].
     comparison(names, 'loss', {
@@ -293,6 +298,7 @@ function comparisons(names: SampleNames): Comparison[] {
       mde: 0.01396440063663041,
       seeds: 3,
       cautions: ['The goal of train_loss (lower is better) was guessed from its name.'],
+      cautionKinds: ['goal-guessed'],
     }),
     comparison(names, 'loss', {
       k: 2,
@@ -313,6 +319,7 @@ function comparisons(names: SampleNames): Comparison[] {
       mde: 0.014187823036115885,
       seeds: 5,
       cautions: ['1 diverged run in the candidate was excluded.'],
+      cautionKinds: ['failed-runs'],
     }),
   ];
 }

@@ -14,7 +14,7 @@ import { overviewMarkdown } from '../../src/report/overviewMarkdown.js';
 import { overviewText, SCREEN_LINES } from '../../src/report/overviewText.js';
 import { primaryMetric, sweepKeys } from '../../src/report/studyShape.js';
 import { summaryMarkdown } from '../../src/report/summaryMarkdown.js';
-import { sweepModel } from '../../src/report/sweepModel.js';
+import { SWEEP_TASKS, sweepModel } from '../../src/report/sweepModel.js';
 import { comparisonGroups } from '../../src/report/verdictWords.js';
 import { SWEEP_STUDY, TASKS_STUDY } from '../support/studyGenerator.js';
 import { studyResults } from '../support/studyResults.js';
@@ -126,6 +126,19 @@ describe('sweeps', () => {
     expect(md).toContain('| memory | ticks=4 | ticks=8 | ticks=16 | ticks=32 |');
   });
 
+  it('with a task key: one series per task (a panel each) up to SWEEP_TASKS tasks, none beyond', async () => {
+    const spec = { ...SWEEP_STUDY, keys: { ticks: ['8', '16'] }, seeds: 2, rows: 6, crashEvery: 0, shortEvery: 0 };
+    const few = await studyResults({ ...spec, tasks: SWEEP_TASKS }, { baseline: 'ticks=8', taskKey: 'task' });
+    const s = sweepModel(few, 'score', 'final', 'ticks');
+    expect(s?.taskKey).toBe('task');
+    expect(s?.series).toHaveLength(SWEEP_TASKS);
+    expect(new Set(s?.series.map((x) => x.params.task)).size).toBe(SWEEP_TASKS);
+    expect(overviewMarkdown(few).join('\n')).toContain('| task | ticks=8 | ticks=16 |');
+    const many = await studyResults({ ...spec, tasks: SWEEP_TASKS + 1 }, { baseline: 'ticks=8', taskKey: 'task' });
+    expect(sweepModel(many, 'score', 'final', 'ticks')).toBeNull();
+    expect((await renderCells('{{sweep}}', many)).trim()).toBe('');
+  }, 60_000);
+
   it('rejects a key that is not numeric, naming the ones there are', async () => {
     await expect(renderCells('{{sweep "score" key="colour"}}', sweep)).rejects.toThrow(/'ticks', 'memory'/);
   });
@@ -166,7 +179,9 @@ describe('the overview in the terminal', () => {
     const score = tasks.comparisons.filter((c) => c.metric === 'score');
     const decided = score.filter((c) => c.verdict !== 'inconclusive').length;
     expect(lines[0]).toContain(
-      `score (higher is better; summary final) against method=base: ${decided - score.filter((c) => c.verdict === 'worse').length} better`,
+      `score (higher is better; summary final) against method=base: ${
+        decided - score.filter((c) => c.verdict === 'worse').length
+      } better`,
     );
     const rows = lines.filter((l) => /^ {2}[▲▼●] /.test(l));
     const firstInconclusive = rows.findIndex((l) => l.includes('●'));

@@ -22,7 +22,10 @@ function decode(html: string): string {
     .replace(/&amp;/g, '&');
 }
 
-/** Verdict tables of the rendered Markdown (those headed Baseline; the overview's come before them): rows of cell texts (header row first). */
+/**
+ * Verdict tables of the rendered Markdown (those headed Baseline; the overview's come before them):
+ * rows of cell texts (header row first).
+ */
 function tables(markdown: string): string[][][] {
   return allTables(markdown).filter((t) => t[0]?.[0] === 'Baseline');
 }
@@ -78,8 +81,11 @@ describe('summaryMarkdown', () => {
   });
 
   it('lists the caution lines and ends with the standard caution', () => {
-    expect(text).toContain('- memory=8 v memory=4: Unequal seeds: 7 v 5.');
-    expect(text).toContain('- memory=12 v memory=4: 1 diverged run in the candidate was excluded.');
+    // One item per kind of caution, with the number of comparisons it concerns (sampleResults: kinds per comparison).
+    expect(text).toContain('- **unequal seed counts: 1 comparison**. memory=8 v memory=4: Unequal seeds: 7 v 5.');
+    expect(text).toContain(
+      '- **failed runs: 1 comparison**. memory=12 v memory=4: 1 diverged run in the candidate was excluded.',
+    );
     expect(text.trimEnd().split('\n').at(-1)).toMatch(/^> A statistical test is evidence, not proof/);
   });
 
@@ -111,11 +117,18 @@ describe('summaryMarkdown cautions', () => {
     const metric = base.comparisons[0]?.metric as string;
     const ofMetric = base.comparisons.filter((c) => c.metric === metric);
     const comparisons = base.comparisons.map((c) =>
-      c.metric !== metric ? c : { ...c, cautions: ['shared line', ...(c === ofMetric[0] ? ['only the first'] : [])] },
+      c.metric !== metric
+        ? c
+        : {
+            ...c,
+            cautions: ['shared line', ...(c === ofMetric[0] ? ['only the first'] : [])],
+            cautionKinds: ['goal-guessed', ...(c === ofMetric[0] ? ['fragile'] : [])],
+          },
     );
     const text = summaryMarkdown({ ...base, comparisons } as Results);
     expect(text.split('shared line').length - 1).toBe(1);
-    expect(text).toContain(`- all ${ofMetric.length} comparisons: shared line`);
+    expect(text).toContain(`- **goal guessed from the name: all ${ofMetric.length} comparisons**. shared line`);
+    expect(text).toContain('- **fragile verdict: 1 comparison**.');
     expect(text.split('only the first').length - 1).toBe(1);
   });
 });

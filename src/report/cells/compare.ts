@@ -5,7 +5,7 @@
  * (permutation, Mann-Whitney, paired tests when run), the adjusted p and verdict, effect sizes,
  * what the seeds can detect, and the caution lines. Everything is read from `Results`.
  */
-import { cautionScope, groupCautions } from '../verdictWords.js';
+import { cautionListHtml } from '../cautionGroups.js';
 import type { Comparison, Results } from '../../analysis/results.js';
 import { compareChart } from '../charts/compareChart.js';
 import {
@@ -19,12 +19,18 @@ import {
   formatSeeds,
   formatSigned,
 } from '../format.js';
-import { listHtml, nameHtml, tableHtml, type TableCell } from '../html.js';
+import { nameHtml, tableHtml, type TableCell } from '../html.js';
 import { decidedFirst } from '../studyShape.js';
 import { verdictHtml } from './verdicts.js';
 import { figureHtml, metricParam, summaryOption, type Cell } from './cell.js';
 
 const CORRECTION = { holm: 'Holm', bh: 'Benjamini-Hochberg', none: 'no' } as const;
+/** How the log-rank p was had, in words. */
+const LOG_RANK_METHOD = {
+  'chi-square': 'chi-square, 1 df',
+  'exact-permutation': 'exact permutation p',
+  'random-permutation': 'random relabelings',
+} as const;
 
 function withInterval(x: number | null, low: number | null, high: number | null, decimals: number): string {
   if (x === null) return '—';
@@ -58,7 +64,9 @@ function quantities(r: Results, c: Comparison): [string, TableCell][] {
       formatDifference(c.difference, d),
     ],
     [
-      `Simultaneous bounds [${c.difference.simultaneous === null ? 'Bonferroni' : formatLevel(c.difference.simultaneous.level)}, family of ${c.family.size}]`,
+      `Simultaneous bounds [${
+        c.difference.simultaneous === null ? 'Bonferroni' : formatLevel(c.difference.simultaneous.level)
+      }, family of ${c.family.size}]`,
       c.difference.simultaneous === null
         ? null
         : `[${formatNumber(c.difference.simultaneous.low, d)}, ${formatNumber(c.difference.simultaneous.high, d)}]`,
@@ -73,13 +81,17 @@ function quantities(r: Results, c: Comparison): [string, TableCell][] {
   if (c.timeToEvent !== null) {
     const k = c.timeToEvent;
     const arm = (a: typeof k.baseline): string =>
-      `${a.reached} of ${a.runs} reached (Kaplan-Meier ${a.fraction === null ? '—' : formatNumber(a.fraction, 2)}), median ${a.medianSteps === null ? 'not reached' : formatNumber(a.medianSteps, 0)} steps`;
+      `${a.reached} of ${a.runs} reached ` +
+      `(Kaplan-Meier ${a.fraction === null ? '—' : formatNumber(a.fraction, 2)}), ` +
+      `median ${a.medianSteps === null ? 'not reached' : formatNumber(a.medianSteps, 0)} steps`;
     out.push(
       ['Baseline: reached', arm(k.baseline)],
       ['Candidate: reached', arm(k.candidate)],
       [
-        `Log-rank test (decides; ${k.logRank.method === 'chi-square' ? 'chi-square, 1 df' : k.logRank.method === 'exact-permutation' ? 'exact permutation p' : 'random relabelings'})`,
-        `chi-square = ${formatNumber(k.logRank.statistic, 2)}, p = ${formatP(k.logRank.p)}; candidate reached ${formatNumber(k.logRank.observed, 0)} times, ${formatNumber(k.logRank.expected, 2)} expected`,
+        `Log-rank test (decides; ${LOG_RANK_METHOD[k.logRank.method]})`,
+        `chi-square = ${formatNumber(k.logRank.statistic, 2)}, p = ${formatP(k.logRank.p)}; ` +
+          `candidate reached ${formatNumber(k.logRank.observed, 0)} times, ` +
+          `${formatNumber(k.logRank.expected, 2)} expected`,
       ],
     );
   } else {
@@ -91,7 +103,8 @@ function quantities(r: Results, c: Comparison): [string, TableCell][] {
   if (t.paired !== undefined) {
     out.push([
       'Paired t-test (decides) and Wilcoxon signed-rank',
-      `t = ${formatNumber(t.paired.t, 2)}, df = ${formatNumber(t.paired.df, 1)}, p = ${formatP(t.paired.p)}; Wilcoxon p = ${formatP(t.paired.wilcoxonP)} (${t.paired.pairs} pairs)`,
+      `t = ${formatNumber(t.paired.t, 2)}, df = ${formatNumber(t.paired.df, 1)}, p = ${formatP(t.paired.p)}; ` +
+        `Wilcoxon p = ${formatP(t.paired.wilcoxonP)} (${t.paired.pairs} pairs)`,
     ]);
   }
   out.push(
@@ -101,10 +114,12 @@ function quantities(r: Results, c: Comparison): [string, TableCell][] {
     ],
     [
       'Mann-Whitney U',
-      `U = ${formatNumber(t.mannWhitney.u, 1)}, p = ${formatP(t.mannWhitney.p)} (${t.mannWhitney.exact ? 'exact' : 'normal approximation'})`,
+      `U = ${formatNumber(t.mannWhitney.u, 1)}, p = ${formatP(t.mannWhitney.p)} ` +
+        `(${t.mannWhitney.exact ? 'exact' : 'normal approximation'})`,
     ],
     [
-      `p adjusted (${CORRECTION[r.settings.correction]}, ${c.family.scope === 'study' ? 'all tasks' : 'this task'}: family of ${c.family.size})`,
+      `p adjusted (${CORRECTION[r.settings.correction]}, ${c.family.scope === 'study' ? 'all tasks' : 'this task'}: ` +
+        `family of ${c.family.size})`,
       formatP(c.pAdjusted),
     ],
     ['Verdict', { html: verdictHtml(c) }],
@@ -141,7 +156,8 @@ export const compare: Cell = {
       `Candidate minus baseline, in the metric's own units (summary ${summary}); each comparison at its own step; ` +
       `every statistic of each comparison is in the table below.` +
       (left > 0
-        ? ` ${left} more comparisons (inconclusive) are left out here: their rows are under All verdicts and every statistic in results.json.`
+        ? ` ${left} more comparisons (inconclusive) are left out here: their rows are under All verdicts and every ` +
+          'statistic in results.json.'
         : '');
     const chart = figureHtml(
       state,
@@ -155,8 +171,7 @@ export const compare: Cell = {
     const rows: TableCell[][] = labels.map((label, i) => [label, ...columns.map((col) => col[i]?.[1] ?? null)]);
     const head = ['', ...mine.map((c) => ({ html: comparisonTitleHtml(c) }))];
     const table = tableHtml({ className: 'compare', head, rows, numeric: mine.map((_, i) => i + 1) });
-    const cautions = groupCautions(mine).map((c) => `${cautionScope(c, (n) => n)}: ${c.line}`);
-    return chart + table + listHtml(cautions);
+    return chart + table + cautionListHtml(mine);
   },
 };
 

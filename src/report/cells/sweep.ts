@@ -3,11 +3,11 @@
  * each numeric config key (`sweepKeys`; or the one named by `key=`), the metric's summary value
  * against that key, one line per combination of the other keys, with intervals
  * (`sweepModel`, `sweepChart`) with the same numbers as a small table (folded), under a heading of
- * its own. Renders nothing when the study has no
- * numeric key or uses a task key (sweeps across tasks are not drawn). Default metric: the primary one.
+ * its own. With a task key, one panel per task (at most `SWEEP_TASKS` tasks). Renders nothing when
+ * the study has no numeric key or more tasks than that. Default metric: the primary one.
  */
 import { escapeAttr } from '../escape.js';
-import { formatNumber } from '../format.js';
+import { withInterval } from '../format.js';
 import { nameHtml, noteHtml, tableHtml, textHtml } from '../html.js';
 import { sweepChart } from '../charts/sweepChart.js';
 import { primaryMetric, sweepKeys } from '../studyShape.js';
@@ -28,11 +28,9 @@ export const sweep: Cell = {
     const given = call.hash.key;
     if (given !== undefined && (typeof given !== 'string' || !keys.includes(given))) {
       const list = keys.map(quoted).join(', ');
-      throw new CellError(
-        `key: expected a numeric config key (${list === '' ? 'this study has none' : list}), got ${quoted(String(given))}`,
-      );
+      const known = list === '' ? 'this study has none' : list;
+      throw new CellError(`key: expected a numeric config key (${known}), got ${quoted(String(given))}`);
     }
-    if (r.settings.taskKey !== null) return '';
     const figures = (given === undefined ? keys : [given])
       .map((k) => sweepModel(r, metric, summary, k))
       .filter((s) => s !== null)
@@ -48,7 +46,8 @@ export const sweep: Cell = {
     if (figures.length === 0)
       return given === undefined ? '' : noteHtml(`No values of ${metric} to draw against ${given}.`);
     const id = state.slug(`sweeps ${metric}`);
-    return `<h2 id="${escapeAttr(id)}">${textHtml(`Sweeps: ${metric}`)}</h2><div class="sweep-cell">${figures.join('')}</div>`;
+    const heading = `<h2 id="${escapeAttr(id)}">${textHtml(`Sweeps: ${metric}`)}</h2>`;
+    return `${heading}<div class="sweep-cell">${figures.join('')}</div>`;
   },
 };
 
@@ -60,14 +59,18 @@ function sweepTable(s: Sweep): string {
     ...s.xs.map((v) => {
       const p = x.points.find((q) => q.x === v);
       if (p === undefined) return null;
-      return `${formatNumber(p.mean, decimals)}${p.low === null || p.high === null ? '' : ` [${formatNumber(p.low, decimals)}, ${formatNumber(p.high, decimals)}]`}`;
+      return withInterval(p.mean, p.low, p.high, decimals);
     }),
   ]);
   const table = tableHtml({
     className: 'sweep',
-    head: [s.others.join(', ') || 'configs', ...s.xs.map((v) => `${s.key}=${v}`)],
+    head: [
+      (s.taskKey === null ? s.others : [...s.others, s.taskKey]).join(', ') || 'configs',
+      ...s.xs.map((v) => `${s.key}=${v}`),
+    ],
     rows,
     numeric: s.xs.map((_, i) => i + 1),
   });
-  return `<details class="fold"><summary>${textHtml(`The numbers of ${s.metric} against ${s.key} as a table`)}</summary>${table}</details>`;
+  const summary = textHtml(`The numbers of ${s.metric} against ${s.key} as a table`);
+  return `<details class="fold"><summary>${summary}</summary>${table}</details>`;
 }

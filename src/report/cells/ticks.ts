@@ -50,8 +50,9 @@ function verdictRanges(decided: readonly TickVerdict[]): string[] {
   });
 }
 
-function differing(t: TickCurve): string | null {
-  if (t.versusBaseline === null) return 'baseline';
+/** `compared`: some curve of the metric was compared, so the one that was not is the baseline. */
+function differing(t: TickCurve, compared: boolean): string | null {
+  if (t.versusBaseline === null) return compared ? 'baseline' : 'not compared (no single baseline config)';
   const decided = t.versusBaseline.filter((v) => v.verdict !== 'inconclusive');
   if (decided.length === 0) return 'no tick differs after Holm adjustment';
   return verdictRanges(decided).join('; ');
@@ -60,12 +61,13 @@ function differing(t: TickCurve): string | null {
 function oneMetric(state: RenderState, metric: string): string {
   const mine = state.results.ticks.filter((t) => t.metric === metric);
   if (mine.length === 0) return noteHtml(`${metric} has no per-tick values in these runs.`);
+  const compared = mine.some((t) => t.versusBaseline !== null);
   const rows: TableCell[][] = mine.map((t) => [
     { html: nameHtml(t.config) },
     t.step === null ? 'each run’s last (they differ)' : formatNumber(t.step, 0),
     `${Math.max(0, ...t.n)}${(t.diverged ?? 0) > 0 ? ` (${t.diverged ?? 0} diverged, left out)` : ''}`,
     earliest(t),
-    differing(t),
+    differing(t, compared),
   ]);
   const bands = [
     ...new Set(mine.map((t) => formatIntervalKind({ level: state.results.settings.level, method: t.band }))),
@@ -73,9 +75,14 @@ function oneMetric(state: RenderState, metric: string): string {
   const known = mine.filter((t) => t.exampleHalfWidth !== null).length;
   const examples =
     known === 0
-      ? ` The between-example spread of one evaluation (how much ${metric} would move on other examples) is not shown: the logs do not say on how many examples it was measured.`
-      : ` The dotted whiskers are the between-example spread of one evaluation, ±1 standard error √(p(1−p)/m) for m examples: a different noise, how much the number would move on other examples of the same size, not with another seed${known < mine.length ? ` (known for ${known} of ${mine.length} configs)` : ''}.`;
-  const caption = `Which noise: the ${bands} band is the spread between seeds (training the same config again), the noise the tests weigh.${examples}`;
+      ? ` The between-example spread of one evaluation (how much ${metric} would move on other examples) is not ` +
+        'shown: the logs do not say on how many examples it was measured.'
+      : ' The dotted whiskers are the between-example spread of one evaluation, ±1 standard error √(p(1−p)/m) for ' +
+        'm examples: a different noise, how much the number would move on other examples of the same size, not ' +
+        `with another seed${known < mine.length ? ` (known for ${known} of ${mine.length} configs)` : ''}.`;
+  const caption =
+    `Which noise: the ${bands} band is the spread between seeds (training the same config again), ` +
+    `the noise the tests weigh.${examples}`;
   const chart = figureHtml(state, ticksChart(state.results, metric), caption, `No tick curves of ${metric}.`);
   return (
     chart +

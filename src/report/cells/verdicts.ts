@@ -15,16 +15,9 @@ import {
   formatP,
   formatSeeds,
 } from '../format.js';
-import { listHtml, nameHtml, noteHtml, tableHtml, textHtml, type TableCell } from '../html.js';
-import {
-  cautionScope,
-  comparisonGroups,
-  groupCautions,
-  goalWords,
-  sharedIntervalKind,
-  standardCaution,
-  VERDICT_LABELS,
-} from '../verdictWords.js';
+import { nameHtml, noteHtml, tableHtml, textHtml, type TableCell } from '../html.js';
+import { cautionListHtml } from '../cautionGroups.js';
+import { comparisonGroups, goalWords, sharedIntervalKind, standardCaution, VERDICT_LABELS } from '../verdictWords.js';
 import { metricParam, type Cell } from './cell.js';
 
 const CORRECTION_HEAD = { holm: 'p (Holm)', bh: 'p (BH)', none: 'p (unadjusted)' } as const;
@@ -56,41 +49,40 @@ export function verdictHtml(c: Comparison): string {
 function rows(
   results: Results,
   metric: string | undefined,
-): { rows: TableCell[][]; classes: string[]; cautions: string[]; withTask: boolean; interval: string | null } {
+): { rows: TableCell[][]; classes: string[]; cautions: string; withTask: boolean; interval: string | null } {
   const groups = comparisonGroups(results, metric);
   const all = groups.flatMap((g) => g.comparisons);
   const interval = sharedIntervalKind(all);
   const withTask = groups.some((g) => g.task !== null);
   const out: TableCell[][] = [];
   const classes: string[] = [];
-  const cautions: string[] = [];
   for (const g of groups) {
+    // The baseline is said once per group when the group has one (else beside each candidate).
+    const baselines = new Set(g.comparisons.map((c) => c.baseline));
+    const shared = baselines.size === 1 ? (g.comparisons[0]?.baseline ?? null) : null;
     g.comparisons.forEach((c, i) => {
       const d = comparisonDecimals(c);
       const goal = goalWords(g.goal, g.goalSource);
+      const words = [goal, `summary ${g.summary}`, familyWords(c)].map(textHtml).join(';<br>');
+      const against = shared === null ? '' : `<br><span class="small">against</span> ${nameHtml(shared)}`;
       const metricCell: TableCell =
-        i === 0
-          ? {
-              html: `${nameHtml(g.metric)}<br><span class="small">${textHtml(goal)};<br>${textHtml(`summary ${g.summary}`)};<br>${textHtml(familyWords(c))}</span>`,
-            }
-          : { html: '' };
+        i === 0 ? { html: `${nameHtml(g.metric)}<br><span class="small">${words}</span>${against}` } : { html: '' };
+      const versus = shared === null ? `<br><span class="small">v</span> ${nameHtml(c.baseline)}` : '';
       const difference =
         formatDifference(c.difference, d) + (interval === null ? ` (${formatIntervalKind(c.difference)})` : '');
       out.push([
         metricCell,
         ...(withTask ? [c.task === null ? null : { html: nameHtml(c.task) }] : []),
-        { html: nameHtml(c.baseline) },
-        { html: nameHtml(c.candidate) },
+        { html: `${nameHtml(c.candidate)} ${verdictHtml(c)}${versus}` },
         c.step === null ? null : formatNumber(c.step, 0),
         difference,
         formatP(c.pAdjusted),
-        { html: verdictHtml(c) },
         formatSeeds(c, results.settings.failed),
       ]);
       classes.push(i === 0 ? `row-${c.verdict} group-start` : `row-${c.verdict}`);
     });
-    for (const c of groupCautions(g.comparisons)) cautions.push(`${g.metric}, ${cautionScope(c, (n) => n)}: ${c.line}`);
   }
+  const cautions = cautionListHtml(all, new Set(all.map((c) => c.metric)).size > 1);
   return { rows: out, classes, cautions, withTask, interval };
 }
 
@@ -116,16 +108,14 @@ export const verdicts: Cell = {
       );
     }
     const head = [
-      'Metric',
+      'Metric and baseline',
       ...(t.withTask ? ['Task'] : []),
-      'Baseline',
-      'Candidate',
+      'Candidate and verdict',
       'Step',
       {
         html: `${textHtml(t.interval === null ? 'Difference [interval]' : `Difference [${t.interval}]`)}<br>${textHtml('unadjusted')}`,
       },
       CORRECTION_HEAD[r.settings.correction],
-      'Verdict',
       'Seeds',
     ];
     const offset = t.withTask ? 1 : 0;
@@ -133,10 +123,10 @@ export const verdicts: Cell = {
       className: 'verdicts',
       head,
       rows: t.rows,
-      numeric: [3 + offset, 4 + offset, 5 + offset],
+      numeric: [2 + offset, 3 + offset, 4 + offset],
       rowClasses: t.classes,
     });
     const lead = `Candidate minus baseline on per-run values, each comparison at its own step; verdict at alpha ${r.settings.alpha} on the adjusted p of the test named under it. The interval is unadjusted (${formatLevel(r.settings.level)}): the verdict, not the interval, accounts for the family.`;
-    return `<div class="verdicts-cell">${noteHtml(lead, 'lead')}${table}${listHtml(t.cautions)}${noteHtml(standardCaution(r.settings.alpha), 'caution')}</div>`;
+    return `<div class="verdicts-cell">${noteHtml(lead, 'lead')}${table}${t.cautions}${noteHtml(standardCaution(r.settings.alpha), 'caution')}</div>`;
   },
 };

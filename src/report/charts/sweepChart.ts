@@ -4,7 +4,8 @@
  * bar. The key's axis is linear, or logarithmic (base 2) when its values are positive and span a
  * factor of 8 or more (tick counts and widths usually double). With more than 8 lines, the other
  * key with fewest values (at most 6) splits the chart into side-by-side panels sharing the y axis,
- * and colour tells the remaining keys apart.
+ * and colour tells the remaining keys apart. With a task key, one panel per task, each with its own
+ * y axis (tasks have their own scales).
  */
 import type { TopLevelSpec } from 'vega-lite';
 import { CHART_CONFIG, CONFIG_COLOURS, CONFIG_LEGEND } from '../palette.js';
@@ -26,10 +27,11 @@ export function sweepChart(sweep: Sweep): TopLevelSpec | null {
   for (const s of sweep.series)
     for (const [k, v] of Object.entries(s.params)) values.set(k, (values.get(k) ?? new Set()).add(v));
   const panelKey =
-    sweep.series.length > LINES_PER_PANEL
+    sweep.taskKey ??
+    (sweep.series.length > LINES_PER_PANEL
       ? ([...values].filter(([, vs]) => vs.size > 1 && vs.size <= 6).sort((a, b) => a[1].size - b[1].size)[0]?.[0] ??
         null)
-      : null;
+      : null);
   const colourKeys = sweep.others.filter((k) => k !== panelKey);
   const rows = sweep.series.flatMap((s) =>
     s.points.map((p) => ({
@@ -84,15 +86,23 @@ export function sweepChart(sweep: Sweep): TopLevelSpec | null {
   ];
   const panels = panelKey === null ? 1 : new Set(rows.map((r) => r.panel)).size;
   const width = panelKey === null ? 480 : Math.max(140, Math.floor(760 / panels) - 20);
+  const perLine = colourKeys.join(', ') || 'config';
+  const perPanel = panelKey === null ? '' : `one panel per ${panelKey}`;
+  const ownAxis = sweep.taskKey === null ? '' : ', each with its own axis';
+  const interval = intervalLabel(sweep.method, sweep.level);
   const head = {
     $schema: VEGA_LITE_SCHEMA,
-    description: `${sweep.metric} against ${sweep.key}: mean across seeds with its interval, one line per ${colourKeys.join(', ') || 'config'}${panelKey === null ? '' : `, one panel per ${panelKey}`}.`,
+    description: `${sweep.metric} against ${sweep.key}: mean across seeds with its interval, one line per ${perLine}${
+      panelKey === null ? '' : `, ${perPanel}`
+    }.`,
     title: {
       text: `${sweep.metric} against ${sweep.key}`,
       subtitle: wrapLines(
         [
-          `Points: mean across seeds of each config's ${sweep.summary} value; bars: its ${intervalLabel(sweep.method, sweep.level)} (between seeds).`,
-          `One line per ${colourKeys.join(', ') || 'config'}${panelKey === null ? '' : `; one panel per ${panelKey}`}${log ? `; ${sweep.key} on a doubling scale` : ''}.`,
+          `Points: mean across seeds of each config's ${sweep.summary} value; bars: its ${interval} (between seeds).`,
+          `One line per ${perLine}${panelKey === null ? '' : `; ${perPanel}${ownAxis}`}${
+            log ? `; ${sweep.key} on a doubling scale` : ''
+          }.`,
         ],
         90,
       ),
@@ -105,6 +115,6 @@ export function sweepChart(sweep: Sweep): TopLevelSpec | null {
     ...head,
     facet: { column: { field: 'panel', type: 'nominal', title: null, header: { labelFontSize: 11 } } },
     spec: { width, height: 200, layer },
-    resolve: { scale: { y: 'shared' } },
+    resolve: { scale: { y: sweep.taskKey === null ? 'shared' : 'independent' } },
   } as unknown as TopLevelSpec;
 }

@@ -116,7 +116,7 @@ describe('a digest keeps a RunSet exactly', () => {
     'is one ZSTD Parquet file with the marker, one number per row in the documented layout (read with plain ' +
       'DuckDB)',
     async () => {
-      const set = await ingest(['sample-runs/ticks=8'], none);
+      const set = await ingest(['sample-runs/task=count/ticks=8'], none);
       const { file, back } = await roundTrip(set);
       const f = `'${file}'`;
       expect(
@@ -239,7 +239,14 @@ describe('a digest keeps a RunSet exactly', () => {
           },
         ],
         files: [
-          { file: 'r/1.csv', status: 'read', rows: 3, rejectedRows: 1, runs: [`a"b=x'y,ünï=1,2,seed=7`], kind: 'log' },
+          {
+            file: 'r/1.csv',
+            status: 'read',
+            rows: 3,
+            rejectedRows: 1,
+            runs: [`a"b=x'y,ünï=1,2,seed=7`],
+            kind: 'log',
+          },
         ],
         problems: [
           problem('step-invalid', 'row 2: step is "x"', { file: 'r/1.csv', line: 3, run: `a"b=x'y,ünï=1,2,seed=7` }),

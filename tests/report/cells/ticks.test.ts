@@ -21,32 +21,39 @@ describe('{{ticks}}', () => {
   it('says the band is between seeds and the whiskers between examples when m is known', async () => {
     const text = textOf(await renderCells('{{ticks}}', sampleResults()));
     expect(text).toContain(
-      'Which noise: the 95% t-interval band is the spread between seeds (training the same config again), the noise the tests weigh.',
+      'Which noise: the 95% t-interval band is the spread between seeds (training the same config again), the ' +
+        'noise the tests weigh.',
     );
     expect(text).toContain(
-      'The dotted whiskers are the between-example spread of one evaluation, ±1 standard error √(p(1−p)/m) for m examples',
+      'The dotted whiskers are the between-example spread of one evaluation, ±1 standard error √(p(1−p)/m) for ' +
+        'm examples',
     );
   });
 
-  it('says the between-example spread is not known when no config has it, and for how many configs when some have it', async () => {
-    const none = textOf(
-      await renderCells(
-        '{{ticks}}',
-        withTicks(sampleResults(), (t) => ({ ...t, exampleHalfWidth: null })),
-      ),
-    );
-    expect(none).toContain(
-      'The between-example spread of one evaluation (how much tick_acc would move on other examples) is not shown: the logs do not say on how many examples it was measured.',
-    );
-    expect(none).not.toContain('whiskers');
-    const some = textOf(
-      await renderCells(
-        '{{ticks}}',
-        withTicks(sampleResults(), (t, k) => (k === 0 ? t : { ...t, exampleHalfWidth: null })),
-      ),
-    );
-    expect(some).toContain('(known for 1 of 3 configs)');
-  });
+  it(
+    'says the between-example spread is not known when no config has it, and for how many configs when some ' +
+      'have it',
+    async () => {
+      const none = textOf(
+        await renderCells(
+          '{{ticks}}',
+          withTicks(sampleResults(), (t) => ({ ...t, exampleHalfWidth: null })),
+        ),
+      );
+      expect(none).toContain(
+        'The between-example spread of one evaluation (how much tick_acc would move on other examples) is not ' +
+          'shown: the logs do not say on how many examples it was measured.',
+      );
+      expect(none).not.toContain('whiskers');
+      const some = textOf(
+        await renderCells(
+          '{{ticks}}',
+          withTicks(sampleResults(), (t, k) => (k === 0 ? t : { ...t, exampleHalfWidth: null })),
+        ),
+      );
+      expect(some).toContain('(known for 1 of 3 configs)');
+    },
+  );
 
   it('gives consecutive ticks with one verdict as a range, with the largest adjusted p', async () => {
     const results = withTicks(sampleResults(), (t, k) =>
@@ -72,9 +79,21 @@ describe('{{ticks}}', () => {
     const r = rows(await renderCells('{{ticks}}', results));
     expect(r[0]).toContain('baseline');
     expect(r[1]).toContain(
-      'worse at ticks 0–2 (adjusted p < 0.001 at each); better at ticks 4–5 (adjusted p ≤ 0.012 at each); worse at ticks 6–7 (adjusted p ≤ 0.030 at each)',
+      'worse at ticks 0–2 (adjusted p < 0.001 at each); better at ticks 4–5 (adjusted p ≤ 0.012 at each); ' +
+        'worse at ticks 6–7 (adjusted p ≤ 0.030 at each)',
     );
     expect(r[2]).toContain('no tick differs after Holm adjustment');
+  });
+
+  it('says "not compared" rather than "baseline" when no curve was compared (no single baseline config)', async () => {
+    const base = sampleResults();
+    const results = { ...base, ticks: base.ticks.map((t) => ({ ...t, versusBaseline: null })) };
+    const r = rows(await renderCells('{{ticks}}', results));
+    expect(r.length).toBeGreaterThan(0);
+    for (const row of r) {
+      expect(row).toContain('not compared (no single baseline config)');
+      expect(row).not.toMatch(/ baseline$/);
+    }
   });
 
   it('says when runs were read at different steps', async () => {
