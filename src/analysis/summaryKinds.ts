@@ -160,7 +160,7 @@ export const SUMMARY_KINDS: { readonly [K in SummaryKind]: SummaryKindEntry<K> }
       `the last logged value at or before step ${spec.step}; a run that ends before step ${spec.step} has no value (it is short for this comparison)`,
     goal: (g) => g,
     timeToEvent: false,
-    compute: (s, spec, _goal, w) => {
+    compute: (s, spec) => {
       const last = s.steps[s.steps.length - 1] as number;
       if (last < spec.step) {
         return {

@@ -277,7 +277,9 @@ function detectableOf(x: Float64Array, y: Float64Array, alpha: number, cache: Po
 /** Values of the seeds present in both arms, in the candidate's order: x candidate, y baseline. */
 function pairedArms(base: Arm, cand: Arm): { x: Float64Array; y: Float64Array } {
   const bySeed = new Map<string, number>();
-  base.seeds.forEach((seed, i) => bySeed.set(seed, base.values[i] as number));
+  base.seeds.forEach((seed, i) => {
+    bySeed.set(seed, base.values[i] as number);
+  });
   const x: number[] = [];
   const y: number[] = [];
   cand.seeds.forEach((seed, i) => {

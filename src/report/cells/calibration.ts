@@ -23,7 +23,7 @@ export const calibration: Cell = {
   usage: '{{calibration}}',
   arity: [0, 0],
   options: [],
-  render(state, call) {
+  render(state) {
     const r = state.results;
     if (r.calibration.length === 0) return noteHtml(NO_TICK_DATA.calibration);
     const level = formatLevel(r.settings.level);

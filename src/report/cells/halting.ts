@@ -36,7 +36,7 @@ export const halting: Cell = {
   usage: '{{halting}}',
   arity: [0, 0],
   options: [],
-  render(state, call) {
+  render(state) {
     const r = state.results;
     if (r.halting.length === 0) return noteHtml(NO_TICK_DATA.halting);
     const level = formatLevel(r.settings.level);

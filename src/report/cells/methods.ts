@@ -78,7 +78,7 @@ export const methods: Cell = {
   usage: '{{methods}}',
   arity: [0, 0],
   options: [],
-  render(state, call) {
+  render(state) {
     const r = state.results;
     const caution =
       `${standardCaution(r.settings.alpha)} With 3 seeds per arm no rank or permutation test can reach p < 0.05 at all (the smallest two-sided p is 2/C(6,3) = 0.1); ` +

@@ -10,7 +10,7 @@ import type { Comparison, Results } from '../../analysis/results.js';
 import { escapeAttr, visibleText } from '../escape.js';
 import { comparisonDecimals, formatDifference, formatP } from '../format.js';
 import { nameHtml, noteHtml, tableHtml, textHtml, type TableCell } from '../html.js';
-import { countsWords, familyWords, overviewModel, type OverviewModel, type OverviewRow } from '../overviewModel.js';
+import { familyWords, overviewModel, type OverviewModel, type OverviewRow } from '../overviewModel.js';
 import { goalWords, sharedIntervalKind, VERDICT_LABELS } from '../verdictWords.js';
 import { metricParam, summaryOption, type Cell } from './cell.js';
 

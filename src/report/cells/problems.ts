@@ -87,7 +87,7 @@ export const problems: Cell = {
   usage: '{{problems}}',
   arity: [0, 0],
   options: [],
-  render(state, call) {
+  render(state) {
     const list = state.results.problems
       .map((p, i) => ({ p, i }))
       .sort((a, b) => ORDER[a.p.severity] - ORDER[b.p.severity] || a.i - b.i)

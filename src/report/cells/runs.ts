@@ -60,7 +60,7 @@ export const runs: Cell = {
   usage: '{{runs}}',
   arity: [0, 0],
   options: [],
-  render(state, call) {
+  render(state) {
     const r = state.results;
     if (r.runs.length === 0) return noteHtml('No runs were read.');
     const routine = routineByRun(r);
