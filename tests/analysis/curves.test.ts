@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { learningCurves, stepGrid } from '../../src/analysis/curves.js';
 import { runSet, series, type RunSpec } from './runSetBuilder.js';
+import { at } from '../support/at.js';
 
 const settings = {
   bins: 400,
@@ -53,16 +54,16 @@ describe('learningCurves', () => {
     const specs: RunSpec[] = [];
     // 4 runs with these values in one bin; scipy 1.10.1 stats.t.interval(0.95, 3, mean, sem) of
     // [0.61, 0.64, 0.58, 0.66] is (0.5668071896575351, 0.678192810342465) to 1e-14 (tests/reference/analysis_reference.py)
-    [0.61, 0.64, 0.58, 0.66].forEach((v, i) =>
-      specs.push({ params: { m: 'small' }, seed: i, metrics: { acc: { steps: [0], values: [v] } } }),
-    );
+    [0.61, 0.64, 0.58, 0.66].forEach((v, i) => {
+      specs.push({ params: { m: 'small' }, seed: i, metrics: { acc: { steps: [0], values: [v] } } });
+    });
     // 20 runs over steps 0 and 10; the 20th stops at step 0, so step 10 has 19 runs
     for (let i = 0; i < 20; i++) {
       const v = [0.5 + i / 100, 0.6 + ((i * 7) % 20) / 100];
       specs.push({
         params: { m: 'big' },
         seed: i,
-        metrics: { acc: i === 19 ? { steps: [0], values: [v[0]!] } : { steps: [0, 10], values: v } },
+        metrics: { acc: i === 19 ? { steps: [0], values: [at(v, 0)] } : { steps: [0, 10], values: v } },
       });
     }
     const set = runSet(['m'], specs, [{ name: 'acc', goal: 'max' }]);

@@ -17,7 +17,9 @@ describe('seedsNeeded', () => {
     const expected = [
       0.07684904996035868, 0.10768598982105744, 0.18509565629118482, 0.33793902869253206, 0.696893405561745,
     ];
-    r.powerAt.forEach((row, i) => expect(row.power).toBeCloseTo(expected[i] as number, 8));
+    r.powerAt.forEach((row, i) => {
+      expect(row.power).toBeCloseTo(expected[i] as number, 8);
+    });
     expect(r.standardized).toBe(0.5);
     expect(r.effect).toBe(-0.5);
   });

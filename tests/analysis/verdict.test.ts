@@ -7,12 +7,14 @@ describe('adjustFamily', () => {
     const p = [0.01, null, 0.04, 0.03, 0.005, 0.2, 0.03];
     const holm = adjustFamily(p, 'holm');
     const bh = adjustFamily(p, 'bh');
-    [0.05, null, 0.12, 0.12, 0.03, 0.2, 0.12].forEach((v, i) =>
-      v === null ? expect(holm[i]).toBeNull() : expect(holm[i]).toBeCloseTo(v, 12),
-    );
-    [0.03, null, 0.048, 0.045, 0.03, 0.2, 0.045].forEach((v, i) =>
-      v === null ? expect(bh[i]).toBeNull() : expect(bh[i]).toBeCloseTo(v, 12),
-    );
+    [0.05, null, 0.12, 0.12, 0.03, 0.2, 0.12].forEach((v, i) => {
+      if (v === null) expect(holm[i]).toBeNull();
+      else expect(holm[i]).toBeCloseTo(v, 12);
+    });
+    [0.03, null, 0.048, 0.045, 0.03, 0.2, 0.045].forEach((v, i) => {
+      if (v === null) expect(bh[i]).toBeNull();
+      else expect(bh[i]).toBeCloseTo(v, 12);
+    });
     expect(adjustFamily(p, 'none')).toEqual(p);
   });
 });
