@@ -90,7 +90,9 @@ export interface RunValue {
   readonly config: string;
   readonly seed: string;
   readonly value: number | null;
-  /** The step the config's values are taken at: the last step all its non-failed runs reached (null for score tables). */
+  /**
+   * The step the config's values are taken at: the last step all its non-failed runs reached (null for score tables).
+   */
   readonly step: number | null;
   /** The step the value was logged at. */
   readonly loggedAt: number | null;
@@ -187,7 +189,10 @@ export interface TickCurve {
         readonly verdict: Verdict;
       }[]
     | null;
-  /** Runs of this config left out because they diverged (status `diverged`); `n` counts the runs used. Always set by `tickCurves`. */
+  /**
+   * Runs of this config left out because they diverged (status
+   * `diverged`); `n` counts the runs used. Always set by `tickCurves`.
+   */
   readonly diverged?: number;
 }
 
@@ -259,7 +264,10 @@ export interface Results {
   readonly configValues: readonly ConfigValue[];
   readonly comparisons: readonly Comparison[];
   readonly curves: readonly Curve[];
-  /** Set in results.json only: curves written on a coarser grid (every k-th bin, at most maxPoints), or the full grid (null). */
+  /**
+   * Set in results.json only: curves written on a coarser grid
+   * (every k-th bin, at most maxPoints), or the full grid (null).
+   */
   readonly curveGrid?: { readonly maxPoints: number | null; readonly coarsened: boolean };
   readonly tasks: readonly TaskAggregate[];
   readonly ticks: readonly TickCurve[];

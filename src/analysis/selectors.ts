@@ -18,7 +18,8 @@ export interface Selector {
  * Parse `key=value[,key=value]`. Whitespace around keys and values is trimmed; a value may hold
  * further `=` signs (the first one splits). Throws SeedsiftError('usage') naming the option on an
  * empty selector, a pair without `=`, an empty key or value, a repeated key, or the key `seed`.
- * Example: `parseSelector('memory=4,ticks=8').pairs` is `[{ key: 'memory', value: '4' }, { key: 'ticks', value: '8' }]`.
+ * Example: `parseSelector('memory=4,ticks=8').pairs` is
+ * `[{ key: 'memory', value: '4' }, { key: 'ticks', value: '8' }]`.
  */
 export function parseSelector(text: string, option = '--baseline'): Selector {
   const expected = `${option}: expected key=value[,key=value]`;

@@ -192,7 +192,9 @@ export function simultaneousBounds(d: TwoSampleDraft, alpha: number, m: number):
   }
 }
 
-/** The headline interval (Welch, or BCa under `--interval bca` from 4 runs per arm) and BCa beside from `bootstrapFrom`. */
+/**
+ * The headline interval (Welch, or BCa under `--interval bca` from 4 runs per arm) and BCa beside from `bootstrapFrom`.
+ */
 function headline(
   x: Float64Array,
   y: Float64Array,

@@ -69,7 +69,9 @@ export function comparisonDecimals(c: Comparison): number {
 /**
  * A difference with its interval, `+1.71 [0.06, 3.37]`, or the estimate alone when the interval
  * is missing.
- * Cost O(1). Never throws. Example: `formatDifference({ estimate: 1.714, low: 0.0575, high: 3.371, level: 0.95, method: 'welch-t' }, 2)` → `'+1.71 [0.06, 3.37]'`.
+ * Cost O(1). Never throws. Example:
+ * `formatDifference({ estimate: 1.714, low: 0.0575, high: 3.371, level: 0.95, method: 'welch-t' }, 2)`
+ * → `'+1.71 [0.06, 3.37]'`.
  */
 export function formatDifference(d: Difference, decimals: number): string {
   const estimate = formatSigned(d.estimate, decimals);

@@ -25,7 +25,8 @@ const IDENTIFIER = /^[A-Za-z_$][\w$]*$/;
  * `vega-util` import of plain names and one `expressionInterpreter` export and no other import or
  * export statement (a different build; seedsift must then be updated, not guess).
  * Example: `interpreterScript("import { a } from 'vega-util';\nconst e = {};\nexport { e as expressionInterpreter };")`
- * → `"(function (vega) {\n'use strict';\nif (...) throw ...;\nvar a = vega.a;\n...window.vegaInterpreter = e;\n})(vega);\n"`.
+ * → `"(function (vega) {\n'use strict';\nif (...) throw ...;\n" +`
+ * `"var a = vega.a;\n...window.vegaInterpreter = e;\n})(vega);\n"`.
  */
 export function interpreterScript(moduleText: string): string {
   const imports = moduleText.match(new RegExp(IMPORT.source, 'gm')) ?? [];

@@ -156,7 +156,8 @@ export function sweepLines(results: Results, metric: string, summary: string): s
 /**
  * The overview lines of summary.md (empty when nothing was compared).
  * Cost O(comparisons log comparisons + configs). Never throws.
- * Example: demo results → `['### Overview: val_acc', '', 'val_acc (higher is better, ...): 4 better, 0 worse, 1 inconclusive ...', ...]`.
+ * Example: demo results →
+ * `['### Overview: val_acc', '', 'val_acc (higher is better, ...): 4 better, 0 worse, 1 inconclusive ...', ...]`.
  */
 export function overviewMarkdown(results: Results): string[] {
   const model = overviewModel(results);

@@ -36,7 +36,8 @@ export interface OverviewModel {
 /**
  * The overview of `metric` (default: `primaryMetric`) under `summary` (default: the report's).
  * Rows: one per candidate (per pair without a baseline), ordered by their decided comparisons of
- * the metric (most decided first), then by their smallest adjusted p, ties in `Results` order. Null when nothing of that metric was compared.
+ * the metric (most decided first), then by their smallest adjusted p,
+ * ties in `Results` order. Null when nothing of that metric was compared.
  * Cost O(comparisons log comparisons). Never throws.
  * Example: demo results → metric val_acc, mode 'metrics', 5 rows, counts { better: 4, worse: 0, inconclusive: 1 }.
  */

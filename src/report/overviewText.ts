@@ -26,7 +26,9 @@ function line(c: Comparison, sharedBaseline: boolean, width: number): string {
 /**
  * The overview text, ending in a newline; '' when nothing was compared.
  * Cost O(comparisons log comparisons). Never throws.
- * Example: demo results → `'val_acc (higher is better; summary final) against ticks=8,memory=4: 4 better, 0 worse, 1 inconclusive\n  p-values Holm-adjusted ...\n  ▲ better       ticks=32,memory=12  +0.0505 [0.0381, 0.0630]  p < 0.001\n...'`.
+ * Example: demo results →
+ * `'val_acc (higher is better; summary final) against ticks=8,memory=4: 4 better, 0 worse, 1 inconclusive\n' +`
+ * `'  p-values Holm-adjusted ...\n  ▲ better       ticks=32,memory=12  +0.0505 [0.0381, 0.0630]  p < 0.001\n...'`.
  */
 export function overviewText(results: Results): string {
   const model = overviewModel(results);

@@ -57,7 +57,8 @@ export interface RenderedNotebook {
  * compile and one headless Vega run.
  * Throws SeedsiftError('notebook') with file and line for template mistakes; rethrows chart
  * rendering errors (a bug, not a user mistake).
- * Example: `await renderNotebook(results, parseNotebook('{{verdicts}}', 'n.md'), 'Study')` → `{ html: '<div class="verdicts-cell">...', charts: 0 }`.
+ * Example: `await renderNotebook(results, parseNotebook('{{verdicts}}', 'n.md'), 'Study')`
+ * → `{ html: '<div class="verdicts-cell">...', charts: 0 }`.
  */
 export async function renderNotebook(
   results: Results,

@@ -107,7 +107,8 @@ export async function renderSvgWithWarnings(
 /**
  * Render a Vega-Lite spec to deterministic, accessible SVG text (see the module comment).
  * Throws as `renderSvgWithWarnings`.
- * Example: `await renderSvg(curvesChart(results, 'val_acc')!)` → `'<svg xmlns=... role="graphics-document document" ...'`.
+ * Example: `await renderSvg(curvesChart(results, 'val_acc')!)`
+ * → `'<svg xmlns=... role="graphics-document document" ...'`.
  */
 export async function renderSvg(spec: TopLevelSpec): Promise<string> {
   return (await renderSvgWithWarnings(spec)).svg;

@@ -180,7 +180,8 @@ describe('diverged runs', () => {
 });
 
 describe('--paired and --margin', () => {
-  // scipy 1.10.1 (tests/reference/analysis_reference.py): ttest_rel(P1, P0) t 3.362691229906825, df 5, p 0.0200489220167276,
+  // scipy 1.10.1 (tests/reference/analysis_reference.py):
+  // ttest_rel(P1, P0) t 3.362691229906825, df 5, p 0.0200489220167276,
   // wilcoxon exact p 0.0625. Interval (0.16489071939106448, 1.2351092806089412) with the exact t quantile
   // (mpmath, 40 digits); scipy 1.10.1's ttest_rel interval is 2.0e-10 off (its t.ppf(.975, 5) is 9.8e-10 high).
   const P1 = [71.2, 69.8, 73.1, 70.4, 72.0, 70.9];

@@ -53,7 +53,8 @@ describe('learningCurves', () => {
   it('band: t-interval of the mean at every n by default (scipy t.interval); BCa from 4 runs under --interval bca', () => {
     const specs: RunSpec[] = [];
     // 4 runs with these values in one bin; scipy 1.10.1 stats.t.interval(0.95, 3, mean, sem) of
-    // [0.61, 0.64, 0.58, 0.66] is (0.5668071896575351, 0.678192810342465) to 1e-14 (tests/reference/analysis_reference.py)
+    // [0.61, 0.64, 0.58, 0.66] is (0.5668071896575351, 0.678192810342465)
+    // to 1e-14 (tests/reference/analysis_reference.py)
     [0.61, 0.64, 0.58, 0.66].forEach((v, i) => {
       specs.push({ params: { m: 'small' }, seed: i, metrics: { acc: { steps: [0], values: [v] } } });
     });

@@ -3,7 +3,8 @@ import { adjustFamily, decideVerdict } from '../../src/analysis/verdict.js';
 
 describe('adjustFamily', () => {
   it('Holm and Benjamini-Hochberg on the METHODS.md check values, nulls left out', () => {
-    // METHODS.md: Holm on [.01, .04, .03, .005, .2, .03] is [.05, .12, .12, .03, .2, .12]; BH [.03, .048, .045, .03, .2, .045]
+    // METHODS.md: Holm on [.01, .04, .03, .005, .2, .03] is [.05,
+    // .12, .12, .03, .2, .12]; BH [.03, .048, .045, .03, .2, .045]
     const p = [0.01, null, 0.04, 0.03, 0.005, 0.2, 0.03];
     const holm = adjustFamily(p, 'holm');
     const bh = adjustFamily(p, 'bh');

@@ -12,7 +12,9 @@ import { ingest } from '../../src/ingest/ingest.js';
 import { none } from '../fixtures/ingest/tree.js';
 import { type StudySpec, writeStudy } from './studyGenerator.js';
 
-/** Generate `spec`, read it and analyse it with `options` (resamples kept low: these tests read layout, not intervals). */
+/**
+ * Generate `spec`, read it and analyse it with `options` (resamples kept low: these tests read layout, not intervals).
+ */
 export async function studyResults(spec: StudySpec, options: ReportOptions): Promise<Results> {
   const dir = mkdtempSync(join(tmpdir(), 'seedsift-study-'));
   writeStudy(dir, spec);

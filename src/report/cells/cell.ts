@@ -44,7 +44,10 @@ export interface Cell {
   readonly arity: readonly [number, number];
   /** Allowed `key=value` options. */
   readonly options: readonly string[];
-  /** Build the cell's HTML (arity and options already checked). Throws CellError on a bad argument (the caller adds file and line). */
+  /**
+   * Build the cell's HTML (arity and options already checked). Throws
+   * CellError on a bad argument (the caller adds file and line).
+   */
   render(state: RenderState, call: CellCall): string;
 }
 

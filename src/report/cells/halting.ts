@@ -25,7 +25,10 @@ function interval(
   return `${formatNumber(x.mean, decimals)}${band}`;
 }
 
-/** ±1 between-example standard error of an accuracy p measured on m samples, or null when either is missing or out of range. */
+/**
+ * ±1 between-example standard error of an accuracy p measured
+ * on m samples, or null when either is missing or out of range.
+ */
 function exampleSe(p: number | null | undefined, m: number): string | null {
   if (p === null || p === undefined || !(p >= 0 && p <= 1) || !Number.isInteger(m) || m < 1) return null;
   return formatNumber(binomialHalfWidth(p, m), 3);

@@ -1,6 +1,7 @@
 /**
  * `{{metric "val_acc"}}`: a section heading for one metric, with its goal (and whether the goal
- * was given or guessed, so a wrong guess is visible), the step range and the step its comparisons are made at (when they share one).
+ * was given or guessed, so a wrong guess is visible), the step range
+ * and the step its comparisons are made at (when they share one).
  * A heading written by a cell keeps a metric name from being read as Markdown (`*`, `_`, `[`).
  */
 import { formatNumber } from '../format.js';
