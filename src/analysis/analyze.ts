@@ -86,7 +86,9 @@ export function analyze(
     problems.push(
       problem(
         'arm-keys',
-        `counterparts for --baseline ${options.baseline?.text ?? ''} were matched ignoring ${pairing.armKeys.join(', ')}: their values change only with ${options.baseline?.pairs.map((p) => p.key).join(', ') ?? ''} (attributes of the arm)`,
+        `counterparts for --baseline ${options.baseline?.text ?? ''} were matched ` +
+          `ignoring ${pairing.armKeys.join(', ')}: their values change only ` +
+          `with ${options.baseline?.pairs.map((p) => p.key).join(', ') ?? ''} (attributes of the arm)`,
       ),
     );
   for (const m of pairing.missing) {
@@ -94,7 +96,8 @@ export function analyze(
     problems.push(
       problem(
         'counterpart-missing',
-        `${m.config}${where} has no counterpart ${m.counterpart} for --baseline ${options.baseline?.text ?? ''}; it is not compared`,
+        `${m.config}${where} has no counterpart ${m.counterpart} for ` +
+          `--baseline ${options.baseline?.text ?? ''}; it is not compared`,
       ),
     );
   }

@@ -151,7 +151,8 @@ export function metricValues(
     problems.push(
       problem(
         'summary-censored',
-        `${metric} (${summary}): ${censored} of ${summarised} runs had not reached ${spec.value} by their comparison's step; they are censored there and kept in the log-rank test (never dropped)`,
+        `${metric} (${summary}): ${censored} of ${summarised} runs had not reached ${spec.value} by their ` +
+          `comparison's step; they are censored there and kept in the log-rank test (never dropped)`,
       ),
     );
   }
@@ -159,7 +160,8 @@ export function metricValues(
     problems.push(
       problem(
         'summary-optimistic',
-        `${metric} (best): the best checkpoint is chosen on the same evaluation it is scored on, so it is optimistic; prefer final or last:P% for claims`,
+        `${metric} (best): the best checkpoint is chosen on the same evaluation it is scored on, so it is ` +
+          `optimistic; prefer final or last:P% for claims`,
       ),
     );
   }

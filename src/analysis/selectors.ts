@@ -65,14 +65,16 @@ export function checkSelector(
     if (key === taskKey) {
       throw new SeedsiftError(
         'usage',
-        `${option}: '${key}' is the task key (--task-key); comparisons already run per task, name other keys, got '${selector.text}'`,
+        `${option}: '${key}' is the task key (--task-key); comparisons already run per task, name other keys, ` +
+          `got '${selector.text}'`,
       );
     }
     if (!keys.includes(key)) {
       const available = keys.filter((k) => k !== taskKey);
       throw new SeedsiftError(
         'usage',
-        `${option}: no config key '${key}'; keys are ${available.length === 0 ? '(none)' : available.join(', ')}; ${didYouMean(key, available)}`,
+        `${option}: no config key '${key}'; keys ` +
+          `are ${available.length === 0 ? '(none)' : available.join(', ')}; ${didYouMean(key, available)}`,
       );
     }
   }

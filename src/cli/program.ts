@@ -34,7 +34,8 @@ function oneLine(command: string): (text: string, write: (text: string) => void)
 export function buildProgram(io: Io, done: (code: number) => void): Command {
   const program = new Command('seedsift')
     .description(
-      "Does a change beat seed noise? Reads many runs' per-step logs, tests configurations against each other, and writes a self-contained report.",
+      "Does a change beat seed noise? Reads many runs' per-step logs, tests configurations against each other, " +
+        'and writes a self-contained report.',
     )
     .version(version(), '-V, --version')
     .option('--debug', 'show the stack trace of an error')

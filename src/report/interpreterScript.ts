@@ -33,7 +33,8 @@ export function interpreterScript(moduleText: string): string {
   const exports = moduleText.match(new RegExp(EXPORT.source, 'gm')) ?? [];
   if (imports.length !== 1 || exports.length !== 1) {
     throw new Error(
-      `vega-interpreter: expected one import from 'vega-util' and one export of expressionInterpreter, found ${imports.length} and ${exports.length}`,
+      `vega-interpreter: expected one import from 'vega-util' and one export of expressionInterpreter, ` +
+        `found ${imports.length} and ${exports.length}`,
     );
   }
   const names = (IMPORT.exec(moduleText)?.[1] ?? '')

@@ -78,7 +78,8 @@ function metricsMatrix(model: OverviewModel): string[] {
   const more = model.rows.length - shown.length;
   const kind = sharedIntervalKind(model.comparisons);
   return [
-    `Cells: ▲ better, ▼ worse, ● inconclusive; difference, candidate minus baseline${kind === null ? '' : ` [${kind}, unadjusted]`}.`,
+    `Cells: ▲ better, ▼ worse, ● inconclusive; difference, candidate minus ` +
+      `baseline${kind === null ? '' : ` [${kind}, unadjusted]`}.`,
     '',
     ...lines,
     ...(more > 0 ? ['', `${more} more candidates in report.html.`] : []),
@@ -95,7 +96,9 @@ function aggregatesLines(results: Results, metric: string): string[] {
   const lines = [
     `### Across ${tasks} tasks: ${name(metric)}`,
     '',
-    `${normalised ? 'Scores normalised per task (min-max over all runs of the task)' : 'Raw scores'}; interquartile mean with its 95% stratified bootstrap interval; P(candidate better) averaged over tasks.${leftOut.length > 0 ? ` Left out (some config has no score there): ${leftOut.slice(0, 12).map(name).join(', ')}${leftOut.length > 12 ? ` and ${leftOut.length - 12} more` : ''}.` : ''}`,
+    `${normalised ? 'Scores normalised per task (min-max over all runs of the task)' : 'Raw scores'}; ` +
+      `interquartile mean with its 95% stratified bootstrap interval; P(candidate better) averaged over ` +
+      `tasks.${leftOut.length > 0 ? ` Left out (some config has no score there): ${leftOut.slice(0, 12).map(name).join(', ')}${leftOut.length > 12 ? ` and ${leftOut.length - 12} more` : ''}.` : ''}`,
     '',
     row(['Config', 'Interquartile mean [interval]', 'P(candidate better)', 'Tasks']),
     rule(4),
@@ -128,7 +131,8 @@ export function sweepLines(results: Results, metric: string, summary: string): s
     out.push(
       `### ${name(metric)} against ${name(key)}`,
       '',
-      `Mean across seeds of each config's ${name(summary)} value [its interval between seeds], one row per ${sweep.others.map(name).join(', ') || 'config'}.`,
+      `Mean across seeds of each config's ${name(summary)} value [its interval between seeds], one row ` +
+        `per ${sweep.others.map(name).join(', ') || 'config'}.`,
       '',
       row([sweep.others.map(name).join(', ') || 'configs', ...xs.map((x) => `${name(key)}=${x}`)]),
       rule(xs.length + 1),
@@ -172,7 +176,9 @@ export function overviewMarkdown(results: Results): string[] {
   return [
     `### Overview: ${name(m.name)}`,
     '',
-    `**${countsWords(model.counts)}** on ${name(m.name)} (${goalWords(m.goal, m.goalSource, ', guessed from the name')}; summary ${name(model.summary)}), ${against}; ${escapeMarkdown(familyWords(results, model))}.`,
+    `**${countsWords(model.counts)}** on ${name(m.name)} ` +
+      `(${goalWords(m.goal, m.goalSource, ', guessed from the name')}; ` +
+      `summary ${name(model.summary)}), ${against}; ${escapeMarkdown(familyWords(results, model))}.`,
     '',
     ...(model.mode === 'tasks' ? decidedTable(model) : metricsMatrix(model)),
     ...aggregatesLines(results, m.name),

@@ -112,5 +112,8 @@ export function familyWords(results: Results, model: OverviewModel): string {
     results.settings.correction
   ];
   const tasks = model.mode === 'tasks' ? ` over ${model.columns.length} tasks` : '';
-  return `p-values ${how} within the family of ${n} comparison${n === 1 ? '' : 's'} of ${model.metric.name} (summary ${model.summary}${tasks}), alpha ${results.settings.alpha}`;
+  return (
+    `p-values ${how} within the family of ${n} comparison${n === 1 ? '' : 's'} of ${model.metric.name} ` +
+    `(summary ${model.summary}${tasks}), alpha ${results.settings.alpha}`
+  );
 }

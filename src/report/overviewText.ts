@@ -20,7 +20,10 @@ function who(c: Comparison, sharedBaseline: boolean): string {
 }
 
 function line(c: Comparison, sharedBaseline: boolean, width: number): string {
-  return `  ${MARKS[c.verdict]} ${c.verdict.padEnd(12)} ${who(c, sharedBaseline).padEnd(width)}  ${formatDifference(c.difference, comparisonDecimals(c))}  p ${formatP(c.pAdjusted)}`;
+  return (
+    `  ${MARKS[c.verdict]} ${c.verdict.padEnd(12)} ${who(c, sharedBaseline).padEnd(width)} ` +
+    ` ${formatDifference(c.difference, comparisonDecimals(c))}  p ${formatP(c.pAdjusted)}`
+  );
 }
 
 /**
@@ -35,7 +38,8 @@ export function overviewText(results: Results): string {
   if (model === null) return '';
   const shared = model.sharedBaseline !== null;
   const head = [
-    `${visibleText(model.metric.name, 80)} (${model.metric.goal === 'max' ? 'higher' : 'lower'} is better; summary ${model.summary})${shared ? ` against ${visibleText(model.sharedBaseline ?? '', 80)}` : ''}: ${countsWords(model.counts)}`,
+    `${visibleText(model.metric.name, 80)} (${model.metric.goal === 'max' ? 'higher' : 'lower'} is better; ` +
+      `summary ${model.summary})${shared ? ` against ${visibleText(model.sharedBaseline ?? '', 80)}` : ''}: ${countsWords(model.counts)}`,
     `  ${familyWords(results, model)}`,
   ];
   const room = SCREEN_LINES - head.length - 1;

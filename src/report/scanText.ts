@@ -27,7 +27,8 @@ export function scanText(runSet: RunSet, inv: Inventory): string {
   const out: string[] = [];
   const read = runSet.files.filter((f) => f.status === 'read').length;
   out.push(
-    `${inv.runs.length} runs in ${inv.configs.length} configs (keys: ${runSet.keys.join(', ') || 'none'}); ${read} of ${runSet.files.length} files read`,
+    `${inv.runs.length} runs in ${inv.configs.length} configs ` +
+      `(keys: ${runSet.keys.join(', ') || 'none'}); ${read} of ${runSet.files.length} files read`,
   );
   out.push(
     '',
@@ -202,7 +203,8 @@ function taskKeyHint(runSet: RunSet, inv: Inventory): string[] {
     const values = new Set(inv.configs.map((c) => c.params[key]).filter((v) => v !== undefined));
     if (!TASK_LIKE.test(key) || values.size < 2) continue;
     out.push(
-      `Key '${key}' (${values.size} values) looks like tasks or evaluation sets: report with --task-key ${key} to compare within each and aggregate across them.`,
+      `Key '${key}' (${values.size} values) looks like tasks or evaluation sets: report with --task-key ${key} ` +
+        `to compare within each and aggregate across them.`,
     );
   }
   return out.length === 0 ? [] : ['', ...out];

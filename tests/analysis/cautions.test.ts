@@ -53,17 +53,20 @@ describe('sampleSkewness', () => {
 });
 
 describe('pooledSkewness', () => {
-  it('centres each arm and matches scipy.stats.skew on the pooled values, with the normal-theory standard error', () => {
-    // scipy 1.10.1 (Debian): b=[1,2,3], c=[1,1.1,1.2,1.3,1.4,9]; r = concat(b-b.mean(), c-c.mean());
-    // stats.skew(r) = 2.058442550919847; 2*sqrt(6n(n-1)/((n-2)(n+1)(n+3))) at n=9 = 1.4342743312012722
-    const s = pooledSkewness([1, 2, 3], [1, 1.1, 1.2, 1.3, 1.4, 9]);
-    expect(s?.g1).toBeCloseTo(2.058442550919847, 12);
-    expect(2 * (s?.se as number)).toBeCloseTo(1.4342743312012722, 12);
-    expect(s?.n).toBe(9);
-    // A shift between arms is not skew: two symmetric arms far apart give 0.
-    expect(pooledSkewness([1, 2, 3], [101, 102, 103])?.g1).toBeCloseTo(0, 12);
-    expect(pooledSkewness([1, 2], [3, 4])).toBeNull();
-  });
+  it(
+    'centres each arm and matches scipy.stats.skew on the pooled values, with the normal-theory standard ' + 'error',
+    () => {
+      // scipy 1.10.1 (Debian): b=[1,2,3], c=[1,1.1,1.2,1.3,1.4,9]; r = concat(b-b.mean(), c-c.mean());
+      // stats.skew(r) = 2.058442550919847; 2*sqrt(6n(n-1)/((n-2)(n+1)(n+3))) at n=9 = 1.4342743312012722
+      const s = pooledSkewness([1, 2, 3], [1, 1.1, 1.2, 1.3, 1.4, 9]);
+      expect(s?.g1).toBeCloseTo(2.058442550919847, 12);
+      expect(2 * (s?.se as number)).toBeCloseTo(1.4342743312012722, 12);
+      expect(s?.n).toBe(9);
+      // A shift between arms is not skew: two symmetric arms far apart give 0.
+      expect(pooledSkewness([1, 2, 3], [101, 102, 103])?.g1).toBeCloseTo(0, 12);
+      expect(pooledSkewness([1, 2], [3, 4])).toBeNull();
+    },
+  );
 });
 
 describe('comparisonCautions', () => {
@@ -81,7 +84,9 @@ describe('comparisonCautions', () => {
     });
     expect(r.lines).toEqual([
       'only 3 seeds in the baseline arm: intervals are wide and one more seed can turn the verdict',
-      'the values are skewed within the arms (sample skewness 2.06 of the 9 values centred on their arm means, beyond 1.43, twice its standard error under normality): t-based intervals may under-cover; read the rank and permutation tests beside Welch',
+      'the values are skewed within the arms (sample skewness 2.06 of the 9 values centred on their arm means, ' +
+        'beyond 1.43, twice its standard error under normality): t-based intervals may under-cover; read the ' +
+        'rank and permutation tests beside Welch',
       'unequal seed counts (6 candidate v 3 baseline)',
       'the tests disagree at alpha 0.05 (Welch p = 0.04, the permutation test p = 0.2); treat the verdict as fragile',
       "the 'better' verdict rests on 6 v 3 seeds: fragile; confirm it with more seeds before claiming it",
@@ -108,9 +113,11 @@ describe('comparisonCautions', () => {
       reasons: ["Welch's test could not run: because"],
     });
     expect(r.lines).toEqual([
-      "the summary is the number of steps until acc first reaches 0.9 (reaching sooner is better); runs that have not reached it are censored at the comparison's step and kept (log-rank test)",
+      'the summary is the number of steps until acc first reaches 0.9 (reaching sooner is better); runs that ' +
+        "have not reached it are censored at the comparison's step and kept (log-rank test)",
       "lower is better was inferred from the name 'acc'; say --metric acc:max if that is wrong",
-      "2 failed runs left out of the values: baseline 1 of 6 failed (1 diverged), candidate 1 of 7 failed (1 short); Fisher's exact test on the failure counts p = 1",
+      '2 failed runs left out of the values: baseline 1 of 6 failed (1 diverged), candidate 1 of 7 failed (1 ' +
+        "short); Fisher's exact test on the failure counts p = 1",
       '1 run has no value for this summary and is left out (baseline 0, candidate 1)',
       "Welch's test could not run: because",
     ]);

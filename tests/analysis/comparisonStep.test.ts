@@ -90,27 +90,31 @@ describe('analyze: each comparison at its own step', () => {
     expect(r.metrics[0]?.horizon).toBeNull(); // no single step for the metric
   });
 
-  it('a workload whose baseline runs all stopped after one evaluation: that comparison is flagged, the others keep their steps', () => {
-    const set = runSet(
-      ['task', 'm'],
-      [
-        ...runs({ task: 'w1', m: 'base' }, [0, 0, 0], 0),
-        ...runs({ task: 'w1', m: 'new' }, [3000, 3000, 3000], 0.02),
-        ...runs({ task: 'w2', m: 'base' }, [3000, 3000, 3000], 0),
-        ...runs({ task: 'w2', m: 'new' }, [3000, 3000, 3000], 0.02),
-      ],
-      [{ name: 'acc', goal: 'max' }],
-    );
-    const r = analyze(set, resolveOptions({ baseline: 'm=base', taskKey: 'task' }), meta);
-    expect(r.comparisons.map((c) => [c.task, c.step])).toEqual([
-      ['w1', 0],
-      ['w2', 3000],
-    ]);
-    const early = r.problems.filter((p) => p.code === 'step-early');
-    expect(early).toHaveLength(1);
-    expect(early[0]?.message).toContain('task w1');
-    expect(early[0]?.message).toContain('compared at step 0');
-  });
+  it(
+    'a workload whose baseline runs all stopped after one evaluation: that comparison is flagged, the others ' +
+      'keep their steps',
+    () => {
+      const set = runSet(
+        ['task', 'm'],
+        [
+          ...runs({ task: 'w1', m: 'base' }, [0, 0, 0], 0),
+          ...runs({ task: 'w1', m: 'new' }, [3000, 3000, 3000], 0.02),
+          ...runs({ task: 'w2', m: 'base' }, [3000, 3000, 3000], 0),
+          ...runs({ task: 'w2', m: 'new' }, [3000, 3000, 3000], 0.02),
+        ],
+        [{ name: 'acc', goal: 'max' }],
+      );
+      const r = analyze(set, resolveOptions({ baseline: 'm=base', taskKey: 'task' }), meta);
+      expect(r.comparisons.map((c) => [c.task, c.step])).toEqual([
+        ['w1', 0],
+        ['w2', 3000],
+      ]);
+      const early = r.problems.filter((p) => p.code === 'step-early');
+      expect(early).toHaveLength(1);
+      expect(early[0]?.message).toContain('task w1');
+      expect(early[0]?.message).toContain('compared at step 0');
+    },
+  );
 
   it("step:N past some runs' ends: those runs are short for that comparison, never their last value", () => {
     const set = runSet(

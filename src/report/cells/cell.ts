@@ -116,7 +116,8 @@ export function summaryOption(state: RenderState, call: CellCall, metric: string
   if (!present.has(given)) {
     const list = [...present].map(quoted).join(', ');
     throw new CellError(
-      `no results for ${quoted(metric)} under summary ${quoted(given)}; these results hold ${list === '' ? 'none' : list} (run the report with --summary ${given})`,
+      `no results for ${quoted(metric)} under summary ${quoted(given)}; these results ` +
+        `hold ${list === '' ? 'none' : list} (run the report with --summary ${given})`,
     );
   }
   return given;

@@ -73,13 +73,16 @@ function quantities(r: Results, c: Comparison): [string, TableCell][] {
   if (c.timeToEvent !== null) {
     const k = c.timeToEvent;
     const arm = (a: typeof k.baseline): string =>
-      `${a.reached} of ${a.runs} reached (Kaplan-Meier ${a.fraction === null ? '—' : formatNumber(a.fraction, 2)}), median ${a.medianSteps === null ? 'not reached' : formatNumber(a.medianSteps, 0)} steps`;
+      `${a.reached} of ${a.runs} reached ` +
+      `(Kaplan-Meier ${a.fraction === null ? '—' : formatNumber(a.fraction, 2)}), ` +
+      `median ${a.medianSteps === null ? 'not reached' : formatNumber(a.medianSteps, 0)} steps`;
     out.push(
       ['Baseline: reached', arm(k.baseline)],
       ['Candidate: reached', arm(k.candidate)],
       [
         `Log-rank test (decides; ${k.logRank.method === 'chi-square' ? 'chi-square, 1 df' : k.logRank.method === 'exact-permutation' ? 'exact permutation p' : 'random relabelings'})`,
-        `chi-square = ${formatNumber(k.logRank.statistic, 2)}, p = ${formatP(k.logRank.p)}; candidate reached ${formatNumber(k.logRank.observed, 0)} times, ${formatNumber(k.logRank.expected, 2)} expected`,
+        `chi-square = ${formatNumber(k.logRank.statistic, 2)}, p = ${formatP(k.logRank.p)}; candidate ` +
+          `reached ${formatNumber(k.logRank.observed, 0)} times, ${formatNumber(k.logRank.expected, 2)} expected`,
       ],
     );
   } else {
@@ -91,7 +94,8 @@ function quantities(r: Results, c: Comparison): [string, TableCell][] {
   if (t.paired !== undefined) {
     out.push([
       'Paired t-test (decides) and Wilcoxon signed-rank',
-      `t = ${formatNumber(t.paired.t, 2)}, df = ${formatNumber(t.paired.df, 1)}, p = ${formatP(t.paired.p)}; Wilcoxon p = ${formatP(t.paired.wilcoxonP)} (${t.paired.pairs} pairs)`,
+      `t = ${formatNumber(t.paired.t, 2)}, df = ${formatNumber(t.paired.df, 1)}, p = ${formatP(t.paired.p)}; ` +
+        `Wilcoxon p = ${formatP(t.paired.wilcoxonP)} (${t.paired.pairs} pairs)`,
     ]);
   }
   out.push(
@@ -101,7 +105,8 @@ function quantities(r: Results, c: Comparison): [string, TableCell][] {
     ],
     [
       'Mann-Whitney U',
-      `U = ${formatNumber(t.mannWhitney.u, 1)}, p = ${formatP(t.mannWhitney.p)} (${t.mannWhitney.exact ? 'exact' : 'normal approximation'})`,
+      `U = ${formatNumber(t.mannWhitney.u, 1)}, p = ${formatP(t.mannWhitney.p)} ` +
+        `(${t.mannWhitney.exact ? 'exact' : 'normal approximation'})`,
     ],
     [
       `p adjusted (${CORRECTION[r.settings.correction]}, ${c.family.scope === 'study' ? 'all tasks' : 'this task'}: family of ${c.family.size})`,
@@ -141,7 +146,8 @@ export const compare: Cell = {
       `Candidate minus baseline, in the metric's own units (summary ${summary}); each comparison at its own step; ` +
       `every statistic of each comparison is in the table below.` +
       (left > 0
-        ? ` ${left} more comparisons (inconclusive) are left out here: their rows are under All verdicts and every statistic in results.json.`
+        ? ` ${left} more comparisons (inconclusive) are left out here: their rows are under All verdicts and ` +
+          `every statistic in results.json.`
         : '');
     const chart = figureHtml(
       state,

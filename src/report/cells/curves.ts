@@ -21,7 +21,9 @@ export const curves: Cell = {
       m.horizon === null
         ? ' Each comparison is made at its own step (see the verdicts).'
         : ` Its comparisons are made at step ${formatNumber(m.horizon, 0)}.`;
-    const caption = `The ${bands} band shows the spread between seeds: it is for looking, the tests decide. No curve runs past a run's last step.${horizon}`;
+    const caption =
+      `The ${bands} band shows the spread between seeds: it is for looking, the tests decide. No ` +
+      `curve runs past a run's last step.${horizon}`;
     return figureHtml(
       state,
       state.results.settings.taskKey === null

@@ -81,7 +81,9 @@ export const runs: Cell = {
       .filter(([, n]) => n > 0)
       .map(([s, n]) => `${n} ${s}`)
       .join(', ');
-    const summary = `${r.runs.length} runs in ${r.configs.length} configs (${counts}); ${r.inputs.filesRead} of ${r.inputs.files} files read.`;
+    const summary =
+      `${r.runs.length} runs in ${r.configs.length} configs (${counts}); ${r.inputs.filesRead} ` +
+      `of ${r.inputs.files} files read.`;
     const table =
       rows.length === 0
         ? ''
@@ -99,6 +101,9 @@ export const runs: Cell = {
       rows.length === 0
         ? noteHtml('Every run is ok.', 'lead')
         : `${noteHtml(`${rows.length} runs are not ok:`, 'lead')}${table}`;
-    return `<p class="lead">${textHtml(summary)}</p>${head}<details class="fold"><summary>${textHtml(`${ok.length} ok runs, one line per config`)}</summary>${okByConfig(ok)}</details>`;
+    return (
+      `<p class="lead">${textHtml(summary)}</p>${head}<details ` +
+      `class="fold"><summary>${textHtml(`${ok.length} ok runs, one line per config`)}</summary>${okByConfig(ok)}</details>`
+    );
   },
 };

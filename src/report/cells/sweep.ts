@@ -29,7 +29,8 @@ export const sweep: Cell = {
     if (given !== undefined && (typeof given !== 'string' || !keys.includes(given))) {
       const list = keys.map(quoted).join(', ');
       throw new CellError(
-        `key: expected a numeric config key (${list === '' ? 'this study has none' : list}), got ${quoted(String(given))}`,
+        `key: expected a numeric config key (${list === '' ? 'this study has none' : list}), ` +
+          `got ${quoted(String(given))}`,
       );
     }
     if (r.settings.taskKey !== null) return '';
@@ -48,7 +49,10 @@ export const sweep: Cell = {
     if (figures.length === 0)
       return given === undefined ? '' : noteHtml(`No values of ${metric} to draw against ${given}.`);
     const id = state.slug(`sweeps ${metric}`);
-    return `<h2 id="${escapeAttr(id)}">${textHtml(`Sweeps: ${metric}`)}</h2><div class="sweep-cell">${figures.join('')}</div>`;
+    return (
+      `<h2 id="${escapeAttr(id)}">${textHtml(`Sweeps: ${metric}`)}</h2><div ` +
+      `class="sweep-cell">${figures.join('')}</div>`
+    );
   },
 };
 

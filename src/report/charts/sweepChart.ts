@@ -86,12 +86,15 @@ export function sweepChart(sweep: Sweep): TopLevelSpec | null {
   const width = panelKey === null ? 480 : Math.max(140, Math.floor(760 / panels) - 20);
   const head = {
     $schema: VEGA_LITE_SCHEMA,
-    description: `${sweep.metric} against ${sweep.key}: mean across seeds with its interval, one line per ${colourKeys.join(', ') || 'config'}${panelKey === null ? '' : `, one panel per ${panelKey}`}.`,
+    description:
+      `${sweep.metric} against ${sweep.key}: mean across seeds with its interval, one line ` +
+      `per ${colourKeys.join(', ') || 'config'}${panelKey === null ? '' : `, one panel per ${panelKey}`}.`,
     title: {
       text: `${sweep.metric} against ${sweep.key}`,
       subtitle: wrapLines(
         [
-          `Points: mean across seeds of each config's ${sweep.summary} value; bars: its ${intervalLabel(sweep.method, sweep.level)} (between seeds).`,
+          `Points: mean across seeds of each config's ${sweep.summary} value; bars: ` +
+            `its ${intervalLabel(sweep.method, sweep.level)} (between seeds).`,
           `One line per ${colourKeys.join(', ') || 'config'}${panelKey === null ? '' : `; one panel per ${panelKey}`}${log ? `; ${sweep.key} on a doubling scale` : ''}.`,
         ],
         90,

@@ -127,7 +127,9 @@ export function ticksChart(results: Results, metric: string): TopLevelSpec | nul
     ...chartFrame({
       title: `${metric} by internal tick`,
       subtitle,
-      description: `${metric} against internal tick for ${curves.length} config${curves.length === 1 ? '' : 's'}${at}: mean across seeds${band === '' ? '' : ` with a ${band} band`}.`,
+      description:
+        `${metric} against internal tick for ${curves.length} ` +
+        `config${curves.length === 1 ? '' : 's'}${at}: mean across seeds${band === '' ? '' : ` with a ${band} band`}.`,
     }),
     layer: withLegendToggle(layers, configs.length, ['mean']),
   };
