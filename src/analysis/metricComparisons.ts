@@ -61,7 +61,9 @@ export function metricComparisons(
       candidateRuns: candRuns.map(outcome),
     };
     requests.push(request);
-    const where = `${info.name} (${options.summaryText}${p.task === null ? '' : `, task ${p.task}`}), ${p.candidate} v ${p.baseline}`;
+    const where =
+      `${info.name} (${options.summaryText}${p.task === null ? '' : `, task ${p.task}`}), ` +
+      `${p.candidate} v ${p.baseline}`;
     if (
       spec.kind !== 'step' &&
       step.step !== null &&

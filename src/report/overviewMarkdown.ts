@@ -107,7 +107,8 @@ function aggregatesLines(results: Results, metric: string): string[] {
     const iqm =
       a.interquartileMean === null
         ? '—'
-        : `${formatNumber(a.interquartileMean, 3)}${a.low === null || a.high === null ? '' : ` [${formatNumber(a.low, 3)}, ${formatNumber(a.high, 3)}]`}`;
+        : `${formatNumber(a.interquartileMean, 3)}` +
+          `${a.low === null || a.high === null ? '' : ` [${formatNumber(a.low, 3)}, ${formatNumber(a.high, 3)}]`}`;
     const poi =
       a.probabilityOfImprovement === null
         ? a.baseline === null
@@ -141,7 +142,10 @@ export function sweepLines(results: Results, metric: string, summary: string): s
       const cells = xs.map((x) => {
         const p = s.points.find((q) => q.x === x);
         if (p === undefined) return '—';
-        return `${formatNumber(p.mean, decimals)}${p.low === null || p.high === null ? '' : ` [${formatNumber(p.low, decimals)}, ${formatNumber(p.high, decimals)}]`}`;
+        return (
+          `${formatNumber(p.mean, decimals)}` +
+          `${p.low === null || p.high === null ? '' : ` [${formatNumber(p.low, decimals)}, ${formatNumber(p.high, decimals)}]`}`
+        );
       });
       out.push(row([name(s.label === '' ? 'all' : s.label), ...cells]));
     }

@@ -16,7 +16,10 @@ export const SCREEN_LINES = 20;
 const MARKS = { better: '▲', worse: '▼', inconclusive: '●' } as const;
 
 function who(c: Comparison, sharedBaseline: boolean): string {
-  return `${visibleText(c.candidate, 60)}${sharedBaseline ? '' : ` v ${visibleText(c.baseline, 60)}`}${c.task === null ? '' : ` (${visibleText(c.task, 40)})`}`;
+  return (
+    `${visibleText(c.candidate, 60)}${sharedBaseline ? '' : ` v ${visibleText(c.baseline, 60)}`}` +
+    `${c.task === null ? '' : ` (${visibleText(c.task, 40)})`}`
+  );
 }
 
 function line(c: Comparison, sharedBaseline: boolean, width: number): string {
@@ -39,7 +42,8 @@ export function overviewText(results: Results): string {
   const shared = model.sharedBaseline !== null;
   const head = [
     `${visibleText(model.metric.name, 80)} (${model.metric.goal === 'max' ? 'higher' : 'lower'} is better; ` +
-      `summary ${model.summary})${shared ? ` against ${visibleText(model.sharedBaseline ?? '', 80)}` : ''}: ${countsWords(model.counts)}`,
+      `summary ${model.summary})${shared ? ` against ${visibleText(model.sharedBaseline ?? '', 80)}` : ''}: ` +
+      `${countsWords(model.counts)}`,
     `  ${familyWords(results, model)}`,
   ];
   const room = SCREEN_LINES - head.length - 1;

@@ -156,6 +156,7 @@ function accessible(svg: string, title: string, description: string): string {
   if (!svg.startsWith('<svg') || open < 0) throw new Error('vega: toSVG did not return an <svg> element');
   const label = description === '' ? title : description;
   const attrs = ` role="graphics-document document" aria-roledescription="chart" aria-label="${escapeXml(label)}"`;
-  const children = `<title>${escapeXml(title)}</title>${description === '' ? '' : `<desc>${escapeXml(description)}</desc>`}`;
+  const children =
+    `<title>${escapeXml(title)}</title>` + `${description === '' ? '' : `<desc>${escapeXml(description)}</desc>`}`;
   return `${svg.slice(0, open)}${attrs}>${children}${svg.slice(open + 1)}`;
 }

@@ -51,7 +51,8 @@ export function aggregatesHtml(state: RenderState, metric: string): string {
       { html: nameHtml(a.config) },
       a.interquartileMean === null
         ? null
-        : `${formatNumber(a.interquartileMean, 3)}${a.low === null || a.high === null ? '' : ` [${formatNumber(a.low, 3)}, ${formatNumber(a.high, 3)}]`}`,
+        : `${formatNumber(a.interquartileMean, 3)}` +
+          `${a.low === null || a.high === null ? '' : ` [${formatNumber(a.low, 3)}, ${formatNumber(a.high, 3)}]`}`,
       a.probabilityOfImprovement === null
         ? a.baseline === null
           ? 'baseline'

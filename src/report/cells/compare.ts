@@ -109,7 +109,8 @@ function quantities(r: Results, c: Comparison): [string, TableCell][] {
         `(${t.mannWhitney.exact ? 'exact' : 'normal approximation'})`,
     ],
     [
-      `p adjusted (${CORRECTION[r.settings.correction]}, ${c.family.scope === 'study' ? 'all tasks' : 'this task'}: family of ${c.family.size})`,
+      `p adjusted (${CORRECTION[r.settings.correction]}, ` +
+        `${c.family.scope === 'study' ? 'all tasks' : 'this task'}: family of ${c.family.size})`,
       formatP(c.pAdjusted),
     ],
     ['Verdict', { html: verdictHtml(c) }],

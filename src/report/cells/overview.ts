@@ -85,7 +85,8 @@ function markMatrix(model: OverviewModel, rows: readonly OverviewRow[]): string 
   const body = rows
     .map(
       (r) =>
-        `<tr><th scope="row">${rowLabel(model, r)}</th>${model.columns.map((t) => markCell(t, r.cells.get(t))).join('')}</tr>`,
+        `<tr><th scope="row">${rowLabel(model, r)}</th>` +
+        `${model.columns.map((t) => markCell(t, r.cells.get(t))).join('')}</tr>`,
     )
     .join('');
   const first = model.columns[0] ?? '';
@@ -96,7 +97,8 @@ function markMatrix(model: OverviewModel, rows: readonly OverviewRow[]): string 
     `inconclusive; hover a cell for its difference and p.`;
   return (
     `${noteHtml(key, 'lead')}<div class="table-wrap"><table class="mark-matrix"><thead><tr><th ` +
-    `scope="col">${model.sharedBaseline === null ? 'Candidate v baseline' : 'Candidate'}</th>${head}</tr></thead><tbody>${body}</tbody></table></div>`
+    `scope="col">${model.sharedBaseline === null ? 'Candidate v baseline' : 'Candidate'}</th>${head}` +
+    `</tr></thead><tbody>${body}</tbody></table></div>`
   );
 }
 
@@ -128,7 +130,8 @@ function decidedTable(model: OverviewModel): string {
   const more = decided.length - shown.length;
   return (
     `<p class="overview-sub">Decided ` +
-    `comparisons${more > 0 ? ` (the ${shown.length} with the smallest adjusted p of ${decided.length})` : ''}</p>${table}${more > 0 ? noteHtml(`${more} more decided comparisons in the details below.`, 'lead') : ''}`
+    `comparisons${more > 0 ? ` (the ${shown.length} with the smallest adjusted p of ${decided.length})` : ''}` +
+    `</p>${table}${more > 0 ? noteHtml(`${more} more decided comparisons in the details below.`, 'lead') : ''}`
   );
 }
 
@@ -164,10 +167,12 @@ export function overviewHtml(results: Results, metric?: string, summary?: string
   const fold =
     folded.length === 0
       ? ''
-      : `<details class="fold"><summary>${textHtml(`${folded.length} more candidates (${foldedDecided === 0 ? 'none' : foldedDecided} decided on ${m.name})`)}</summary>${matrix(folded)}</details>`;
+      : `<details class="fold"><summary>` +
+        `${textHtml(`${folded.length} more candidates (${foldedDecided === 0 ? 'none' : foldedDecided} decided on ${m.name})`)}</summary>${matrix(folded)}</details>`;
   return (
     `<div class="overview-cell"><p ` +
-    `class="overview-question">${textHtml(question)}</p>${tally}${matrix(shown)}${fold}${marks ? decidedTable(model) : ''}</div>`
+    `class="overview-question">${textHtml(question)}</p>${tally}${matrix(shown)}${fold}` +
+    `${marks ? decidedTable(model) : ''}</div>`
   );
 }
 

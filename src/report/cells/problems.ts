@@ -32,7 +32,10 @@ function grouped(list: readonly Problem[]): string {
       .slice(0, EXAMPLES)
       .map((p) => {
         const w = where(p);
-        return `<li>${textHtml(p.message)}${w === null ? '' : ` <span class="small">(${typeof w === 'string' ? textHtml(w) : w.html})</span>`}</li>`;
+        return (
+          `<li>${textHtml(p.message)}` +
+          `${w === null ? '' : ` <span class="small">(${typeof w === 'string' ? textHtml(w) : w.html})</span>`}</li>`
+        );
       })
       .join('');
     const more =

@@ -95,7 +95,10 @@ export const runs: Cell = {
             rowClasses: full.map((x) => `status-${x.status}`),
           });
     if (!compact)
-      return `<details class="fold"${r.runs.length <= OPEN_UP_TO ? ' open' : ''}><summary>${textHtml(summary)}</summary>${table}</details>`;
+      return (
+        `<details class="fold"${r.runs.length <= OPEN_UP_TO ? ' open' : ''}><summary>${textHtml(summary)}` +
+        `</summary>${table}</details>`
+      );
     const ok = ordered.filter((x) => x.status === 'ok');
     const head =
       rows.length === 0
@@ -103,7 +106,8 @@ export const runs: Cell = {
         : `${noteHtml(`${rows.length} runs are not ok:`, 'lead')}${table}`;
     return (
       `<p class="lead">${textHtml(summary)}</p>${head}<details ` +
-      `class="fold"><summary>${textHtml(`${ok.length} ok runs, one line per config`)}</summary>${okByConfig(ok)}</details>`
+      `class="fold"><summary>${textHtml(`${ok.length} ok runs, one line per config`)}</summary>${okByConfig(ok)}` +
+      `</details>`
     );
   },
 };

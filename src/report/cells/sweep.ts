@@ -64,7 +64,10 @@ function sweepTable(s: Sweep): string {
     ...s.xs.map((v) => {
       const p = x.points.find((q) => q.x === v);
       if (p === undefined) return null;
-      return `${formatNumber(p.mean, decimals)}${p.low === null || p.high === null ? '' : ` [${formatNumber(p.low, decimals)}, ${formatNumber(p.high, decimals)}]`}`;
+      return (
+        `${formatNumber(p.mean, decimals)}` +
+        `${p.low === null || p.high === null ? '' : ` [${formatNumber(p.low, decimals)}, ${formatNumber(p.high, decimals)}]`}`
+      );
     }),
   ]);
   const table = tableHtml({
@@ -73,5 +76,8 @@ function sweepTable(s: Sweep): string {
     rows,
     numeric: s.xs.map((_, i) => i + 1),
   });
-  return `<details class="fold"><summary>${textHtml(`The numbers of ${s.metric} against ${s.key} as a table`)}</summary>${table}</details>`;
+  return (
+    `<details class="fold"><summary>${textHtml(`The numbers of ${s.metric} against ${s.key} as a table`)}` +
+    `</summary>${table}</details>`
+  );
 }

@@ -95,7 +95,9 @@ export function sweepChart(sweep: Sweep): TopLevelSpec | null {
         [
           `Points: mean across seeds of each config's ${sweep.summary} value; bars: ` +
             `its ${intervalLabel(sweep.method, sweep.level)} (between seeds).`,
-          `One line per ${colourKeys.join(', ') || 'config'}${panelKey === null ? '' : `; one panel per ${panelKey}`}${log ? `; ${sweep.key} on a doubling scale` : ''}.`,
+          `One line per ${colourKeys.join(', ') || 'config'}` +
+            `${panelKey === null ? '' : `; one panel per ${panelKey}`}` +
+            `${log ? `; ${sweep.key} on a doubling scale` : ''}.`,
         ],
         90,
       ),
