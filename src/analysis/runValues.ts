@@ -127,7 +127,9 @@ export function metricValues(
     const inComparison = compared.has(run.config);
     let note = o.note;
     if (o.failed !== null)
-      note = `${o.note ?? o.failed}: ${policy === 'exclude' ? 'left out of the tests' : 'counted as the worst value of each comparison'}`;
+      note =
+        `${o.note ?? o.failed}: ` +
+        (policy === 'exclude' ? 'left out of the tests' : 'counted as the worst value of each comparison');
     else if (o.value !== null) {
       summarised++;
       if (o.censored) censored++;

@@ -98,7 +98,11 @@ function aggregatesLines(results: Results, metric: string): string[] {
     '',
     `${normalised ? 'Scores normalised per task (min-max over all runs of the task)' : 'Raw scores'}; ` +
       `interquartile mean with its 95% stratified bootstrap interval; P(candidate better) averaged over ` +
-      `tasks.${leftOut.length > 0 ? ` Left out (some config has no score there): ${leftOut.slice(0, 12).map(name).join(', ')}${leftOut.length > 12 ? ` and ${leftOut.length - 12} more` : ''}.` : ''}`,
+      `tasks.` +
+      (leftOut.length > 0
+        ? ` Left out (some config has no score there): ${leftOut.slice(0, 12).map(name).join(', ')}` +
+          `${leftOut.length > 12 ? ` and ${leftOut.length - 12} more` : ''}.`
+        : ''),
     '',
     row(['Config', 'Interquartile mean [interval]', 'P(candidate better)', 'Tasks']),
     rule(4),
@@ -144,18 +148,19 @@ export function sweepLines(results: Results, metric: string, summary: string): s
         if (p === undefined) return '—';
         return (
           `${formatNumber(p.mean, decimals)}` +
-          `${p.low === null || p.high === null ? '' : ` [${formatNumber(p.low, decimals)}, ${formatNumber(p.high, decimals)}]`}`
+          (p.low === null || p.high === null
+            ? ''
+            : ` [${formatNumber(p.low, decimals)}, ${formatNumber(p.high, decimals)}]`)
         );
       });
       out.push(row([name(s.label === '' ? 'all' : s.label), ...cells]));
     }
     const more = sweep.series.length - Math.min(sweep.series.length, SWEEP_ROWS);
     const moreX = sweep.xs.length - xs.length;
-    if (more > 0 || moreX > 0)
-      out.push(
-        '',
-        `${[more > 0 ? `${more} more rows` : '', moreX > 0 ? `${moreX} more values of ${name(key)}` : ''].filter((x) => x !== '').join(' and ')} in report.html.`,
-      );
+    if (more > 0 || moreX > 0) {
+      const left = [more > 0 ? `${more} more rows` : '', moreX > 0 ? `${moreX} more values of ${name(key)}` : ''];
+      out.push('', `${left.filter((x) => x !== '').join(' and ')} in report.html.`);
+    }
     out.push('');
   }
   return out;

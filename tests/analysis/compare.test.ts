@@ -64,7 +64,8 @@ describe('compareMetric on METHODS.md check values (candidate A, baseline B)', (
     expect(c.p).toBeCloseTo(0.04418107272139468, 12);
     expect(c.difference.method).toBe('welch-t');
     expect(c.difference.estimate).toBeCloseTo(71.3 - 487.1 / 7, 12);
-    expect(c.difference.low).toBeCloseTo(0.057502837562101, 9); // t quantile at fractional df: stdlib v scipy agree to ~2e-10
+    // t quantile at fractional df: stdlib v scipy agree to ~2e-10
+    expect(c.difference.low).toBeCloseTo(0.057502837562101, 9);
     expect(c.difference.high).toBeCloseTo(3.371068591009343, 9);
     expect(c.tests.permutation).toEqual({ p: 27 / 792, exact: true });
     expect(c.tests.mannWhitney.u).toBe(30);
@@ -163,7 +164,8 @@ describe('diverged runs', () => {
     expect(c.failures).toEqual({
       baseline: { runs: 7, diverged: 0, short: 0 },
       candidate: { runs: 6, diverged: 1, short: 0 },
-      fisherP: expect.closeTo(6 / 13, 12) as unknown as number, // scipy.stats.fisher_exact([[0, 7], [1, 5]]).pvalue = 0.46153846153846156
+      // scipy.stats.fisher_exact([[0, 7], [1, 5]]).pvalue = 0.46153846153846156
+      fisherP: expect.closeTo(6 / 13, 12) as unknown as number,
     });
     expect(c.cautions).toContain(
       '1 failed run left out of the values: baseline 0 of 7 failed, candidate 1 of 6 failed (1 diverged); ' +

@@ -58,7 +58,9 @@ function quantities(r: Results, c: Comparison): [string, TableCell][] {
       formatDifference(c.difference, d),
     ],
     [
-      `Simultaneous bounds [${c.difference.simultaneous === null ? 'Bonferroni' : formatLevel(c.difference.simultaneous.level)}, family of ${c.family.size}]`,
+      `Simultaneous bounds [` +
+        (c.difference.simultaneous === null ? 'Bonferroni' : formatLevel(c.difference.simultaneous.level)) +
+        `, family of ${c.family.size}]`,
       c.difference.simultaneous === null
         ? null
         : `[${formatNumber(c.difference.simultaneous.low, d)}, ${formatNumber(c.difference.simultaneous.high, d)}]`,
@@ -80,7 +82,13 @@ function quantities(r: Results, c: Comparison): [string, TableCell][] {
       ['Baseline: reached', arm(k.baseline)],
       ['Candidate: reached', arm(k.candidate)],
       [
-        `Log-rank test (decides; ${k.logRank.method === 'chi-square' ? 'chi-square, 1 df' : k.logRank.method === 'exact-permutation' ? 'exact permutation p' : 'random relabelings'})`,
+        `Log-rank test (decides; ` +
+          (k.logRank.method === 'chi-square'
+            ? 'chi-square, 1 df'
+            : k.logRank.method === 'exact-permutation'
+              ? 'exact permutation p'
+              : 'random relabelings') +
+          `)`,
         `chi-square = ${formatNumber(k.logRank.statistic, 2)}, p = ${formatP(k.logRank.p)}; candidate ` +
           `reached ${formatNumber(k.logRank.observed, 0)} times, ${formatNumber(k.logRank.expected, 2)} expected`,
       ],

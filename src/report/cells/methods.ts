@@ -21,7 +21,8 @@ function paragraphs(s: Settings): [string, string][] {
   const family =
     s.family === 'study'
       ? `across the comparisons of one metric and one summary over all ` +
-        `tasks${s.baseline === null ? ' (every pair of configs)' : ` (every config against its baseline, ${s.baseline})`}`
+        `tasks` +
+        (s.baseline === null ? ' (every pair of configs)' : ` (every config against its baseline, ${s.baseline})`)
       : `within each task alone (--family task: the family is smaller, so more false calls across tasks)`;
   const out: [string, string][] = [
     [
@@ -40,18 +41,45 @@ function paragraphs(s: Settings): [string, string][] {
     [
       'Primary test',
       `Welch's t-test, two-sided, on the per-run values (Welch 1947; Satterthwaite ` +
-        `1946)${s.paired ? '; under --paired the paired t-test on the seeds present in both arms decides instead (the Wilcoxon signed-rank test beside it), and the rows say so' : ''}. When both arms have zero spread and differ, Welch's test is undefined and the exact permutation test decides, with a caution. For reach:VALUE, the log-rank test (exact permutation p at small n) with Kaplan-Meier medians and the fraction that reached. Beside the primary test, as robustness checks: an exact permutation test on the difference of means (every split when there are at most 200,000, else 100,000 random relabelings with p = (1 + b)/(1 + M), Phipson and Smyth 2010) and the Mann-Whitney U test. Where they disagree about significance at alpha, a caution says so.`,
+        `1946)` +
+        (s.paired
+          ? '; under --paired the paired t-test on the seeds present in both arms decides instead (the Wilcoxon ' +
+            'signed-rank test beside it), and the rows say so'
+          : '') +
+        `. When both arms have zero spread and differ, Welch's test is undefined and the exact permutation test ` +
+        `decides, with a caution. For reach:VALUE, the log-rank test (exact permutation p at small n) with ` +
+        `Kaplan-Meier medians and the fraction that reached. Beside the primary test, as robustness checks: an ` +
+        `exact permutation test on the difference of means (every split when there are at most 200,000, else ` +
+        `100,000 random relabelings with p = (1 + b)/(1 + M), Phipson and Smyth 2010) and the Mann-Whitney U ` +
+        `test. Where they disagree about significance at alpha, a caution says so.`,
     ],
     [
       'Verdicts',
       `p-values are adjusted with ${correction} correction ${family}; each table gives the family's size. A ` +
         `verdict is better when the adjusted p is below alpha = ${s.alpha} and the difference points in the ` +
         `metric's goal direction, worse when it points the other way, and inconclusive ` +
-        `otherwise.${s.margin === null ? '' : ` Non-inferiority: a one-sided Welch test at alpha/2 that the candidate is not worse than the baseline by more than ${s.margin}.`}`,
+        `otherwise.` +
+        (s.margin === null
+          ? ''
+          : ` Non-inferiority: a one-sided Welch test at alpha/2 that the candidate is not worse than the ` +
+            `baseline by more than ${s.margin}.`),
     ],
     [
       'Intervals',
-      `${s.interval === 'welch' ? 'The interval of a difference is the Welch t-interval at every number of seeds' : 'The interval of a difference is the BCa bootstrap interval (Efron 1987) from 4 runs per arm (--interval bca), the Welch t-interval below'}, at ${level} (1 - alpha). It is unadjusted: it does not account for the other comparisons of the family, so an interval that excludes 0 can stand beside an inconclusive verdict, and the verdict is the one to read. results.json also carries the simultaneous (Bonferroni, 1 - alpha/m for a family of m) bounds, shown in the detail tables. From ${s.bootstrapFrom} runs per arm the BCa bootstrap interval (${s.resamples} resamples) is shown beside Welch's in the detail table, labelled; it never decides (measured coverage of a nominal 95% interval for a difference on normal data, npm run calibrate, 4,000 replications: BCa .914 at 10 v 10, .936 at 20 v 20 and 30 v 30; Welch .946, .952 and .948). Learning-curve bands and per-config means use the t-interval of the mean across seeds${s.interval === 'bca' ? ' (BCa from 4 runs under --interval bca)' : ''}, labelled with their method. Bands are for looking; the tests decide.`,
+      (s.interval === 'welch'
+        ? 'The interval of a difference is the Welch t-interval at every number of seeds'
+        : 'The interval of a difference is the BCa bootstrap interval (Efron 1987) from 4 runs per arm ' +
+          '(--interval bca), the Welch t-interval below') +
+        `, at ${level} (1 - alpha). It is unadjusted: it does not account for the other comparisons of the ` +
+        `family, so an interval that excludes 0 can stand beside an inconclusive verdict, and the verdict is ` +
+        `the one to read. results.json also carries the simultaneous (Bonferroni, 1 - alpha/m for a family of ` +
+        `m) bounds, shown in the detail tables. From ${s.bootstrapFrom} runs per arm the BCa bootstrap interval ` +
+        `(${s.resamples} resamples) is shown beside Welch's in the detail table, labelled; it never decides ` +
+        `(measured coverage of a nominal 95% interval for a difference on normal data, npm run calibrate, 4,000 ` +
+        `replications: BCa .914 at 10 v 10, .936 at 20 v 20 and 30 v 30; Welch .946, .952 and .948). ` +
+        'Learning-curve bands and per-config means use the t-interval of the mean across seeds' +
+        (s.interval === 'bca' ? ' (BCa from 4 runs under --interval bca)' : '') +
+        ', labelled with their method. Bands are for looking; the tests decide.',
     ],
     [
       'Effect sizes',
@@ -71,7 +99,12 @@ function paragraphs(s: Settings): [string, string][] {
     [
       'Failed runs',
       `A run that diverged (its metric went non-finite and stayed so) or stopped short is a failure of its ` +
-        `arm: ${s.failed === 'worst' ? 'under --failed worst it is scored as the worst value observed in its comparison' : 'by default it is left out of the values'}, counted in every table, and when any arm has failed runs the failure counts are compared with Fisher's exact test beside the verdict.`,
+        `arm: ` +
+        (s.failed === 'worst'
+          ? 'under --failed worst it is scored as the worst value observed in its comparison'
+          : 'by default it is left out of the values') +
+        `, counted in every table, and when any arm has failed runs the failure counts are compared with ` +
+        `Fisher's exact test beside the verdict.`,
     ],
     [
       'Randomness',

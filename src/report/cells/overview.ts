@@ -168,7 +168,10 @@ export function overviewHtml(results: Results, metric?: string, summary?: string
     folded.length === 0
       ? ''
       : `<details class="fold"><summary>` +
-        `${textHtml(`${folded.length} more candidates (${foldedDecided === 0 ? 'none' : foldedDecided} decided on ${m.name})`)}</summary>${matrix(folded)}</details>`;
+        textHtml(
+          `${folded.length} more candidates (${foldedDecided === 0 ? 'none' : foldedDecided} decided on ${m.name})`,
+        ) +
+        `</summary>${matrix(folded)}</details>`;
   return (
     `<div class="overview-cell"><p ` +
     `class="overview-question">${textHtml(question)}</p>${tally}${matrix(shown)}${fold}` +

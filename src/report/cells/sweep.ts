@@ -66,7 +66,9 @@ function sweepTable(s: Sweep): string {
       if (p === undefined) return null;
       return (
         `${formatNumber(p.mean, decimals)}` +
-        `${p.low === null || p.high === null ? '' : ` [${formatNumber(p.low, decimals)}, ${formatNumber(p.high, decimals)}]`}`
+        (p.low === null || p.high === null
+          ? ''
+          : ` [${formatNumber(p.low, decimals)}, ${formatNumber(p.high, decimals)}]`)
       );
     }),
   ]);

@@ -71,7 +71,10 @@ export function calibrationChart(results: Results): TopLevelSpec | null {
       title: 'Calibration by internal tick',
       subtitle: [
         `Expected calibration error, ${bins} equal-width confidence bins; lower is better.`,
-        `Line: mean across seeds. ${hasBand ? `Band: ${formatLevel(results.settings.level)} interval across seeds (seed-to-seed spread).` : 'No band: too few seeds.'}`,
+        `Line: mean across seeds. ` +
+          (hasBand
+            ? `Band: ${formatLevel(results.settings.level)} interval across seeds (seed-to-seed spread).`
+            : 'No band: too few seeds.'),
       ],
       description:
         `Expected calibration error against internal tick for ${curves.length} ` +

@@ -132,7 +132,9 @@ export function compareChart(results: Results, metric: string, summary: string):
     methods === ''
       ? 'No row has an interval (too few runs).'
       : `Bar: ${methods}, unadjusted. Verdicts ` +
-        `use ${results.settings.correction === 'none' ? 'unadjusted' : `${results.settings.correction}-adjusted`} p at alpha ${results.settings.alpha}, so a bar clear of 0 can stand beside an inconclusive verdict.`,
+        `use ` +
+        (results.settings.correction === 'none' ? 'unadjusted' : `${results.settings.correction}-adjusted`) +
+        ` p at alpha ${results.settings.alpha}, so a bar clear of 0 can stand beside an inconclusive verdict.`,
   ];
   if (marginAt !== null) subtitle.push(`Dashed line: non-inferiority margin (${marginAt}).`);
 

@@ -112,7 +112,10 @@ export function haltingChart(results: Results): TopLevelSpec | null {
       subtitle: [
         'Each point is a certainty threshold: a sample exits at the first tick whose certainty reaches it (else ' +
           'at the last tick).',
-        `Points: means across seeds. ${exitIntervals.length + accuracyIntervals.length > 0 ? `Bars: ${formatLevel(results.settings.level)} intervals across seeds (seed-to-seed spread).` : 'No intervals: too few seeds.'}`,
+        `Points: means across seeds. ` +
+          (exitIntervals.length + accuracyIntervals.length > 0
+            ? `Bars: ${formatLevel(results.settings.level)} intervals across seeds (seed-to-seed spread).`
+            : 'No intervals: too few seeds.'),
       ],
       description:
         `Certainty-threshold halting trade-off for ${curves.length} ` +

@@ -135,7 +135,11 @@ export function valuesChart(results: Results, metric: string, summary: string): 
 
   const subtitle = [
     `One dot per seed: filled, used in tests${unused > 0 ? `; hollow diamond, not used (${unused})` : ''}. Bar: ` +
-      `mean across seeds; line: ${intervalLabels(meanRows.length === 0 ? [] : [...summaries.values()].map((c) => ({ method: c.method, level: c.level })))} of the mean.`,
+      `mean across seeds; line: ` +
+      intervalLabels(
+        meanRows.length === 0 ? [] : [...summaries.values()].map((c) => ({ method: c.method, level: c.level })),
+      ) +
+      ` of the mean.`,
   ];
   if (keep !== null)
     subtitle.push(
