@@ -19,9 +19,12 @@ export const PROBLEM_CODES = {
   'file-skipped': {
     severity: 'note',
     means:
-      'A file or folder found under a PATH was not read as a log: its name has no log extension, it is hidden, it is not listed in the manifest, or it is a second path (a symbolic link loop or alias) to something read once already.',
+      'A file or folder found under a PATH was not read as a log: its name has no log extension, it is hidden, ' +
+      'it is not listed in the manifest, or it is a second path (a symbolic link loop or alias) to something ' +
+      'read once already.',
     action:
-      'Nothing, if it is not a log; otherwise rename it (.csv, .tsv, .txt, .parquet, optionally .gz) or list it in the manifest.',
+      'Nothing, if it is not a log; otherwise rename it (.csv, .tsv, .txt, .parquet, optionally .gz) or list it ' +
+      'in the manifest.',
   },
   'no-logs': {
     severity: 'error',
@@ -36,19 +39,22 @@ export const PROBLEM_CODES = {
   'seed-missing': {
     severity: 'warning',
     means:
-      'No seed could be found for a file (no seed= segment, layout field, seed column or manifest row); it was given a seed of its own.',
+      'No seed could be found for a file (no seed= segment, layout field, seed column or manifest row); it was ' +
+      'given a seed of its own.',
     action: 'Name the seed with a seed=N folder, --layout, --seed-column or --manifest.',
   },
   'run-duplicate': {
     severity: 'warning',
     means:
-      'Two sources claim the same config and seed; their rows were merged in file order (later rows win on repeated steps).',
+      'Two sources claim the same config and seed; their rows were merged in file order (later rows win on ' +
+      'repeated steps).',
     action: 'Check for a copied folder or a mislabelled seed.',
   },
   'goal-conflict': {
     severity: 'warning',
     means:
-      'Digests read together (or a digest and the logs read beside it) give a metric different goals (from --metric when each was made); the goal of the first was kept.',
+      'Digests read together (or a digest and the logs read beside it) give a metric different goals (from ' +
+      '--metric when each was made); the goal of the first was kept.',
     action: 'Say --metric NAME:max or NAME:min when reading them; it decides for all.',
   },
   'params-mismatch': {
@@ -90,13 +96,15 @@ export const PROBLEM_CODES = {
   'cells-missing': {
     severity: 'note',
     means:
-      'Cells that are empty, nan, inf or not numbers were treated as missing; each metric keeps its own non-missing rows.',
+      'Cells that are empty, nan, inf or not numbers were treated as missing; each metric keeps its own ' +
+      'non-missing rows.',
     action: 'Expected when train and eval rows share a file; otherwise check the logging.',
   },
   'row-malformed': {
     severity: 'warning',
     means:
-      'A row could not be parsed (wrong number of fields, unterminated quote); it was rejected and the run keeps its other rows.',
+      'A row could not be parsed (wrong number of fields, unterminated quote); it was rejected and the run ' +
+      'keeps its other rows.',
     action: 'Check the line named.',
   },
   'header-drift': {
@@ -117,13 +125,15 @@ export const PROBLEM_CODES = {
   'aggregate-columns-ignored': {
     severity: 'note',
     means:
-      'In a wide file with one column per seed, columns that look like aggregates (mean, sd, std, min, max) were ignored.',
+      'In a wide file with one column per seed, columns that look like aggregates (mean, sd, std, min, max) ' +
+      'were ignored.',
     action: 'Nothing; seedsift computes its own aggregates from the seeds.',
   },
   'column-unused': {
     severity: 'note',
     means:
-      'In a wide file with one column per seed (--seed-columns), a column matches no pattern and does not look like an aggregate; it was not used.',
+      'In a wide file with one column per seed (--seed-columns), a column matches no pattern and does not look ' +
+      'like an aggregate; it was not used.',
     action: 'Add a NAME:PATTERN for it to --seed-columns if it holds one seed per column.',
   },
   'metric-empty': {
@@ -139,20 +149,23 @@ export const PROBLEM_CODES = {
   'goal-unknown': {
     severity: 'note',
     means:
-      'No name rule says whether higher or lower is better for this metric, and no --metric option names it; its comparisons say only which way the difference goes (higher, lower), never better or worse.',
+      'No name rule says whether higher or lower is better for this metric, and no --metric option names it; ' +
+      'its comparisons say only which way the difference goes (higher, lower), never better or worse.',
     action: 'Say --metric NAME:max or NAME:min (or metrics: in the notebook front matter).',
   },
   'run-diverged': {
     severity: 'warning',
     means:
-      'A metric went non-finite and stayed so; the run is marked diverged at that step and, by default, excluded from value statistics (counted in every table).',
+      'A metric went non-finite and stayed so; the run is marked diverged at that step and, by default, ' +
+      'excluded from value statistics (counted in every table).',
     action: 'Use --diverged worst to count diverged runs as the worst value instead.',
   },
   'run-short': {
     severity: 'warning',
     means: 'A run stopped well before the other runs of its config (below 90% of their last step).',
     action:
-      "Check whether the run crashed; it is a failure of its arm (counted, compared with Fisher's exact test, and excluded or scored worst by --failed) and never moves any comparison's step.",
+      "Check whether the run crashed; it is a failure of its arm (counted, compared with Fisher's exact test, " +
+      "and excluded or scored worst by --failed) and never moves any comparison's step.",
   },
   'tick-dump-invalid': {
     severity: 'warning',
@@ -197,13 +210,16 @@ export const PROBLEM_CODES = {
   'step-early': {
     severity: 'warning',
     means:
-      "A comparison is made at a step well before the end of some of its runs (below 90% of the longest non-failed run of the two arms), because every run of one arm stops early; only this comparison's step is set by them.",
+      'A comparison is made at a step well before the end of some of its runs (below 90% of the longest ' +
+      "non-failed run of the two arms), because every run of one arm stops early; only this comparison's step " +
+      'is set by them.',
     action: 'Check why those runs stop early; the verdict answers a question about that early step.',
   },
   'value-stale': {
     severity: 'note',
     means:
-      "A run's value for a comparison was logged more than one of its typical logging intervals before the comparison's step.",
+      "A run's value for a comparison was logged more than one of its typical logging intervals before the " +
+      "comparison's step.",
     action: 'Nothing, if the metric is logged rarely; otherwise check for a gap in the log.',
   },
   'step-beyond-run': {
@@ -214,7 +230,8 @@ export const PROBLEM_CODES = {
   'zero-spread': {
     severity: 'warning',
     means:
-      "Every run of both arms gave the same value within its arm, and the arms differ: Welch's test is undefined, so the exact permutation test decides.",
+      "Every run of both arms gave the same value within its arm, and the arms differ: Welch's test is " +
+      'undefined, so the exact permutation test decides.',
     action: 'Check that the metric varies between seeds at all (a constant, a saturated score, a copied log).',
   },
   'tests-disagree': {
@@ -225,28 +242,36 @@ export const PROBLEM_CODES = {
   'column-set-aside': {
     severity: 'note',
     means:
-      'A numeric column looks like bookkeeping, not a result: its name marks time, epochs, counts or a schedule (wall time, timestamp, elapsed, epoch, preemptions, lr), or its values never decrease (or never change) within a run while no name rule gives it a goal. It is not compared.',
+      'A numeric column looks like bookkeeping, not a result: its name marks time, epochs, counts or a schedule ' +
+      '(wall time, timestamp, elapsed, epoch, preemptions, lr), or its values never decrease (or never change) ' +
+      'within a run while no name rule gives it a goal. It is not compared.',
     action:
-      'To compare it anyway, name it: --as-metric NAME, or --metrics NAME, or give its goal with --metric NAME:max or NAME:min.',
+      'To compare it anyway, name it: --as-metric NAME, or --metrics NAME, or give its goal with --metric ' +
+      'NAME:max or NAME:min.',
   },
   'seed-repeated': {
     severity: 'warning',
     means:
-      'After --drop-keys or --keep-keys, two runs from different files share a config and a seed; both are kept as separate runs (the second id ends in #2).',
+      'After --drop-keys or --keep-keys, two runs from different files share a config and a seed; both are kept ' +
+      'as separate runs (the second id ends in #2).',
     action:
-      'Check whether the ignored key told real replicates apart (a machine flag) or whether one run is a copy; give distinct seeds if they are replicates.',
+      'Check whether the ignored key told real replicates apart (a machine flag) or whether one run is a copy; ' +
+      'give distinct seeds if they are replicates.',
   },
   'arm-keys': {
     severity: 'note',
     means:
-      "For --baseline KEY=VALUE, some config keys take values that change only together with KEY (attributes of the arm, such as one algorithm's own hyperparameters); counterparts were matched ignoring them.",
+      'For --baseline KEY=VALUE, some config keys take values that change only together with KEY (attributes of ' +
+      "the arm, such as one algorithm's own hyperparameters); counterparts were matched ignoring them.",
     action:
-      'Nothing, if those keys belong to the arms; otherwise run the missing configs, or drop the keys with --drop-keys.',
+      'Nothing, if those keys belong to the arms; otherwise run the missing configs, or drop the keys with ' +
+      '--drop-keys.',
   },
   'series-identical': {
     severity: 'warning',
     means:
-      "Two runs logged identical series (every step and value of every metric the same), within one config or across configs: most likely one run's files were copied for another.",
+      'Two runs logged identical series (every step and value of every metric the same), within one config or ' +
+      "across configs: most likely one run's files were copied for another.",
     action: 'Check the files named; remove the copy or re-run it. Comparisons that use a copied run are not evidence.',
   },
   'run-single-step': {
@@ -257,14 +282,18 @@ export const PROBLEM_CODES = {
   'config-all-failed': {
     severity: 'warning',
     means:
-      'Every run of a config failed (diverged, short, rejected or a single logged step): that config has no usable value, and its comparisons rest on failures.',
+      'Every run of a config failed (diverged, short, rejected or a single logged step): that config has no ' +
+      'usable value, and its comparisons rest on failures.',
     action: "Check the config's runs; fix and re-run before reading its comparisons.",
   },
   'path-key': {
     severity: 'note',
     means:
-      "Two PATHs given on the command line hold runs with the same config and seed (two method folders with nothing in their names that reads as a config); so that they do not merge into one run, each PATH's runs got the config key path=PATH.",
+      'Two PATHs given on the command line hold runs with the same config and seed (two method folders with ' +
+      "nothing in their names that reads as a config); so that they do not merge into one run, each PATH's runs " +
+      'got the config key path=PATH.',
     action:
-      'Nothing, if the PATHs are different methods; name the config in the folders (method=ours) or with --layout to give the key a better name.',
+      'Nothing, if the PATHs are different methods; name the config in the folders (method=ours) or with ' +
+      '--layout to give the key a better name.',
   },
 } as const satisfies Record<string, { severity: Severity; means: string; action: string }>;

@@ -10,7 +10,8 @@ describe('editDistance', () => {
     expect(editDistance('same', 'same')).toBe(0);
     // A swap of neighbours is one edit (Damerau); plain Levenshtein would count 2.
     expect(editDistance('stpe', 'step')).toBe(1);
-    expect(editDistance('ca', 'abc')).toBe(3); // the optimal string alignment value (a true Damerau distance would be 2)
+    // the optimal string alignment value (a true Damerau distance would be 2)
+    expect(editDistance('ca', 'abc')).toBe(3);
   });
 });
 

@@ -87,7 +87,9 @@ export function analyze(
     problems.push(
       problem(
         'arm-keys',
-        `counterparts for --baseline ${options.baseline?.text ?? ''} were matched ignoring ${pairing.armKeys.join(', ')}: their values change only with ${options.baseline?.pairs.map((p) => p.key).join(', ') ?? ''} (attributes of the arm)`,
+        `counterparts for --baseline ${options.baseline?.text ?? ''} were matched ignoring ` +
+          `${pairing.armKeys.join(', ')}: their values change only with ` +
+          `${options.baseline?.pairs.map((p) => p.key).join(', ') ?? ''} (attributes of the arm)`,
       ),
     );
   for (const m of pairing.missing) {

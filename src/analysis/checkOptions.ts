@@ -45,7 +45,8 @@ export function checkOptions(options: ResolvedOptions, runSet: RunSet): void {
       throw new SeedsiftError('usage', `--task-key: '${options.taskKey}' is dropped by --drop-keys or --keep-keys`);
     throw new SeedsiftError(
       'usage',
-      `--task-key: expected one of the config keys (${kept.join(', ') || 'none'}), got '${options.taskKey}'; ${didYouMean(options.taskKey, kept)}`,
+      `--task-key: expected one of the config keys (${kept.join(', ') || 'none'}), got ` +
+        `'${options.taskKey}'; ${didYouMean(options.taskKey, kept)}`,
     );
   }
   const selected = selectRuns(runSet, options).runSet;

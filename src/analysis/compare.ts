@@ -92,7 +92,9 @@ export function compareMetric(
   }
   const familyOf = (d: Draft): string => (settings.family === 'task' ? JSON.stringify(d.request.task) : '');
   const families = new Map<string, number[]>();
-  drafts.forEach((d, i) => families.set(familyOf(d), [...(families.get(familyOf(d)) ?? []), i]));
+  drafts.forEach((d, i) => {
+    families.set(familyOf(d), [...(families.get(familyOf(d)) ?? []), i]);
+  });
   const pAdjusted: (number | null)[] = drafts.map(() => null);
   const niAdjusted: (number | null)[] = drafts.map(() => null);
   const size: number[] = drafts.map(() => 0);

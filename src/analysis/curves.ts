@@ -181,7 +181,10 @@ function accumulate(
   }
 }
 
-/** Per bin the mean of the run's values (null where it logged nothing), also written to matrix[offset + bin] (NaN there). */
+/**
+ * Per bin the mean of the run's values (null where it logged
+ * nothing), also written to matrix[offset + bin] (NaN there).
+ */
 function binMeans(sums: Float64Array, counts: Float64Array, matrix: Float64Array, offset: number): (number | null)[] {
   const k = sums.length;
   const values: (number | null)[] = new Array<number | null>(k);
@@ -263,7 +266,10 @@ export function freshDraws(random: Random, resamples: number): Draws {
 /** Runs from which `--interval bca` gives a BCa band (a bootstrap of 3 values covers at most 75%: METHODS.md). */
 export const BCA_BAND_FROM = 4;
 
-/** The band of one bin: the t-interval; under `--interval bca`, BCa bootstrap (resample counts from `draws`) from 4 runs. */
+/**
+ * The band of one bin: the t-interval; under `--interval bca`,
+ * BCa bootstrap (resample counts from `draws`) from 4 runs.
+ */
 export function binBand(
   x: Float64Array,
   settings: Pick<CurveSettings, 'level' | 'interval'>,

@@ -17,7 +17,8 @@ export function directionOnly(c: Comparison): Comparison {
     verdict: 'inconclusive',
     cautions: [
       ...c.cautions,
-      `no goal is known for ${c.metric}: the candidate is ${way} (adjusted p below alpha), but whether that is better is not known; say --metric ${c.metric}:max or ${c.metric}:min`,
+      `no goal is known for ${c.metric}: the candidate is ${way} (adjusted p below alpha), but whether that is ` +
+        `better is not known; say --metric ${c.metric}:max or ${c.metric}:min`,
     ],
   };
 }

@@ -139,7 +139,11 @@ export function haltingCurves(
     const results = runs.map((d) => haltRun(d, sorted, reference));
     const ticks = Math.max(...runs.map((d) => d.ticks));
     const counts = new Array<number>(ticks).fill(0);
-    for (const r of results) r.histogram.forEach((c, t) => (counts[t] = (counts[t] as number) + c));
+    for (const r of results) {
+      r.histogram.forEach((c, t) => {
+        counts[t] = (counts[t] as number) + c;
+      });
+    }
     const perThreshold = opts.thresholds.map((tau) => {
       const j = position(tau);
       return {

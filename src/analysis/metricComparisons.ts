@@ -61,7 +61,9 @@ export function metricComparisons(
       candidateRuns: candRuns.map(outcome),
     };
     requests.push(request);
-    const where = `${info.name} (${options.summaryText}${p.task === null ? '' : `, task ${p.task}`}), ${p.candidate} v ${p.baseline}`;
+    const where =
+      `${info.name} (${options.summaryText}${p.task === null ? '' : `, task ${p.task}`}), ` +
+      `${p.candidate} v ${p.baseline}`;
     if (
       spec.kind !== 'step' &&
       step.step !== null &&
@@ -72,7 +74,8 @@ export function metricComparisons(
       problems.push(
         problem(
           'step-early',
-          `${where}: compared at step ${step.step}, where ${step.setBy} stops, while the longest run of the two arms reaches step ${step.longest}; only this comparison uses that step`,
+          `${where}: compared at step ${step.step}, where ${step.setBy} stops, while the longest run of the two ` +
+            `arms reaches step ${step.longest}; only this comparison uses that step`,
         ),
       );
     }
@@ -82,7 +85,9 @@ export function metricComparisons(
       problems.push(
         problem(
           'value-stale',
-          `${where}: ${stale.length} run${stale.length === 1 ? '' : 's'} logged ${info.name} more than one typical logging interval before the comparison's step ${step.step} (${stale.map((o) => `${o.run} at step ${o.loggedAt}`).join('; ')})`,
+          `${where}: ${stale.length} run${stale.length === 1 ? '' : 's'} logged ${info.name} more than one ` +
+            `typical logging interval before the comparison's step ${step.step} ` +
+            `(${stale.map((o) => `${o.run} at step ${o.loggedAt}`).join('; ')})`,
         ),
       );
     }
@@ -93,7 +98,8 @@ export function metricComparisons(
         problems.push(
           problem(
             'step-beyond-run',
-            `${where}: ${beyond.length} run${beyond.length === 1 ? ' ends' : 's end'} before step ${spec.step} (${beyond.map((o) => o.run).join('; ')}); short for this comparison, counted as failures of their arm`,
+            `${where}: ${beyond.length} run${beyond.length === 1 ? ' ends' : 's end'} before step ${spec.step} ` +
+              `(${beyond.map((o) => o.run).join('; ')}); short for this comparison, counted as failures of their arm`,
           ),
         );
       }

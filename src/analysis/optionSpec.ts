@@ -14,10 +14,16 @@ import { parseSelector, type Selector } from './selectors.js';
 export type CommandName = 'scan' | 'report' | 'digest' | 'seeds';
 
 /** The shape of a value in notebook front matter. */
-/** `csv`: a YAML list or comma-separated text, joined with commas; `list`: a YAML list or one text, kept as a list (for values that hold commas, such as selectors). */
+/**
+ * `csv`: a YAML list or comma-separated text, joined with commas; `list`: a YAML
+ * list or one text, kept as a list (for values that hold commas, such as selectors).
+ */
 export type FrontShape = 'text' | 'number' | 'boolean' | 'csv' | 'list' | 'goals';
 
-/** A value as given: a string (or list of strings, for a repeatable option) from the command line; YAML scalars from front matter. */
+/**
+ * A value as given: a string (or list of strings, for a repeatable
+ * option) from the command line; YAML scalars from front matter.
+ */
 export type RawValue = string | number | boolean | readonly string[];
 
 /** A value of `results.json` settings. */

@@ -127,7 +127,9 @@ export function metricValues(
     const inComparison = compared.has(run.config);
     let note = o.note;
     if (o.failed !== null)
-      note = `${o.note ?? o.failed}: ${policy === 'exclude' ? 'left out of the tests' : 'counted as the worst value of each comparison'}`;
+      note =
+        `${o.note ?? o.failed}: ` +
+        (policy === 'exclude' ? 'left out of the tests' : 'counted as the worst value of each comparison');
     else if (o.value !== null) {
       summarised++;
       if (o.censored) censored++;
@@ -151,7 +153,8 @@ export function metricValues(
     problems.push(
       problem(
         'summary-censored',
-        `${metric} (${summary}): ${censored} of ${summarised} runs had not reached ${spec.value} by their comparison's step; they are censored there and kept in the log-rank test (never dropped)`,
+        `${metric} (${summary}): ${censored} of ${summarised} runs had not reached ${spec.value} by their ` +
+          `comparison's step; they are censored there and kept in the log-rank test (never dropped)`,
       ),
     );
   }
@@ -159,7 +162,8 @@ export function metricValues(
     problems.push(
       problem(
         'summary-optimistic',
-        `${metric} (best): the best checkpoint is chosen on the same evaluation it is scored on, so it is optimistic; prefer final or last:P% for claims`,
+        `${metric} (best): the best checkpoint is chosen on the same evaluation it is scored on, so it is ` +
+          `optimistic; prefer final or last:P% for claims`,
       ),
     );
   }

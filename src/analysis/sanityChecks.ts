@@ -86,7 +86,8 @@ export function sanityChecks(runSet: RunSet): Problem[] {
         problems.push(
           problem(
             'series-identical',
-            `${run.id} logged exactly the series of ${earlier.id} (${where}; files ${run.files.join(', ')} and ${earlier.files.join(', ')}): most likely a copy; comparisons that use it are not evidence`,
+            `${run.id} logged exactly the series of ${earlier.id} (${where}; files ${run.files.join(', ')} ` +
+              `and ${earlier.files.join(', ')}): most likely a copy; comparisons that use it are not evidence`,
             run.files.length === 1 ? { run: run.id, file: run.files[0] as string } : { run: run.id },
           ),
         );
@@ -116,7 +117,9 @@ export function sanityChecks(runSet: RunSet): Problem[] {
       problems.push(
         problem(
           'config-all-failed',
-          `every run of ${config || '(no config keys)'} failed (${runs.map((r) => `${r.id}: ${single.has(r.id) ? 'single step' : r.status}`).join('; ')}); it has no usable value`,
+          `every run of ${config || '(no config keys)'} failed ` +
+            `(${runs.map((r) => `${r.id}: ${single.has(r.id) ? 'single step' : r.status}`).join('; ')}); it has ` +
+            `no usable value`,
         ),
       );
   return problems;

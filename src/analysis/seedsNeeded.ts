@@ -121,7 +121,8 @@ export function seedsNeeded(q: SeedsQuestion): SeedsAnswer {
   const testAlpha = q.alpha / m;
   if (m > 1)
     notes.push(
-      `planned at alpha ${q.alpha} / ${m} comparisons = ${Number(testAlpha.toPrecision(4))} per test (Bonferroni, Holm's first step)`,
+      `planned at alpha ${q.alpha} / ${m} comparisons = ${Number(testAlpha.toPrecision(4))} per test ` +
+        `(Bonferroni, Holm's first step)`,
     );
   let seeds: number | null = null;
   if (d === 0) notes.push('a difference of 0 cannot be detected with any number of seeds');

@@ -57,7 +57,9 @@ export function selectRuns(runSet: RunSet, options: SelectionOptions): { runSet:
       problems.push(
         problem(
           'seed-repeated',
-          `${id}: config ${config || '(none)'} has seed ${run.seed} twice once keys ${[...runSet.keys.filter((k) => !keys.includes(k))].join(', ')} are ignored (${first.files.join(', ')} and ${run.files.join(', ')}); both runs are kept`,
+          `${id}: config ${config || '(none)'} has seed ${run.seed} twice once ` +
+            `keys ${[...runSet.keys.filter((k) => !keys.includes(k))].join(', ')} are ignored ` +
+            `(${first.files.join(', ')} and ${run.files.join(', ')}); both runs are kept`,
           { run: id },
         ),
       );

@@ -12,7 +12,9 @@ const REPORT: readonly CommandName[] = ['report'];
 export const SELECTION_OPTIONS = {
   metrics: option({
     flag: '--metrics <names>',
-    help: 'compare only these metrics, in this order (e.g. --metrics val_acc,val_loss); a bookkeeping column named here is compared too',
+    help:
+      'compare only these metrics, in this order (e.g. --metrics val_acc,val_loss); a bookkeeping column ' +
+      'named here is compared too',
     commands: REPORT,
     front: 'metrics',
     shape: 'csv',
@@ -22,7 +24,9 @@ export const SELECTION_OPTIONS = {
   }),
   primary: option({
     flag: '--primary <name>',
-    help: 'the metric that leads every output: first section, first verdicts (e.g. --primary val_acc; default the first of --metrics)',
+    help:
+      'the metric that leads every output: first section, first verdicts (e.g. --primary val_acc; default ' +
+      'the first of --metrics)',
     commands: REPORT,
     front: 'primary',
     shape: 'text',
@@ -42,7 +46,9 @@ export const SELECTION_OPTIONS = {
   }),
   includeConfigs: option({
     flag: '--include-configs <selector>',
-    help: 'compare only the configs that match, repeatable (e.g. --include-configs algo=ppo --include-configs algo=a2c)',
+    help:
+      'compare only the configs that match, repeatable (e.g. --include-configs algo=ppo --include-configs ' +
+      'algo=a2c)',
     commands: REPORT,
     front: 'include-configs',
     shape: 'list',

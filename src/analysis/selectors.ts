@@ -18,7 +18,8 @@ export interface Selector {
  * Parse `key=value[,key=value]`. Whitespace around keys and values is trimmed; a value may hold
  * further `=` signs (the first one splits). Throws SeedsiftError('usage') naming the option on an
  * empty selector, a pair without `=`, an empty key or value, a repeated key, or the key `seed`.
- * Example: `parseSelector('memory=4,ticks=8').pairs` is `[{ key: 'memory', value: '4' }, { key: 'ticks', value: '8' }]`.
+ * Example: `parseSelector('memory=4,ticks=8').pairs` is
+ * `[{ key: 'memory', value: '4' }, { key: 'ticks', value: '8' }]`.
  */
 export function parseSelector(text: string, option = '--baseline'): Selector {
   const expected = `${option}: expected key=value[,key=value]`;
@@ -64,14 +65,16 @@ export function checkSelector(
     if (key === taskKey) {
       throw new SeedsiftError(
         'usage',
-        `${option}: '${key}' is the task key (--task-key); comparisons already run per task, name other keys, got '${selector.text}'`,
+        `${option}: '${key}' is the task key (--task-key); comparisons already run per task, name other keys, ` +
+          `got '${selector.text}'`,
       );
     }
     if (!keys.includes(key)) {
       const available = keys.filter((k) => k !== taskKey);
       throw new SeedsiftError(
         'usage',
-        `${option}: no config key '${key}'; keys are ${available.length === 0 ? '(none)' : available.join(', ')}; ${didYouMean(key, available)}`,
+        `${option}: no config key '${key}'; keys ` +
+          `are ${available.length === 0 ? '(none)' : available.join(', ')}; ${didYouMean(key, available)}`,
       );
     }
   }

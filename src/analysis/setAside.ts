@@ -45,7 +45,9 @@ export function setAsideColumns(runSet: RunSet, wanted: readonly string[] = []):
     out.push({
       name: info.name,
       reason,
-      message: `${info.name}: not compared, ${why}; to compare it, say --as-metric ${info.name} (or --metric ${info.name}:max|min)`,
+      message:
+        `${info.name}: not compared, ${why}; to compare it, say --as-metric ${info.name} (or ` +
+        `--metric ${info.name}:max|min)`,
     });
   }
   return out;

@@ -130,7 +130,9 @@ export function lastPercent(
     return {
       value: values[end] as number,
       loggedAt,
-      note: `no step logged in the last ${percent}% (from step ${from}); used the last value before the comparison's step`,
+      note:
+        `no step logged in the last ${percent}% (from step ${from}); used the last value before the ` +
+        `comparison's step`,
       censored: false,
       short: false,
     };

@@ -78,7 +78,8 @@ export const SUMMARY_KINDS: { readonly [K in SummaryKind]: SummaryKindEntry<K> }
     parse: noArg('final'),
     format: () => 'final',
     describe: () =>
-      "the last logged value at or before the comparison's step (the last step every non-failed run of both arms reached, per task)",
+      "the last logged value at or before the comparison's step (the last step every non-failed run of both " +
+      'arms reached, per task)',
     goal: (g) => g,
     timeToEvent: false,
     compute: (s, _spec, _goal, w) => {
@@ -132,7 +133,8 @@ export const SUMMARY_KINDS: { readonly [K in SummaryKind]: SummaryKindEntry<K> }
     },
     format: (spec) => `reach:${spec.value}`,
     describe: (spec) =>
-      `the steps until the run first reaches ${spec.value}, a time to event: a run that has not reached it by the comparison's step is censored there (kept, never dropped) and the arms are compared with the log-rank test`,
+      `the steps until the run first reaches ${spec.value}, a time to event: a run that has not reached it by ` +
+      `the comparison's step is censored there (kept, never dropped) and the arms are compared with the log-rank test`,
     goal: () => 'min',
     timeToEvent: true,
     compute: (s, spec, goal, w) => {
@@ -157,10 +159,11 @@ export const SUMMARY_KINDS: { readonly [K in SummaryKind]: SummaryKindEntry<K> }
     },
     format: (spec) => `step:${spec.step}`,
     describe: (spec) =>
-      `the last logged value at or before step ${spec.step}; a run that ends before step ${spec.step} has no value (it is short for this comparison)`,
+      `the last logged value at or before step ${spec.step}; a run that ends before step ${spec.step} has no ` +
+      `value (it is short for this comparison)`,
     goal: (g) => g,
     timeToEvent: false,
-    compute: (s, spec, _goal, w) => {
+    compute: (s, spec) => {
       const last = s.steps[s.steps.length - 1] as number;
       if (last < spec.step) {
         return {

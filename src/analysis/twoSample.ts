@@ -94,7 +94,8 @@ export function twoSampleDraft(
   if (few) reasons.push(`no t-test, effect size or interval with fewer than 2 seeds in an arm (${nx} v ${ny})`);
   if (zeroSpread)
     reasons.push(
-      "every run gave the same value within each arm and the arms differ (zero spread in both): Welch's t, Hedges' g and the t-interval are undefined, so the exact permutation test decides",
+      "every run gave the same value within each arm and the arms differ (zero spread in both): Welch's t, " +
+        "Hedges' g and the t-interval are undefined, so the exact permutation test decides",
     );
   else if (flat) reasons.push('every run of both arms gave the same value: there is no difference to test');
 
@@ -121,7 +122,8 @@ export function twoSampleDraft(
     const canPair = paired.x.length >= 2;
     if (!canPair)
       reasons.push(
-        `--paired: only ${paired.x.length} seed${paired.x.length === 1 ? '' : 's'} present in both arms; the paired tests need 2`,
+        `--paired: only ${paired.x.length} seed${paired.x.length === 1 ? '' : 's'} present in both arms; the ` +
+          `paired tests need 2`,
       );
     const pt = canPair
       ? attempt(() => pairedT(paired.x, paired.y, { level: s.level }), 'the paired t-test', reasons)
@@ -192,7 +194,9 @@ export function simultaneousBounds(d: TwoSampleDraft, alpha: number, m: number):
   }
 }
 
-/** The headline interval (Welch, or BCa under `--interval bca` from 4 runs per arm) and BCa beside from `bootstrapFrom`. */
+/**
+ * The headline interval (Welch, or BCa under `--interval bca` from 4 runs per arm) and BCa beside from `bootstrapFrom`.
+ */
 function headline(
   x: Float64Array,
   y: Float64Array,
@@ -206,7 +210,9 @@ function headline(
   const wantBca = (s.interval === 'bca' && smaller >= 4) || smaller >= s.bootstrapFrom;
   if (s.interval === 'bca' && smaller >= 2 && smaller <= 3) {
     reasons.push(
-      `no bootstrap interval with ${smaller} seeds in an arm: a percentile bootstrap interval of ${smaller} values covers at most ${formatNumber(100 * (1 - 2 * 0.5 ** smaller))}% (METHODS.md); the interval shown is Welch's t`,
+      `no bootstrap interval with ${smaller} seeds in an arm: a percentile bootstrap interval of ${smaller} ` +
+        `values covers at most ${formatNumber(100 * (1 - 2 * 0.5 ** smaller))}% (METHODS.md); the interval ` +
+        `shown is Welch's t`,
     );
   }
   let bca: Difference['bca'] = null;
@@ -277,7 +283,9 @@ function detectableOf(x: Float64Array, y: Float64Array, alpha: number, cache: Po
 /** Values of the seeds present in both arms, in the candidate's order: x candidate, y baseline. */
 function pairedArms(base: Arm, cand: Arm): { x: Float64Array; y: Float64Array } {
   const bySeed = new Map<string, number>();
-  base.seeds.forEach((seed, i) => bySeed.set(seed, base.values[i] as number));
+  base.seeds.forEach((seed, i) => {
+    bySeed.set(seed, base.values[i] as number);
+  });
   const x: number[] = [];
   const y: number[] = [];
   cand.seeds.forEach((seed, i) => {

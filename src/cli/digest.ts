@@ -27,7 +27,8 @@ function mebibytes(bytes: number): string {
 export function digestCommand(io: Io, done: (code: number) => void): Command {
   const command = new Command('digest')
     .description(
-      'read runs where they live and save them exactly as one Parquet digest, for report or scan to read later (e.g. one digest per shard of a cluster job array)',
+      'read runs where they live and save them exactly as one Parquet digest, for report or scan to read later ' +
+        '(e.g. one digest per shard of a cluster job array)',
     )
     .argument('[paths...]', 'folders or files of run logs (none with --scores)')
     .requiredOption('--out <file>', 'the digest to write (a name ending in .parquet)')
@@ -58,7 +59,8 @@ export function digestCommand(io: Io, done: (code: number) => void): Command {
     if (raw.quiet !== true) {
       const read = runSet.files.filter((f) => f.status === 'read').length;
       io.stdout(
-        `${runSet.runs.length} runs from ${read} files read, ${runSet.problems.length} problems\nwrote ${raw.out} (${mebibytes(statSync(target).size)})\n`,
+        `${runSet.runs.length} runs from ${read} files read, ${runSet.problems.length} ` +
+          `problems\nwrote ${raw.out} (${mebibytes(statSync(target).size)})\n`,
       );
     }
     done(0);

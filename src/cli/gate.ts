@@ -16,8 +16,12 @@ export function failedGate(results: Results): string | null {
   const which =
     first === undefined
       ? ''
-      : ` (first: ${first.metric}, ${first.candidate} vs ${first.baseline}${first.task === null ? '' : `, task ${first.task}`}: ${first.verdict})`;
-  return `${failing.length} of ${results.comparisons.length} comparisons are ${gate === 'worse' ? 'worse' : 'not better'}${which}`;
+      : ` (first: ${first.metric}, ${first.candidate} ` +
+        `vs ${first.baseline}${first.task === null ? '' : `, task ${first.task}`}: ${first.verdict})`;
+  return (
+    `${failing.length} of ${results.comparisons.length} comparisons ` +
+    `are ${gate === 'worse' ? 'worse' : 'not better'}${which}`
+  );
 }
 
 /**
@@ -31,6 +35,9 @@ export function ungated(results: Results): string | null {
   if (tried > 0 && unreadable * 2 > tried)
     return `${unreadable} of ${tried} files could not be read; a gate does not pass on what is left (exit 3)`;
   if (results.comparisons.length === 0)
-    return `no comparison was made (${results.runs.length} runs, ${results.configs.length} configs); a gate does not pass on nothing (exit 3)`;
+    return (
+      `no comparison was made (${results.runs.length} runs, ${results.configs.length} configs); a gate ` +
+      `does not pass on nothing (exit 3)`
+    );
   return null;
 }

@@ -144,5 +144,9 @@ function notebookRuns(front: NotebookOptions, notebookFile: string): string[] {
 function outcomeLine(results: Results, written: readonly string[]): string {
   const count = (v: string): number => results.comparisons.filter((c) => c.verdict === v).length;
   const excluded = results.runs.filter((r) => r.status !== 'ok').length;
-  return `${results.runs.length} runs, ${results.configs.length} configs, ${results.comparisons.length} comparisons: ${count('better')} better, ${count('worse')} worse, ${count('inconclusive')} inconclusive; ${excluded} runs not ok, ${results.problems.length} problems\nwrote ${written.join(', ')}\n`;
+  return (
+    `${results.runs.length} runs, ${results.configs.length} configs, ${results.comparisons.length} ` +
+    `comparisons: ${count('better')} better, ${count('worse')} worse, ${count('inconclusive')} ` +
+    `inconclusive; ${excluded} runs not ok, ${results.problems.length} problems\nwrote ${written.join(', ')}\n`
+  );
 }

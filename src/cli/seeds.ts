@@ -65,7 +65,8 @@ function figures(raw: RawSeedsOptions, alpha: number, power: number): SeedsQuest
   if (sd === null || effect === null) {
     throw new SeedsiftError(
       'usage',
-      'seeds: expected --sd and --effect, or pilot runs (PATH... --for METRIC --baseline SEL [--candidate SEL | --effect X])',
+      'seeds: expected --sd and --effect, or pilot runs (PATH... --for METRIC --baseline SEL [--candidate SEL | ' +
+        '--effect X])',
     );
   }
   return {
@@ -125,7 +126,8 @@ async function pilot(
   if (effect === null)
     throw new SeedsiftError(
       'usage',
-      'seeds: expected --effect X (the difference to detect, in metric units); seedsift never plans for the observed pilot difference (post-hoc power)',
+      'seeds: expected --effect X (the difference to detect, in metric units); seedsift never plans for the ' +
+        'observed pilot difference (post-hoc power)',
     );
   return { kind: 'pilot', groups, effect, alpha, power, comparisons };
 }
@@ -135,9 +137,13 @@ function seedsText(a: SeedsAnswer): string {
   const lines = [
     a.seedsPerArm === null
       ? `No finite number of seeds detects a difference of ${fmt(a.effect)}.`
-      : `${a.seedsPerArm} seeds per arm detect a difference of ${fmt(a.effect)} (${a.effectFrom}) with ${Math.round(a.power * 100)}% power at alpha ${a.alpha}${a.comparisons > 1 ? ` / ${a.comparisons} comparisons` : ''}, two-sided.`,
-    `  sd between seeds ${fmt(a.sd)} (${a.sdFrom}); standardized difference d = ${fmt(a.standardized)}; method: ${a.method}`,
-    `  power with this difference at n seeds per arm: ${a.powerAt.map((p) => `${p.seeds}: ${p.power.toFixed(2)}`).join(', ')}`,
+      : `${a.seedsPerArm} seeds per arm detect a difference of ${fmt(a.effect)} (${a.effectFrom}) ` +
+        `with ${Math.round(a.power * 100)}% power at ` +
+        `alpha ${a.alpha}${a.comparisons > 1 ? ` / ${a.comparisons} comparisons` : ''}, two-sided.`,
+    `  sd between seeds ${fmt(a.sd)} (${a.sdFrom}); standardized difference d = ${fmt(a.standardized)}; ` +
+      `method: ${a.method}`,
+    `  power with this difference at n seeds per ` +
+      `arm: ${a.powerAt.map((p) => `${p.seeds}: ${p.power.toFixed(2)}`).join(', ')}`,
     ...a.notes.map((n) => `  note: ${n}`),
   ];
   return `${lines.join('\n')}\n`;

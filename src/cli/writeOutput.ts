@@ -8,7 +8,10 @@ import { existsSync, realpathSync, renameSync, rmSync, statSync, writeFileSync }
 import { basename, dirname, join, resolve } from 'node:path';
 import { SeedsiftError } from '../problems.js';
 
-/** The name that means standard output for every output option (`-o -`, `--json -`, `--markdown -`), never a file named "-". */
+/**
+ * The name that means standard output for every output option
+ * (`-o -`, `--json -`, `--markdown -`), never a file named "-".
+ */
 export const STDOUT = '-';
 
 /** Real path when the file exists, else the resolved path (for comparing outputs with inputs). */

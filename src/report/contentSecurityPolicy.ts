@@ -21,7 +21,8 @@ export function scriptHash(script: string): string {
 /**
  * The policy for a page whose inline scripts are `scripts` (their exact text between the tags).
  * Cost O(total script length). Never throws.
- * Example: `contentSecurityPolicy(['x'])` → `"default-src 'none'; img-src data:; style-src 'unsafe-inline'; script-src 'sha256-...'; connect-src 'none'; ..."`.
+ * Example: `contentSecurityPolicy(['x'])` →
+ * `"default-src 'none'; img-src data:; style-src 'unsafe-inline'; script-src 'sha256-...'; connect-src 'none'; ..."`.
  */
 export function contentSecurityPolicy(scripts: readonly string[]): string {
   return [

@@ -43,7 +43,7 @@ export function escapeHtml(text: string): string {
  * Example: `escapeAttr('a b"c')` → `'a&#x20;b&#x22;c'`.
  */
 export function escapeAttr(text: string): string {
-  return text.replace(/[\x00-\x2c\x2f\x3a-\x40\x5b-\x5e\x60\x7b-\x7f]/g, (c) => `&#x${c.charCodeAt(0).toString(16)};`);
+  return text.replace(/[^-.0-9A-Z_a-z\u0080-\uffff]/g, (c) => `&#x${c.charCodeAt(0).toString(16)};`);
 }
 
 /**
@@ -59,6 +59,7 @@ export function jsonForScript(value: unknown): string {
 
 /** Characters that are invisible or change text direction (Unicode bidi controls, zero-width marks, controls). */
 const HIDDEN =
+  // biome-ignore lint/suspicious/noControlCharactersInRegex: this expression exists to find control characters
   /[\u0000-\u0008\u000b-\u001f\u007f-\u009f\u061c\u200b-\u200f\u202a-\u202e\u2060-\u2064\u2066-\u2069\ufeff]/g;
 
 /**

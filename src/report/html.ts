@@ -79,7 +79,10 @@ export function tableHtml(spec: TableSpec): string {
     .join('');
   const caption = spec.caption === undefined ? '' : `<caption>${escapeHtml(spec.caption)}</caption>`;
   const className = spec.className === undefined ? '' : ` class="${escapeAttr(spec.className)}"`;
-  return `<div class="table-wrap"><table${className}>${caption}<thead><tr>${head}</tr></thead><tbody>${body}</tbody></table></div>`;
+  return (
+    `<div class="table-wrap"><table${className}>${caption}<thead><tr>${head}</tr></thead><tbody>${body}` +
+    `</tbody></table></div>`
+  );
 }
 
 /**

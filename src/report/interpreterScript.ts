@@ -25,14 +25,16 @@ const IDENTIFIER = /^[A-Za-z_$][\w$]*$/;
  * `vega-util` import of plain names and one `expressionInterpreter` export and no other import or
  * export statement (a different build; seedsift must then be updated, not guess).
  * Example: `interpreterScript("import { a } from 'vega-util';\nconst e = {};\nexport { e as expressionInterpreter };")`
- * → `"(function (vega) {\n'use strict';\nif (...) throw ...;\nvar a = vega.a;\n...window.vegaInterpreter = e;\n})(vega);\n"`.
+ * → `"(function (vega) {\n'use strict';\nif (...) throw ...;\n" +`
+ * `"var a = vega.a;\n...window.vegaInterpreter = e;\n})(vega);\n"`.
  */
 export function interpreterScript(moduleText: string): string {
   const imports = moduleText.match(new RegExp(IMPORT.source, 'gm')) ?? [];
   const exports = moduleText.match(new RegExp(EXPORT.source, 'gm')) ?? [];
   if (imports.length !== 1 || exports.length !== 1) {
     throw new Error(
-      `vega-interpreter: expected one import from 'vega-util' and one export of expressionInterpreter, found ${imports.length} and ${exports.length}`,
+      `vega-interpreter: expected one import from 'vega-util' and one export of expressionInterpreter, ` +
+        `found ${imports.length} and ${exports.length}`,
     );
   }
   const names = (IMPORT.exec(moduleText)?.[1] ?? '')

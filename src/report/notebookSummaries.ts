@@ -9,7 +9,8 @@ import type { Results } from '../analysis/results.js';
 /**
  * Summaries named by `summary="..."` (or single quotes) in a notebook body.
  * Cost O(length). Never throws.
- * Example: `notebookSummaries('{{compare "a" summary="last:10%"}} {{values "a" summary=\'best\'}}')` → `['last:10%', 'best']`.
+ * Example: `notebookSummaries('{{compare "a" summary="last:10%"}} {{values "a" summary=\'best\'}}')`
+ * → `['last:10%', 'best']`.
  */
 export function notebookSummaries(body: string): string[] {
   const out: string[] = [];

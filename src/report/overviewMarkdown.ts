@@ -181,7 +181,8 @@ export function overviewMarkdown(results: Results): string[] {
   return [
     `### Overview: ${name(m.name)}`,
     '',
-    `**${countsWords(model.counts)}** on ${name(m.name)} (${goalWords(m.goal, m.goalSource, ', guessed from the name')}; ` +
+    `**${countsWords(model.counts)}** on ${name(m.name)} ` +
+      `(${goalWords(m.goal, m.goalSource, ', guessed from the name')}; ` +
       `summary ${name(model.summary)}), ${against}; ${escapeMarkdown(familyWords(results, model))}.`,
     '',
     ...(model.mode === 'tasks' ? decidedTable(model) : metricsMatrix(model)),

@@ -36,7 +36,8 @@ export interface OverviewModel {
 /**
  * The overview of `metric` (default: `primaryMetric`) under `summary` (default: the report's).
  * Rows: one per candidate (per pair without a baseline), ordered by their decided comparisons of
- * the metric (most decided first), then by their smallest adjusted p, ties in `Results` order. Null when nothing of that metric was compared.
+ * the metric (most decided first), then by their smallest adjusted p,
+ * ties in `Results` order. Null when nothing of that metric was compared.
  * Cost O(comparisons log comparisons). Never throws.
  * Example: demo results → metric val_acc, mode 'metrics', 5 rows, counts { better: 4, worse: 0, inconclusive: 1 }.
  */
@@ -111,5 +112,8 @@ export function familyWords(results: Results, model: OverviewModel): string {
     results.settings.correction
   ];
   const tasks = model.mode === 'tasks' ? ` over ${model.columns.length} tasks` : '';
-  return `p-values ${how} within the family of ${n} comparison${n === 1 ? '' : 's'} of ${model.metric.name} (summary ${model.summary}${tasks}), alpha ${results.settings.alpha}`;
+  return (
+    `p-values ${how} within the family of ${n} comparison${n === 1 ? '' : 's'} of ${model.metric.name} ` +
+    `(summary ${model.summary}${tasks}), alpha ${results.settings.alpha}`
+  );
 }

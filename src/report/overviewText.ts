@@ -17,24 +17,32 @@ export const SCREEN_LINES = 20;
 const MARKS = { better: '▲', worse: '▼', inconclusive: '●' } as const;
 
 function who(c: Comparison, sharedBaseline: boolean): string {
-  return `${visibleText(c.candidate, 60)}${sharedBaseline ? '' : ` v ${visibleText(c.baseline, 60)}`}${c.task === null ? '' : ` (${visibleText(c.task, 40)})`}`;
+  const versus = sharedBaseline ? '' : ` v ${visibleText(c.baseline, 60)}`;
+  const task = c.task === null ? '' : ` (${visibleText(c.task, 40)})`;
+  return `${visibleText(c.candidate, 60)}${versus}${task}`;
 }
 
 function line(c: Comparison, sharedBaseline: boolean, width: number): string {
-  return `  ${MARKS[c.verdict]} ${c.verdict.padEnd(12)} ${who(c, sharedBaseline).padEnd(width)}  ${formatDifference(c.difference, comparisonDecimals(c))}  p ${formatP(c.pAdjusted)}`;
+  const difference = formatDifference(c.difference, comparisonDecimals(c));
+  const mark = `${MARKS[c.verdict]} ${c.verdict.padEnd(12)}`;
+  return `  ${mark} ${who(c, sharedBaseline).padEnd(width)}  ${difference}  p ${formatP(c.pAdjusted)}`;
 }
 
 /**
  * The overview text, ending in a newline; '' when nothing was compared.
  * Cost O(comparisons log comparisons). Never throws.
- * Example: demo results → `'val_acc (higher is better; summary final) against ticks=8,memory=4: 4 better, 0 worse, 1 inconclusive\n  p-values Holm-adjusted ...\n  ▲ better       ticks=32,memory=12  +0.0505 [0.0381, 0.0630]  p < 0.001\n...'`.
+ * Example: demo results → `'val_acc (higher is better; summary final) against ticks=8,memory=4: 14 better, ...'`,
+ * then the family line and one line per comparison, decided ones first
+ * (`'  ▲ better       ticks=32,memory=4 (count)  +0.04885 [0.04169, 0.05602]  p < 0.001'`).
  */
 export function overviewText(results: Results): string {
   const model = overviewModel(results);
   if (model === null) return '';
   const shared = model.sharedBaseline !== null;
   const head = [
-    `${visibleText(model.metric.name, 80)} (${goalWords(model.metric.goal, model.metric.goalSource, '')}; summary ${model.summary})${shared ? ` against ${visibleText(model.sharedBaseline ?? '', 80)}` : ''}: ${countsWords(model.counts)}`,
+    `${visibleText(model.metric.name, 80)} (${goalWords(model.metric.goal, model.metric.goalSource, '')}; ` +
+      `summary ${model.summary})${shared ? ` against ${visibleText(model.sharedBaseline ?? '', 80)}` : ''}: ` +
+      countsWords(model.counts),
     `  ${familyWords(results, model)}`,
   ];
   const room = SCREEN_LINES - head.length - 1;

@@ -57,7 +57,8 @@ export interface RenderedNotebook {
  * compile and one headless Vega run.
  * Throws SeedsiftError('notebook') with file and line for template mistakes; rethrows chart
  * rendering errors (a bug, not a user mistake).
- * Example: `await renderNotebook(results, parseNotebook('{{verdicts}}', 'n.md'), 'Study')` → `{ html: '<div class="verdicts-cell">...', charts: 0 }`.
+ * Example: `await renderNotebook(results, parseNotebook('{{verdicts}}', 'n.md'), 'Study')`
+ * → `{ html: '<div class="verdicts-cell">...', charts: 0 }`.
  */
 export async function renderNotebook(
   results: Results,
@@ -150,7 +151,10 @@ async function chartHtml(full: TopLevelSpec, index: number): Promise<string> {
   const spec = roundChartData(full);
   const svg = prefixIds(stripNamespaces(await renderSvg(staticChart(spec))), prefix);
   const { $schema: _schema, ...vega } = compileVega(spec) as { $schema?: string } & Record<string, unknown>;
-  return `<div class="chart-view" data-chart="${index + 1}">${svg}</div><script type="application/json" class="chart-spec">${jsonForScript(vega)}</script>`;
+  return (
+    `<div class="chart-view" data-chart="${index + 1}">${svg}</div><script type="application/json" ` +
+    `class="chart-spec">${jsonForScript(vega)}</script>`
+  );
 }
 
 /** Namespace declarations are not needed for SVG inside HTML; dropping them leaves no URL in the page. */

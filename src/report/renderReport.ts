@@ -73,7 +73,8 @@ function facts(results: Results): string[] {
  * Cost: dominated by the charts (one Vega-Lite compile and one headless Vega run each).
  * Throws SeedsiftError('notebook') with the notebook's file and line for a mistake in the notebook
  * (see `parseNotebook` and `renderNotebook`).
- * Example: `await renderReport(results, readFileSync(DEFAULT_NOTEBOOK, 'utf8'), DEFAULT_NOTEBOOK)` → `'<!DOCTYPE html>\n<html lang="en">...'`.
+ * Example: `await renderReport(results, readFileSync(DEFAULT_NOTEBOOK, 'utf8'), DEFAULT_NOTEBOOK)`
+ * → `'<!DOCTYPE html>\n<html lang="en">...'`.
  */
 export async function renderReport(
   results: Results,

@@ -107,7 +107,8 @@ export async function renderSvgWithWarnings(
 /**
  * Render a Vega-Lite spec to deterministic, accessible SVG text (see the module comment).
  * Throws as `renderSvgWithWarnings`.
- * Example: `await renderSvg(curvesChart(results, 'val_acc')!)` → `'<svg xmlns=... role="graphics-document document" ...'`.
+ * Example: `await renderSvg(curvesChart(results, 'val_acc')!)`
+ * → `'<svg xmlns=... role="graphics-document document" ...'`.
  */
 export async function renderSvg(spec: TopLevelSpec): Promise<string> {
   return (await renderSvgWithWarnings(spec)).svg;
@@ -155,6 +156,7 @@ function accessible(svg: string, title: string, description: string): string {
   if (!svg.startsWith('<svg') || open < 0) throw new Error('vega: toSVG did not return an <svg> element');
   const label = description === '' ? title : description;
   const attrs = ` role="graphics-document document" aria-roledescription="chart" aria-label="${escapeXml(label)}"`;
-  const children = `<title>${escapeXml(title)}</title>${description === '' ? '' : `<desc>${escapeXml(description)}</desc>`}`;
+  const children =
+    `<title>${escapeXml(title)}</title>` + `${description === '' ? '' : `<desc>${escapeXml(description)}</desc>`}`;
   return `${svg.slice(0, open)}${attrs}>${children}${svg.slice(open + 1)}`;
 }

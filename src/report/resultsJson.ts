@@ -61,7 +61,10 @@ export function resultsJson(results: Results, options: { readonly curvePoints?: 
   const bins = Math.max(0, ...results.curves.map((c) => c.steps.length));
   const curves = points === null ? results.curves : coarseCurves(results.curves, points);
   const curveGrid = { maxPoints: points, coarsened: points !== null && bins > points };
-  return `${JSON.stringify(ordered({ ...results, curves, curveGrid, problemCodes: problemCodes(results) }, ROOT), null, 2)}\n`;
+  return (
+    JSON.stringify(ordered({ ...results, curves, curveGrid, problemCodes: problemCodes(results) }, ROOT), null, 2) +
+    `\n`
+  );
 }
 
 /** Problems grouped by code: severity, count and the first three messages (every one stays in `problems`). */

@@ -27,7 +27,8 @@ export function scanText(runSet: RunSet, inv: Inventory): string {
   const out: string[] = [];
   const read = runSet.files.filter((f) => f.status === 'read').length;
   out.push(
-    `${inv.runs.length} runs in ${inv.configs.length} configs (keys: ${runSet.keys.join(', ') || 'none'}); ${read} of ${runSet.files.length} files read`,
+    `${inv.runs.length} runs in ${inv.configs.length} configs ` +
+      `(keys: ${runSet.keys.join(', ') || 'none'}); ${read} of ${runSet.files.length} files read`,
   );
   out.push(
     '',
@@ -46,7 +47,9 @@ export function scanText(runSet: RunSet, inv: Inventory): string {
 
 function table(rows: readonly (readonly string[])[]): string[] {
   const widths: number[] = [];
-  for (const row of rows) row.forEach((cell, i) => (widths[i] = Math.max(widths[i] ?? 0, cell.length)));
+  for (const row of rows) {
+    for (const [i, cell] of row.entries()) widths[i] = Math.max(widths[i] ?? 0, cell.length);
+  }
   return rows.map(
     (row) =>
       '  ' +
@@ -200,7 +203,8 @@ function taskKeyHint(runSet: RunSet, inv: Inventory): string[] {
     const values = new Set(inv.configs.map((c) => c.params[key]).filter((v) => v !== undefined));
     if (!TASK_LIKE.test(key) || values.size < 2) continue;
     out.push(
-      `Key '${key}' (${values.size} values) looks like tasks or evaluation sets: report with --task-key ${key} to compare within each and aggregate across them.`,
+      `Key '${key}' (${values.size} values) looks like tasks or evaluation sets: report with --task-key ${key} ` +
+        `to compare within each and aggregate across them.`,
     );
   }
   return out.length === 0 ? [] : ['', ...out];
@@ -213,16 +217,19 @@ function place(p: Problem): string {
 
 function problemLines(problems: readonly Problem[]): string[] {
   if (problems.length === 0) return ['No problems found.'];
-  const byCode = new Map<string, Problem[]>();
-  for (const p of problems) byCode.set(p.code, [...(byCode.get(p.code) ?? []), p]);
+  const byCode = new Map<string, { first: Problem; members: Problem[] }>();
+  for (const p of problems) {
+    const group = byCode.get(p.code);
+    if (group === undefined) byCode.set(p.code, { first: p, members: [p] });
+    else group.members.push(p);
+  }
   const order = { error: 0, warning: 1, note: 2 } as const;
-  const groups = [...byCode.values()].sort((a, b) => order[a[0]!.severity] - order[b[0]!.severity]);
+  const groups = [...byCode.values()].sort((a, b) => order[a.first.severity] - order[b.first.severity]);
   const out = [`Problems (${problems.length}):`];
-  for (const group of groups) {
-    const first = group[0]!;
-    out.push(`  ${first.severity} ${first.code} x${group.length}`);
-    for (const p of group.slice(0, PLACES_SHOWN)) out.push(`    ${place(p)}`);
-    if (group.length > PLACES_SHOWN) out.push(`    ... and ${group.length - PLACES_SHOWN} more (see --json)`);
+  for (const { first, members } of groups) {
+    out.push(`  ${first.severity} ${first.code} x${members.length}`);
+    for (const p of members.slice(0, PLACES_SHOWN)) out.push(`    ${place(p)}`);
+    if (members.length > PLACES_SHOWN) out.push(`    ... and ${members.length - PLACES_SHOWN} more (see --json)`);
   }
   return out;
 }

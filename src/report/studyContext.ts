@@ -23,7 +23,8 @@ export interface StudyContext {
 /**
  * The study context of `Results`.
  * Cost O(metrics + configs). Never throws.
- * Example: demo results → `{ large: false, primary: 'val_acc', metrics: [{ name: 'val_acc', open: true }, ...], ticks: true, ... }`.
+ * Example: demo results →
+ * `{ large: false, primary: 'val_acc', metrics: [{ name: 'val_acc', open: true }, ...], ticks: true, ... }`.
  */
 export function studyContext(results: Results): StudyContext {
   const primary = primaryMetric(results);

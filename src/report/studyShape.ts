@@ -6,7 +6,8 @@
  * - The **primary metric** is the metric the study is about: among scalar metrics with
  *   comparisons, the first whose goal the user gave (`--metric`) and whose name reads like a quality
  *   measure (acc, score, return, reward, success, solved, f1, bleu, auc), else the first whose goal
- *   the user gave, else the first named like a quality measure, else the first. A metric named by the notebook's cell wins over all of these.
+ * the user gave, else the first named like a quality measure, else the
+ * first. A metric named by the notebook's cell wins over all of these.
  * - **Tasks** come from `Settings.taskKey`; a config's **group** is its id without the task key
  *   (`method=base`), as the across-task aggregates name them.
  * - A **sweep key** is a config key (not the task key) with at least two distinct values, all of

@@ -1,4 +1,7 @@
-/** Where the shipped templates live (found from the package root, so it works from any working directory and from dist/). */
+/**
+ * Where the shipped templates live (found from the package
+ * root, so it works from any working directory and from dist/).
+ */
 import { join } from 'node:path';
 import { packageRoot } from '../packageRoot.js';
 

@@ -29,8 +29,10 @@ export function goalWords(goal: Goal | null, source: GoalSource | null, guessed 
  */
 export function standardCaution(alpha: number): string {
   return (
-    `A statistical test is evidence, not proof: with no real difference, a test at alpha ${alpha} still calls one about ` +
-    `${Math.round(alpha * 1000) / 10}% of the time, and a verdict from 3 seeds per arm is fragile (one more seed can overturn it).`
+    `A statistical test is evidence, not proof: with no real difference, a test at alpha ${alpha} still calls ` +
+    `one about ` +
+    `${Math.round(alpha * 1000) / 10}% of the time, and a verdict from 3 seeds per arm is fragile (one more ` +
+    `seed can overturn it).`
   );
 }
 

@@ -218,13 +218,15 @@ describe('analyze: families, diverged runs, pairing and tick analyses', () => {
     steps: [0, 100, 200],
     values: [v / 2, v - 1, v],
   });
-  B.forEach((v, i) =>
-    specs.push({ params: { width: '1' }, seed: i + 1, metrics: { acc: curve(v), loss: curve(10 - v / 10) } }),
-  );
-  A.forEach((v, i) =>
-    specs.push({ params: { width: '2' }, seed: i + 1, metrics: { acc: curve(v), loss: curve(10 - v / 10) } }),
-  );
-  C.forEach((v, i) => specs.push({ params: { width: '4' }, seed: i + 1, metrics: { acc: curve(v) } }));
+  B.forEach((v, i) => {
+    specs.push({ params: { width: '1' }, seed: i + 1, metrics: { acc: curve(v), loss: curve(10 - v / 10) } });
+  });
+  A.forEach((v, i) => {
+    specs.push({ params: { width: '2' }, seed: i + 1, metrics: { acc: curve(v), loss: curve(10 - v / 10) } });
+  });
+  C.forEach((v, i) => {
+    specs.push({ params: { width: '4' }, seed: i + 1, metrics: { acc: curve(v) } });
+  });
   specs.push({
     params: { width: '4' },
     seed: 6,

@@ -64,7 +64,8 @@ describe('compareMetric on METHODS.md check values (candidate A, baseline B)', (
     expect(c.p).toBeCloseTo(0.04418107272139468, 12);
     expect(c.difference.method).toBe('welch-t');
     expect(c.difference.estimate).toBeCloseTo(71.3 - 487.1 / 7, 12);
-    expect(c.difference.low).toBeCloseTo(0.057502837562101, 9); // t quantile at fractional df: stdlib v scipy agree to ~2e-10
+    // t quantile at fractional df: stdlib v scipy agree to ~2e-10
+    expect(c.difference.low).toBeCloseTo(0.057502837562101, 9);
     expect(c.difference.high).toBeCloseTo(3.371068591009343, 9);
     expect(c.tests.permutation).toEqual({ p: 27 / 792, exact: true });
     expect(c.tests.mannWhitney.u).toBe(30);
@@ -84,13 +85,17 @@ describe('compareMetric on METHODS.md check values (candidate A, baseline B)', (
     expect(c.effect.cliffsDeltaHigh).toBeCloseTo(0.94588140903, 8);
   });
 
-  it('detectable: pooled sd and minimum detectable difference at 80% power (no post-hoc seeds for the observed difference)', () => {
-    // scipy 1.10.1 (tests/reference/analysis_reference.py): pooled sd 1.1793460657742232; noncentral-t MDE at 5 v 7
-    // (brentq on nct power) = 1.8210108583 sd = 2.1476019914743016 metric units.
-    expect(c.detectable.sd).toBeCloseTo(1.1793460657742232, 12);
-    expect(c.detectable.minimumEffect).toBeCloseTo(2.1476019914743016, 6);
-    expect(Object.keys(c.detectable)).toEqual(['sd', 'minimumEffect']);
-  });
+  it(
+    'detectable: pooled sd and minimum detectable difference at 80% power (no post-hoc seeds for the observed ' +
+      'difference)',
+    () => {
+      // scipy 1.10.1 (tests/reference/analysis_reference.py): pooled sd 1.1793460657742232; noncentral-t MDE at 5 v 7
+      // (brentq on nct power) = 1.8210108583 sd = 2.1476019914743016 metric units.
+      expect(c.detectable.sd).toBeCloseTo(1.1793460657742232, 12);
+      expect(c.detectable.minimumEffect).toBeCloseTo(2.1476019914743016, 6);
+      expect(Object.keys(c.detectable)).toEqual(['sd', 'minimumEffect']);
+    },
+  );
 
   it('verdict: better for goal max; for goal min the same data is worse and P(improvement) flips', () => {
     expect(c.verdict).toBe('better');
@@ -159,10 +164,12 @@ describe('diverged runs', () => {
     expect(c.failures).toEqual({
       baseline: { runs: 7, diverged: 0, short: 0 },
       candidate: { runs: 6, diverged: 1, short: 0 },
-      fisherP: expect.closeTo(6 / 13, 12) as unknown as number, // scipy.stats.fisher_exact([[0, 7], [1, 5]]).pvalue = 0.46153846153846156
+      // scipy.stats.fisher_exact([[0, 7], [1, 5]]).pvalue = 0.46153846153846156
+      fisherP: expect.closeTo(6 / 13, 12) as unknown as number,
     });
     expect(c.cautions).toContain(
-      "1 failed run left out of the values: baseline 0 of 7 failed, candidate 1 of 6 failed (1 diverged); Fisher's exact test on the failure counts p = 0.462",
+      '1 failed run left out of the values: baseline 0 of 7 failed, candidate 1 of 6 failed (1 diverged); ' +
+        "Fisher's exact test on the failure counts p = 0.462",
     );
   });
 
@@ -171,7 +178,8 @@ describe('diverged runs', () => {
     expect(c.n.candidate).toBe(6);
     expect(c.mean.candidate).toBeCloseTo((356.5 + 67.8) / 6, 12); // worst for max = min of A and B = 67.8
     expect(c.cautions).toContain(
-      "1 failed run scored as the worst value observed in this comparison: baseline 0 of 7 failed, candidate 1 of 6 failed (1 diverged); Fisher's exact test on the failure counts p = 0.462",
+      '1 failed run scored as the worst value observed in this comparison: baseline 0 of 7 failed, candidate 1 ' +
+        "of 6 failed (1 diverged); Fisher's exact test on the failure counts p = 0.462",
     );
     // the old option name still works
     const min = one({ ...withDiverged, goal: 'min' }, resolveOptions({ diverged: 'worst' }));
@@ -180,7 +188,8 @@ describe('diverged runs', () => {
 });
 
 describe('--paired and --margin', () => {
-  // scipy 1.10.1 (tests/reference/analysis_reference.py): ttest_rel(P1, P0) t 3.362691229906825, df 5, p 0.0200489220167276,
+  // scipy 1.10.1 (tests/reference/analysis_reference.py):
+  // ttest_rel(P1, P0) t 3.362691229906825, df 5, p 0.0200489220167276,
   // wilcoxon exact p 0.0625. Interval (0.16489071939106448, 1.2351092806089412) with the exact t quantile
   // (mpmath, 40 digits); scipy 1.10.1's ttest_rel interval is 2.0e-10 off (its t.ppf(.975, 5) is 9.8e-10 high).
   const P1 = [71.2, 69.8, 73.1, 70.4, 72.0, 70.9];
@@ -269,21 +278,25 @@ describe('cautions and intervals by seed count', () => {
     );
   });
 
-  it('the headline interval is Welch at every n; BCa is given beside from 10 runs per arm, headline only under --interval bca', () => {
-    const x = (n: number, shift: number): number[] => Array.from({ length: n }, (_, i) => Math.sin(3 * i) + shift);
-    const nine = one(request(x(9, 1), x(20, 0)));
-    expect(nine.difference.method).toBe('welch-t');
-    expect(nine.difference.bca).toBeNull();
-    const thirty = one(request(x(30, 1), x(30, 0)));
-    expect(thirty.difference.method).toBe('welch-t');
-    const bca = thirty.difference.bca;
-    expect(bca).not.toBeNull();
-    expect(bca?.low).toBeLessThan(thirty.difference.estimate as number);
-    expect(bca?.high).toBeGreaterThan(thirty.difference.estimate as number);
-    const headline = one(request(x(5, 1), x(5, 0)), resolveOptions({ interval: 'bca' }));
-    expect(headline.difference.method).toBe('bca');
-    expect(headline.difference.low).toBe(headline.difference.bca?.low);
-  });
+  it(
+    'the headline interval is Welch at every n; BCa is given beside from 10 runs per arm, headline only under ' +
+      '--interval bca',
+    () => {
+      const x = (n: number, shift: number): number[] => Array.from({ length: n }, (_, i) => Math.sin(3 * i) + shift);
+      const nine = one(request(x(9, 1), x(20, 0)));
+      expect(nine.difference.method).toBe('welch-t');
+      expect(nine.difference.bca).toBeNull();
+      const thirty = one(request(x(30, 1), x(30, 0)));
+      expect(thirty.difference.method).toBe('welch-t');
+      const bca = thirty.difference.bca;
+      expect(bca).not.toBeNull();
+      expect(bca?.low).toBeLessThan(thirty.difference.estimate as number);
+      expect(bca?.high).toBeGreaterThan(thirty.difference.estimate as number);
+      const headline = one(request(x(5, 1), x(5, 0)), resolveOptions({ interval: 'bca' }));
+      expect(headline.difference.method).toBe('bca');
+      expect(headline.difference.low).toBe(headline.difference.bca?.low);
+    },
+  );
 
   it('an inferred goal is said in the comparison and recorded as a problem once per metric', () => {
     const r = compareMetric(

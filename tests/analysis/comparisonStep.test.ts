@@ -7,6 +7,7 @@ import { analyze } from '../../src/analysis/analyze.js';
 import { comparisonStep, typicalInterval } from '../../src/analysis/comparisonStep.js';
 import { resolveOptions } from '../../src/analysis/options.js';
 import { meta, runSet, series, type RunSpec } from './runSetBuilder.js';
+import { at } from '../support/at.js';
 
 /** A rising curve logged every `every` steps up to `last`, offset by `shift`. */
 function curve(last: number, shift: number, every = 100): { steps: number[]; values: number[] } {
@@ -52,7 +53,7 @@ describe('analyze: each comparison at its own step', () => {
         ...runs({ m: 'base' }, [2000, 2000, 2000, 2000], 0),
         ...runs({ m: 'c1' }, [2000, 2000, 2000, 2000], 0.05),
         ...runs({ m: 'c2' }, [2000, 2000, 2000], 0.05),
-        { ...runs({ m: 'c2' }, [300], 0.05, 'short')[0]!, seed: 4 },
+        { ...at(runs({ m: 'c2' }, [300], 0.05, 'short'), 0), seed: 4 },
       ],
       [{ name: 'acc', goal: 'max' }],
     );
@@ -61,7 +62,7 @@ describe('analyze: each comparison at its own step', () => {
       ['m=c1', 2000],
       ['m=c2', 2000],
     ]);
-    const c2 = r.comparisons[1]!;
+    const c2 = at(r.comparisons, 1);
     expect(c2.failures.candidate).toEqual({ runs: 4, diverged: 0, short: 1 });
     expect(c2.n.candidate).toBe(3);
     // scipy.stats.fisher_exact([[0, 4], [1, 3]]).pvalue = 1.0
@@ -89,27 +90,31 @@ describe('analyze: each comparison at its own step', () => {
     expect(r.metrics[0]?.horizon).toBeNull(); // no single step for the metric
   });
 
-  it('a workload whose baseline runs all stopped after one evaluation: that comparison is flagged, the others keep their steps', () => {
-    const set = runSet(
-      ['task', 'm'],
-      [
-        ...runs({ task: 'w1', m: 'base' }, [0, 0, 0], 0),
-        ...runs({ task: 'w1', m: 'new' }, [3000, 3000, 3000], 0.02),
-        ...runs({ task: 'w2', m: 'base' }, [3000, 3000, 3000], 0),
-        ...runs({ task: 'w2', m: 'new' }, [3000, 3000, 3000], 0.02),
-      ],
-      [{ name: 'acc', goal: 'max' }],
-    );
-    const r = analyze(set, resolveOptions({ baseline: 'm=base', taskKey: 'task' }), meta);
-    expect(r.comparisons.map((c) => [c.task, c.step])).toEqual([
-      ['w1', 0],
-      ['w2', 3000],
-    ]);
-    const early = r.problems.filter((p) => p.code === 'step-early');
-    expect(early).toHaveLength(1);
-    expect(early[0]?.message).toContain('task w1');
-    expect(early[0]?.message).toContain('compared at step 0');
-  });
+  it(
+    'a workload whose baseline runs all stopped after one evaluation: that comparison is flagged, the others ' +
+      'keep their steps',
+    () => {
+      const set = runSet(
+        ['task', 'm'],
+        [
+          ...runs({ task: 'w1', m: 'base' }, [0, 0, 0], 0),
+          ...runs({ task: 'w1', m: 'new' }, [3000, 3000, 3000], 0.02),
+          ...runs({ task: 'w2', m: 'base' }, [3000, 3000, 3000], 0),
+          ...runs({ task: 'w2', m: 'new' }, [3000, 3000, 3000], 0.02),
+        ],
+        [{ name: 'acc', goal: 'max' }],
+      );
+      const r = analyze(set, resolveOptions({ baseline: 'm=base', taskKey: 'task' }), meta);
+      expect(r.comparisons.map((c) => [c.task, c.step])).toEqual([
+        ['w1', 0],
+        ['w2', 3000],
+      ]);
+      const early = r.problems.filter((p) => p.code === 'step-early');
+      expect(early).toHaveLength(1);
+      expect(early[0]?.message).toContain('task w1');
+      expect(early[0]?.message).toContain('compared at step 0');
+    },
+  );
 
   it("step:N past some runs' ends: those runs are short for that comparison, never their last value", () => {
     const set = runSet(
@@ -118,7 +123,7 @@ describe('analyze: each comparison at its own step', () => {
       [{ name: 'acc', goal: 'max' }],
     );
     const r = analyze(set, resolveOptions({ baseline: 'm=base', summary: 'step:800' }), meta);
-    const c = r.comparisons[0]!;
+    const c = at(r.comparisons, 0);
     expect(c.step).toBe(800);
     expect(c.failures.baseline).toEqual({ runs: 4, diverged: 0, short: 1 });
     expect(c.n).toEqual({ baseline: 3, candidate: 4 });
@@ -143,7 +148,7 @@ describe('analyze: each comparison at its own step', () => {
       [{ name: 'acc', goal: 'max' }],
     );
     const r = analyze(set, resolveOptions({ baseline: 'm=base' }), meta);
-    const c = r.comparisons[0]!;
+    const c = at(r.comparisons, 0);
     expect(c.step).toBe(950);
     expect(c.runs.find((u) => u.run === 'm=new,seed=1')).toMatchObject({ loggedAt: 500, stale: true, value: 0.6 });
     // the other runs logged within one interval: 900 (interval 100) and 950

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { learningCurves, stepGrid } from '../../src/analysis/curves.js';
 import { runSet, series, type RunSpec } from './runSetBuilder.js';
+import { at } from '../support/at.js';
 
 const settings = {
   bins: 400,
@@ -49,36 +50,40 @@ describe('learningCurves', () => {
     expect(curve?.mean[5]).toBeCloseTo((0.5 + 1) / 2, 14);
   });
 
-  it('band: t-interval of the mean at every n by default (scipy t.interval); BCa from 4 runs under --interval bca', () => {
-    const specs: RunSpec[] = [];
-    // 4 runs with these values in one bin; scipy 1.10.1 stats.t.interval(0.95, 3, mean, sem) of
-    // [0.61, 0.64, 0.58, 0.66] is (0.5668071896575351, 0.678192810342465) to 1e-14 (tests/reference/analysis_reference.py)
-    [0.61, 0.64, 0.58, 0.66].forEach((v, i) =>
-      specs.push({ params: { m: 'small' }, seed: i, metrics: { acc: { steps: [0], values: [v] } } }),
-    );
-    // 20 runs over steps 0 and 10; the 20th stops at step 0, so step 10 has 19 runs
-    for (let i = 0; i < 20; i++) {
-      const v = [0.5 + i / 100, 0.6 + ((i * 7) % 20) / 100];
-      specs.push({
-        params: { m: 'big' },
-        seed: i,
-        metrics: { acc: i === 19 ? { steps: [0], values: [v[0]!] } : { steps: [0, 10], values: v } },
+  it(
+    'band: t-interval of the mean at every n by default (scipy t.interval); BCa from 4 runs under --interval ' + 'bca',
+    () => {
+      const specs: RunSpec[] = [];
+      // 4 runs with these values in one bin; scipy 1.10.1 stats.t.interval(0.95, 3, mean, sem) of
+      // [0.61, 0.64, 0.58, 0.66] is (0.5668071896575351, 0.678192810342465)
+      // to 1e-14 (tests/reference/analysis_reference.py)
+      [0.61, 0.64, 0.58, 0.66].forEach((v, i) => {
+        specs.push({ params: { m: 'small' }, seed: i, metrics: { acc: { steps: [0], values: [v] } } });
       });
-    }
-    const set = runSet(['m'], specs, [{ name: 'acc', goal: 'max' }]);
-    const [small, big] = learningCurves(set.runs, 'acc', { ...settings, interval: 'welch' });
-    expect(small?.config).toBe('m=small');
-    expect(small?.n[0]).toBe(4);
-    expect(small?.low[0]).toBeCloseTo(0.5668071896575351, 12);
-    expect(small?.high[0]).toBeCloseTo(0.678192810342465, 12);
-    expect(small?.band).toBe('t');
-    expect(big?.n).toEqual([20, 19]);
-    expect(big?.bandByBin).toEqual(['t', 't']);
-    const [, boot] = learningCurves(set.runs, 'acc', settings);
-    expect(boot?.bandByBin).toEqual(['bca', 'bca']);
-    expect(boot?.low[0]).toBeLessThan(boot?.mean[0] as number);
-    expect(boot?.high[0]).toBeGreaterThan(boot?.mean[0] as number);
-  });
+      // 20 runs over steps 0 and 10; the 20th stops at step 0, so step 10 has 19 runs
+      for (let i = 0; i < 20; i++) {
+        const v = [0.5 + i / 100, 0.6 + ((i * 7) % 20) / 100];
+        specs.push({
+          params: { m: 'big' },
+          seed: i,
+          metrics: { acc: i === 19 ? { steps: [0], values: [at(v, 0)] } : { steps: [0, 10], values: v } },
+        });
+      }
+      const set = runSet(['m'], specs, [{ name: 'acc', goal: 'max' }]);
+      const [small, big] = learningCurves(set.runs, 'acc', { ...settings, interval: 'welch' });
+      expect(small?.config).toBe('m=small');
+      expect(small?.n[0]).toBe(4);
+      expect(small?.low[0]).toBeCloseTo(0.5668071896575351, 12);
+      expect(small?.high[0]).toBeCloseTo(0.678192810342465, 12);
+      expect(small?.band).toBe('t');
+      expect(big?.n).toEqual([20, 19]);
+      expect(big?.bandByBin).toEqual(['t', 't']);
+      const [, boot] = learningCurves(set.runs, 'acc', settings);
+      expect(boot?.bandByBin).toEqual(['bca', 'bca']);
+      expect(boot?.low[0]).toBeLessThan(boot?.mean[0] as number);
+      expect(boot?.high[0]).toBeGreaterThan(boot?.mean[0] as number);
+    },
+  );
 
   it('leaves diverged runs out of mean and n under exclude, keeps their thin line', () => {
     const set = runSet(

@@ -15,6 +15,7 @@ import { adjustFamily, decideVerdict } from '../../src/analysis/verdict.js';
 import { createRandom } from '../../src/stats/random.js';
 import { welch } from '../../src/stats/welch.js';
 import { meta, normal, runSet, type RunSpec } from './runSetBuilder.js';
+import { at } from '../support/at.js';
 
 const ALPHA = 0.05;
 const STUDIES = 1000;
@@ -72,7 +73,7 @@ describe('the family over all tasks holds the family-wise error (null simulation
     const perTask = analyze(set, resolveOptions({ baseline: 'm=base', taskKey: 'task', family: 'task' }), meta);
     expect(perTask.comparisons.every((c) => c.family.size === 1 && c.pAdjusted === c.p)).toBe(true);
     // simultaneous bounds at 1 - alpha/10 are wider than the unadjusted 95% interval
-    const c = study.comparisons[0]!;
+    const c = at(study.comparisons, 0);
     expect(c.difference.simultaneous?.level).toBeCloseTo(0.995, 15);
     expect(c.difference.simultaneous?.low).toBeLessThan(c.difference.low as number);
     expect(c.difference.simultaneous?.high).toBeGreaterThan(c.difference.high as number);

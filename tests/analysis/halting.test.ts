@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { TickDump } from '../../src/ingest/types.js';
 import { haltingCurves, latestDumpPerRun } from '../../src/analysis/halting.js';
 import { createRandom } from '../../src/stats/random.js';
+import { at } from '../support/at.js';
 
 /** Build a dump from sample-major rows (rows[s][t]). */
 function dump(
@@ -153,7 +154,7 @@ describe('haltingCurves', () => {
     const correct = Array.from({ length: samples }, () =>
       Array.from({ length: ticks }, () => (random.next() < 0.6 ? 1 : 0)),
     );
-    certainty[0]![3] = Number.NaN; // never triggers an exit
+    at(certainty, 0)[3] = Number.NaN; // never triggers an exit
     const [curve] = haltingCurves([dump('r', 'c', certainty, correct)], {
       thresholds,
       level: 0.95,
@@ -163,9 +164,9 @@ describe('haltingCurves', () => {
       let right = 0;
       let exits = 0;
       for (let s = 0; s < samples; s++) {
-        let e = certainty[s]!.findIndex((c) => c >= tau);
+        let e = at(certainty, s).findIndex((c) => c >= tau);
         if (e < 0) e = ticks - 1;
-        right += correct[s]![e]!;
+        right += at(at(correct, s), e);
         exits += e;
       }
       expect(curve?.accuracy[j]?.mean).toBeCloseTo(right / samples, 14);

@@ -30,15 +30,19 @@ describe('pairConfigs (DESIGN.md selector semantics)', () => {
     expect(r.missing).toEqual([]);
   });
 
-  it('a partial selector: each config against its counterpart with the same other values; missing counterparts listed', () => {
-    const r = pairConfigs(configs, keys, parseSelector('memory=4'), null);
-    expect(r.pairs.map(short)).toEqual([
-      'ticks=8,memory=8 v ticks=8,memory=4',
-      'ticks=8,memory=12 v ticks=8,memory=4',
-      'ticks=16,memory=8 v ticks=16,memory=4',
-    ]);
-    expect(r.missing).toEqual([{ task: null, config: 'ticks=32,memory=8', counterpart: 'ticks=32,memory=4' }]);
-  });
+  it(
+    'a partial selector: each config against its counterpart with the same other values; missing counterparts ' +
+      'listed',
+    () => {
+      const r = pairConfigs(configs, keys, parseSelector('memory=4'), null);
+      expect(r.pairs.map(short)).toEqual([
+        'ticks=8,memory=8 v ticks=8,memory=4',
+        'ticks=8,memory=12 v ticks=8,memory=4',
+        'ticks=16,memory=8 v ticks=16,memory=4',
+      ]);
+      expect(r.missing).toEqual([{ task: null, config: 'ticks=32,memory=8', counterpart: 'ticks=32,memory=4' }]);
+    },
+  );
 
   it('no selector: every pair, earlier config as baseline', () => {
     const r = pairConfigs(configs.slice(0, 3), keys, null, null);

@@ -5,6 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { analyze } from '../../src/analysis/analyze.js';
 import { resolveOptions } from '../../src/analysis/options.js';
 import { meta, runSet, type RunSpec } from './runSetBuilder.js';
+import { at } from '../support/at.js';
 
 /** A run that reaches `top` at `at` (linear rise from 0, logged every 100 steps to 2000). */
 function rise(at: number, top: number): { steps: number[]; values: number[] } {
@@ -27,12 +28,13 @@ describe('reach:VALUE as a time-to-event summary', () => {
 
   it('a flaky config that often never reaches is never better than a steady one; censored runs are kept', () => {
     const r = analyze(set, resolveOptions({ baseline: 'm=steady', summary: 'reach:0.9' }), meta);
-    const c = r.comparisons[0]!;
+    const c = at(r.comparisons, 0);
     expect(c.candidate).toBe('m=flaky');
     expect(c.primary).toBe('log-rank');
     expect(c.verdict).not.toBe('better');
     expect(c.n).toEqual({ baseline: 8, candidate: 8 }); // nobody dropped
-    const k = c.timeToEvent!;
+    const k = c.timeToEvent;
+    if (k === null) throw new Error('the reach comparison has no time-to-event block');
     expect(k.candidate.reached).toBe(4);
     expect(k.baseline.reached).toBe(8);
     expect(k.candidate.fraction).toBeCloseTo(0.5, 12);

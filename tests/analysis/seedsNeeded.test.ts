@@ -17,7 +17,9 @@ describe('seedsNeeded', () => {
     const expected = [
       0.07684904996035868, 0.10768598982105744, 0.18509565629118482, 0.33793902869253206, 0.696893405561745,
     ];
-    r.powerAt.forEach((row, i) => expect(row.power).toBeCloseTo(expected[i] as number, 8));
+    r.powerAt.forEach((row, i) => {
+      expect(row.power).toBeCloseTo(expected[i] as number, 8);
+    });
     expect(r.standardized).toBe(0.5);
     expect(r.effect).toBe(-0.5);
   });
@@ -26,7 +28,8 @@ describe('seedsNeeded', () => {
     const A = [71.2, 69.8, 73.1, 70.4, 72.0];
     const B = [68.9, 70.1, 69.5, 71.0, 67.8, 70.6, 69.2];
     // scipy 1.10.1 (tests/reference/analysis_reference.py): pooled within-config sd 1.1793460657742232.
-    // Taking A and B as one group would give sd 1.4295581008256926 instead (numpy, ddof 1): their difference is not seed noise.
+    // Taking A and B as one group would give sd 1.4295581008256926
+    // instead (numpy, ddof 1): their difference is not seed noise.
     const effect = 1.4535900564185282 * 1.1793460657742232; // d = 1.4536 -> 9 per arm (scipy, same script)
     const r = seedsNeeded({ kind: 'pilot', groups: [B, A], effect, alpha: 0.05, power: 0.8 });
     expect(r.sd).toBeCloseTo(1.1793460657742232, 12);

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { checkSelector, matchesSelector, parseSelector, valuesOf } from '../../src/analysis/selectors.js';
+import { at } from '../support/at.js';
 
 const configs = [
   { params: { ticks: '8', memory: '4' } },
@@ -29,8 +30,8 @@ describe('parseSelector', () => {
 describe('checkSelector', () => {
   it('accepts a selector that matches a config', () => {
     expect(() => checkSelector(parseSelector('memory=4'), configs, ['ticks', 'memory'], null)).not.toThrow();
-    expect(matchesSelector(configs[0]!.params, parseSelector('memory=4,ticks=8'))).toBe(true);
-    expect(matchesSelector(configs[1]!.params, parseSelector('memory=4'))).toBe(false);
+    expect(matchesSelector(at(configs, 0).params, parseSelector('memory=4,ticks=8'))).toBe(true);
+    expect(matchesSelector(at(configs, 1).params, parseSelector('memory=4'))).toBe(false);
   });
 
   it('lists the available values when nothing matches, and the keys when a key is unknown', () => {

@@ -166,7 +166,9 @@ describe('tickCurves', () => {
 
   it('adds the binomial between-example noise sqrt(p(1-p)/m) for proportions when m is known', () => {
     const [, b] = tickCurves(RUNS, ACC, { step: null, level: 0.95, alpha: 0.05, baseline: null, examples: 1000 });
-    B_MEAN.forEach((m, k) => expect(b?.exampleHalfWidth?.[k]).toBeCloseTo(Math.sqrt((m * (1 - m)) / 1000), 15));
+    B_MEAN.forEach((m, k) => {
+      expect(b?.exampleHalfWidth?.[k]).toBeCloseTo(Math.sqrt((m * (1 - m)) / 1000), 15);
+    });
     const percent = RUNS.map((r) => run(r.config, Number(r.seed), [[50, 60]], r.status, [1]));
     expect(
       tickCurves(percent, ACC, { step: null, level: 0.95, alpha: 0.05, baseline: null, examples: 1000 })[0]

@@ -301,12 +301,16 @@ describe(`holm and benjaminiHochberg against ${fixture.adjustments.source}`, () 
   it.each(cases(fixture.adjustments.holm))('holm case $i', ({ c }) => {
     const adjusted = holm(Object.freeze([...c.p]));
     expect(adjusted).toHaveLength(c.adjusted.length);
-    c.adjusted.forEach((q, k) => expectClose(adjusted[k] as number, q, 1e-12, 0, `holm ${k}`));
+    c.adjusted.forEach((q, k) => {
+      expectClose(adjusted[k] as number, q, 1e-12, 0, `holm ${k}`);
+    });
   });
   it.each(cases(fixture.adjustments.benjaminiHochberg))('benjaminiHochberg case $i', ({ c }) => {
     const adjusted = benjaminiHochberg(Object.freeze([...c.p]));
     expect(adjusted).toHaveLength(c.adjusted.length);
-    c.adjusted.forEach((q, k) => expectClose(adjusted[k] as number, q, 1e-12, 0, `BH ${k}`));
+    c.adjusted.forEach((q, k) => {
+      expectClose(adjusted[k] as number, q, 1e-12, 0, `BH ${k}`);
+    });
   });
 });
 

@@ -17,17 +17,34 @@ const LIMIT = 120;
 
 /** Folders (searched recursively) and files whose TypeScript must keep within `LIMIT`. */
 const ENFORCED = [
+  'src/analysis',
   'src/ingest',
   'src/stats',
+  'src/cli',
+  'src/report',
+  'src/didYouMean.ts',
   'src/packageRoot.ts',
-  'src/cli/version.ts',
+  'src/pipeline.ts',
+  'src/problemCodes.ts',
+  'src/problems.ts',
+  'src/progress.ts',
+  'tests/analysis',
+  'tests/didYouMean.test.ts',
   'tests/ingest',
+  'tests/problems.test.ts',
   'tests/stats',
   'tests/fixtures',
   'tests/style',
+  'tests/support',
   'bench',
   'sample-runs/generate.ts',
 ];
+
+/**
+ * Files inside an enforced folder that another branch is folding now; the check skips them until that
+ * branch lands, and the lead then empties this list.
+ */
+const PENDING = ['src/analysis/cautions.ts', 'src/report/cells/verdicts.ts', 'src/report/summaryMarkdown.ts'];
 
 /** The 1-based numbers and lengths of the lines of `text` longer than `limit` code points. */
 function longLines(text: string, limit: number): { line: number; length: number }[] {
@@ -62,7 +79,7 @@ describe('longLines', () => {
 
 describe(`TypeScript lines are at most ${LIMIT} characters`, () => {
   it('in every enforced folder', () => {
-    const files = ENFORCED.flatMap(typeScriptFiles);
+    const files = ENFORCED.flatMap(typeScriptFiles).filter((file) => !PENDING.includes(file));
     expect(files.length).toBeGreaterThan(100);
     const over = files.flatMap((file) =>
       longLines(readFileSync(join(ROOT, file), 'utf8'), LIMIT).map(

@@ -183,7 +183,10 @@ export const TASKS_STUDY: StudySpec = {
   effect: (p) => METHOD_EFFECT[p.method ?? ''] ?? 0,
 };
 
-/** 7 tick counts x 6 memory lengths x 4 widths = 168 configs x 10 seeds (1,680 runs): a sweep. Baseline `ticks=8,memory=4,width=128`. */
+/**
+ * 7 tick counts x 6 memory lengths x 4 widths = 168 configs x 10
+ * seeds (1,680 runs): a sweep. Baseline `ticks=8,memory=4,width=128`.
+ */
 export const SWEEP_STUDY: StudySpec = {
   keys: {
     ticks: ['4', '8', '12', '16', '24', '32', '48'],

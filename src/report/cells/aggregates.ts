@@ -36,7 +36,8 @@ export function aggregatesHtml(state: RenderState, metric: string): string {
   const normalised = aggs.some((a) => a.normalisation !== undefined);
   const leftOut = aggs.find((a) => a.leftOut !== undefined)?.leftOut ?? [];
   const how = normalised
-    ? `Scores normalised per task (min-max over all runs of the task: 0 the worst run, 1 the best), so tasks on different scales weigh alike; ${tasks} tasks aggregated. ${leftOutNote(leftOut)}`
+    ? `Scores normalised per task (min-max over all runs of the task: 0 the worst run, 1 the best), so tasks on ` +
+      `different scales weigh alike; ${tasks} tasks aggregated. ${leftOutNote(leftOut)}`
     : `Raw scores (not normalised); ${tasks} tasks.`;
   const table = tableHtml({
     className: 'aggregates',
@@ -50,7 +51,8 @@ export function aggregatesHtml(state: RenderState, metric: string): string {
       { html: nameHtml(a.config) },
       a.interquartileMean === null
         ? null
-        : `${formatNumber(a.interquartileMean, 3)}${a.low === null || a.high === null ? '' : ` [${formatNumber(a.low, 3)}, ${formatNumber(a.high, 3)}]`}`,
+        : `${formatNumber(a.interquartileMean, 3)}` +
+          `${a.low === null || a.high === null ? '' : ` [${formatNumber(a.low, 3)}, ${formatNumber(a.high, 3)}]`}`,
       a.probabilityOfImprovement === null
         ? a.baseline === null
           ? 'baseline'
@@ -63,7 +65,10 @@ export function aggregatesHtml(state: RenderState, metric: string): string {
   const charts =
     figureHtml(state, aggregatesChart(r, metric), '', `No aggregates of ${metric}.`) +
     figureHtml(state, profileChart(r, metric), '', `No performance profile of ${metric}.`);
-  return `<h2 id="${escapeAttr(id)}">${textHtml(`Across tasks: ${metric}`)}</h2><div class="aggregates-cell">${noteHtml(how, 'lead')}${charts}${table}</div>`;
+  return (
+    `<h2 id="${escapeAttr(id)}">${textHtml(`Across tasks: ${metric}`)}</h2><div ` +
+    `class="aggregates-cell">${noteHtml(how, 'lead')}${charts}${table}</div>`
+  );
 }
 
 export const aggregates: Cell = {

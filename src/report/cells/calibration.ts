@@ -23,12 +23,16 @@ export const calibration: Cell = {
   usage: '{{calibration}}',
   arity: [0, 0],
   options: [],
-  render(state, call) {
+  render(state) {
     const r = state.results;
     if (r.calibration.length === 0) return noteHtml(NO_TICK_DATA.calibration);
     const level = formatLevel(r.settings.level);
     const bins = [...new Set(r.calibration.map((c) => c.bins))].join(' or ');
-    const caption = `Expected calibration error over ${bins} equal-width confidence bins; lower is better calibrated. Which noise: the band is the ${level} interval across seeds (the spread between training runs). The reliability diagrams below pool every seed's samples, so their whiskers show only the between-example noise of each bin.`;
+    const caption =
+      `Expected calibration error over ${bins} equal-width confidence bins; lower is better ` +
+      `calibrated. Which noise: the band is the ${level} interval across seeds (the spread between training ` +
+      `runs). The reliability diagrams below pool every seed's samples, so their whiskers show only the ` +
+      `between-example noise of each bin.`;
     let html = figureHtml(state, calibrationChart(r), caption, 'No calibration curves.');
     const rows: TableCell[][] = r.calibration.map((c) => [
       { html: nameHtml(c.config) },

@@ -44,7 +44,10 @@ export interface Cell {
   readonly arity: readonly [number, number];
   /** Allowed `key=value` options. */
   readonly options: readonly string[];
-  /** Build the cell's HTML (arity and options already checked). Throws CellError on a bad argument (the caller adds file and line). */
+  /**
+   * Build the cell's HTML (arity and options already checked). Throws
+   * CellError on a bad argument (the caller adds file and line).
+   */
   render(state: RenderState, call: CellCall): string;
 }
 
@@ -113,7 +116,8 @@ export function summaryOption(state: RenderState, call: CellCall, metric: string
   if (!present.has(given)) {
     const list = [...present].map(quoted).join(', ');
     throw new CellError(
-      `no results for ${quoted(metric)} under summary ${quoted(given)}; these results hold ${list === '' ? 'none' : list} (run the report with --summary ${given})`,
+      `no results for ${quoted(metric)} under summary ${quoted(given)}; these results ` +
+        `hold ${list === '' ? 'none' : list} (run the report with --summary ${given})`,
     );
   }
   return given;

@@ -25,7 +25,10 @@ function interval(
   return `${formatNumber(x.mean, decimals)}${band}`;
 }
 
-/** ±1 between-example standard error of an accuracy p measured on m samples, or null when either is missing or out of range. */
+/**
+ * ±1 between-example standard error of an accuracy p measured
+ * on m samples, or null when either is missing or out of range.
+ */
 function exampleSe(p: number | null | undefined, m: number): string | null {
   if (p === null || p === undefined || !(p >= 0 && p <= 1) || !Number.isInteger(m) || m < 1) return null;
   return formatNumber(binomialHalfWidth(p, m), 3);
@@ -36,11 +39,15 @@ export const halting: Cell = {
   usage: '{{halting}}',
   arity: [0, 0],
   options: [],
-  render(state, call) {
+  render(state) {
     const r = state.results;
     if (r.halting.length === 0) return noteHtml(NO_TICK_DATA.halting);
     const level = formatLevel(r.settings.level);
-    const caption = `Up and to the left is better: more accurate at exit, and earlier. Which noise: the bars are ${level} intervals across seeds (the spread between training runs). The table gives the reference threshold, with the between-example standard error √(p(1−p)/m) of one run's accuracy on its m samples beside the interval: a different noise, how much one evaluation would move on other samples.`;
+    const caption =
+      `Up and to the left is better: more accurate at exit, and earlier. Which noise: the bars ` +
+      `are ${level} intervals across seeds (the spread between training runs). The table gives the reference ` +
+      `threshold, with the between-example standard error √(p(1−p)/m) of one run's accuracy on its m samples ` +
+      `beside the interval: a different noise, how much one evaluation would move on other samples.`;
     let html = figureHtml(state, haltingChart(r), caption, 'No halting curves.');
     const rows: TableCell[][] = r.halting.map((h) => {
       const at = h.thresholds.indexOf(h.exitHistogram.threshold);

@@ -10,7 +10,7 @@ import type { Comparison, Results } from '../../analysis/results.js';
 import { escapeAttr, visibleText } from '../escape.js';
 import { comparisonDecimals, formatDifference, formatP } from '../format.js';
 import { nameHtml, noteHtml, tableHtml, textHtml, type TableCell } from '../html.js';
-import { countsWords, familyWords, overviewModel, type OverviewModel, type OverviewRow } from '../overviewModel.js';
+import { familyWords, overviewModel, type OverviewModel, type OverviewRow } from '../overviewModel.js';
 import { goalWords, sharedIntervalKind, VERDICT_LABELS } from '../verdictWords.js';
 import { metricParam, summaryOption, type Cell } from './cell.js';
 
@@ -31,7 +31,9 @@ function fullCell(c: Comparison | undefined): TableCell {
   if (c === undefined) return null;
   const mark = `<span class="mark mark-${c.verdict}" aria-hidden="true">${MARKS[c.verdict]}</span>`;
   return {
-    html: `${mark} ${textHtml(differenceText(c))}<br><span class="small">p ${textHtml(formatP(c.pAdjusted))} · ${textHtml(VERDICT_LABELS[c.verdict].slice(2))}</span>`,
+    html:
+      `${mark} ${textHtml(differenceText(c))}<br><span class="small">p ${textHtml(formatP(c.pAdjusted))} ` +
+      `· ${textHtml(VERDICT_LABELS[c.verdict].slice(2))}</span>`,
   };
 }
 
@@ -83,13 +85,21 @@ function markMatrix(model: OverviewModel, rows: readonly OverviewRow[]): string 
   const body = rows
     .map(
       (r) =>
-        `<tr><th scope="row">${rowLabel(model, r)}</th>${model.columns.map((t) => markCell(t, r.cells.get(t))).join('')}</tr>`,
+        `<tr><th scope="row">${rowLabel(model, r)}</th>` +
+        `${model.columns.map((t) => markCell(t, r.cells.get(t))).join('')}</tr>`,
     )
     .join('');
   const first = model.columns[0] ?? '';
   const last = model.columns[model.columns.length - 1] ?? '';
-  const key = `Columns: the ${model.columns.length} tasks in order (1 = ${visibleText(first, 40)}, ${model.columns.length} = ${visibleText(last, 40)}); ▲ better, ▼ worse, · inconclusive; hover a cell for its difference and p.`;
-  return `${noteHtml(key, 'lead')}<div class="table-wrap"><table class="mark-matrix"><thead><tr><th scope="col">${model.sharedBaseline === null ? 'Candidate v baseline' : 'Candidate'}</th>${head}</tr></thead><tbody>${body}</tbody></table></div>`;
+  const key =
+    `Columns: the ${model.columns.length} tasks in order (1 ` +
+    `= ${visibleText(first, 40)}, ${model.columns.length} = ${visibleText(last, 40)}); ▲ better, ▼ worse, · ` +
+    `inconclusive; hover a cell for its difference and p.`;
+  return (
+    `${noteHtml(key, 'lead')}<div class="table-wrap"><table class="mark-matrix"><thead><tr><th ` +
+    `scope="col">${model.sharedBaseline === null ? 'Candidate v baseline' : 'Candidate'}</th>${head}` +
+    `</tr></thead><tbody>${body}</tbody></table></div>`
+  );
 }
 
 function decidedTable(model: OverviewModel): string {
@@ -118,7 +128,11 @@ function decidedTable(model: OverviewModel): string {
     numeric: model.sharedBaseline === null ? [3, 4] : [2, 3],
   });
   const more = decided.length - shown.length;
-  return `<p class="overview-sub">Decided comparisons${more > 0 ? ` (the ${shown.length} with the smallest adjusted p of ${decided.length})` : ''}</p>${table}${more > 0 ? noteHtml(`${more} more decided comparisons in the details below.`, 'lead') : ''}`;
+  return (
+    `<p class="overview-sub">Decided ` +
+    `comparisons${more > 0 ? ` (the ${shown.length} with the smallest adjusted p of ${decided.length})` : ''}` +
+    `</p>${table}${more > 0 ? noteHtml(`${more} more decided comparisons in the details below.`, 'lead') : ''}`
+  );
 }
 
 /**
@@ -136,9 +150,15 @@ export function overviewHtml(results: Results, metric?: string, summary?: string
       : results.settings.baseline === null
         ? 'every pair of configs'
         : `each config against its counterpart with ${visibleText(results.settings.baseline, 80)}`;
-  const question = `${m.name} (${goalWords(m.goal, m.goalSource, ', guessed from the name')}; summary ${model.summary}), ${against}`;
+  const question =
+    `${m.name} (${goalWords(m.goal, m.goalSource, ', guessed from the name')}; ` +
+    `summary ${model.summary}), ${against}`;
   const c = model.counts;
-  const tally = `<p class="tally"><span class="verdict verdict-better">▲ ${c.better} better</span> <span class="verdict verdict-worse">▼ ${c.worse} worse</span> <span class="verdict verdict-inconclusive">● ${c.inconclusive} inconclusive</span> <span class="small">${textHtml(familyWords(results, model))}.</span></p>`;
+  const tally =
+    `<p class="tally"><span class="verdict verdict-better">▲ ${c.better} better</span> <span ` +
+    `class="verdict verdict-worse">▼ ${c.worse} worse</span> <span class="verdict ` +
+    `verdict-inconclusive">● ${c.inconclusive} inconclusive</span> <span ` +
+    `class="small">${textHtml(familyWords(results, model))}.</span></p>`;
   const marks = model.mode === 'tasks' && model.columns.length > FULL_CELLS_UP_TO;
   const shown = model.rows.slice(0, ROWS_SHOWN);
   const folded = model.rows.slice(shown.length);
@@ -147,8 +167,16 @@ export function overviewHtml(results: Results, metric?: string, summary?: string
   const fold =
     folded.length === 0
       ? ''
-      : `<details class="fold"><summary>${textHtml(`${folded.length} more candidates (${foldedDecided === 0 ? 'none' : foldedDecided} decided on ${m.name})`)}</summary>${matrix(folded)}</details>`;
-  return `<div class="overview-cell"><p class="overview-question">${textHtml(question)}</p>${tally}${matrix(shown)}${fold}${marks ? decidedTable(model) : ''}</div>`;
+      : `<details class="fold"><summary>` +
+        textHtml(
+          `${folded.length} more candidates (${foldedDecided === 0 ? 'none' : foldedDecided} decided on ${m.name})`,
+        ) +
+        `</summary>${matrix(folded)}</details>`;
+  return (
+    `<div class="overview-cell"><p ` +
+    `class="overview-question">${textHtml(question)}</p>${tally}${matrix(shown)}${fold}` +
+    `${marks ? decidedTable(model) : ''}</div>`
+  );
 }
 
 export const overview: Cell = {

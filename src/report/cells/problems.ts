@@ -32,7 +32,10 @@ function grouped(list: readonly Problem[]): string {
       .slice(0, EXAMPLES)
       .map((p) => {
         const w = where(p);
-        return `<li>${textHtml(p.message)}${w === null ? '' : ` <span class="small">(${typeof w === 'string' ? textHtml(w) : w.html})</span>`}</li>`;
+        return (
+          `<li>${textHtml(p.message)}` +
+          `${w === null ? '' : ` <span class="small">(${typeof w === 'string' ? textHtml(w) : w.html})</span>`}</li>`
+        );
       })
       .join('');
     const more =
@@ -87,7 +90,7 @@ export const problems: Cell = {
   usage: '{{problems}}',
   arity: [0, 0],
   options: [],
-  render(state, call) {
+  render(state) {
     const list = state.results.problems
       .map((p, i) => ({ p, i }))
       .sort((a, b) => ORDER[a.p.severity] - ORDER[b.p.severity] || a.i - b.i)

@@ -60,7 +60,7 @@ export const runs: Cell = {
   usage: '{{runs}}',
   arity: [0, 0],
   options: [],
-  render(state, call) {
+  render(state) {
     const r = state.results;
     if (r.runs.length === 0) return noteHtml('No runs were read.');
     const routine = routineByRun(r);
@@ -81,7 +81,9 @@ export const runs: Cell = {
       .filter(([, n]) => n > 0)
       .map(([s, n]) => `${n} ${s}`)
       .join(', ');
-    const summary = `${r.runs.length} runs in ${r.configs.length} configs (${counts}); ${r.inputs.filesRead} of ${r.inputs.files} files read.`;
+    const summary =
+      `${r.runs.length} runs in ${r.configs.length} configs (${counts}); ${r.inputs.filesRead} ` +
+      `of ${r.inputs.files} files read.`;
     const table =
       rows.length === 0
         ? ''
@@ -93,12 +95,19 @@ export const runs: Cell = {
             rowClasses: full.map((x) => `status-${x.status}`),
           });
     if (!compact)
-      return `<details class="fold"${r.runs.length <= OPEN_UP_TO ? ' open' : ''}><summary>${textHtml(summary)}</summary>${table}</details>`;
+      return (
+        `<details class="fold"${r.runs.length <= OPEN_UP_TO ? ' open' : ''}><summary>${textHtml(summary)}` +
+        `</summary>${table}</details>`
+      );
     const ok = ordered.filter((x) => x.status === 'ok');
     const head =
       rows.length === 0
         ? noteHtml('Every run is ok.', 'lead')
         : `${noteHtml(`${rows.length} runs are not ok:`, 'lead')}${table}`;
-    return `<p class="lead">${textHtml(summary)}</p>${head}<details class="fold"><summary>${textHtml(`${ok.length} ok runs, one line per config`)}</summary>${okByConfig(ok)}</details>`;
+    return (
+      `<p class="lead">${textHtml(summary)}</p>${head}<details ` +
+      `class="fold"><summary>${textHtml(`${ok.length} ok runs, one line per config`)}</summary>${okByConfig(ok)}` +
+      `</details>`
+    );
   },
 };

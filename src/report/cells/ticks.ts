@@ -77,8 +77,9 @@ function oneMetric(state: RenderState, metric: string): string {
     known === 0
       ? ` The between-example spread of one evaluation (how much ${metric} would move on other examples) is not ` +
         'shown: the logs do not say on how many examples it was measured.'
-      : ' The dotted whiskers are the between-example spread of one evaluation, ±1 standard error √(p(1−p)/m) for ' +
-        'm examples: a different noise, how much the number would move on other examples of the same size, not ' +
+      : ' The dotted whiskers are the between-example spread of one evaluation, ' +
+        '±1 standard error √(p(1−p)/m) for m examples: a different noise, how much the number would move ' +
+        'on other examples of the same size, not ' +
         `with another seed${known < mine.length ? ` (known for ${known} of ${mine.length} configs)` : ''}.`;
   const caption =
     `Which noise: the ${bands} band is the spread between seeds (training the same config again), ` +

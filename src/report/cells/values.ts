@@ -34,7 +34,10 @@ function meanCell(cv: ConfigValue | undefined, decimals: number): TableCell {
   return `${formatNumber(cv.mean, decimals)}${interval}`;
 }
 
-/** The scale that sets the digits shown: the pooled SD of a comparison, else the widest interval, else the range of the values. */
+/**
+ * The scale that sets the digits shown: the pooled SD of a
+ * comparison, else the widest interval, else the range of the values.
+ */
 function scaleOf(
   r: Results,
   metric: string,

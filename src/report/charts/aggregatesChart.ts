@@ -116,7 +116,9 @@ export function aggregatesChart(results: Results, metric: string): TopLevelSpec 
   const tasks = Math.max(...aggs.map((a) => a.tasks));
   return {
     $schema: VEGA_LITE_SCHEMA,
-    description: `Across ${tasks} tasks, ${metric}: interquartile mean of each config's normalised scores with its interval, and the probability that a candidate beats its baseline on a task.`,
+    description:
+      `Across ${tasks} tasks, ${metric}: interquartile mean of each config's normalised scores with ` +
+      `its interval, and the probability that a candidate beats its baseline on a task.`,
     title: {
       text: `${metric} across ${tasks} tasks`,
       subtitle: wrapLines(
@@ -124,7 +126,8 @@ export function aggregatesChart(results: Results, metric: string): TopLevelSpec 
           'Left: interquartile mean (tick) with its 95% stratified bootstrap interval (bar).',
           ...(withPoi.length > 0
             ? [
-                'Right: chance that a run of the candidate beats one of its baseline, per task, averaged; dashed line at 0.5 (even).',
+                'Right: chance that a run of the candidate beats one of its baseline, per task, averaged; ' +
+                  'dashed line at 0.5 (even).',
               ]
             : []),
         ],
@@ -153,12 +156,15 @@ export function profileChart(results: Results, metric: string): TopLevelSpec | n
   }));
   return {
     $schema: VEGA_LITE_SCHEMA,
-    description: `Performance profiles of ${metric}: for each config, the fraction of its task x run scores ${goal === 'max' ? 'above' : 'below'} each threshold.`,
+    description:
+      `Performance profiles of ${metric}: for each config, the fraction of its task x run ` +
+      `scores ${goal === 'max' ? 'above' : 'below'} each threshold.`,
     title: {
       text: `${metric}: performance profiles`,
       subtitle: wrapLines(
         [
-          `Fraction of each config's task x run scores ${goal === 'max' ? 'above' : 'below'} a threshold; a curve further ${goal === 'max' ? 'up and right' : 'up'} is better across more tasks.`,
+          `Fraction of each config's task x run scores ${goal === 'max' ? 'above' : 'below'} a threshold; a ` +
+            `curve further ${goal === 'max' ? 'up and right' : 'up'} is better across more tasks.`,
         ],
         90,
       ),

@@ -71,9 +71,15 @@ export function calibrationChart(results: Results): TopLevelSpec | null {
       title: 'Calibration by internal tick',
       subtitle: [
         `Expected calibration error, ${bins} equal-width confidence bins; lower is better.`,
-        `Line: mean across seeds. ${hasBand ? `Band: ${formatLevel(results.settings.level)} interval across seeds (seed-to-seed spread).` : 'No band: too few seeds.'}`,
+        `Line: mean across seeds. ` +
+          (hasBand
+            ? `Band: ${formatLevel(results.settings.level)} interval across seeds (seed-to-seed spread).`
+            : 'No band: too few seeds.'),
       ],
-      description: `Expected calibration error against internal tick for ${curves.length} config${curves.length === 1 ? '' : 's'}, mean across seeds${hasBand ? ` with a ${formatLevel(results.settings.level)} band` : ''}.`,
+      description:
+        `Expected calibration error against internal tick for ${curves.length} ` +
+        `config${curves.length === 1 ? '' : 's'}, mean across ` +
+        `seeds${hasBand ? ` with a ${formatLevel(results.settings.level)} band` : ''}.`,
     }),
     layer: withLegendToggle(layers, configs.length, ['mean']),
   };

@@ -17,7 +17,8 @@ export const VEGA_LITE_SCHEMA = 'https://vega.github.io/schema/vega-lite/v6.json
  * Build the shared frame. `height` is a pixel height, or `{ step }` for charts with one row per
  * config or comparison. Subtitle lines are drawn one under another.
  * Cost O(1). Never throws.
- * Example: `chartFrame({ title: 'val_acc', subtitle: ['a'], description: 'd' })` → `{ $schema, title: { text: 'val_acc', subtitle: ['a'] }, ... }`.
+ * Example: `chartFrame({ title: 'val_acc', subtitle: ['a'], description: 'd' })`
+ * → `{ $schema, title: { text: 'val_acc', subtitle: ['a'] }, ... }`.
  */
 export function chartFrame(opts: {
   readonly title: string;

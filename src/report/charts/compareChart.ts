@@ -131,7 +131,10 @@ export function compareChart(results: Results, metric: string, summary: string):
     `Point: candidate − baseline in ${metric} units (${summary}); ${goal === 'max' ? 'higher' : 'lower'} is better.`,
     methods === ''
       ? 'No row has an interval (too few runs).'
-      : `Bar: ${methods}, unadjusted. Verdicts use ${results.settings.correction === 'none' ? 'unadjusted' : `${results.settings.correction}-adjusted`} p at alpha ${results.settings.alpha}, so a bar clear of 0 can stand beside an inconclusive verdict.`,
+      : `Bar: ${methods}, unadjusted. Verdicts ` +
+        `use ` +
+        (results.settings.correction === 'none' ? 'unadjusted' : `${results.settings.correction}-adjusted`) +
+        ` p at alpha ${results.settings.alpha}, so a bar clear of 0 can stand beside an inconclusive verdict.`,
   ];
   if (marginAt !== null) subtitle.push(`Dashed line: non-inferiority margin (${marginAt}).`);
 
@@ -139,7 +142,9 @@ export function compareChart(results: Results, metric: string, summary: string):
     ...chartFrame({
       title: `${metric}: differences against the baseline`,
       subtitle,
-      description: `Differences in ${metric} (${summary}) for ${comparisons.length} comparison${comparisons.length === 1 ? '' : 's'}: ${rows.map((r) => `${r.label}: ${r.verdict}`).join('; ')}.`,
+      description:
+        `Differences in ${metric} (${summary}) for ${comparisons.length} ` +
+        `comparison${comparisons.length === 1 ? '' : 's'}: ${rows.map((r) => `${r.label}: ${r.verdict}`).join('; ')}.`,
       height: { step: 34 },
     }),
     layer: layers,

@@ -207,14 +207,19 @@ export function curvesChart(results: Results, metric: string): TopLevelSpec | nu
       title: `${metric}: learning curves`,
       subtitle: [
         many
-          ? `Line: mean across seeds; single seeds are left out at ${configs.length} configs. The baseline and ${named.length - 1} decided candidates in colour, the other ${configs.length - named.length} in grey.`
-          : `Thick line: mean across seeds. Thin lines: single seeds (${runCount})${stride === 1 ? '' : `, each drawn with one point per ${stride} bins`}.`,
+          ? `Line: mean across seeds; single seeds are left out at ${configs.length} configs. The baseline ` +
+            `and ${named.length - 1} decided candidates in colour, the other ${configs.length - named.length} in grey.`
+          : `Thick line: mean across seeds. Thin lines: single seeds ` +
+            `(${runCount})${stride === 1 ? '' : `, each drawn with one point per ${stride} bins`}.`,
         band === ''
           ? 'No band: too few seeds per step for an interval.'
           : `Band: ${band} of the mean across seeds, per step.`,
         ...(horizon === null ? [] : [`Dashed line: step ${horizon}, where this metric's comparisons are made.`]),
       ],
-      description: `Learning curves of ${metric} against step for ${curves.length} config${curves.length === 1 ? '' : 's'}: mean across seeds${band === '' ? '' : ` with a ${band} band`}, and ${runCount} single-seed lines.`,
+      description:
+        `Learning curves of ${metric} against step for ${curves.length} ` +
+        `config${curves.length === 1 ? '' : 's'}: mean across ` +
+        `seeds${band === '' ? '' : ` with a ${band} band`}, and ${runCount} single-seed lines.`,
     }),
     layer: withLegendToggle(layers, configs.length, ['seeds', 'mean']),
   };

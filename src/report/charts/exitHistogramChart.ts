@@ -25,9 +25,12 @@ export function exitHistogramChart(results: Results, config: string): TopLevelSp
     ...chartFrame({
       title: `Exit ticks at certainty ≥ ${threshold}: ${config}`,
       subtitle: [
-        `Samples exiting at each tick, summed over ${halting.seeds} seed${halting.seeds === 1 ? '' : 's'}; the last tick also holds samples that never reached the threshold.`,
+        `Samples exiting at each tick, summed over ${halting.seeds} seed${halting.seeds === 1 ? '' : 's'}; the ` +
+          `last tick also holds samples that never reached the threshold.`,
       ],
-      description: `Histogram of exit ticks for config ${config} at certainty threshold ${threshold}, over ${counts.length} ticks and ${halting.seeds} seeds.`,
+      description:
+        `Histogram of exit ticks for config ${config} at certainty threshold ${threshold}, ` +
+        `over ${counts.length} ticks and ${halting.seeds} seeds.`,
     }),
     name: 'bars',
     data: { values: bars },

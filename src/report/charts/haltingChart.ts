@@ -110,10 +110,17 @@ export function haltingChart(results: Results): TopLevelSpec | null {
     ...chartFrame({
       title: 'Halting: accuracy at exit against exit tick',
       subtitle: [
-        'Each point is a certainty threshold: a sample exits at the first tick whose certainty reaches it (else at the last tick).',
-        `Points: means across seeds. ${exitIntervals.length + accuracyIntervals.length > 0 ? `Bars: ${formatLevel(results.settings.level)} intervals across seeds (seed-to-seed spread).` : 'No intervals: too few seeds.'}`,
+        'Each point is a certainty threshold: a sample exits at the first tick whose certainty reaches it (else ' +
+          'at the last tick).',
+        `Points: means across seeds. ` +
+          (exitIntervals.length + accuracyIntervals.length > 0
+            ? `Bars: ${formatLevel(results.settings.level)} intervals across seeds (seed-to-seed spread).`
+            : 'No intervals: too few seeds.'),
       ],
-      description: `Certainty-threshold halting trade-off for ${curves.length} config${curves.length === 1 ? '' : 's'}: mean exit tick against accuracy at exit over ${points.length} threshold points, with intervals across seeds.`,
+      description:
+        `Certainty-threshold halting trade-off for ${curves.length} ` +
+        `config${curves.length === 1 ? '' : 's'}: mean exit tick against accuracy at exit over ${points.length} ` +
+        `threshold points, with intervals across seeds.`,
     }),
     layer: withLegendToggle(layers, configs.length, ['path']),
   };

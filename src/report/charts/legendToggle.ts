@@ -48,7 +48,8 @@ export function pickedOpacity(opacity: number): {
  * configs there is nothing to toggle and the layers are returned unchanged; so they are when no
  * layer is named in `holders`.
  * Cost O(layers). Never throws.
- * Example: `withLegendToggle(layers, 3, ['mean'])` → the layer named mean gets `params: [{ name: 'pickedConfigs', select: { type: 'point', fields: ['config'] }, bind: 'legend' }]`.
+ * Example: `withLegendToggle(layers, 3, ['mean'])` → the layer named mean gets
+ * `params: [{ name: 'pickedConfigs', select: { type: 'point', fields: ['config'] }, bind: 'legend' }]`.
  */
 export function withLegendToggle(layers: readonly Layer[], configs: number, holders: readonly string[]): Layer[] {
   if (configs < 2) return [...layers];
@@ -64,7 +65,8 @@ export const LEGEND_TOGGLE_HINT =
 
 /**
  * Whether a spec carries the legend selection (some layer has the `pickedConfigs` parameter).
- * Cost O(layers). Never throws. Example: `hasLegendToggle(curvesChart(results, 'val_acc')!)` → `true` with two or more configs.
+ * Cost O(layers). Never throws. Example:
+ * `hasLegendToggle(curvesChart(results, 'val_acc')!)` → `true` with two or more configs.
  */
 export function hasLegendToggle(spec: unknown): boolean {
   const layers = (spec as { layer?: unknown }).layer;

@@ -106,15 +106,20 @@ export function reliabilityChart(results: Results, config: string): TopLevelSpec
     ...chartFrame({
       title: `Reliability at the last tick: ${config}`,
       subtitle: [
-        `${curve.bins} equal-width confidence bins, samples summed over ${curve.seeds === undefined ? 'seeds' : `${curve.seeds} seed${curve.seeds === 1 ? '' : 's'}`}. Bars: accuracy per bin; points: at the bin's mean confidence.`,
+        `${curve.bins} equal-width confidence bins, samples summed ` +
+          `over ${curve.seeds === undefined ? 'seeds' : `${curve.seeds} seed${curve.seeds === 1 ? '' : 's'}`}. ` +
+          `Bars: accuracy per bin; points: at the bin's mean confidence.`,
         'Dashed diagonal: perfect calibration (points below it are over-confident).',
         ...(whiskers.length > 0
           ? [
-              'Whiskers: ±1 between-example standard error √(a(1−a)/n) of each bin; seeds are pooled, so seed-to-seed spread is not shown.',
+              'Whiskers: ±1 between-example standard error √(a(1−a)/n) of each bin; seeds are pooled, so ' +
+                'seed-to-seed spread is not shown.',
             ]
           : []),
       ],
-      description: `Reliability diagram for config ${config} at the last tick: accuracy against confidence in ${bins.length} non-empty bins of ${curve.bins}, with the diagonal of perfect calibration.`,
+      description:
+        `Reliability diagram for config ${config} at the last tick: accuracy against confidence ` +
+        `in ${bins.length} non-empty bins of ${curve.bins}, with the diagonal of perfect calibration.`,
       height: 320,
     }),
     width: 320,

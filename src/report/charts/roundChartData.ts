@@ -13,7 +13,8 @@ export const CHART_DIGITS = 6;
 /**
  * One number to `digits` significant digits, keeping every digit of its integer part; integers,
  * non-finite numbers and zero are returned as they are.
- * Cost O(1). Never throws. Example: `roundNumber(0.45113333333333333)` → `0.451133`; `roundNumber(1234567.89)` → `1234568`.
+ * Cost O(1). Never throws. Example: `roundNumber(0.45113333333333333)`
+ * → `0.451133`; `roundNumber(1234567.89)` → `1234568`.
  */
 export function roundNumber(x: number, digits = CHART_DIGITS): number {
   if (!Number.isFinite(x) || Number.isInteger(x)) return x;
@@ -46,7 +47,8 @@ function walk(node: unknown, digits: number): unknown {
  * number rounded by `roundNumber`; everything else (encodings, scale domains, titles) is copied
  * as it is. The input is not changed.
  * Cost O(size of the spec). Never throws.
- * Example: `roundChartData({ data: { values: [{ a: 1 / 3 }] }, mark: 'point' })` → `{ data: { values: [{ a: 0.333333 }] }, mark: 'point' }`.
+ * Example: `roundChartData({ data: { values: [{ a: 1 / 3 }] }, mark: 'point' })`
+ * → `{ data: { values: [{ a: 0.333333 }] }, mark: 'point' }`.
  */
 export function roundChartData(spec: TopLevelSpec, digits = CHART_DIGITS): TopLevelSpec {
   return walk(spec, digits) as TopLevelSpec;

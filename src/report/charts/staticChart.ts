@@ -17,7 +17,8 @@ function invisible(layer: unknown): boolean {
  * `spec` without its invisible layers (mark opacity 0), or `spec` itself when it has none or is
  * not layered (a layered spec keeps at least one layer).
  * Cost O(layers). Never throws.
- * Example: `staticChart(curvesChart(results, 'val_acc')!).layer.map((l) => l.name)` → `['seeds', 'band', 'mean']` (no `hover`).
+ * Example: `staticChart(curvesChart(results, 'val_acc')!).layer.map((l) => l.name)`
+ * → `['seeds', 'band', 'mean']` (no `hover`).
  */
 export function staticChart(spec: TopLevelSpec): TopLevelSpec {
   if (!('layer' in spec)) return spec;

@@ -40,7 +40,8 @@ export function panelTasks(results: Results, metric: string): { readonly tasks: 
 function leftOutLine(shown: number, total: number): string[] {
   return shown < total
     ? [
-        `${shown} of ${total} tasks: those with a decided comparison first, then in study order; the other ${total - shown} are in the tables and results.json.`,
+        `${shown} of ${total} tasks: those with a decided comparison first, then in study order; the ` +
+          `other ${total - shown} are in the tables and results.json.`,
       ]
     : [];
 }

@@ -115,7 +115,8 @@ export function ticksChart(results: Results, metric: string): TopLevelSpec | nul
   const steps = [...new Set(curves.map((c) => c.step))];
   const at = steps.length === 1 && steps[0] !== null && steps[0] !== undefined ? ` at step ${steps[0]}` : '';
   const subtitle = [
-    `Line: mean across seeds${at}. ${band === '' ? 'No band: too few seeds.' : `Band: ${band} across seeds (seed-to-seed spread).`}`,
+    `Line: mean across seeds${at}. ` +
+      (band === '' ? 'No band: too few seeds.' : `Band: ${band} across seeds (seed-to-seed spread).`),
   ];
   if (whiskers.length > 0)
     subtitle.push('Dotted whiskers: ±1 between-example standard error, √(p(1−p)/m), of one evaluation.');
@@ -127,7 +128,9 @@ export function ticksChart(results: Results, metric: string): TopLevelSpec | nul
     ...chartFrame({
       title: `${metric} by internal tick`,
       subtitle,
-      description: `${metric} against internal tick for ${curves.length} config${curves.length === 1 ? '' : 's'}${at}: mean across seeds${band === '' ? '' : ` with a ${band} band`}.`,
+      description:
+        `${metric} against internal tick for ${curves.length} ` +
+        `config${curves.length === 1 ? '' : 's'}${at}: mean across seeds${band === '' ? '' : ` with a ${band} band`}.`,
     }),
     layer: withLegendToggle(layers, configs.length, ['mean']),
   };

@@ -134,22 +134,33 @@ export function valuesChart(results: Results, metric: string, summary: string): 
   }
 
   const subtitle = [
-    `One dot per seed: filled, used in tests${unused > 0 ? `; hollow diamond, not used (${unused})` : ''}. Bar: mean across seeds; line: ${intervalLabels(meanRows.length === 0 ? [] : [...summaries.values()].map((c) => ({ method: c.method, level: c.level })))} of the mean.`,
+    `One dot per seed: filled, used in tests${unused > 0 ? `; hollow diamond, not used (${unused})` : ''}. Bar: ` +
+      `mean across seeds; line: ` +
+      intervalLabels(
+        meanRows.length === 0 ? [] : [...summaries.values()].map((c) => ({ method: c.method, level: c.level })),
+      ) +
+      ` of the mean.`,
   ];
   if (keep !== null)
     subtitle.push(
-      `Of ${present.length} configs, only the baseline and the decided candidates are drawn (${configs.length}); the table lists every one.`,
+      `Of ${present.length} configs, only the baseline and the decided candidates are drawn ` +
+        `(${configs.length}); the table lists every one.`,
     );
   if (missing > 0)
     subtitle.push(
-      `${missing} run${missing === 1 ? ' has' : 's have'} no value (diverged, censored or missing) and ${missing === 1 ? 'is' : 'are'} not drawn.`,
+      `${missing} run${missing === 1 ? ' has' : 's have'} no value (diverged, censored or missing) ` +
+        `and ${missing === 1 ? 'is' : 'are'} not drawn.`,
     );
 
   return {
     ...chartFrame({
       title: `${metric}: one value per seed (${summary})`,
       subtitle,
-      description: `Per-seed ${summary} values of ${metric} for ${configs.length} config${configs.length === 1 ? '' : 's'} (${drawn.length} runs drawn${missing > 0 ? `, ${missing} without a value` : ''}), with the mean across seeds of each config and its interval.`,
+      description:
+        `Per-seed ${summary} values of ${metric} for ${configs.length} ` +
+        `config${configs.length === 1 ? '' : 's'} (${drawn.length} runs ` +
+        `drawn${missing > 0 ? `, ${missing} without a value` : ''}), with the mean across seeds of each config ` +
+        `and its interval.`,
       height: { step: 40 },
     }),
     layer: layers,
