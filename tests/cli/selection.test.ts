@@ -114,20 +114,27 @@ describe('selection options', () => {
   });
 
   it('--candidate, --include-configs and --exclude-configs choose the configs compared', async () => {
-    const base = ['sample-runs', '--baseline', 'ticks=8,memory=4', '--metrics', 'val_acc'];
+    // The demo's first task alone (the other two repeat the same configs).
+    const base = ['sample-runs', '--baseline', 'ticks=8,memory=4', '--metrics', 'val_acc', '--task-key', 'task'];
+    base.push('--include-configs', 'task=count');
     const one = await report([...base, '--candidate', 'ticks=16,memory=4']);
     expect(one.comparisons.map((c) => c.candidate)).toEqual(['ticks=16,memory=4']);
     const two = await report([...base, '--candidate', 'ticks=16,memory=4', '--candidate', 'ticks=32,memory=12']);
     expect(two.comparisons.map((c) => c.candidate)).toEqual(['ticks=16,memory=4', 'ticks=32,memory=12']);
     const without = await report([...base, '--exclude-configs', 'ticks=32']);
     expect(without.configs.map((c) => c.id)).toEqual([
-      'ticks=8,memory=4',
-      'ticks=8,memory=12',
-      'ticks=16,memory=4',
-      'ticks=16,memory=12',
+      'task=count,ticks=8,memory=4',
+      'task=count,ticks=8,memory=12',
+      'task=count,ticks=16,memory=4',
+      'task=count,ticks=16,memory=12',
     ]);
-    const only = await report([...base, '--include-configs', 'memory=4']);
-    expect(only.configs.map((c) => c.id)).toEqual(['ticks=8,memory=4', 'ticks=16,memory=4', 'ticks=32,memory=4']);
+    // --include-configs takes any of its selectors: one selector naming both keys keeps the first task's memory=4.
+    const only = await report([...base.slice(0, -2), '--include-configs', 'task=count,memory=4']);
+    expect(only.configs.map((c) => c.id)).toEqual([
+      'task=count,ticks=8,memory=4',
+      'task=count,ticks=16,memory=4',
+      'task=count,ticks=32,memory=4',
+    ]);
   });
 
   it('on sample-runs, --metrics val_acc gives only val_acc in JSON, Markdown and HTML', async () => {
@@ -187,12 +194,12 @@ describe('a name that exists nowhere stops: exit 2, first line of stderr says wh
     [
       '--drop-keys',
       ['sample-runs', '--drop-keys', 'memroy'],
-      "seedsift: --drop-keys: no config key 'memroy' (config keys: ticks, memory); did you mean memory?",
+      "seedsift: --drop-keys: no config key 'memroy' (config keys: task, ticks, memory); did you mean memory?",
     ],
     [
       '--keep-keys',
       ['sample-runs', '--keep-keys', 'tick'],
-      "seedsift: --keep-keys: no config key 'tick' (config keys: ticks, memory); did you mean ticks?",
+      "seedsift: --keep-keys: no config key 'tick' (config keys: task, ticks, memory); did you mean ticks?",
     ],
     [
       '--include-configs',
@@ -202,7 +209,7 @@ describe('a name that exists nowhere stops: exit 2, first line of stderr says wh
     [
       '--exclude-configs',
       ['sample-runs', '--exclude-configs', 'tiks=8'],
-      "seedsift: --exclude-configs: no config key 'tiks'; keys are ticks, memory; did you mean ticks?",
+      "seedsift: --exclude-configs: no config key 'tiks'; keys are task, ticks, memory; did you mean ticks?",
     ],
     [
       '--candidate',
@@ -217,7 +224,7 @@ describe('a name that exists nowhere stops: exit 2, first line of stderr says wh
     [
       '--task-key',
       ['sample-runs', '--task-key', 'tick'],
-      "seedsift: --task-key: expected one of the config keys (ticks, memory), got 'tick'; did you mean ticks?",
+      "seedsift: --task-key: expected one of the config keys (task, ticks, memory), got 'tick'; did you mean ticks?",
     ],
   ];
   for (const [name, args, first] of cases)
