@@ -133,7 +133,7 @@ function scores(): string {
     ['cand', 0.7],
     ['better', 0.9],
   ] as const)
-    spread.forEach((d, k) => (text += `${method},${k + 1},${(centre + d).toFixed(3)}\n`));
+    for (const [k, d] of spread.entries()) text += `${method},${k + 1},${(centre + d).toFixed(3)}\n`;
   return text;
 }
 

@@ -178,7 +178,7 @@ suite('the report in chromium', () => {
       shown = await tip.isVisible();
     }
     expect(shown).toBe(true);
-    expect(await tip.innerText()).toMatch(/seed/);
+    expect(await tip.textContent()).toMatch(/seed/);
 
     // Clicking a config in the legend of the learning curves keeps its lines and fades the others.
     const curves = page.locator('figure.chart').nth(1);
@@ -255,11 +255,12 @@ suite('the report in chromium', () => {
       if (b !== null) await page.mouse.move(b.x + b.width / 2, b.y + b.height / 2);
     }
     const dom = await page.evaluate(() => ({
+      // biome-ignore lint/performance/useDomNodeTextContent: the checks below are about the rendered text a reader sees; textContent would also hold script bodies and hidden elements
       text: document.body.innerText,
       // The page's own text, charts left out (chart labels are drawn by Vega from the specs).
       pageText: (() => {
         const copy = document.body.cloneNode(true) as HTMLElement;
-        copy.querySelectorAll('.chart-view, script').forEach((e) => e.remove());
+        for (const e of copy.querySelectorAll('.chart-view, script')) e.remove();
         return copy.textContent ?? '';
       })(),
       images: document.querySelectorAll('img').length,

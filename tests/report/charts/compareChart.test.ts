@@ -38,7 +38,7 @@ describe('compareChart', () => {
       'inconclusive',
     ]);
     // The legend names all three verdicts.
-    const legend = svg.match(/role-legend-label[^]*?<\/g>/g)?.join('') ?? '';
+    const legend = svg.match(/role-legend-label[\s\S]*?<\/g>/g)?.join('') ?? '';
     for (const v of ['better', 'worse', 'inconclusive']) expect(legend).toContain(`>${v}</text>`);
   });
 
