@@ -41,7 +41,6 @@ import { metricValues } from './runValues.js';
 import { matchesSelector } from './selectors.js';
 import { checkOptions } from './checkOptions.js';
 import { chooseMetrics } from './chooseMetrics.js';
-import { directionOnly } from './directionOnly.js';
 import { dedupeProblems, withoutRepeatedGoals } from './dedupeProblems.js';
 import { sanityChecks } from './sanityChecks.js';
 import { selectRuns } from './selectRuns.js';

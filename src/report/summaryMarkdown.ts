@@ -3,8 +3,9 @@
  * (and summary, and task): baseline, candidate, difference with its interval, adjusted p, verdict,
  * seeds; then the caution lines of those comparisons and the caution that a test is evidence, not
  * proof, after the overview (`overviewMarkdown`: the answer, aggregates, sweeps); the whole stays
- * within `SUMMARY_LIMIT` characters (`fitGroups`). Every name from the data is escaped (`escapeMarkdown`: no emphasis, link, HTML, cell break
- * or mention can form; newlines become spaces). Renders `Results`; computes nothing statistical.
+ * within `SUMMARY_LIMIT` characters (`fitGroups`). Every name from the data is escaped
+ * (`escapeMarkdown`: no emphasis, link, HTML, cell break or mention can form; newlines become spaces).
+ * Renders `Results`; computes nothing statistical.
  */
 import type { Comparison, Results } from '../analysis/results.js';
 import { cautionListMarkdown } from './cautionGroups.js';
@@ -28,7 +29,9 @@ import {
 function familyText(comparisons: readonly Comparison[]): string {
   const c = comparisons[0];
   if (c === undefined) return '';
-  return `family of ${c.family.size} comparison${c.family.size === 1 ? '' : 's'}${c.family.scope === 'study' ? (c.task === null ? '' : ' over all tasks') : ' in this task'}`;
+  const plural = c.family.size === 1 ? '' : 's';
+  const scope = c.family.scope === 'study' ? (c.task === null ? '' : ' over all tasks') : ' in this task';
+  return `family of ${c.family.size} comparison${plural}${scope}`;
 }
 import {
   comparisonGroups,
@@ -100,7 +103,8 @@ function groupTable(results: Results, g: ComparisonGroup): string[] {
   }
   const title = [
     `### ${name(g.metric)}`,
-    `(${goalWords(g.goal, g.goalSource, ', guessed from the name')}; summary ${name(g.summary)}${withTask ? `; task ${name(g.task ?? '')}` : ''}; ${familyText(g.comparisons)})`,
+    `(${goalWords(g.goal, g.goalSource, ', guessed from the name')}; summary ${name(g.summary)}` +
+      `${withTask ? `; task ${name(g.task ?? '')}` : ''}; ${familyText(g.comparisons)})`,
   ];
   const cautions = cautionListMarkdown(g.comparisons, name);
   const means = g.comparisons.map((c) => {
@@ -108,16 +112,25 @@ function groupTable(results: Results, g: ComparisonGroup): string[] {
     if (c.timeToEvent !== null) {
       const k = c.timeToEvent;
       const arm = (a: typeof k.baseline): string =>
-        `${a.reached}/${a.runs} reached, median ${a.medianSteps === null ? 'not reached' : formatNumber(a.medianSteps, 0)} steps`;
-      return `${name(c.candidate)} ${arm(k.candidate)} v ${name(c.baseline)} ${arm(k.baseline)} (log-rank p ${formatP(k.logRank.p)})`;
+        `${a.reached}/${a.runs} reached, ` +
+        `median ${a.medianSteps === null ? 'not reached' : formatNumber(a.medianSteps, 0)} steps`;
+      return (
+        `${name(c.candidate)} ${arm(k.candidate)} v ${name(c.baseline)} ${arm(k.baseline)} ` +
+        `(log-rank p ${formatP(k.logRank.p)})`
+      );
     }
-    return `${name(c.candidate)} ${formatNumber(c.mean.candidate, d)} v ${name(c.baseline)} ${formatNumber(c.mean.baseline, d)}`;
+    return (
+      `${name(c.candidate)} ${formatNumber(c.mean.candidate, d)} ` +
+      `v ${name(c.baseline)} ${formatNumber(c.mean.baseline, d)}`
+    );
   });
   const effects = g.comparisons
     .filter((c) => c.timeToEvent === null)
     .map(
       (c) =>
-        `${name(c.candidate)} v ${name(c.baseline)}: Hedges' g ${formatSigned(c.effect.hedgesG, 2)}, Cliff's delta ${formatSigned(c.effect.cliffsDelta, 2)}, P(candidate better) ${formatNumber(c.effect.probabilityOfImprovement, 2)}`,
+        `${name(c.candidate)} v ${name(c.baseline)}: Hedges' g ${formatSigned(c.effect.hedgesG, 2)}, ` +
+        `Cliff's delta ${formatSigned(c.effect.cliffsDelta, 2)}, ` +
+        `P(candidate better) ${formatNumber(c.effect.probabilityOfImprovement, 2)}`,
     );
   return [
     title.join(' '),
@@ -128,7 +141,9 @@ function groupTable(results: Results, g: ComparisonGroup): string[] {
     ...(effects.length > 0
       ? [
           '',
-          `Effect sizes (candidate minus baseline, in the metric's own direction; P(candidate better) follows the goal): ${effects.join('; ')}.`,
+          "Effect sizes (candidate minus baseline, in the metric's own direction; " +
+            'P(candidate better) follows the goal): ' +
+            `${effects.join('; ')}.`,
         ]
       : []),
     ...(cautions.length > 0 ? ['', 'Cautions:', '', ...cautions] : []),
@@ -148,15 +163,21 @@ function problemLine(results: Results): string | null {
 /**
  * Render the Markdown summary of `Results`.
  * Cost O(comparisons + problems). Never throws for a `Results` value.
- * Example: `summaryMarkdown(results)` → `'## seedsift verdicts\n\n...| memory=4 | memory=8 | +1.71 [0.06, 3.37] | 0.088 | ● inconclusive | 7 v 5 |...'`.
+ * Example: `summaryMarkdown(results)` → `'## seedsift verdicts\n\n...| memory=4 | memory=8 | +1.71 [0.06, 3.37] |
+ * 0.088 | ● inconclusive | 7 v 5 |...'`.
  */
 export function summaryMarkdown(results: Results): string {
   const s = results.settings;
   const out: string[] = ['## seedsift verdicts', ''];
   out.push(
-    `${results.runs.length} runs in ${results.configs.length} configs, generated ${results.generated.slice(0, 10)} by seedsift ${escapeMarkdown(results.tool.version)}. ` +
-      `${s.paired ? 'Paired t-test' : "Welch's t-test"} on per-run values (summary ${name(s.summary)}: ${escapeMarkdown(s.summaryDescription)}), each comparison at its own step, alpha ${s.alpha}, ${CORRECTION_WORDS[s.correction]} p-values over ${s.family === 'study' ? 'each metric and summary across all tasks' : 'each task alone'}` +
-      `${s.baseline === null ? ', every pair of configs' : `, baseline ${name(s.baseline)}`}. Intervals are ${formatLevel(s.level)} and unadjusted; the verdict accounts for the family.`,
+    `${results.runs.length} runs in ${results.configs.length} configs, ` +
+      `generated ${results.generated.slice(0, 10)} by seedsift ${escapeMarkdown(results.tool.version)}. ` +
+      `${s.paired ? 'Paired t-test' : "Welch's t-test"} on per-run values ` +
+      `(summary ${name(s.summary)}: ${escapeMarkdown(s.summaryDescription)}), each comparison at its own step, ` +
+      `alpha ${s.alpha}, ${CORRECTION_WORDS[s.correction]} p-values over ` +
+      `${s.family === 'study' ? 'each metric and summary across all tasks' : 'each task alone'}` +
+      `${s.baseline === null ? ', every pair of configs' : `, baseline ${name(s.baseline)}`}. ` +
+      `Intervals are ${formatLevel(s.level)} and unadjusted; the verdict accounts for the family.`,
     '',
   );
   out.push(...overviewMarkdown(results));

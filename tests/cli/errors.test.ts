@@ -133,7 +133,7 @@ function scores(): string {
     ['cand', 0.7],
     ['better', 0.9],
   ] as const)
-    spread.forEach((d, k) => (text += `${method},${k + 1},${(centre + d).toFixed(3)}\n`));
+    for (const [k, d] of spread.entries()) text += `${method},${k + 1},${(centre + d).toFixed(3)}\n`;
   return text;
 }
 
@@ -172,15 +172,18 @@ describe('--fail-on: exit 1 when the gate fails, with the reason on stderr', () 
     );
   });
 
-  it('the same table with the goal turned round (--metric acc:min): the drop is better, the rise is worse', async () => {
-    const { code, err, results } = await gate('worse', '--metric', 'acc:min');
-    expect(Object.fromEntries(results.comparisons.map((c) => [c.candidate, c.verdict]))).toEqual({
-      'method=cand': 'better',
-      'method=better': 'worse',
-    });
-    expect(code).toBe(EXIT_GATE);
-    expect(err).toMatch(/method=better vs method=base: worse/);
-  });
+  it(
+    'the same table with the goal turned round (--metric acc:min): the drop is better, the rise is ' + 'worse',
+    async () => {
+      const { code, err, results } = await gate('worse', '--metric', 'acc:min');
+      expect(Object.fromEntries(results.comparisons.map((c) => [c.candidate, c.verdict]))).toEqual({
+        'method=cand': 'better',
+        'method=better': 'worse',
+      });
+      expect(code).toBe(EXIT_GATE);
+      expect(err).toMatch(/method=better vs method=base: worse/);
+    },
+  );
 
   it('--fail-on worse passes (exit 0, nothing on stderr) when no candidate is worse', async () => {
     writeFileSync(

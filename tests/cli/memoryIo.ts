@@ -13,8 +13,12 @@ export function memoryIo(env: Record<string, string | undefined> = {}): MemoryIo
     cwd: process.cwd(),
     env: { SOURCE_DATE_EPOCH: '1764547200', ...env },
     stderrIsTTY: false,
-    stdout: (text) => void (out += text),
-    stderr: (text) => void (err += text),
+    stdout: (text) => {
+      out += text;
+    },
+    stderr: (text) => {
+      err += text;
+    },
     out: () => out,
     err: () => err,
   };

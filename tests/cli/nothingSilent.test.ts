@@ -84,15 +84,19 @@ describe('reading options that name nothing stop: exit 2, first line of stderr',
 });
 
 describe('a gate never passes on nothing: exit 3', () => {
-  it('no comparison (one config): exit 3 with the reason; without --fail-on the report is written (exit 0)', async () => {
-    const json = join(dir, 'single.json');
-    expect(await firstLine(['report', single, '--fail-on', 'worse', '--json', json, '--quiet'])).toEqual([
-      EXIT_NO_EVIDENCE,
-      'seedsift: --fail-on worse: no comparison was made (2 runs, 1 configs); a gate does not pass on nothing (exit 3)',
-    ]);
-    expect(existsSync(json)).toBe(true);
-    expect(await firstLine(['report', single, '--json', json, '--quiet'])).toEqual([EXIT_DONE, '']);
-  });
+  it(
+    'no comparison (one config): exit 3 with the reason; without --fail-on the report is written (exit ' + '0)',
+    async () => {
+      const json = join(dir, 'single.json');
+      expect(await firstLine(['report', single, '--fail-on', 'worse', '--json', json, '--quiet'])).toEqual([
+        EXIT_NO_EVIDENCE,
+        'seedsift: --fail-on worse: no comparison was made (2 runs, 1 configs); ' +
+          'a gate does not pass on nothing (exit 3)',
+      ]);
+      expect(existsSync(json)).toBe(true);
+      expect(await firstLine(['report', single, '--json', json, '--quiet'])).toEqual([EXIT_DONE, '']);
+    },
+  );
 
   it('more than half of the files unreadable: exit 3 even though the comparison is better', async () => {
     const json = join(dir, 'broken.json');

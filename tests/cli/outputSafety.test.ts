@@ -45,7 +45,9 @@ function study(root: string): string {
       mkdirSync(folder, { recursive: true });
       let text = 'step,loss,acc\n';
       for (let step = 1; step <= 40; step++)
-        text += `${step},${(1 / step + seed * 0.001).toFixed(5)},${(0.5 + step / 100 + (lr === '0.2' ? 0.01 : 0) + seed * 0.002).toFixed(5)}\n`;
+        text +=
+          `${step},${(1 / step + seed * 0.001).toFixed(5)},` +
+          `${(0.5 + step / 100 + (lr === '0.2' ? 0.01 : 0) + seed * 0.002).toFixed(5)}\n`;
       writeFileSync(join(folder, 'log.csv'), text);
     }
   }
@@ -208,7 +210,8 @@ describe('a kill mid-run leaves the earlier report whole', () => {
     expect(complete.equals(old)).toBe(false); // else the test could not tell them apart
     const random = createRandom(20260301);
     const outcomes: string[] = [];
-    let length = 0; // how long a run takes here, from the first kill (which waits for the write): the range of the random moments
+    // How long a run takes here, from the first kill (which waits for the write): the range of the random moments.
+    let length = 0;
     for (const onTemp of [true, false, false]) {
       writeFileSync(html, old); // each kill starts from the earlier report
       let watch: NodeJS.Timeout | undefined;
@@ -227,10 +230,12 @@ describe('a kill mid-run leaves the earlier report whole', () => {
       const now = readFileSync(html);
       const state = now.equals(old) ? 'old' : now.equals(complete) ? 'new' : 'PARTIAL';
       outcomes.push(
-        `${result.signal ?? `exit ${result.code}`} after ${Date.now() - t0} ms${onTemp ? ' (on the temporary file)' : ''}: ${state}`,
+        `${result.signal ?? `exit ${result.code}`} after ${Date.now() - t0} ` +
+          `ms${onTemp ? ' (on the temporary file)' : ''}: ${state}`,
       );
       expect(state, outcomes.join('; ')).not.toBe('PARTIAL');
-      for (const t of temps(out)) rmSync(join(out, t)); // a killed run may leave its temporary file; the report is what counts
+      // A killed run may leave its temporary file; the report is what counts.
+      for (const t of temps(out)) rmSync(join(out, t));
     }
     console.log(`kill test (a run takes about ${length} ms here, up to its write): ${outcomes.join('; ')}`);
   }, 180_000);

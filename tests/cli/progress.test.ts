@@ -32,33 +32,37 @@ describe('progressDisplay', () => {
     p.hooks.progress?.('comparing', 2, 3);
     p.hooks.progress?.('drawing', 5, 19);
     expect(io.err()).toBe(
-      '\rseedsift: looking at files 1/4\u001b[K\rseedsift: comparing metrics 2/3\u001b[K\rseedsift: drawing charts 5/19\u001b[K',
+      '\rseedsift: looking at files 1/4\u001b[K\rseedsift: comparing metrics 2/3\u001b[K\rseedsift: drawing ' +
+        'charts 5/19\u001b[K',
     );
   });
 
-  it('a report on a terminal goes through every stage in order and ends each at its total, then clears the line', async () => {
-    const io = tty({ CI: undefined });
-    const dir = mkdtempSync(join(tmpdir(), 'seedsift-progress-'));
-    try {
-      expect(
-        await run(['report', 'sample-runs', '--baseline', 'ticks=8,memory=4', '-o', join(dir, 'report.html')], io),
-      ).toBe(0);
-    } finally {
-      rmSync(dir, { recursive: true, force: true });
-    }
-    const lines = io
-      .err()
-      .split('\r')
-      .filter((l) => l !== '');
-    const stages = [...new Set(lines.map((l) => /^seedsift: (\D+) \d/.exec(l)?.[1]).filter((s) => s !== undefined))];
-    expect(stages).toEqual(['looking at files', 'reading files', 'comparing metrics', 'drawing charts']);
-    for (const stage of stages) {
-      const last = lines.filter((l) => l.startsWith(`seedsift: ${stage} `)).at(-1) ?? '';
-      const [done, total] = (/ (\d+)\/(\d+)/.exec(last) ?? []).slice(1).map(Number);
-      expect(done, stage).toBe(total);
-    }
-    expect(io.err().endsWith('\r\u001b[K')).toBe(true);
-  });
+  it(
+    'a report on a terminal goes through every stage in order and ends each at its total, then clears the ' + 'line',
+    async () => {
+      const io = tty({ CI: undefined });
+      const dir = mkdtempSync(join(tmpdir(), 'seedsift-progress-'));
+      try {
+        expect(
+          await run(['report', 'sample-runs', '--baseline', 'ticks=8,memory=4', '-o', join(dir, 'report.html')], io),
+        ).toBe(0);
+      } finally {
+        rmSync(dir, { recursive: true, force: true });
+      }
+      const lines = io
+        .err()
+        .split('\r')
+        .filter((l) => l !== '');
+      const stages = [...new Set(lines.map((l) => /^seedsift: (\D+) \d/.exec(l)?.[1]).filter((s) => s !== undefined))];
+      expect(stages).toEqual(['looking at files', 'reading files', 'comparing metrics', 'drawing charts']);
+      for (const stage of stages) {
+        const last = lines.filter((l) => l.startsWith(`seedsift: ${stage} `)).at(-1) ?? '';
+        const [done, total] = (/ (\d+)\/(\d+)/.exec(last) ?? []).slice(1).map(Number);
+        expect(done, stage).toBe(total);
+      }
+      expect(io.err().endsWith('\r\u001b[K')).toBe(true);
+    },
+  );
 
   it('is silent when stderr is not a terminal, in CI, or with --quiet', () => {
     for (const [io, quiet] of [

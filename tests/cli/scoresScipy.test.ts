@@ -93,7 +93,8 @@ async function results(): Promise<Results> {
 
 const rel = (a: number | null, b: number): number => Math.abs((a as number) - b) / Math.max(Math.abs(b), 1e-300);
 
-describe(`results.json equals scipy ${fixture.scipyVersion} (Debian python3-scipy) through a score table and the CLI`, async () => {
+const SCIPY = `scipy ${fixture.scipyVersion} (Debian python3-scipy)`;
+describe(`results.json equals ${SCIPY} through a score table and the CLI`, async () => {
   const r = await results();
   const byMetric = new Map<string, Comparison>(r.comparisons.map((c) => [c.metric, c]));
 

@@ -37,24 +37,27 @@ async function report(args: string[]): Promise<Results> {
 const codes = (r: Results, code: string): string[] => r.problems.filter((p) => p.code === code).map((p) => p.message);
 
 describe('which columns are metrics', () => {
-  it('sets aside bookkeeping names and counters, lists them with how to include them, and compares the rest', async () => {
-    const r = await report([bookkeeping]);
-    // val_acc (name rule) and bits (no rule, goes up and down) are metrics; the rest are bookkeeping.
-    expect(r.metrics.map((m) => m.name)).toEqual(['val_acc', 'bits']);
-    expect(r.setAside).toEqual([
-      { name: 'wall_time', reason: 'name' },
-      { name: 'epoch', reason: 'name' },
-      { name: 'preemptions', reason: 'name' },
-      { name: 'score', reason: 'counter' },
-      { name: 'total_samples', reason: 'counter' },
-    ]);
-    const notes = codes(r, 'column-set-aside');
-    expect(notes).toHaveLength(5);
-    expect(notes.every((n) => n.includes('--as-metric'))).toBe(true);
-    expect(new Set(r.comparisons.map((c) => c.metric))).toEqual(new Set(['val_acc', 'bits']));
-    // Goal notes of columns that are not compared are not repeated.
-    expect(codes(r, 'goal-unknown').map((m) => m.split(':')[0])).toEqual(['bits']);
-  });
+  it(
+    'sets aside bookkeeping names and counters, lists them with how to include them, and compares the ' + 'rest',
+    async () => {
+      const r = await report([bookkeeping]);
+      // val_acc (name rule) and bits (no rule, goes up and down) are metrics; the rest are bookkeeping.
+      expect(r.metrics.map((m) => m.name)).toEqual(['val_acc', 'bits']);
+      expect(r.setAside).toEqual([
+        { name: 'wall_time', reason: 'name' },
+        { name: 'epoch', reason: 'name' },
+        { name: 'preemptions', reason: 'name' },
+        { name: 'score', reason: 'counter' },
+        { name: 'total_samples', reason: 'counter' },
+      ]);
+      const notes = codes(r, 'column-set-aside');
+      expect(notes).toHaveLength(5);
+      expect(notes.every((n) => n.includes('--as-metric'))).toBe(true);
+      expect(new Set(r.comparisons.map((c) => c.metric))).toEqual(new Set(['val_acc', 'bits']));
+      // Goal notes of columns that are not compared are not repeated.
+      expect(codes(r, 'goal-unknown').map((m) => m.split(':')[0])).toEqual(['bits']);
+    },
+  );
 
   it('a metric no rule knows gets no better or worse, only the direction; --metric gives it a goal', async () => {
     const r = await report([bookkeeping, '--baseline', 'algo=a']);
@@ -91,7 +94,8 @@ describe('selection options', () => {
       ['algo=dqn,lr=0.001,buffer=10000,cuda=true', 'algo=ppo,lr=0.0003,cuda=true,clip=0.2'],
     ]);
     expect(codes(r, 'arm-keys')).toEqual([
-      'counterparts for --baseline algo=dqn were matched ignoring lr, buffer, clip: their values change only with algo (attributes of the arm)',
+      'counterparts for --baseline algo=dqn were matched ignoring lr, buffer, clip: their values change ' +
+        'only with algo (attributes of the arm)',
     ]);
   });
 
@@ -179,17 +183,20 @@ describe('a name that exists nowhere stops: exit 2, first line of stderr says wh
     [
       '--metrics',
       ['sample-runs', '--metrics', 'val_ac'],
-      "seedsift: --metrics: no metric 'val_ac' (metrics: train_loss, val_loss, val_acc, certainty); did you mean val_acc?",
+      "seedsift: --metrics: no metric 'val_ac' (metrics: train_loss, val_loss, val_acc, certainty); did you " +
+        'mean val_acc?',
     ],
     [
       '--primary',
       ['sample-runs', '--primary', 'val_los'],
-      "seedsift: --primary: no metric 'val_los' (metrics: train_loss, val_loss, val_acc, certainty); did you mean val_loss?",
+      "seedsift: --primary: no metric 'val_los' (metrics: train_loss, val_loss, val_acc, certainty); did " +
+        'you mean val_loss?',
     ],
     [
       '--as-metric',
       ['sample-runs', '--as-metric', 'epoc'],
-      "seedsift: --as-metric: no metric 'epoc' (metrics: train_loss, val_loss, val_acc, certainty); did you mean one of train_loss, val_loss, val_acc, certainty?",
+      "seedsift: --as-metric: no metric 'epoc' (metrics: train_loss, val_loss, val_acc, certainty); did you " +
+        'mean one of train_loss, val_loss, val_acc, certainty?',
     ],
     [
       '--drop-keys',

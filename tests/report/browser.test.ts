@@ -101,7 +101,8 @@ const suite = available ? describe : describe.skip;
 // Outside CI a missing chromium skips the suite; say so, as scipyLive.test.ts does for scipy.
 if (!available && process.env.CI === undefined)
   console.warn(
-    `NOTICE: browser.test.ts skipped: chromium not found at ${CHROMIUM} (apt-get install -y chromium, or set CHROMIUM_PATH); under CI this fails`,
+    `NOTICE: browser.test.ts skipped: chromium not found at ${CHROMIUM} (apt-get install -y chromium, or ` +
+      `set CHROMIUM_PATH); under CI this fails`,
   );
 
 if (!available && process.env.CI !== undefined) {
@@ -128,89 +129,93 @@ suite('the report in chromium', () => {
     await browser?.close();
   });
 
-  it('opens under a policy without eval: no console output, no request but the file, every chart live, verdicts on the first screen, tooltips, legend toggling', async () => {
-    const { page, watch } = await open(browser, reportFile);
-    // Figures measured on this machine are printed for the report (no timing assertion).
-    console.info(`report.html: ${statSync(reportFile).size} bytes, load event after ${watch.openMs.toFixed(0)} ms`);
+  it(
+    'opens under a policy without eval: no console output, no request but the file, every chart live, ' +
+      'verdicts on the first screen, tooltips, legend toggling',
+    async () => {
+      const { page, watch } = await open(browser, reportFile);
+      // Figures measured on this machine are printed for the report (no timing assertion).
+      console.info(`report.html: ${statSync(reportFile).size} bytes, load event after ${watch.openMs.toFixed(0)} ms`);
 
-    // The policy the page runs under: scripts only by hash, no eval of any kind.
-    const csp = await page.evaluate(
-      () => document.querySelector('meta[http-equiv="Content-Security-Policy"]')?.getAttribute('content') ?? '',
-    );
-    const scriptSrc =
-      csp
-        .split('; ')
-        .find((d) => d.startsWith('script-src '))
-        ?.split(' ')
-        .slice(1) ?? [];
-    expect(scriptSrc).toHaveLength(3);
-    expect(scriptSrc.every((source) => /^'sha256-[A-Za-z0-9+/]+=*'$/.test(source))).toBe(true);
-    expect(csp).not.toContain('unsafe-eval');
-    expect(csp).toMatch(/default-src 'none'/);
-
-    // The overview (verdict counts and the matrix of differences) lies inside the first 1280 x 800 screen.
-    const box = await page.locator('.overview-cell').boundingBox();
-    expect(box).not.toBeNull();
-    expect((box?.y ?? Infinity) + (box?.height ?? 0)).toBeLessThanOrEqual(VIEWPORT.height);
-    expect((box?.x ?? Infinity) + (box?.width ?? 0)).toBeLessThanOrEqual(VIEWPORT.width);
-    await page.screenshot({ path: `${ARTIFACTS}report.png` });
-
-    // Every chart has an SVG with drawn marks, first as written, then as a live Vega view.
-    const before = await marksPerChart(page);
-    expect(before).toHaveLength(16); // the sweep of val_acc against memory first, then the cells' 15
-    expect(before.every((n) => n > 0)).toBe(true);
-    const live = await hydrateAll(page);
-    expect(live.every((s) => s === 'true')).toBe(true);
-    const after = await marksPerChart(page);
-    expect(after.every((n) => n > 0)).toBe(true);
-
-    // A tooltip appears on hover over a mark (the per-run values chart: one dot per seed).
-    const figure = page.locator('figure.chart').nth(2);
-    await figure.scrollIntoViewIfNeeded();
-    const dots = figure.locator('.role-mark.mark-symbol path');
-    expect(await dots.count()).toBeGreaterThan(0);
-    const tip = page.locator('.chart-tip');
-    let shown = false;
-    for (let i = 0; i < Math.min(await dots.count(), 8) && !shown; i++) {
-      const dot = await dots.nth(i).boundingBox();
-      if (dot === null) continue;
-      await page.mouse.move(dot.x + dot.width / 2, dot.y + dot.height / 2);
-      shown = await tip.isVisible();
-    }
-    expect(shown).toBe(true);
-    expect(await tip.innerText()).toMatch(/seed/);
-
-    // Clicking a config in the legend of the learning curves keeps its lines and fades the others.
-    const curves = page.locator('figure.chart').nth(1);
-    await curves.scrollIntoViewIfNeeded();
-    const meanOpacity = (): Promise<Record<string, string>> =>
-      curves.evaluate((f) =>
-        Object.fromEntries(
-          [...f.querySelectorAll('.mean_marks path')].map((p) => [
-            p.getAttribute('stroke') ?? '',
-            p.getAttribute('opacity') ?? '1',
-          ]),
-        ),
+      // The policy the page runs under: scripts only by hash, no eval of any kind.
+      const csp = await page.evaluate(
+        () => document.querySelector('meta[http-equiv="Content-Security-Policy"]')?.getAttribute('content') ?? '',
       );
-    const [c0, c1, c2] = [CONFIG_COLOURS[0] ?? '', CONFIG_COLOURS[1] ?? '', CONFIG_COLOURS[2] ?? ''];
-    expect(await meanOpacity()).toEqual({ [c0]: '1', [c1]: '1', [c2]: '1' });
-    const label = curves.locator('.role-legend-label text', { hasText: new RegExp(`^${SAMPLE_NAMES.configs[1]}$`) });
-    expect(await label.count()).toBe(1);
-    await expect(curves.locator('.chart-hint').isVisible()).resolves.toBe(true);
-    await label.click();
-    await expect.poll(meanOpacity).toEqual({ [c0]: '0.15', [c1]: '1', [c2]: '0.15' });
-    // A double-click on the plot shows every config again.
-    const plot = await curves.locator('.mean_marks').first().boundingBox();
-    expect(plot).not.toBeNull();
-    await page.mouse.dblclick((plot?.x ?? 0) + 4, (plot?.y ?? 0) + 4);
-    await expect.poll(meanOpacity).toEqual({ [c0]: '1', [c1]: '1', [c2]: '1' });
+      const scriptSrc =
+        csp
+          .split('; ')
+          .find((d) => d.startsWith('script-src '))
+          ?.split(' ')
+          .slice(1) ?? [];
+      expect(scriptSrc).toHaveLength(3);
+      expect(scriptSrc.every((source) => /^'sha256-[A-Za-z0-9+/]+=*'$/.test(source))).toBe(true);
+      expect(csp).not.toContain('unsafe-eval');
+      expect(csp).toMatch(/default-src 'none'/);
 
-    await page.screenshot({ path: `${ARTIFACTS}report-full.png`, fullPage: true });
-    expect(watch.console).toEqual([]);
-    expect(watch.dialogs).toEqual([]);
-    expect(watch.requests).toEqual([pathToFileURL(reportFile).href]);
-    await page.context().close();
-  });
+      // The overview (verdict counts and the matrix of differences) lies inside the first 1280 x 800 screen.
+      const box = await page.locator('.overview-cell').boundingBox();
+      expect(box).not.toBeNull();
+      expect((box?.y ?? Infinity) + (box?.height ?? 0)).toBeLessThanOrEqual(VIEWPORT.height);
+      expect((box?.x ?? Infinity) + (box?.width ?? 0)).toBeLessThanOrEqual(VIEWPORT.width);
+      await page.screenshot({ path: `${ARTIFACTS}report.png` });
+
+      // Every chart has an SVG with drawn marks, first as written, then as a live Vega view.
+      const before = await marksPerChart(page);
+      expect(before).toHaveLength(16); // the sweep of val_acc against memory first, then the cells' 15
+      expect(before.every((n) => n > 0)).toBe(true);
+      const live = await hydrateAll(page);
+      expect(live.every((s) => s === 'true')).toBe(true);
+      const after = await marksPerChart(page);
+      expect(after.every((n) => n > 0)).toBe(true);
+
+      // A tooltip appears on hover over a mark (the per-run values chart: one dot per seed).
+      const figure = page.locator('figure.chart').nth(2);
+      await figure.scrollIntoViewIfNeeded();
+      const dots = figure.locator('.role-mark.mark-symbol path');
+      expect(await dots.count()).toBeGreaterThan(0);
+      const tip = page.locator('.chart-tip');
+      let shown = false;
+      for (let i = 0; i < Math.min(await dots.count(), 8) && !shown; i++) {
+        const dot = await dots.nth(i).boundingBox();
+        if (dot === null) continue;
+        await page.mouse.move(dot.x + dot.width / 2, dot.y + dot.height / 2);
+        shown = await tip.isVisible();
+      }
+      expect(shown).toBe(true);
+      expect(await tip.textContent()).toMatch(/seed/);
+
+      // Clicking a config in the legend of the learning curves keeps its lines and fades the others.
+      const curves = page.locator('figure.chart').nth(1);
+      await curves.scrollIntoViewIfNeeded();
+      const meanOpacity = (): Promise<Record<string, string>> =>
+        curves.evaluate((f) =>
+          Object.fromEntries(
+            [...f.querySelectorAll('.mean_marks path')].map((p) => [
+              p.getAttribute('stroke') ?? '',
+              p.getAttribute('opacity') ?? '1',
+            ]),
+          ),
+        );
+      const [c0, c1, c2] = [CONFIG_COLOURS[0] ?? '', CONFIG_COLOURS[1] ?? '', CONFIG_COLOURS[2] ?? ''];
+      expect(await meanOpacity()).toEqual({ [c0]: '1', [c1]: '1', [c2]: '1' });
+      const label = curves.locator('.role-legend-label text', { hasText: new RegExp(`^${SAMPLE_NAMES.configs[1]}$`) });
+      expect(await label.count()).toBe(1);
+      await expect(curves.locator('.chart-hint').isVisible()).resolves.toBe(true);
+      await label.click();
+      await expect.poll(meanOpacity).toEqual({ [c0]: '0.15', [c1]: '1', [c2]: '0.15' });
+      // A double-click on the plot shows every config again.
+      const plot = await curves.locator('.mean_marks').first().boundingBox();
+      expect(plot).not.toBeNull();
+      await page.mouse.dblclick((plot?.x ?? 0) + 4, (plot?.y ?? 0) + 4);
+      await expect.poll(meanOpacity).toEqual({ [c0]: '1', [c1]: '1', [c2]: '1' });
+
+      await page.screenshot({ path: `${ARTIFACTS}report-full.png`, fullPage: true });
+      expect(watch.console).toEqual([]);
+      expect(watch.dialogs).toEqual([]);
+      expect(watch.requests).toEqual([pathToFileURL(reportFile).href]);
+      await page.context().close();
+    },
+  );
 
   it('makes legends usable by keyboard: a label takes focus, Enter shows that config alone', async () => {
     const { page, watch } = await open(browser, reportFile);
@@ -255,11 +260,13 @@ suite('the report in chromium', () => {
       if (b !== null) await page.mouse.move(b.x + b.width / 2, b.y + b.height / 2);
     }
     const dom = await page.evaluate(() => ({
+      // The checks below are about the rendered text a reader sees; textContent would also hold script bodies.
+      // biome-ignore lint/performance/useDomNodeTextContent: innerText is the rendered text, which is what is checked
       text: document.body.innerText,
       // The page's own text, charts left out (chart labels are drawn by Vega from the specs).
       pageText: (() => {
         const copy = document.body.cloneNode(true) as HTMLElement;
-        copy.querySelectorAll('.chart-view, script').forEach((e) => e.remove());
+        for (const e of copy.querySelectorAll('.chart-view, script')) e.remove();
         return copy.textContent ?? '';
       })(),
       images: document.querySelectorAll('img').length,

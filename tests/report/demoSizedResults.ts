@@ -250,7 +250,8 @@ export function demoSizedResults(): Results {
         lastStep: diverged ? 1400 : 2000,
         divergedAt: diverged ? 1400 : null,
         problems: [
-          'cells treated as missing: val_loss 180 (180 empty); val_acc 180 (180 empty); val_acc@* 1440 (1440 empty); certainty@* 1440 (1440 empty)',
+          'cells treated as missing: val_loss 180 (180 empty); val_acc 180 (180 empty); val_acc@* 1440 ' +
+            '(1440 empty); certainty@* 1440 (1440 empty)',
         ],
       };
     }),

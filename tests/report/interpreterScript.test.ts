@@ -16,7 +16,10 @@ const MODULE = readFileSync(
   'utf8',
 );
 
-/** Run the script as a page would, with `vega`, `window` and the timer functions a browser has; return what it put on window. */
+/**
+ * Run the script as a page would, with `vega`, `window` and the timer functions a browser has; return what it
+ * put on window.
+ */
 function load(script: string, vegaGlobal: unknown): Record<string, unknown> {
   const window: Record<string, unknown> = {};
   runInNewContext(script, { vega: vegaGlobal, window, setTimeout, setInterval });

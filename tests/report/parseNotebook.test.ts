@@ -45,7 +45,8 @@ describe('parseNotebook', () => {
 
   it('returns option names in camelCase with values as written, for the command line to merge and check', () => {
     const nb = parseNotebook(
-      '---\nalpha: 0.01\nseed: 7\npaired: true\ncorrection: bh\ntask-key: task\nfail-on: worse\nsummary: last:10%\nby: [model, task]\nruns: [a, b]\nhalting-thresholds: [0.5, 0.9]\n---\nx',
+      '---\nalpha: 0.01\nseed: 7\npaired: true\ncorrection: bh\ntask-key: task\nfail-on: worse\nsummary: ' +
+        'last:10%\nby: [model, task]\nruns: [a, b]\nhalting-thresholds: [0.5, 0.9]\n---\nx',
       'n.md',
     );
     expect(nb.options).toEqual({

@@ -40,7 +40,8 @@ describe('renderReport', () => {
       (s) => `'sha256-${createHash('sha256').update(s, 'utf8').digest('base64')}'`,
     );
     expect(hashes).toHaveLength(3);
-    // Exactly the three hashes: no 'unsafe-eval' (Vega's expressions are interpreted, not compiled), no 'unsafe-inline'.
+    // Exactly the three hashes: no 'unsafe-eval' (Vega's expressions are interpreted, not compiled), no
+    // 'unsafe-inline'.
     expect(directives.get('script-src')).toEqual(hashes);
     expect(csp).not.toContain('unsafe-eval');
   });
@@ -92,37 +93,41 @@ describe('renderReport', () => {
     expect(new Set(ids).size).toBe(ids.length);
   });
 
-  it('draws no invisible hover layer in the SVG but keeps it in the live spec, and rounds chart data to 6 significant digits', () => {
-    const figure =
-      [...html.matchAll(/<figure class="chart" id="chart-\d+">([\s\S]*?)<\/figure>/g)]
-        .map((m) => m[1] ?? '')
-        .find((f) => f.includes('<title>val_acc: learning curves</title>')) ?? '';
-    expect(figure).toContain('learning curves');
-    const svg = /<svg[\s\S]*<\/svg>/.exec(figure)?.[0] ?? '';
-    const json = /<script type="application\/json" class="chart-spec">([\s\S]*?)<\/script>/.exec(figure)?.[1] ?? '';
-    expect(svg).toContain('mean_marks');
-    expect(svg).not.toContain('hover_marks');
-    expect(json).toContain('"name":"hover_marks"');
-    // Every number in every chart's inline data: an integer, or at most 6 significant digits.
-    const numbers: number[] = [];
-    const walk = (node: unknown): void => {
-      if (typeof node === 'number') numbers.push(node);
-      else if (Array.isArray(node)) node.forEach(walk);
-      else if (node !== null && typeof node === 'object') Object.values(node).forEach(walk);
-    };
-    for (const m of html.matchAll(/<script type="application\/json" class="chart-spec">([\s\S]*?)<\/script>/g)) {
-      const spec = JSON.parse(m[1] ?? '{}') as { data?: { values?: unknown }[] };
-      for (const d of spec.data ?? []) walk(d.values);
-    }
-    expect(numbers.length).toBeGreaterThan(1000);
-    expect(numbers.filter((x) => !Number.isInteger(x) && Number(x.toPrecision(6)) !== x)).toEqual([]);
-    // The fixture's data does carry longer numbers (so the check above is not vacuous).
-    expect(
-      sampleResults()
-        .curves.flatMap((c) => c.mean)
-        .some((x) => x !== null && Number(x.toPrecision(6)) !== x),
-    ).toBe(true);
-  });
+  it(
+    'draws no invisible hover layer in the SVG but keeps it in the live spec, and rounds chart data to 6 ' +
+      'significant digits',
+    () => {
+      const figure =
+        [...html.matchAll(/<figure class="chart" id="chart-\d+">([\s\S]*?)<\/figure>/g)]
+          .map((m) => m[1] ?? '')
+          .find((f) => f.includes('<title>val_acc: learning curves</title>')) ?? '';
+      expect(figure).toContain('learning curves');
+      const svg = /<svg[\s\S]*<\/svg>/.exec(figure)?.[0] ?? '';
+      const json = /<script type="application\/json" class="chart-spec">([\s\S]*?)<\/script>/.exec(figure)?.[1] ?? '';
+      expect(svg).toContain('mean_marks');
+      expect(svg).not.toContain('hover_marks');
+      expect(json).toContain('"name":"hover_marks"');
+      // Every number in every chart's inline data: an integer, or at most 6 significant digits.
+      const numbers: number[] = [];
+      const walk = (node: unknown): void => {
+        if (typeof node === 'number') numbers.push(node);
+        else if (Array.isArray(node)) node.forEach(walk);
+        else if (node !== null && typeof node === 'object') Object.values(node).forEach(walk);
+      };
+      for (const m of html.matchAll(/<script type="application\/json" class="chart-spec">([\s\S]*?)<\/script>/g)) {
+        const spec = JSON.parse(m[1] ?? '{}') as { data?: { values?: unknown }[] };
+        for (const d of spec.data ?? []) walk(d.values);
+      }
+      expect(numbers.length).toBeGreaterThan(1000);
+      expect(numbers.filter((x) => !Number.isInteger(x) && Number(x.toPrecision(6)) !== x)).toEqual([]);
+      // The fixture's data does carry longer numbers (so the check above is not vacuous).
+      expect(
+        sampleResults()
+          .curves.flatMap((c) => c.mean)
+          .some((x) => x !== null && Number(x.toPrecision(6)) !== x),
+      ).toBe(true);
+    },
+  );
 
   it('says how to toggle configs beside the charts whose legend does it, and only there', () => {
     const figures = [...html.matchAll(/<figure class="chart" id="chart-\d+">([\s\S]*?)<\/figure>/g)].map(
@@ -130,7 +135,8 @@ describe('renderReport', () => {
     );
     const titled = (title: string): string => figures.find((f) => f.includes(`<title>${title}</title>`)) ?? '';
     const hint =
-      '<p class="chart-hint">Click a config in the legend to show it alone; shift-click to add or remove one; double-click the plot to show all.</p>';
+      '<p class="chart-hint">Click a config in the legend to show it alone; shift-click to add or remove ' +
+      'one; double-click the plot to show all.</p>';
     for (const title of [
       'val_acc: learning curves',
       'tick_acc by internal tick',
@@ -139,33 +145,37 @@ describe('renderReport', () => {
     ])
       expect(titled(title)).toContain(hint);
     expect(titled('val_acc: one value per seed (final)')).not.toContain('chart-hint');
-    expect(figures.filter((f) => f.includes('chart-hint'))).toHaveLength(5); // two metrics' curves, ticks, halting, calibration
+    // Two metrics' curves, ticks, halting, calibration.
+    expect(figures.filter((f) => f.includes('chart-hint'))).toHaveLength(5);
     expect(html).toMatch(/\.chart-hint \{ display: none;/);
   });
 
-  it('puts the overview first (the answer before any chart), with a table of contents and the date of the results', () => {
-    const main = html.slice(html.indexOf('<main'));
-    expect(main.indexOf('<div class="overview-cell">')).toBeGreaterThan(0);
-    expect(main.indexOf('<div class="overview-cell">')).toBeLessThan(main.indexOf('<figure'));
-    expect(main.indexOf('<div class="overview-cell">')).toBeLessThan(main.indexOf('<table class="verdicts">'));
-    expect(html).toContain('<p class="kicker">seedsift report · 1 March 2026, 12:00 UTC</p>');
-    const toc = /<nav class="toc"[\s\S]*?<\/nav>/.exec(html)?.[0] ?? '';
-    for (const entry of [
-      'Overview',
-      'All verdicts',
-      'val_acc',
-      'train_loss',
-      'Ticks',
-      'Halting',
-      'Calibration',
-      'Runs',
-      'Problems',
-      'Methods',
-    ]) {
-      expect(toc).toContain(`>${entry}</a>`);
-    }
-    for (const [, id] of toc.matchAll(/href="#([^"]+)"/g)) expect(html).toContain(`id="${id}"`);
-  });
+  it(
+    'puts the overview first (the answer before any chart), with a table of contents and the date of the ' + 'results',
+    () => {
+      const main = html.slice(html.indexOf('<main'));
+      expect(main.indexOf('<div class="overview-cell">')).toBeGreaterThan(0);
+      expect(main.indexOf('<div class="overview-cell">')).toBeLessThan(main.indexOf('<figure'));
+      expect(main.indexOf('<div class="overview-cell">')).toBeLessThan(main.indexOf('<table class="verdicts">'));
+      expect(html).toContain('<p class="kicker">seedsift report · 1 March 2026, 12:00 UTC</p>');
+      const toc = /<nav class="toc"[\s\S]*?<\/nav>/.exec(html)?.[0] ?? '';
+      for (const entry of [
+        'Overview',
+        'All verdicts',
+        'val_acc',
+        'train_loss',
+        'Ticks',
+        'Halting',
+        'Calibration',
+        'Runs',
+        'Problems',
+        'Methods',
+      ]) {
+        expect(toc).toContain(`>${entry}</a>`);
+      }
+      for (const [, id] of toc.matchAll(/href="#([^"]+)"/g)) expect(html).toContain(`id="${id}"`);
+    },
+  );
 
   it('prints: print styles hide the contents column', () => {
     expect(html).toMatch(/@media print \{[\s\S]*\.toc[^}]*display: none/);

@@ -89,14 +89,16 @@ suite('the report at study scale', () => {
     it(`${label}: sizes within bounds`, () => {
       const w = written[name] as Written;
       console.info(
-        `${label}: report.html ${w.htmlBytes} bytes, summary.md ${w.markdown.length} characters, results.json ${w.jsonBytes} bytes`,
+        `${label}: report.html ${w.htmlBytes} bytes, summary.md ${w.markdown.length} characters, ` +
+          `results.json ${w.jsonBytes} bytes`,
       );
       expect(w.htmlBytes).toBeLessThanOrEqual(5_000_000);
       expect(w.markdown.length).toBeLessThanOrEqual(60_000);
       expect(w.jsonBytes).toBeLessThanOrEqual(20_000_000);
     });
 
-    it(`${label}: the overview on the first screen, the page short when folded and never wider than the window`, async () => {
+    it(`${label}: the overview on the first screen, the page short when folded and never wider than the ` +
+      `window`, async () => {
       const w = written[name] as Written;
       const context = await browser.newContext({ viewport: VIEWPORT });
       const page = await context.newPage();

@@ -88,7 +88,9 @@ function rows(
 
 /** The family a comparison was adjusted in: `family: 6 comparisons over all tasks`. */
 export function familyWords(c: Comparison): string {
-  return `family: ${c.family.size} comparison${c.family.size === 1 ? '' : 's'}${c.family.scope === 'study' ? (c.task === null ? '' : ' over all tasks') : ' of this task'}`;
+  const plural = c.family.size === 1 ? '' : 's';
+  const scope = c.family.scope === 'study' ? (c.task === null ? '' : ' over all tasks') : ' of this task';
+  return `family: ${c.family.size} comparison${plural}${scope}`;
 }
 
 export const verdicts: Cell = {
@@ -113,7 +115,9 @@ export const verdicts: Cell = {
       'Candidate and verdict',
       'Step',
       {
-        html: `${textHtml(t.interval === null ? 'Difference [interval]' : `Difference [${t.interval}]`)}<br>${textHtml('unadjusted')}`,
+        html:
+          textHtml(t.interval === null ? 'Difference [interval]' : `Difference [${t.interval}]`) +
+          `<br>${textHtml('unadjusted')}`,
       },
       CORRECTION_HEAD[r.settings.correction],
       'Seeds',
@@ -126,7 +130,12 @@ export const verdicts: Cell = {
       numeric: [2 + offset, 3 + offset, 4 + offset],
       rowClasses: t.classes,
     });
-    const lead = `Candidate minus baseline on per-run values, each comparison at its own step; verdict at alpha ${r.settings.alpha} on the adjusted p of the test named under it. The interval is unadjusted (${formatLevel(r.settings.level)}): the verdict, not the interval, accounts for the family.`;
-    return `<div class="verdicts-cell">${noteHtml(lead, 'lead')}${table}${t.cautions}${noteHtml(standardCaution(r.settings.alpha), 'caution')}</div>`;
+    const lead =
+      'Candidate minus baseline on per-run values, each comparison at its own step; ' +
+      `verdict at alpha ${r.settings.alpha} on the adjusted p of the test named under it. ` +
+      `The interval is unadjusted (${formatLevel(r.settings.level)}): ` +
+      'the verdict, not the interval, accounts for the family.';
+    const caution = noteHtml(standardCaution(r.settings.alpha), 'caution');
+    return `<div class="verdicts-cell">${noteHtml(lead, 'lead')}${table}${t.cautions}${caution}</div>`;
   },
 };

@@ -11,7 +11,8 @@ describe('{{calibration}}', () => {
       'Which noise: the band is the 95% interval across seeds (the spread between training runs).',
     );
     expect(text).toContain(
-      "The reliability diagrams below pool every seed's samples, so their whiskers show only the between-example noise of each bin.",
+      "The reliability diagrams below pool every seed's samples, so their whiskers show only the " +
+        'between-example noise of each bin.',
     );
     expect(html).toContain('<th scope="col" class="num">ECE last tick [95% across seeds]</th>');
     // One ECE chart and one reliability diagram per config.

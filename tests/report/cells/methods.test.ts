@@ -13,7 +13,8 @@ describe('{{methods}}', () => {
       'exact permutation test',
       'Mann-Whitney U test',
       'Holm (1979) correction',
-      'The interval of a difference is the Welch t-interval at every number of seeds, at 95% (1 - alpha). It is unadjusted',
+      'The interval of a difference is the Welch t-interval at every number of seeds, at 95% (1 - alpha). ' +
+        'It is unadjusted',
       'simultaneous (Bonferroni, 1 - alpha/m for a family of m) bounds',
       'From 10 runs per arm the BCa bootstrap interval (10000 resamples) is shown beside',
       'across the comparisons of one metric and one summary over all tasks',

@@ -12,7 +12,8 @@ describe('{{runs}}', () => {
     expect(textOf(html)).toContain('17 runs in 3 configs (16 ok, 1 diverged); 17 of 18 files read.');
     const diverged = /<tr class="status-diverged">([\s\S]*?)<\/tr>/.exec(html)?.[1] ?? '';
     expect(textOf(diverged)).toBe(
-      'memory=12 5 diverged 5500 6000 runs/memory=12/seed=5/log.csv train_loss went non-finite at step 6000 and stayed so',
+      'memory=12 5 diverged 5500 6000 runs/memory=12/seed=5/log.csv train_loss went non-finite at step 6000 ' +
+        'and stayed so',
     );
   });
 

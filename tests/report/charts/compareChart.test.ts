@@ -21,26 +21,29 @@ describe('compareChart', () => {
     expect(compareChart(results, metric, 'final')).toBeNull();
   });
 
-  it('draws every estimate in its verdict colour, intervals only where they exist, and the verdict as words', async () => {
-    const svg = await render(results);
-    const points = markItems(svg, 'estimate');
-    expect(points.map((p) => attr(p, 'fill'))).toEqual([
-      VERDICT_COLOURS.better,
-      VERDICT_COLOURS.worse,
-      VERDICT_COLOURS.inconclusive,
-    ]);
-    const intervals = markItems(svg, 'interval');
-    expect(intervals).toHaveLength(2); // the third comparison has no interval
-    expect(intervals.every(drawn)).toBe(true);
-    expect(markItems(svg, 'verdict').map((t) => /> *([^<]*)<\/text>$/.exec(t)?.[1])).toEqual([
-      'better',
-      'worse',
-      'inconclusive',
-    ]);
-    // The legend names all three verdicts.
-    const legend = svg.match(/role-legend-label[^]*?<\/g>/g)?.join('') ?? '';
-    for (const v of ['better', 'worse', 'inconclusive']) expect(legend).toContain(`>${v}</text>`);
-  });
+  it(
+    'draws every estimate in its verdict colour, intervals only where they exist, and the verdict as ' + 'words',
+    async () => {
+      const svg = await render(results);
+      const points = markItems(svg, 'estimate');
+      expect(points.map((p) => attr(p, 'fill'))).toEqual([
+        VERDICT_COLOURS.better,
+        VERDICT_COLOURS.worse,
+        VERDICT_COLOURS.inconclusive,
+      ]);
+      const intervals = markItems(svg, 'interval');
+      expect(intervals).toHaveLength(2); // the third comparison has no interval
+      expect(intervals.every(drawn)).toBe(true);
+      expect(markItems(svg, 'verdict').map((t) => /> *([^<]*)<\/text>$/.exec(t)?.[1])).toEqual([
+        'better',
+        'worse',
+        'inconclusive',
+      ]);
+      // The legend names all three verdicts.
+      const legend = svg.match(/role-legend-label[\s\S]*?<\/g>/g)?.join('') ?? '';
+      for (const v of ['better', 'worse', 'inconclusive']) expect(legend).toContain(`>${v}</text>`);
+    },
+  );
 
   it('draws the zero rule, and the margin on the worse side of it: left for goal max, right for goal min', async () => {
     const svg = await render(results);

@@ -8,6 +8,7 @@ import type { Curve, Results } from '../../../src/analysis/results.js';
 import { curvesChart, SEED_LINE_POINTS, SEED_POINTS } from '../../../src/report/charts/curvesChart.js';
 import { CONFIG_COLOURS } from '../../../src/report/palette.js';
 import { compileVega, renderSvg, renderSvgWithWarnings } from '../../../src/report/renderSvg.js';
+import { at } from '../../support/at.js';
 import { DEFAULT_NAMES, makeResults } from '../fixtures.js';
 import { attr, drawn, markItems, subpaths, vegaMark } from './svgInspect.js';
 
@@ -70,7 +71,7 @@ describe('curvesChart', () => {
         layer: { name?: string; data?: { values: Record<string, unknown>[] } }[];
       };
       const seeds = spec.layer.find((l) => l.name === 'seeds')?.data?.values ?? [];
-      return { points: (seeds[0]?.step as number[]).length, subtitle: spec.title.subtitle.join(' ') };
+      return { points: (at(seeds, 0).step as number[]).length, subtitle: spec.title.subtitle.join(' ') };
     };
     expect(lineOf(SEED_LINE_POINTS)).toEqual({
       points: SEED_LINE_POINTS,
@@ -106,10 +107,10 @@ describe('curvesChart', () => {
     expect(points).toBe(300 * Math.ceil(bins / 5)); // 300 x 400 points over 24,000: one point per 5 bins
     expect(spec.title.subtitle.join(' ')).toContain('one point per 5 bins');
     // First seed line, first group: steps 0..40 and values (0..4)/400 averaged.
-    expect((seeds[0]?.step as number[])[0]).toBe(20);
-    expect((seeds[0]?.value as number[])[0]).toBeCloseTo(2 / bins, 15);
+    expect((at(seeds, 0).step as number[])[0]).toBe(20);
+    expect((at(seeds, 0).value as number[])[0]).toBeCloseTo(2 / bins, 15);
     const mean = spec.layer.find((l) => l.name === 'mean')?.data?.values ?? [];
-    expect((mean[0]?.step as number[]).length).toBe(bins);
+    expect((at(mean, 0).step as number[]).length).toBe(bins);
   });
 
   it('draws a thin line per seed and a band and mean line per config, each config in its report colour', async () => {
@@ -160,25 +161,28 @@ describe('curvesChart', () => {
     expect(markItems(svg, 'mean').every(drawn)).toBe(true);
   });
 
-  it('stores each run and each config once, with per-step arrays, and draws one hover point per step with a mean', async () => {
-    const spec = curvesChart(results, 'val_acc') as TopLevelSpec & {
-      layer: { name?: string; data?: { values: Record<string, unknown>[] } }[];
-    };
-    const seeds = spec.layer.find((l) => l.name === 'seeds')?.data?.values ?? [];
-    expect(seeds).toHaveLength(9);
-    expect(Object.keys(seeds[0] ?? {}).sort()).toEqual(['config', 'run', 'seed', 'step', 'value']);
-    expect(seeds[0]).toMatchObject({ config: c0, run: `${c0},seed=1`, seed: '1', step: [0, 100, 200, 300, 400] });
-    // The fixture's first seed of the first config: its base curve 0.3, 0.5, 0.62, 0.7, 0.74 minus 0.01.
-    ((seeds[0]?.value ?? []) as number[]).forEach((v, i) =>
-      expect(v).toBeCloseTo([0.29, 0.49, 0.61, 0.69, 0.73][i] ?? NaN, 12),
-    );
-    // The fixture has 3 configs x 5 steps, one mean null (config index 2 at step 200): 14 hover points.
-    const svg = await renderSvg(spec);
-    expect(markItems(svg, 'hover')).toHaveLength(14);
-    expect(
-      markItems(svg, 'hover').filter((el) => (attr(el, 'aria-label') ?? '').includes(`config: ${c2}`)),
-    ).toHaveLength(4);
-  });
+  it(
+    'stores each run and each config once, with per-step arrays, and draws one hover point per step with a ' + 'mean',
+    async () => {
+      const spec = curvesChart(results, 'val_acc') as TopLevelSpec & {
+        layer: { name?: string; data?: { values: Record<string, unknown>[] } }[];
+      };
+      const seeds = spec.layer.find((l) => l.name === 'seeds')?.data?.values ?? [];
+      expect(seeds).toHaveLength(9);
+      expect(Object.keys(seeds[0] ?? {}).sort()).toEqual(['config', 'run', 'seed', 'step', 'value']);
+      expect(seeds[0]).toMatchObject({ config: c0, run: `${c0},seed=1`, seed: '1', step: [0, 100, 200, 300, 400] });
+      // The fixture's first seed of the first config: its base curve 0.3, 0.5, 0.62, 0.7, 0.74 minus 0.01.
+      for (const [i, v] of ((seeds[0]?.value ?? []) as number[]).entries()) {
+        expect(v).toBeCloseTo([0.29, 0.49, 0.61, 0.69, 0.73][i] ?? NaN, 12);
+      }
+      // The fixture has 3 configs x 5 steps, one mean null (config index 2 at step 200): 14 hover points.
+      const svg = await renderSvg(spec);
+      expect(markItems(svg, 'hover')).toHaveLength(14);
+      expect(
+        markItems(svg, 'hover').filter((el) => (attr(el, 'aria-label') ?? '').includes(`config: ${c2}`)),
+      ).toHaveLength(4);
+    },
+  );
 
   it("marks the step of the metric's comparisons (when they share one) with a dashed rule and says so", async () => {
     const spec = curvesChart(results, 'val_acc') as TopLevelSpec & { title: { subtitle: string[] } };

@@ -32,6 +32,6 @@ describe('exitHistogramChart', () => {
     expect(bars.every((b) => attr(b, 'fill') === CONFIG_COLOURS[1])).toBe(true);
     const heights = bars.map((b) => Number(/v(-?[\d.]+)/.exec(attr(b, 'd') ?? '')?.[1]));
     const counts = [120, 260, 150, 70]; // fixture
-    heights.forEach((h, i) => expect(h / (heights[1] ?? 1)).toBeCloseTo((counts[i] ?? 0) / 260, 2));
+    for (const [i, h] of heights.entries()) expect(h / (heights[1] ?? 1)).toBeCloseTo((counts[i] ?? 0) / 260, 2);
   });
 });

@@ -84,24 +84,28 @@ describe('pickedOpacity, layerOpacity, withLegendToggle', () => {
 
 for (const [name, spec] of CHARTS) {
   describe(`${name} with legend toggling`, () => {
-    it('binds a point selection on config to the legend, and conditions the opacity of every config layer on it', () => {
-      expect(spec).not.toBeNull();
-      const vega = compileVega(spec as TopLevelSpec) as {
-        signals?: { name: string }[];
-        legends?: { encode?: { symbols?: { name?: string } } }[];
-      };
-      // Vega-Lite's compiler makes the legend's symbols the event source of the selection.
-      expect((vega.signals ?? []).map((s) => s.name)).toContain(`${PICKED_CONFIGS}_config_legend`);
-      expect(JSON.stringify(vega.legends)).toContain('config_legend_symbols');
-      const layers = (
-        spec as { layer: { encoding?: { color?: { field?: string }; opacity?: unknown }; mark: unknown }[] }
-      ).layer;
-      const configLayers = layers.filter(
-        (l) => l.encoding?.color?.field === 'config' && (l.mark as { opacity?: number }).opacity !== 0,
-      );
-      expect(configLayers.length).toBeGreaterThan(1);
-      for (const l of configLayers) expect(l.encoding?.opacity).toMatchObject({ condition: { param: PICKED_CONFIGS } });
-    });
+    it(
+      'binds a point selection on config to the legend, and conditions the opacity of every config layer ' + 'on it',
+      () => {
+        expect(spec).not.toBeNull();
+        const vega = compileVega(spec as TopLevelSpec) as {
+          signals?: { name: string }[];
+          legends?: { encode?: { symbols?: { name?: string } } }[];
+        };
+        // Vega-Lite's compiler makes the legend's symbols the event source of the selection.
+        expect((vega.signals ?? []).map((s) => s.name)).toContain(`${PICKED_CONFIGS}_config_legend`);
+        expect(JSON.stringify(vega.legends)).toContain('config_legend_symbols');
+        const layers = (
+          spec as { layer: { encoding?: { color?: { field?: string }; opacity?: unknown }; mark: unknown }[] }
+        ).layer;
+        const configLayers = layers.filter(
+          (l) => l.encoding?.color?.field === 'config' && (l.mark as { opacity?: number }).opacity !== 0,
+        );
+        expect(configLayers.length).toBeGreaterThan(1);
+        for (const l of configLayers)
+          expect(l.encoding?.opacity).toMatchObject({ condition: { param: PICKED_CONFIGS } });
+      },
+    );
 
     it('draws the same SVG as without the selection (nothing is picked on a page without JavaScript)', async () => {
       const withIt = look(await renderSvg(spec as TopLevelSpec));

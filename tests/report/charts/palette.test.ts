@@ -16,6 +16,7 @@ import {
   VERDICT_COLOURS,
   VERDICT_SHAPES,
 } from '../../../src/report/palette.js';
+import { at } from '../../support/at.js';
 import { DEFAULT_NAMES, makeResults } from '../fixtures.js';
 
 const rgb = (hex: string): number[] => [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16));
@@ -58,11 +59,11 @@ describe('palette', () => {
 
   it('gives 12 configs 12 colours; from 13 on, only the baseline and decided candidates keep one', () => {
     const base = makeResults();
-    const configs = (n: number) => Array.from({ length: n }, (_, i) => ({ ...base.configs[0]!, id: `c${i}` }));
+    const configs = (n: number) => Array.from({ length: n }, (_, i) => ({ ...at(base.configs, 0), id: `c${i}` }));
     const twelve = { ...base, configs: configs(12), comparisons: [] };
     expect(new Set(Array.from({ length: 12 }, (_, i) => configColour(twelve, `c${i}`))).size).toBe(12);
     expect(configColour(twelve, 'c8')).toBe(TOL_MUTED.indigo);
-    const template = base.comparisons[0]!;
+    const template = at(base.comparisons, 0);
     const comparisons = [
       { ...template, baseline: 'c0', candidate: 'c5', verdict: 'inconclusive' as const, pAdjusted: 0.5 },
       { ...template, baseline: 'c0', candidate: 'c7', verdict: 'worse' as const, pAdjusted: 0.01 },
@@ -80,7 +81,7 @@ describe('palette', () => {
   it('gives a method one colour on every task (task key)', () => {
     const base = makeResults();
     const cfg = (task: string, method: string) => ({
-      ...base.configs[0]!,
+      ...at(base.configs, 0),
       id: `task=${task},method=${method}`,
       params: { task, method },
     });

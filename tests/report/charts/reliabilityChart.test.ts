@@ -49,7 +49,8 @@ describe('reliabilityChart between-example whiskers', () => {
   it('draws ±1 binomial standard error √(a(1−a)/n) per bin and says that seeds are pooled', async () => {
     const spec = reliabilityChart(results, config) as TopLevelSpec & { title: { subtitle: string[] } };
     expect(spec.title.subtitle.join(' ')).toContain(
-      'Whiskers: ±1 between-example standard error √(a(1−a)/n) of each bin; seeds are pooled, so seed-to-seed spread is not shown.',
+      'Whiskers: ±1 between-example standard error √(a(1−a)/n) of each bin; seeds are pooled, so ' +
+        'seed-to-seed spread is not shown.',
     );
     const whiskers = markItems(await renderSvg(spec), 'exampleSpread');
     expect(whiskers).toHaveLength(4);

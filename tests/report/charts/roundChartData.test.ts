@@ -34,32 +34,36 @@ describe('roundNumber', () => {
 });
 
 describe('roundChartData', () => {
-  it('rounds numbers inside inline data (rows and arrays, at any depth) and datasets, nothing else, without changing the input', () => {
-    const spec = deepFreeze({
-      width: 520.123456789,
-      datasets: { a: [{ v: 1 / 3 }] },
-      layer: [
-        {
-          data: { values: [{ x: 2 / 3, s: 'kept 0.123456789', n: null, list: [1 / 7, null, 5] }] },
-          mark: 'point',
-          encoding: { x: { field: 'x', type: 'quantitative', scale: { domain: [-1.6666666666, 1.6666666666] } } },
-        },
-      ],
-    }) as unknown as TopLevelSpec;
-    const out = roundChartData(spec) as unknown as {
-      width: number;
-      datasets: { a: { v: number }[] };
-      layer: { data: { values: Record<string, unknown>[] }; encoding: { x: { scale: { domain: number[] } } } }[];
-    };
-    expect(out.datasets.a[0]?.v).toBe(0.333333);
-    expect(out.layer[0]?.data.values[0]).toEqual({
-      x: 0.666667,
-      s: 'kept 0.123456789',
-      n: null,
-      list: [0.142857, null, 5],
-    });
-    // Spec numbers are not data: the width and scale domain stay as given.
-    expect(out.width).toBe(520.123456789);
-    expect(out.layer[0]?.encoding.x.scale.domain).toEqual([-1.6666666666, 1.6666666666]);
-  });
+  it(
+    'rounds numbers inside inline data (rows and arrays, at any depth) and datasets, nothing else, without ' +
+      'changing the input',
+    () => {
+      const spec = deepFreeze({
+        width: 520.123456789,
+        datasets: { a: [{ v: 1 / 3 }] },
+        layer: [
+          {
+            data: { values: [{ x: 2 / 3, s: 'kept 0.123456789', n: null, list: [1 / 7, null, 5] }] },
+            mark: 'point',
+            encoding: { x: { field: 'x', type: 'quantitative', scale: { domain: [-1.6666666666, 1.6666666666] } } },
+          },
+        ],
+      }) as unknown as TopLevelSpec;
+      const out = roundChartData(spec) as unknown as {
+        width: number;
+        datasets: { a: { v: number }[] };
+        layer: { data: { values: Record<string, unknown>[] }; encoding: { x: { scale: { domain: number[] } } } }[];
+      };
+      expect(out.datasets.a[0]?.v).toBe(0.333333);
+      expect(out.layer[0]?.data.values[0]).toEqual({
+        x: 0.666667,
+        s: 'kept 0.123456789',
+        n: null,
+        list: [0.142857, null, 5],
+      });
+      // Spec numbers are not data: the width and scale domain stay as given.
+      expect(out.width).toBe(520.123456789);
+      expect(out.layer[0]?.encoding.x.scale.domain).toEqual([-1.6666666666, 1.6666666666]);
+    },
+  );
 });

@@ -52,7 +52,7 @@ export function fieldNames(spec: unknown): string[] {
   const out: string[] = [];
   const walk = (node: unknown, key: string): void => {
     if (key === 'values') return; // inline data rows: their keys are checked separately
-    if (Array.isArray(node)) node.forEach((n) => walk(n, ''));
+    if (Array.isArray(node)) for (const n of node) walk(n, '');
     else if (node !== null && typeof node === 'object') {
       for (const [k, v] of Object.entries(node)) {
         if (k === 'field' && typeof v === 'string') out.push(v);
@@ -73,7 +73,7 @@ export function dataKeys(spec: unknown): string[] {
       for (const [k, v] of Object.entries(node)) {
         if (k === 'values' && Array.isArray(v)) {
           for (const row of v)
-            if (row !== null && typeof row === 'object') Object.keys(row).forEach((key) => out.add(key));
+            if (row !== null && typeof row === 'object') for (const key of Object.keys(row)) out.add(key);
         } else walk(v);
       }
     }

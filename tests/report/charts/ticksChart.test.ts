@@ -46,17 +46,21 @@ describe('ticksChart', () => {
     expect(ticksChart(results, DEFAULT_NAMES.metric)).toBeNull();
   });
 
-  it('draws a band, a line and a point per tick for every config, whiskers where m is known, and the earliest good tick', async () => {
-    const svg = await renderSvg(ticksChart(results, metric) as TopLevelSpec);
-    expect(markItems(svg, 'band').filter(drawn)).toHaveLength(3);
-    expect(markItems(svg, 'mean').filter(drawn)).toHaveLength(3);
-    expect(markItems(svg, 'points')).toHaveLength(12);
-    expect(markItems(svg, 'exampleSpread').filter(drawn)).toHaveLength(4); // only configs[1] has exampleHalfWidth
-    expect(markItems(svg, 'earliest').filter(drawn)).toHaveLength(3);
-    expect(subtitle(results)).toContain('95% t-interval across seeds');
-    expect(subtitle(results)).toContain('between-example');
-    expect(subtitle(results)).toContain('at step 400');
-  });
+  it(
+    'draws a band, a line and a point per tick for every config, whiskers where m is known, and the ' +
+      'earliest good tick',
+    async () => {
+      const svg = await renderSvg(ticksChart(results, metric) as TopLevelSpec);
+      expect(markItems(svg, 'band').filter(drawn)).toHaveLength(3);
+      expect(markItems(svg, 'mean').filter(drawn)).toHaveLength(3);
+      expect(markItems(svg, 'points')).toHaveLength(12);
+      expect(markItems(svg, 'exampleSpread').filter(drawn)).toHaveLength(4); // only configs[1] has exampleHalfWidth
+      expect(markItems(svg, 'earliest').filter(drawn)).toHaveLength(3);
+      expect(subtitle(results)).toContain('95% t-interval across seeds');
+      expect(subtitle(results)).toContain('between-example');
+      expect(subtitle(results)).toContain('at step 400');
+    },
+  );
 
   it('breaks the line at a null mean and leaves out whiskers when no curve has them', async () => {
     const holed: Results = {

@@ -24,17 +24,21 @@ describe('valuesChart', () => {
     expect(valuesChart(empty, metric, summary)).toBeNull();
   });
 
-  it('draws each run with a value once: filled if used in tests, hollow if not; runs without a value are counted, not drawn', async () => {
-    const spec = valuesChart(results, metric, summary) as Layered;
-    const svg = await renderSvg(spec);
-    // Fixture: 9 runs, one diverged (no value), one with a value not used in tests.
-    expect(markItems(svg, 'used')).toHaveLength(7);
-    const unused = markItems(svg, 'unused');
-    expect(unused).toHaveLength(1);
-    expect(attr(unused[0] ?? '', 'stroke')).toBe(CONFIG_COLOURS[2]);
-    expect(attr(unused[0] ?? '', 'fill')).not.toBe(CONFIG_COLOURS[2]);
-    expect(spec.title.subtitle.join(' ')).toContain('1 run has no value');
-  });
+  it(
+    'draws each run with a value once: filled if used in tests, hollow if not; runs without a value are ' +
+      'counted, not drawn',
+    async () => {
+      const spec = valuesChart(results, metric, summary) as Layered;
+      const svg = await renderSvg(spec);
+      // Fixture: 9 runs, one diverged (no value), one with a value not used in tests.
+      expect(markItems(svg, 'used')).toHaveLength(7);
+      const unused = markItems(svg, 'unused');
+      expect(unused).toHaveLength(1);
+      expect(attr(unused[0] ?? '', 'stroke')).toBe(CONFIG_COLOURS[2]);
+      expect(attr(unused[0] ?? '', 'fill')).not.toBe(CONFIG_COLOURS[2]);
+      expect(spec.title.subtitle.join(' ')).toContain('1 run has no value');
+    },
+  );
 
   it('takes the mean and its interval from Results.configValues, computing nothing', async () => {
     const spec = valuesChart(results, metric, summary) as Layered;
