@@ -68,6 +68,25 @@ function frame(
   };
 }
 
+/** The top of a panel chart: schema, description, title and config, in that order. */
+function head(f: ReturnType<typeof frame>) {
+  return { $schema: f.$schema, description: f.description, title: f.title, config: f.config };
+}
+
+/** One panel per task, in `tasks` order, wrapped at `COLUMNS` panels a row. */
+function byTask(tasks: readonly string[]) {
+  return {
+    facet: {
+      field: 'task',
+      type: 'nominal',
+      title: null,
+      sort: tasks,
+      header: { labelFontSize: 10.5, labelPadding: 2 },
+    },
+    columns: COLUMNS,
+  } as const;
+}
+
 /**
  * Learning curves of `metric`, one panel per task; null without a task key or curves.
  * Cost O(panels x configs x bins). Never throws.
@@ -111,20 +130,10 @@ export function taskCurvesChart(results: Results, metric: string): TopLevelSpec 
       axis: { tickCount: 3, format: '~g' },
     }) as const;
   return {
-    $schema: f.$schema,
-    description: f.description,
-    title: f.title,
-    config: f.config,
+    ...head(f),
     data: { values: rows },
     transform: [{ flatten: ['step', 'mean', 'low', 'high'] }],
-    facet: {
-      field: 'task',
-      type: 'nominal',
-      title: null,
-      sort: tasks,
-      header: { labelFontSize: 10.5, labelPadding: 2 },
-    },
-    columns: COLUMNS,
+    ...byTask(tasks),
     spec: {
       width: 150,
       height: 80,
@@ -202,19 +211,9 @@ export function taskValuesChart(results: Results, metric: string, summary: strin
   } as const;
   const y = { field: 'group', type: 'nominal', title: null, sort: groups, axis: null } as const;
   return {
-    $schema: f.$schema,
-    description: f.description,
-    title: f.title,
-    config: f.config,
+    ...head(f),
     data: { values: [...dots, ...means] },
-    facet: {
-      field: 'task',
-      type: 'nominal',
-      title: null,
-      sort: tasks,
-      header: { labelFontSize: 10.5, labelPadding: 2 },
-    },
-    columns: COLUMNS,
+    ...byTask(tasks),
     spec: {
       width: 150,
       height: { step: 11 },
