@@ -54,7 +54,7 @@ describe('sampleSkewness', () => {
 
 describe('pooledSkewness', () => {
   it(
-    'centres each arm and matches scipy.stats.skew on the pooled values, with the normal-theory standard ' + 'error',
+    'centres each arm and matches scipy.stats.skew on the ' + 'pooled values, with the normal-theory standard error',
     () => {
       // scipy 1.10.1 (Debian): b=[1,2,3], c=[1,1.1,1.2,1.3,1.4,9]; r = concat(b-b.mean(), c-c.mean());
       // stats.skew(r) = 2.058442550919847; 2*sqrt(6n(n-1)/((n-2)(n+1)(n+3))) at n=9 = 1.4342743312012722

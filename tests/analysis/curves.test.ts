@@ -51,7 +51,7 @@ describe('learningCurves', () => {
   });
 
   it(
-    'band: t-interval of the mean at every n by default (scipy t.interval); BCa from 4 runs under --interval ' + 'bca',
+    'band: t-interval of the mean at every n by default ' + '(scipy t.interval); BCa from 4 runs under --interval bca',
     () => {
       const specs: RunSpec[] = [];
       // 4 runs with these values in one bin; scipy 1.10.1 stats.t.interval(0.95, 3, mean, sem) of

@@ -173,7 +173,7 @@ describe('--fail-on: exit 1 when the gate fails, with the reason on stderr', () 
   });
 
   it(
-    'the same table with the goal turned round (--metric acc:min): the drop is better, the rise is ' + 'worse',
+    'the same table with the goal turned round (--metric ' + 'acc:min): the drop is better, the rise is worse',
     async () => {
       const { code, err, results } = await gate('worse', '--metric', 'acc:min');
       expect(Object.fromEntries(results.comparisons.map((c) => [c.candidate, c.verdict]))).toEqual({

@@ -85,7 +85,7 @@ describe('reading options that name nothing stop: exit 2, first line of stderr',
 
 describe('a gate never passes on nothing: exit 3', () => {
   it(
-    'no comparison (one config): exit 3 with the reason; without --fail-on the report is written (exit ' + '0)',
+    'no comparison (one config): exit 3 with the reason; ' + 'without --fail-on the report is written (exit 0)',
     async () => {
       const json = join(dir, 'single.json');
       expect(await firstLine(['report', single, '--fail-on', 'worse', '--json', json, '--quiet'])).toEqual([

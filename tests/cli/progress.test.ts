@@ -38,7 +38,7 @@ describe('progressDisplay', () => {
   });
 
   it(
-    'a report on a terminal goes through every stage in order and ends each at its total, then clears the ' + 'line',
+    'a report on a terminal goes through every stage in ' + 'order and ends each at its total, then clears the line',
     async () => {
       const io = tty({ CI: undefined });
       const dir = mkdtempSync(join(tmpdir(), 'seedsift-progress-'));

@@ -38,7 +38,7 @@ const codes = (r: Results, code: string): string[] => r.problems.filter((p) => p
 
 describe('which columns are metrics', () => {
   it(
-    'sets aside bookkeeping names and counters, lists them with how to include them, and compares the ' + 'rest',
+    'sets aside bookkeeping names and counters, lists ' + 'them with how to include them, and compares the rest',
     async () => {
       const r = await report([bookkeeping]);
       // val_acc (name rule) and bits (no rule, goes up and down) are metrics; the rest are bookkeeping.

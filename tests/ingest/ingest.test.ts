@@ -278,7 +278,7 @@ describe('tick dumps', () => {
   });
 
   it(
-    'probability columns: certainty = 1 - H/ln C (METHODS.md), confidence = max p, correct = argmax == ' + 'label',
+    'probability columns: certainty = 1 - H/ln C (METHODS.md), ' + 'confidence = max p, correct = argmax == label',
     async () => {
       // softmax of logits [2, 1, 0]: p below; certainty 0.24232088933841778 (computed by hand, see tickDump.test.ts)
       const p = [0.6652409557748219, 0.24472847105479764, 0.09003057317038046];

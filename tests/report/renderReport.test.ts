@@ -151,7 +151,7 @@ describe('renderReport', () => {
   });
 
   it(
-    'puts the overview first (the answer before any chart), with a table of contents and the date of the ' + 'results',
+    'puts the overview first (the answer before any chart), ' + 'with a table of contents and the date of the results',
     () => {
       const main = html.slice(html.indexOf('<main'));
       expect(main.indexOf('<div class="overview-cell">')).toBeGreaterThan(0);

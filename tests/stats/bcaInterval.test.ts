@@ -4,7 +4,7 @@ import { jackknifeAcceleration } from '../../src/stats/jackknifeAcceleration.js'
 import { A, expectRelative, idealBootstrapMeans, leaveOneOutMeans, plainMean } from './idealBootstrap.js';
 
 describe(
-  'bcaInterval on the ideal bootstrap of mean(A): all 5^5 = 3125 resamples (METHODS.md, scipy 1.10.1 ' + 'conventions)',
+  'bcaInterval on the ideal bootstrap of mean(A): all 5^5 ' + '= 3125 resamples (METHODS.md, scipy 1.10.1 conventions)',
   () => {
     const stats = idealBootstrapMeans(A);
     const theta = plainMean(A);

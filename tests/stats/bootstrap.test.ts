@@ -47,7 +47,7 @@ describe('bootstrapMean: Monte Carlo paths against a naive recomputation of the 
   });
 
   it(
-    'expanded percentile: tail Phi(sqrt(5/4) t_{.025,4}) = 0.0009541005518824885 (Hesterberg 2015; scipy ' + '1.10.1)',
+    'expanded percentile: tail Phi(sqrt(5/4) t_{.025,4}) = ' + '0.0009541005518824885 (Hesterberg 2015; scipy 1.10.1)',
     () => {
       const tail = normalCdf(Math.sqrt(5 / 4) * tQuantile(0.025, 4), 0, 1);
       expectRelative(tail, 0.0009541005518824885, 1e-9);

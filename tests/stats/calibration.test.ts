@@ -26,7 +26,7 @@ describe('type-I error at 5 seeds per arm, normal vs normal, 4,000 replications'
   });
 
   it(
-    'the exact permutation test has its exact size 12/252: rate <= alpha + 3 MC SE and within 3 MC SE of ' + '12/252',
+    'the exact permutation test has its exact size 12/252: ' + 'rate <= alpha + 3 MC SE and within 3 MC SE of 12/252',
     () => {
       // By hand: with 5 v 5 every split's complement has T* = -T, so the 252 values of |T*| come in 126
       // equal pairs; p <= 0.05 means at most 12 splits as extreme, i.e. the observed |T| is among the 6
@@ -55,7 +55,7 @@ describe('coverage of 95% intervals for a mean on normal data, 4,000 replication
   });
 
   it(
-    'the percentile bootstrap under-covers at n = 5 (about 0.84) and the expanded percentile repairs most of ' + 'it',
+    'the percentile bootstrap under-covers at n = 5 (about ' + '0.84) and the expanded percentile repairs most of it',
     () => {
       const r = coverage('normal', 5, options, ['percentile', 'expanded-percentile']);
       // METHODS.md simulation (20,000 replications, B = 2,000): percentile 0.838, expanded 0.917 at n = 5.

@@ -25,7 +25,7 @@ describe('certainty and confidence', () => {
   });
 
   it(
-    'is 0 for a uniform distribution and 1 for a one-hot one (H ranges over [0, ln C]; Cover & Thomas thm ' + '2.6.4)',
+    'is 0 for a uniform distribution and 1 for a one-hot ' + 'one (H ranges over [0, ln C]; Cover & Thomas thm 2.6.4)',
     () => {
       expect(certainty([0.25, 0.25, 0.25, 0.25])).toBeCloseTo(0, 15);
       expect(certainty([0, 1, 0])).toBe(1);
@@ -35,7 +35,7 @@ describe('certainty and confidence', () => {
   );
 
   it(
-    'is shift-invariant in the logits and stable for large logits (softmax(z + c) = softmax(z), common ' + 'practice)',
+    'is shift-invariant in the logits and stable for large ' + 'logits (softmax(z + c) = softmax(z), common practice)',
     () => {
       expect(certaintyFromLogits([1002, 1001, 1000])).toBeCloseTo(HAND_CERTAINTY, 12);
       expect(confidenceFromLogits([-998, -999, -1000])).toBeCloseTo(HAND_TOP, 12);

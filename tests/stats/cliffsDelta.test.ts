@@ -25,7 +25,7 @@ describe('cliffsDelta', () => {
   });
 
   it(
-    "effsize's test data: delta -0.25 and interval (-0.7125350951, 0.3639998950) (METHODS.md, R package " + 'effsize)',
+    "effsize's test data: delta -0.25 and interval " + '(-0.7125350951, 0.3639998950) (METHODS.md, R package effsize)',
     () => {
       const r = cliffsDelta(TREATMENT, CONTROL);
       expect(r.delta).toBe(-0.25);

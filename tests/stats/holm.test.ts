@@ -16,7 +16,7 @@ const BH_1995 = Object.freeze([
 
 describe('holm', () => {
   it(
-    'adjusts [.01, .04, .03, .005, .2, .03] to [.05, .12, .12, .03, .2, .12] (METHODS.md, scipy 1.10.1 era ' + 'check)',
+    'adjusts [.01, .04, .03, .005, .2, .03] to [.05, .12, ' + '.12, .03, .2, .12] (METHODS.md, scipy 1.10.1 era check)',
     () => {
       const p = Object.freeze([0.01, 0.04, 0.03, 0.005, 0.2, 0.03]);
       expectAllRelative(holm(p), [0.05, 0.12, 0.12, 0.03, 0.2, 0.12]);
@@ -24,7 +24,7 @@ describe('holm', () => {
   );
 
   it(
-    'rejects 3 of the 15 Benjamini & Hochberg (1995) p-values at .05 (their paper: Holm-type procedures reject ' + '3)',
+    'rejects 3 of the 15 Benjamini & Hochberg (1995) p-values ' + 'at .05 (their paper: Holm-type procedures reject 3)',
     () => {
       const adjusted = holm(BH_1995);
       expect(adjusted.filter((q) => q < 0.05).length).toBe(3);

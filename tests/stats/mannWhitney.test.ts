@@ -69,7 +69,7 @@ describe('mannWhitney: METHODS.md check values', () => {
   });
 
   it(
-    'C vs D exact conditional with ties (scipy 1.10.1: permutation_test of mannwhitneyu U over all 792 ' + 'splits)',
+    'C vs D exact conditional with ties (scipy 1.10.1: ' + 'permutation_test of mannwhitneyu U over all 792 splits)',
     () => {
       const two = mannWhitney(C, D);
       expect(two.method).toBe('exact-conditional');

@@ -3,7 +3,7 @@ import { percentileInterval } from '../../src/stats/percentileInterval.js';
 import { A, expectRelative, idealBootstrapMeans } from './idealBootstrap.js';
 
 describe(
-  'percentileInterval on the ideal bootstrap of mean(A): all 5^5 = 3125 resamples (METHODS.md, scipy ' + '1.10.1)',
+  'percentileInterval on the ideal bootstrap of mean(A): ' + 'all 5^5 = 3125 resamples (METHODS.md, scipy 1.10.1)',
   () => {
     const stats = idealBootstrapMeans(A);
     it('percentile 95% interval (70.32, 72.34)', () => {

@@ -19,7 +19,7 @@ const D5b = Object.freeze([68, 71, 70, 67, 72]); // differences 4, -1, 4, 3, 0: 
 
 describe('wilcoxonSignedRank: exact (no zeros, no ties)', () => {
   it(
-    "Darwin's data: W+ = 96, p two-sided 0.041259765625, greater 0.0206298828125 (scipy documentation " + 'example)',
+    "Darwin's data: W+ = 96, p two-sided 0.041259765625, " + 'greater 0.0206298828125 (scipy documentation example)',
     () => {
       const two = wilcoxonSignedRank(DARWIN, ZEROS);
       expect(two.exact).toBe(true);

@@ -462,7 +462,7 @@ describe('ingest reads digests beside raw logs', () => {
   );
 
   it(
-    'keys met in another order in another shard: ids rebuilt with the merged keys, as raw ingest builds ' + 'them',
+    'keys met in another order in another shard: ids ' + 'rebuilt with the merged keys, as raw ingest builds them',
     async () => {
       const root = await tree({
         'A/x=1/y=2/seed=1/log.csv': log(steps(3, 0.9)),
@@ -516,7 +516,7 @@ describe('ingest reads digests beside raw logs', () => {
   );
 
   it(
-    "goals: the first digest's goal is kept and a disagreement is a goal-conflict; --metric when reading " + 'decides',
+    "goals: the first digest's goal is kept and a disagreement " + 'is a goal-conflict; --metric when reading decides',
     async () => {
       const root = await tree({
         'A/c=1/seed=1/log.csv': log(steps(3, 0.9)),

@@ -67,7 +67,7 @@ describe('one run in several parts', () => {
   });
 
   it(
-    'tick metrics with different tick counts: the union of steps, missing ticks NaN, the later part ' + 'winning',
+    'tick metrics with different tick counts: the union ' + 'of steps, missing ticks NaN, the later part winning',
     async () => {
       const { parts: p, raw } = await parts({
         A: { 'seed=1/log.csv': 'step,acc@0,acc@1\n1,0.1,0.2\n2,0.3,0.4\n' },

@@ -192,7 +192,7 @@ describe('locate: --manifest', () => {
   });
 
   it(
-    'works without PATHs, checks params.json against the manifest, and reports a seedless row with its ' + 'line',
+    'works without PATHs, checks params.json against the ' + 'manifest, and reports a seedless row with its line',
     async () => {
       const root = await tree({
         'runs.csv': 'file,seed,ticks\na/log.csv,,8\n',

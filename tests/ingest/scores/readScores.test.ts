@@ -69,7 +69,7 @@ describe('score tables', () => {
   });
 
   it(
-    'a table of numbers only (no config, no seed column): one run per row, each seed-missing with its ' + 'line',
+    'a table of numbers only (no config, no seed column): ' + 'one run per row, each seed-missing with its line',
     async () => {
       const file = await table('n.csv', 'a,b\n1,2\n3,4\n');
       const set = await ingest([], opts({ scores: file }));

@@ -22,7 +22,7 @@ describe('compareChart', () => {
   });
 
   it(
-    'draws every estimate in its verdict colour, intervals only where they exist, and the verdict as ' + 'words',
+    'draws every estimate in its verdict colour, intervals ' + 'only where they exist, and the verdict as words',
     async () => {
       const svg = await render(results);
       const points = markItems(svg, 'estimate');

@@ -162,7 +162,7 @@ describe('curvesChart', () => {
   });
 
   it(
-    'stores each run and each config once, with per-step arrays, and draws one hover point per step with a ' + 'mean',
+    'stores each run and each config once, with per-step ' + 'arrays, and draws one hover point per step with a mean',
     async () => {
       const spec = curvesChart(results, 'val_acc') as TopLevelSpec & {
         layer: { name?: string; data?: { values: Record<string, unknown>[] } }[];

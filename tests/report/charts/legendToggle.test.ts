@@ -85,7 +85,7 @@ describe('pickedOpacity, layerOpacity, withLegendToggle', () => {
 for (const [name, spec] of CHARTS) {
   describe(`${name} with legend toggling`, () => {
     it(
-      'binds a point selection on config to the legend, and conditions the opacity of every config layer ' + 'on it',
+      'binds a point selection on config to the legend, and ' + 'conditions the opacity of every config layer on it',
       () => {
         expect(spec).not.toBeNull();
         const vega = compileVega(spec as TopLevelSpec) as {
