@@ -100,7 +100,7 @@ export const ANALYSIS_OPTIONS = {
   }),
   margin: option({
     flag: '--margin <m>',
-    help: 'non-inferiority margin in metric units, one-sided Welch (e.g. 0.005)',
+    help: 'non-inferiority margin in metric units, one-sided Welch (paired t under --paired) at alpha/2 (e.g. 0.005)',
     commands: REPORT,
     front: 'margin',
     shape: 'number',

@@ -208,7 +208,14 @@ function finish(
     family: { scope: s.family, correction: s.correction, size },
     verdict,
     nonInferiority:
-      s.margin === null || v === null ? null : { margin: s.margin, p: niP, holds: niP !== null && niP < s.alpha / 2 },
+      s.margin === null || v === null
+        ? null
+        : {
+            margin: s.margin,
+            test: v.pairedBounds ? 'paired-t' : 'welch',
+            p: niP,
+            holds: niP !== null && niP < s.alpha / 2,
+          },
     effect: v?.effect ?? {
       hedgesG: null,
       hedgesGLow: null,

@@ -116,8 +116,16 @@ export interface Comparison {
   readonly pAdjusted: number | null;
   readonly family: Family;
   readonly verdict: Verdict;
-  /** Under --margin: one-sided test at alpha/2 that the candidate is not worse by more than the margin. */
-  readonly nonInferiority: { readonly margin: number; readonly p: number | null; readonly holds: boolean } | null;
+  /**
+   * Under --margin: one-sided test at alpha/2 that the candidate is not worse by more than the margin;
+   * `test` is Welch's t, or the paired t on the seeds in both arms under --paired.
+   */
+  readonly nonInferiority: {
+    readonly margin: number;
+    readonly test: 'welch' | 'paired-t';
+    readonly p: number | null;
+    readonly holds: boolean;
+  } | null;
   readonly effect: {
     /** Hedges' g of candidate minus baseline (metric's own direction). */
     readonly hedgesG: number | null;

@@ -17,6 +17,7 @@
  *   goal-oriented (P(candidate better)).
  * - Detectable: the between-seed sd pooled within the two configs and the smallest difference
  *   detectable with 80% power at the current seed counts and alpha. No post-hoc power.
+ * - Non-inferiority under `--margin`: one-sided at alpha/2, Welch's, or the paired t under `--paired`.
  * Nothing here throws on data: a test that cannot run leaves its fields null with a reason.
  */
 import type { Goal } from '../ingest/types.js';
@@ -25,6 +26,7 @@ import { cliffsDelta } from '../stats/cliffsDelta.js';
 import { hedgesG } from '../stats/hedgesG.js';
 import { mannWhitney } from '../stats/mannWhitney.js';
 import { mean, variance } from '../stats/moments.js';
+import { pairedNonInferiority } from '../stats/pairedNonInferiority.js';
 import { pairedT } from '../stats/pairedT.js';
 import { permutationTest } from '../stats/permutation.js';
 import { minimumDetectableEffect } from '../stats/power.js';
@@ -35,6 +37,7 @@ import type { Arm } from './arms.js';
 import { attempt, finiteOrNull } from './attempt.js';
 import { formatNumber } from './cautions.js';
 import type { Comparison, Difference } from './comparisonTypes.js';
+import { pairedArms } from './pairedArms.js';
 import type { IntervalChoice } from './results.js';
 
 /** The settings the statistics read (a `ResolvedOptions` has them all). */
@@ -63,6 +66,7 @@ export interface TwoSampleDraft {
   readonly difference: Difference;
   readonly effect: Comparison['effect'];
   readonly detectable: Comparison['detectable'];
+  /** One-sided non-inferiority p (paired t when `pairedBounds`, else Welch); null without a margin. */
   readonly nonInferiorityP: number | null;
   /** Both arms have zero spread and differ: the permutation test decided. */
   readonly zeroSpread: boolean;
@@ -154,12 +158,13 @@ export function twoSampleDraft(
     by = paired.y;
     pairedBounds = true;
   }
+  // Non-inferiority at alpha/2 (the verdict compares): paired t on the pairs under --paired, else Welch.
   let nonInferiorityP: number | null = null;
-  if (s.margin !== null && !few && !flat) {
-    const margin = s.margin;
-    nonInferiorityP = finiteOrNull(
-      attempt(() => welchNonInferiority(x, y, margin, goal), 'the non-inferiority test', reasons)?.p,
-    );
+  const margin = s.margin;
+  if (margin !== null && (pairedBounds ? bx.length >= 2 : !few && !flat)) {
+    const test = () =>
+      pairedBounds ? pairedNonInferiority(bx, by, margin, goal) : welchNonInferiority(x, y, margin, goal);
+    nonInferiorityP = finiteOrNull(attempt(test, 'the non-inferiority test', reasons)?.p);
   }
   return {
     tests,
@@ -278,22 +283,4 @@ function detectableOf(x: Float64Array, y: Float64Array, alpha: number, cache: Po
     cache.set(key, d);
   }
   return { sd, minimumEffect: Number.isFinite(d) ? d * sd : null };
-}
-
-/** Values of the seeds present in both arms, in the candidate's order: x candidate, y baseline. */
-function pairedArms(base: Arm, cand: Arm): { x: Float64Array; y: Float64Array } {
-  const bySeed = new Map<string, number>();
-  base.seeds.forEach((seed, i) => {
-    bySeed.set(seed, base.values[i] as number);
-  });
-  const x: number[] = [];
-  const y: number[] = [];
-  cand.seeds.forEach((seed, i) => {
-    const b = bySeed.get(seed);
-    if (b !== undefined) {
-      x.push(cand.values[i] as number);
-      y.push(b);
-    }
-  });
-  return { x: Float64Array.from(x), y: Float64Array.from(y) };
 }

@@ -65,8 +65,8 @@ function verdictCell(c: Comparison): string {
   if (c.nonInferiority !== null) {
     words.push(
       c.nonInferiority.holds
-        ? `(not worse by ${c.nonInferiority.margin}, p ${formatP(c.nonInferiority.p)})`
-        : `(non-inferiority at margin ${c.nonInferiority.margin} not shown)`,
+        ? `(not worse by ${c.nonInferiority.margin}, ${PRIMARY[c.nonInferiority.test]}, p ${formatP(c.nonInferiority.p)})`
+        : `(non-inferiority at margin ${c.nonInferiority.margin} not shown, ${PRIMARY[c.nonInferiority.test]})`,
     );
   }
   return words.join(' ');

@@ -105,7 +105,7 @@ function comparison(
     pAdjusted: 0.06,
     family: { scope: 'study', correction: 'holm', size: 2 },
     verdict,
-    nonInferiority: { margin: 0.01, p: 0.02, holds: true },
+    nonInferiority: { margin: 0.01, test: 'welch', p: 0.02, holds: true },
     effect: {
       hedgesG: 1.2,
       hedgesGLow: 0.1,

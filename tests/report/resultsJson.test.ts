@@ -53,7 +53,7 @@ function fullResults(): Results {
     ...first,
     task: 'glyphs',
     tests: { ...first.tests, paired: { t: 2.1, df: 4, p: 0.1, wilcoxonP: 0.125, pairs: 5 } },
-    nonInferiority: { margin: 0.5, p: 0.01, holds: true },
+    nonInferiority: { margin: 0.5, test: 'paired-t', p: 0.01, holds: true },
   };
   return {
     ...r,

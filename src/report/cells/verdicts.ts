@@ -30,7 +30,7 @@ export const PRIMARY_WORDS: Readonly<Record<Comparison['primary'], string>> = {
   'log-rank': 'log-rank',
 };
 
-/** The verdict badge of a comparison, with the non-inferiority result when a margin was set. */
+/** The verdict badge of a comparison, with the non-inferiority result (and its test) when a margin was set. */
 export function verdictHtml(c: Comparison): string {
   const badge = `<span class="verdict verdict-${c.verdict}">${VERDICT_LABELS[c.verdict]}</span>`;
   const notes: string[] = [PRIMARY_WORDS[c.primary]];
@@ -40,8 +40,8 @@ export function verdictHtml(c: Comparison): string {
   if (ni !== null)
     notes.push(
       ni.holds
-        ? `not worse by more than ${ni.margin} (p ${formatP(ni.p)})`
-        : `not shown to be within ${ni.margin} (p ${formatP(ni.p)})`,
+        ? `not worse by more than ${ni.margin} (${PRIMARY_WORDS[ni.test]}, p ${formatP(ni.p)})`
+        : `not shown to be within ${ni.margin} (${PRIMARY_WORDS[ni.test]}, p ${formatP(ni.p)})`,
     );
   return `${badge}${notes.map((n) => `<br><span class="small">${textHtml(n)}</span>`).join('')}`;
 }

@@ -46,14 +46,15 @@ describe('{{verdicts}}', () => {
     const results: Results = {
       ...base,
       comparisons: [
-        { ...first, task: 'glyphs', nonInferiority: { margin: 0.5, p: 0.012, holds: true } },
-        { ...second, task: 'glyphs' },
+        { ...first, task: 'glyphs', nonInferiority: { margin: 0.5, test: 'welch', p: 0.012, holds: true } },
+        { ...second, task: 'glyphs', nonInferiority: { margin: 0.5, test: 'paired-t', p: 0.3, holds: false } },
       ],
     };
     const html = await renderCells('{{verdicts "val_acc"}}', results);
     expect(html).toContain('<th scope="col">Task</th>');
     expect(rows(html)[0]).toContain('against memory=4 glyphs memory=8 ● inconclusive');
-    expect(rows(html)[0]).toContain('not worse by more than 0.5 (p 0.012)');
+    expect(rows(html)[0]).toContain("not worse by more than 0.5 (Welch's t, p 0.012)");
+    expect(rows(html)[1]).toContain('not shown to be within 0.5 (paired t, p 0.3');
     expect(rows(await renderCells('{{verdicts "train_loss"}}', base))).toHaveLength(2);
   });
 
