@@ -21,6 +21,8 @@ import { compileLayout, type Layout } from './locate/layout.js';
 
 /** One `--seed-columns` pattern, compiled. */
 export interface SeedPattern {
+  /** The `NAME:PATTERN` (or bare PATTERN) as written in the option. */
+  readonly written: string;
   readonly metric: string;
   readonly text: string;
   readonly regex: RegExp;
@@ -149,6 +151,6 @@ export function seedPatterns(option: string): SeedPattern[] {
           .join('.*'),
       )
       .join('(.+?)');
-    return { metric, text, regex: new RegExp(`^${source}$`) };
+    return { written: part, metric, text, regex: new RegExp(`^${source}$`) };
   });
 }

@@ -42,6 +42,17 @@ for (const ticks of ['8', '16'])
 for (const seed of ['3', '4', '5', '6', '7'])
   write(join(broken, 'ticks=8', `seed=${seed}`, 'log.csv.gz'), 'not gzip at all\n');
 
+/**
+ * A wide file with one column per seed, the columns carrying a prefix `acc:` (issue 14, DESIGN "Inputs" 4). The
+ * expected lines below follow from first principles: the pattern matches whole column names, `*` any text.
+ */
+const wide = join(dir, 'wide');
+write(join(wide, 'ticks=8', 'wide.csv'), 'step,acc:seed_0_x,acc:seed_1_x\n1,0.5,0.6\n2,0.55,0.65\n');
+/** The same, plus a file whose columns the unprefixed pattern does match: no stop, a per-file matter. */
+const mixed = join(dir, 'mixed');
+write(join(mixed, 'ticks=8', 'wide.csv'), 'step,acc:seed_0_x,acc:seed_1_x\n1,0.5,0.6\n2,0.55,0.65\n');
+write(join(mixed, 'ticks=16', 'wide.csv'), 'step,seed_0_x,seed_1_x\n1,0.5,0.6\n2,0.55,0.65\n');
+
 async function firstLine(args: string[]): Promise<[number, string]> {
   const io = memoryIo();
   const code = await run(args, io);
@@ -76,12 +87,39 @@ describe('reading options that name nothing stop: exit 2, first line of stderr',
       ['scan', runs, '--metric', 'loss:min'],
       "seedsift: --metric: no metric 'loss' (metrics: val_acc); did you mean one of val_acc?",
     ],
+    [
+      '--seed-columns, columns with a prefix',
+      ['scan', wide, '--seed-columns', 'acc:seed_{seed}_*'],
+      "seedsift: --seed-columns: 'acc:seed_{seed}_*' matches no column (columns: step, acc:seed_0_x, acc:seed_1_x); " +
+        "did you mean 'acc:acc:seed_{seed}_*' (it matches 2 columns)?",
+    ],
+    [
+      '--seed-columns, columns with a suffix',
+      ['scan', wide, '--seed-columns', 'acc:acc:seed_{seed}_'],
+      "seedsift: --seed-columns: 'acc:acc:seed_{seed}_' matches no column " +
+        "(columns: step, acc:seed_0_x, acc:seed_1_x); did you mean 'acc:acc:seed_{seed}_*' (it matches 2 columns)?",
+    ],
+    [
+      '--seed-columns, nothing near',
+      ['scan', wide, '--seed-columns', 'loss:run{seed}'],
+      "seedsift: --seed-columns: 'loss:run{seed}' matches no column (columns: step, acc:seed_0_x, acc:seed_1_x); " +
+        'did you mean one of step, acc:seed_0_x, acc:seed_1_x?',
+    ],
   ];
   for (const [name, args, first] of cases)
     it(name, async () => {
       expect(await firstLine(args)).toEqual([EXIT_USAGE, first]);
     });
 });
+
+it(
+  'a --seed-columns pattern that one file matches does not stop the command ' + '(the other is a per-file problem)',
+  async () => {
+    const io = memoryIo();
+    expect(await run(['scan', mixed, '--seed-columns', 'acc:seed_{seed}_*'], io)).toBe(EXIT_DONE);
+    expect(io.out() + io.err()).toContain('column-unused');
+  },
+);
 
 describe('a gate never passes on nothing: exit 3', () => {
   it(

@@ -3,7 +3,8 @@
  * (columns.ts). A file that cannot be read, is empty, or (a log) has no step column is set aside
  * here with its file record and a problem; the others go on to loading, and their headers are
  * compared for drift (load/checks.ts `headerDrift`). A `--step` or `--seed-column` that is a
- * column of no file stops the command (namedColumns.ts).
+ * column of no file, or a `--seed-columns` pattern matching no column of any file, stops the command
+ * (namedColumns.ts).
  *
  * Checks that look at a file's columns alone belong here, after `planColumns` (for example: a
  * metric asked for that no file has).
