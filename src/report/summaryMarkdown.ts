@@ -65,7 +65,8 @@ function verdictCell(c: Comparison): string {
   if (c.nonInferiority !== null) {
     words.push(
       c.nonInferiority.holds
-        ? `(not worse by ${c.nonInferiority.margin}, ${PRIMARY[c.nonInferiority.test]}, p ${formatP(c.nonInferiority.p)})`
+        ? `(not worse by ${c.nonInferiority.margin}, ${PRIMARY[c.nonInferiority.test]}, ` +
+            `p ${formatP(c.nonInferiority.p)})`
         : `(non-inferiority at margin ${c.nonInferiority.margin} not shown, ${PRIMARY[c.nonInferiority.test]})`,
     );
   }

@@ -61,7 +61,8 @@ function paragraphs(s: Settings): [string, string][] {
         `otherwise.` +
         (s.margin === null
           ? ''
-          : ` Non-inferiority: a one-sided ${s.paired ? 'paired t-test on the seeds present in both arms' : 'Welch test'} ` +
+          : ' Non-inferiority: a one-sided ' +
+            `${s.paired ? 'paired t-test on the seeds present in both arms' : 'Welch test'} ` +
             `at alpha/2 that the candidate is not worse than the baseline by more than ${s.margin}: it holds exactly ` +
             `when the two-sided 1 - alpha t-interval of the difference lies above -${s.margin} (goal max) or below ` +
             `+${s.margin} (goal min).`),
