@@ -7,6 +7,7 @@
  * value at step 300; one run has no summary value (diverged) and one value is not used in tests;
  * one comparison has no interval (the three verdicts all occur); reliability bins with no samples have null accuracy.
  */
+import { fixtureSettings } from './fixtureSettings.js';
 import type {
   CalibrationCurve,
   Comparison,
@@ -262,33 +263,7 @@ export function makeResults(names: FixtureNames = DEFAULT_NAMES): Results {
     version: 1,
     tool: { name: 'seedsift', version: '0.1.0' },
     generated: '2026-01-01T00:00:00.000Z',
-    settings: {
-      alpha: 0.05,
-      seed: 1,
-      correction: 'holm',
-      summary: names.summary,
-      summaryDescription: "the last logged value at or before the comparison's step",
-      baseline: null,
-      taskKey: null,
-      margin: 0.01,
-      paired: false,
-      failed: 'exclude',
-      failOn: null,
-      family: 'study',
-      interval: 'welch',
-      metrics: null,
-      primary: null,
-      asMetric: [],
-      includeConfigs: [],
-      excludeConfigs: [],
-      candidates: [],
-      dropKeys: [],
-      keepKeys: null,
-      resamples: 10000,
-      bandResamples: 2000,
-      bootstrapFrom: 10,
-      level: 0.95,
-    },
+    settings: fixtureSettings({ summary: names.summary, margin: 0.01 }),
     inputs: { paths: ['runs'], mode: 'logs', files: 9, filesRead: 9 },
     configs,
     metrics,

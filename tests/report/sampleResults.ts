@@ -19,6 +19,7 @@
  * `sampleResults(names)` lets the hostile-data tests put any text in config, metric and seed names
  * and problem messages.
  */
+import { fixtureSettings } from './fixtureSettings.js';
 import type {
   CalibrationCurve,
   CautionKind,
@@ -565,33 +566,7 @@ export function sampleResults(names: SampleNames = SAMPLE_NAMES): Results {
     version: 1,
     tool: { name: 'seedsift', version: '0.1.0' },
     generated: '2026-03-01T12:00:00.000Z',
-    settings: {
-      alpha: 0.05,
-      seed: 1,
-      correction: 'holm',
-      summary: 'final',
-      summaryDescription: "the last logged value at or before the comparison's step",
-      baseline: names.configs[0],
-      taskKey: null,
-      margin: null,
-      paired: false,
-      failed: 'exclude',
-      failOn: null,
-      family: 'study',
-      interval: 'welch',
-      metrics: null,
-      primary: null,
-      asMetric: [],
-      includeConfigs: [],
-      excludeConfigs: [],
-      candidates: [],
-      dropKeys: [],
-      keepKeys: null,
-      resamples: 10000,
-      bandResamples: 2000,
-      bootstrapFrom: 10,
-      level: 0.95,
-    },
+    settings: fixtureSettings({ baseline: names.configs[0] }),
     inputs: { paths: [names.path], mode: 'logs', files: 18, filesRead: 17 },
     configs,
     metrics,
